@@ -1,0 +1,6 @@
+/** Types and small rules shared by the web app, the API and the command line. */
+export * from './auth';
+export * from './errors';
+export * from './pairs';
+export * from './roles';
+export * from './workspaces';

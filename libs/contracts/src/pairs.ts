@@ -1,0 +1,135 @@
+/**
+ * Donor–acceptor pairs and their parameters, as the API sends and receives them.
+ * Values are canonical (eV, Å, K, V, s, debye, cm⁻¹ for band data, Pa s); `unit` is the unit the
+ * user typed, kept for display. Unit names are those of CALC-API.md.
+ */
+
+/** Parameter kinds a pair may carry; each maps to one physical quantity. */
+export const PARAMETER_KINDS = {
+  deltaG0: { label: 'Driving force ΔG°', quantity: 'energy' },
+  deltaG0Recombination: { label: 'Recombination ΔG°', quantity: 'energy' },
+  lambdaInner: { label: 'Inner reorganization energy λᵢ', quantity: 'energy' },
+  lambdaOuter: { label: 'Outer reorganization energy λₒ', quantity: 'energy' },
+  coupling: { label: 'Electronic coupling |H_AB|', quantity: 'energy' },
+  hbarOmega: { label: 'Effective mode energy ħω', quantity: 'energy' },
+  tauL: { label: 'Longitudinal relaxation time τ_L', quantity: 'time' },
+  distance: { label: 'Centre-to-centre distance R', quantity: 'distance' },
+  edgeDistance: { label: 'Edge-to-edge distance', quantity: 'distance' },
+  radiusDonor: { label: 'Donor radius', quantity: 'distance' },
+  radiusAcceptor: { label: 'Acceptor radius', quantity: 'distance' },
+  donorOxidation: { label: 'Donor oxidation potential', quantity: 'potential' },
+  acceptorReduction: { label: 'Acceptor reduction potential', quantity: 'potential' },
+  excitationEnergy: { label: 'Excitation energy E₀₀', quantity: 'energy' },
+  epsilonStatic: { label: 'Static dielectric constant ε_s', quantity: 'dimensionless' },
+  refractiveIndex: { label: 'Refractive index n', quantity: 'dimensionless' },
+} as const;
+
+export type ParameterKind = keyof typeof PARAMETER_KINDS;
+
+export const PROVENANCE_KINDS = ['measured', 'computed', 'literature', 'derived', 'assumed'] as const;
+export type ProvenanceKind = (typeof PROVENANCE_KINDS)[number];
+
+export interface Provenance {
+  readonly kind: ProvenanceKind;
+  /** Required when kind is `literature`. */
+  readonly citation?: string | null;
+  /** For `derived`: the Gapwise method id, its inputs, and the source records it came from. */
+  readonly methodId?: string | null;
+  readonly methodInputs?: Record<string, unknown> | null;
+  readonly sources?: ReadonlyArray<{ readonly type: string; readonly id: string }> | null;
+  readonly note?: string | null;
+}
+
+export interface PairParameter {
+  readonly kind: ParameterKind;
+  /** Canonical value (eV, Å, K, V, s, …). */
+  readonly value: number;
+  /** Unit the user typed (CALC-API.md unit string); canonical unit when typed bare. */
+  readonly unit: string;
+  /** One standard deviation, canonical unit; null when not given. */
+  readonly uncertainty: number | null;
+  readonly provenance: Provenance;
+}
+
+export const PAIR_STATUSES = ['draft', 'active', 'archived'] as const;
+export type PairStatus = (typeof PAIR_STATUSES)[number];
+
+export const RATE_MODELS = ['marcus', 'mlj', 'crossover'] as const;
+export type RateModel = (typeof RATE_MODELS)[number];
+
+/** Body of create and update (update also carries `version`). */
+export interface PairInput {
+  readonly name: string;
+  readonly donor: string;
+  readonly acceptor: string;
+  readonly medium: string;
+  /** Kelvin. */
+  readonly temperature: number;
+  readonly temperatureUnit?: string;
+  readonly notes?: string;
+  readonly status?: PairStatus;
+  readonly tags?: string[];
+  readonly model?: RateModel;
+  readonly parameters: PairParameter[];
+}
+
+export interface PairUpdate extends PairInput {
+  /** The version the edit started from (optimistic locking); a stale one answers 409. */
+  readonly version: number;
+}
+
+/** Results the server computed on the last save (same dispatcher as the CLI). */
+export interface PairResults {
+  readonly model: RateModel;
+  readonly k: number | null;
+  readonly log10k: number | null;
+  readonly activationFreeEnergy: number | null;
+  readonly regime: string | null;
+  readonly warnings: ReadonlyArray<{ readonly code: string; readonly message: string }>;
+  readonly errors: ReadonlyArray<{ readonly field: string; readonly message: string }>;
+}
+
+export interface Pair extends PairInput {
+  readonly id: string;
+  readonly workspaceId: string;
+  readonly version: number;
+  readonly status: PairStatus;
+  readonly tags: string[];
+  readonly model: RateModel;
+  readonly results: PairResults | null;
+  readonly createdAt: string;
+  readonly updatedAt: string;
+  readonly updatedBy: { readonly id: string; readonly displayName: string } | null;
+}
+
+/** A row of the pairs table. */
+export interface PairListItem {
+  readonly id: string;
+  readonly name: string;
+  readonly donor: string;
+  readonly acceptor: string;
+  readonly status: PairStatus;
+  readonly tags: string[];
+  readonly deltaG0: number | null;
+  readonly lambda: number | null;
+  readonly coupling: number | null;
+  readonly log10k: number | null;
+  readonly regime: string | null;
+  readonly version: number;
+  readonly updatedAt: string;
+  readonly updatedBy: string | null;
+}
+
+export interface Page<T> {
+  readonly items: T[];
+  readonly total: number;
+  readonly offset: number;
+  readonly limit: number;
+}
+
+export interface PairVersionSummary {
+  readonly version: number;
+  readonly createdAt: string;
+  readonly createdBy: string | null;
+  readonly summary: string;
+}
