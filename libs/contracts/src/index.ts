@@ -4,3 +4,4 @@ export * from './errors';
 export * from './pairs';
 export * from './roles';
 export * from './workspaces';
+export * from './pair-calc';
