@@ -18,7 +18,7 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: 'calc',
-          include: ['libs/**/*.spec.ts', 'apps/cli/**/*.spec.ts'],
+          include: ['libs/**/*.spec.ts', 'apps/cli/**/*.spec.ts', 'test/lint/**/*.spec.ts'],
           environment: 'node',
         },
       },
