@@ -1,6 +1,14 @@
-/** Public API of the electrode family of the calculation core. */
+/** Public API of the electrode-kinetics family of the calculation core. */
 import type { MethodDefinition } from '../core/method';
+import { butlerVolmerMethod } from './butler-volmer/butler-volmer';
+import { mhcMethod } from './mhc/mhc';
+
+export { butlerVolmerMethod, butlerVolmerRates } from './butler-volmer/butler-volmer';
+export type { ButlerVolmerInputs, ButlerVolmerRates } from './butler-volmer/butler-volmer';
+export { integrateAdaptive } from './mhc/adaptive-gauss-kronrod';
+export { logErfc, logMhcClosedForm, logMhcIntegral, mhcMethod, mhcRates } from './mhc/mhc';
+export type { MhcInputs, MhcRates } from './mhc/mhc';
 
 /** Every `electrode.*` method, for the registry. */
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
-export const electrodeMethods: MethodDefinition<any>[] = [];
+export const electrodeMethods: MethodDefinition<any>[] = [mhcMethod, butlerVolmerMethod];
