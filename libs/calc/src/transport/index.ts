@@ -1,6 +1,16 @@
 /** Public API of the transport family of the calculation core. */
 import type { MethodDefinition } from '../core/method';
+import { hoppingMethod } from './hopping/hopping';
+
+export {
+  einsteinMobilityCm2PerVS,
+  hoppingMethod,
+  hoppingTransport,
+  piWeightedDiffusionCm2PerS,
+  randomWalkDiffusionCm2PerS,
+} from './hopping/hopping';
+export type { DiffusionForm, HoppingInputs, HoppingNeighbour, HoppingResult } from './hopping/hopping';
 
 /** Every `transport.*` method, for the registry. */
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
-export const transportMethods: MethodDefinition<any>[] = [];
+export const transportMethods: MethodDefinition<any>[] = [hoppingMethod];

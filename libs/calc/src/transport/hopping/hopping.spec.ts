@@ -1,0 +1,134 @@
+import seedrandom from 'seedrandom';
+import { describe, expect, it } from 'vitest';
+
+import {
+  einsteinMobilityCm2PerVS,
+  hoppingMethod,
+  hoppingTransport,
+  logMarcusRate,
+  piWeightedDiffusionCm2PerS,
+  randomWalkDiffusionCm2PerS,
+} from './hopping';
+
+const warnCodes = (inputs: Parameters<typeof hoppingTransport>[0]) => {
+  const codes: string[] = [];
+  hoppingMethod.compute(inputs, { warn: (code) => codes.push(code) });
+  return codes;
+};
+
+/**
+ * Continuous-time kinetic Monte Carlo of independent walkers (Gillespie 1977): each walker waits
+ * an exponential time with the total rate, then hops to a neighbour chosen ∝ its rate.
+ * Returns D = ⟨|r(t)|²⟩/(2nt) and its standard error over walkers (cm² s⁻¹).
+ */
+function kineticMonteCarlo(
+  vectorsAngstrom: number[][],
+  rates: number[],
+  dimensions: number,
+  totalTime: number,
+  walkers: number,
+  seed: string,
+): { diffusion: number; standardError: number } {
+  const random = seedrandom(seed);
+  const totalRate = rates.reduce((a, b) => a + b, 0);
+  const squared: number[] = [];
+  for (let w = 0; w < walkers; w++) {
+    const position = new Array(dimensions).fill(0);
+    let time = -Math.log(1 - random()) / totalRate;
+    while (time < totalTime) {
+      let pick = random() * totalRate;
+      let j = 0;
+      while (pick > rates[j] && j < rates.length - 1) pick -= rates[j++];
+      for (let d = 0; d < dimensions; d++) position[d] += vectorsAngstrom[j][d];
+      time += -Math.log(1 - random()) / totalRate;
+    }
+    squared.push(position.reduce((s, x) => s + (x * 1e-8) ** 2, 0));
+  }
+  const mean = squared.reduce((a, b) => a + b, 0) / walkers;
+  const variance = squared.reduce((s, x) => s + (x - mean) ** 2, 0) / (walkers - 1);
+  const scale = 1 / (2 * dimensions * totalTime);
+  return { diffusion: mean * scale, standardError: Math.sqrt(variance / walkers) * scale };
+}
+
+describe('hopping kernels', () => {
+  it('gives the exact 1D chain result D = r²k (SCIENCE.md §12)', () => {
+    expect(randomWalkDiffusionCm2PerS([3.5, 3.5], [2e12, 2e12], 1)).toBeCloseTo(
+      (3.5e-8) ** 2 * 2e12,
+      20,
+    );
+  });
+
+  it('has the P_i-weighted form smaller by the number of neighbours (SCIENCE.md §12)', () => {
+    const random = randomWalkDiffusionCm2PerS([4, 4, 4, 4], [1e12, 1e12, 1e12, 1e12], 2);
+    const weighted = piWeightedDiffusionCm2PerS([4, 4, 4, 4], [1e12, 1e12, 1e12, 1e12], 2);
+    expect(random / weighted).toBeCloseTo(4, 12);
+  });
+
+  it('agrees with a seeded kinetic Monte Carlo on an anisotropic 2D lattice', () => {
+    // Two bond types with different lengths and rates; KMC is an independent algorithm.
+    const vectors = [
+      [4, 0],
+      [-4, 0],
+      [0, 6],
+      [0, -6],
+    ];
+    const rates = [3, 3, 1, 1];
+    const exact = randomWalkDiffusionCm2PerS([4, 4, 6, 6], rates, 2);
+    const kmc = kineticMonteCarlo(vectors, rates, 2, 50, 4000, 'hopping-kmc');
+    expect(Math.abs(kmc.diffusion - exact)).toBeLessThan(4 * kmc.standardError);
+    expect(kmc.standardError / exact).toBeLessThan(0.03);
+  });
+
+  it('matches the Marcus example k = 8.978e10 s⁻¹ (SCIENCE.md §1)', () => {
+    expect(Math.exp(logMarcusRate(0.01, -0.3, 0.8, 298.15)) / 8.978e10).toBeCloseTo(1, 3);
+  });
+
+  it('uses k_BT/e = 0.025852 V at 300 K for the mobility (SCIENCE.md §16)', () => {
+    expect(einsteinMobilityCm2PerVS(0.025852, 300)).toBeCloseTo(1, 5);
+  });
+});
+
+describe('transport.hopping method', () => {
+  const base = {
+    neighbours: [
+      { distanceAngstrom: 5, couplingEv: 0.005, deltaG0Ev: 0 },
+      { distanceAngstrom: 5, couplingEv: -0.005, deltaG0Ev: 0 },
+    ],
+    lambdaEv: 0.2,
+    temperatureK: 300,
+    dimensions: 1 as const,
+    form: 'random-walk' as const,
+  };
+
+  it('reports rates, D = r²k for the symmetric chain, and μ = D/(k_BT/e)', () => {
+    const out = hoppingTransport(base);
+    const k = Math.exp(logMarcusRate(0.005, 0, 0.2, 300));
+    expect(out.rates[0]).toBeCloseTo(k, 0);
+    expect(out.rates[1]).toBe(out.rates[0]);
+    expect(out.diffusion / ((5e-8) ** 2 * k)).toBeCloseTo(1, 12);
+    expect(out.mobility).toBeCloseTo(out.diffusion / (8.617333262e-5 * 300), 15);
+  });
+
+  it('gives k = 0 and a null log10 for J = 0', () => {
+    const out = hoppingTransport({
+      ...base,
+      neighbours: [{ distanceAngstrom: 5, couplingEv: 0, deltaG0Ev: 0 }],
+    });
+    expect(out.rates).toEqual([0]);
+    expect(out.log10Rates).toEqual([null]);
+    expect(out.diffusion).toBe(0);
+  });
+
+  it('warns hopping-band-regime when J > λ/4 or J > k_BT (B27)', () => {
+    expect(warnCodes(base)).toEqual([]);
+    expect(
+      warnCodes({ ...base, neighbours: [{ distanceAngstrom: 5, couplingEv: 0.06, deltaG0Ev: 0 }] }),
+    ).toEqual(['hopping-band-regime']);
+  });
+
+  it('warns hopping-pi-weighted-form and halves D on the chain with that form (B28)', () => {
+    expect(warnCodes({ ...base, form: 'pi-weighted' })).toEqual(['hopping-pi-weighted-form']);
+    const out = hoppingTransport({ ...base, form: 'pi-weighted' });
+    expect(out.diffusion / out.diffusionRandomWalk).toBeCloseTo(0.5, 12);
+  });
+});
