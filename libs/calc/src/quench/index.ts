@@ -1,6 +1,16 @@
-/** Public API of the quench family of the calculation core. */
+/** Public API of the quenching family of the calculation core. */
 import type { MethodDefinition } from '../core/method';
+import { diffusionMethod } from './diffusion/diffusion';
+
+export {
+  debyeFactor,
+  diffusionMethod,
+  diffusionQuenching,
+  encounterQuenchingRate,
+  smoluchowskiRateM1S1,
+} from './diffusion/diffusion';
+export type { QuenchInputs, QuenchResult } from './diffusion/diffusion';
 
 /** Every `quench.*` method, for the registry. */
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
-export const quenchMethods: MethodDefinition<any>[] = [];
+export const quenchMethods: MethodDefinition<any>[] = [diffusionMethod];
