@@ -1,3 +1,66 @@
 /** Public API of the calculation core. Import it only as `@gapwise/calc`. */
 export * from './core/constants';
 export * from './core/method';
+
+// Dispatcher, registry and serialisation shared by the web pages, the API and the command line.
+export { calculate, runMethod, serializeAnswer, canonicalInputs } from './core/calculate';
+export { allMethods, findMethod, methodCatalog } from './core/registry';
+export type { CatalogEntry, CatalogInput } from './core/registry';
+
+// Units (the one units module) and strict input reading.
+export {
+  UNITS_BY_QUANTITY,
+  allowedUnits,
+  canonicalUnit,
+  convertUnits,
+  fromCanonical,
+  isUnitFor,
+  knownUnits,
+  toCanonical,
+  tryConvertUnits,
+  unitDimension,
+  UnitError,
+  quantityPhrase,
+  unrecognisedUnitMessage,
+  differenceScale,
+} from './core/units';
+export type { ConversionResult } from './core/units';
+export { RequestInputReader, WarningCollector, parseStrictNumber } from './core/inputs';
+export { WARNING_CODES, thermalEnergyEv } from './core/warnings';
+export { logGamma } from './core/special/log-gamma';
+
+// Kernels a web page may call directly (plots, screens).
+export {
+  LN_TWO_PI_OVER_HBAR,
+  marcusActivationEv,
+  marcusRate,
+  marcusRateLog,
+} from './rates/marcus/marcus';
+export { mljMinimumTerms, mljRateLog } from './rates/mlj/mlj';
+export type { MljSum } from './rates/mlj/mlj';
+export {
+  adiabaticityParameter,
+  crossoverRateLog,
+  solventControlledRateLog,
+} from './rates/crossover/crossover';
+export { rulerLog10Rate, rulerSlopePerAngstrom } from './rates/ruler/ruler';
+export { crossRelationLnF, crossRelationRateLog } from './rates/cross-relation/cross-relation';
+export { marcusRegime } from './rates/rate-inputs';
+export type { Regime } from './rates/rate-inputs';
+export { marcusLog10kInto, mljLog10kInto } from './rates/vector';
+export {
+  coulombWorkEv,
+  ionPairCoulombTermEv,
+  rehmWellerChargeRecombinationEv,
+  rehmWellerChargeSeparationEv,
+  wellerSolventCorrectionEv,
+} from './driving-force/rehm-weller/rehm-weller';
+export { pekarFactor, twoSphereLambdaEv } from './reorg/two-sphere/two-sphere';
+export { fourPointLambdas } from './reorg/four-point/four-point';
+export { gmhCouplingEv } from './coupling/gmh/gmh';
+export { HUSH_CONSTANT, hushCouplingCm1, hushLimitWidthCm1 } from './coupling/hush/hush';
+export { distanceDecayCouplingEv } from './coupling/distance-decay/distance-decay';
+export { twoStateMixing } from './evb/two-state/two-state';
+export type { TwoStateMixing } from './evb/two-state/two-state';
+export { symmetricEigensystem } from './evb/multi-state/multi-state';
+export type { Eigensystem } from './evb/multi-state/multi-state';

@@ -97,6 +97,13 @@ export interface InputReader {
   readonly failed: boolean;
   /** The typed unit of a dimensioned input, as given ('' when a bare number). */
   unitOf(name: string): string;
+  /**
+   * Readers for each element of an array of objects (e.g. `neighbors`, `points`); their errors
+   * name the element (`neighbors[2].distance`) and land in the same list.
+   */
+  objectArray(name: string, opts?: ArrayOptions): InputReader[];
+  /** A matrix (array of equal-length rows) of dimensioned numbers, converted element-wise. */
+  quantityMatrix(name: string, quantity: Quantity): number[][];
 }
 
 export interface ReadOptions {

@@ -1,0 +1,91 @@
+/**
+ * The one registry of calculation methods. The dispatcher, `gapwise calc --help`, the API
+ * documentation and the web forms all read it, so there is no second list to keep in step.
+ * Built lazily: `uncertainty.monteCarlo` imports the dispatcher, which imports this module, so the
+ * family arrays must not be touched while modules are still loading.
+ */
+import { couplingMethods } from '../coupling';
+import { drivingForceMethods } from '../driving-force';
+import { electrodeMethods } from '../electrode';
+import { evbMethods } from '../evb';
+import { fitMethods } from '../fit';
+import { gapMethods } from '../gap';
+import { quenchMethods } from '../quench';
+import { rateMethods } from '../rates';
+import { reorgMethods } from '../reorg';
+import { transportMethods } from '../transport';
+import { uncertaintyMethods } from '../uncertainty';
+import { unitMethods } from '../units';
+import type { InputSpec, MethodDefinition, OutputSpec, Quantity } from './method';
+import { allowedUnits, canonicalUnit } from './units';
+
+let byId: Map<string, MethodDefinition<any>> | undefined;
+
+function build(): Map<string, MethodDefinition<any>> {
+  const families = [
+    rateMethods,
+    drivingForceMethods,
+    reorgMethods,
+    gapMethods,
+    couplingMethods,
+    evbMethods,
+    electrodeMethods,
+    transportMethods,
+    quenchMethods,
+    fitMethods,
+    uncertaintyMethods,
+    unitMethods,
+  ];
+  const map = new Map<string, MethodDefinition<any>>();
+  for (const family of families) {
+    for (const method of family ?? []) {
+      if (map.has(method.id)) throw new Error(`Duplicate calculation method id '${method.id}'.`);
+      map.set(method.id, method);
+    }
+  }
+  return map;
+}
+
+/** Every registered method, in family order. */
+export function allMethods(): readonly MethodDefinition<any>[] {
+  byId ??= build();
+  return [...byId.values()];
+}
+
+/** The method with this id, if registered. */
+export function findMethod(id: string): MethodDefinition<any> | undefined {
+  byId ??= build();
+  return byId.get(id);
+}
+
+export interface CatalogInput extends InputSpec {
+  /** Canonical unit ('' when unitless). */
+  readonly unit: string;
+  /** Units accepted in `{ value, unit }` (empty when only bare numbers are accepted). */
+  readonly units: readonly string[];
+}
+
+export interface CatalogEntry {
+  readonly id: string;
+  readonly summary: string;
+  readonly references: readonly string[];
+  readonly inputs: readonly CatalogInput[];
+  readonly outputs: readonly OutputSpec[];
+}
+
+const UNITLESS: ReadonlySet<Quantity> = new Set(['integer', 'string', 'array', 'object']);
+
+/** Plain description of every method (help text, API docs, forms). */
+export function methodCatalog(): CatalogEntry[] {
+  return allMethods().map((method) => ({
+    id: method.id,
+    summary: method.summary,
+    references: [...method.references],
+    inputs: method.inputs.map((input) => ({
+      ...input,
+      unit: UNITLESS.has(input.quantity) ? '' : canonicalUnit(input.quantity),
+      units: allowedUnits(input.quantity),
+    })),
+    outputs: [...method.outputs],
+  }));
+}

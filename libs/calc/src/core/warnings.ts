@@ -1,0 +1,180 @@
+/**
+ * Warnings shared by several methods (VALIDATION.md part B), each with a stable kebab-case code.
+ * Methods call these helpers instead of re-wording the same caution, so the web page, the API and
+ * the command line show one message per condition.
+ */
+import { BOLTZMANN_EV_PER_K, CM1_PER_EV } from './constants';
+import type { WarningSink } from './method';
+
+/** Stable warning codes of the calculation core (VALIDATION.md part B numbers in comments). */
+export const WARNING_CODES = {
+  invertedRegion: 'inverted-region', // B1
+  rateUnderflow: 'rate-underflow', // B2
+  lambdaBelowKt: 'lambda-below-kt', // B3
+  couplingLarge: 'coupling-large', // B4
+  barrierLowering: 'coupling-barrier-lowering', // B5
+  lowFrequencyMode: 'low-frequency-mode', // B6
+  mljNotConverged: 'mlj-not-converged', // B7
+  temperatureRange: 'temperature-range', // B8
+  valueUnusuallyLarge: 'value-unusually-large', // B9
+  energyUnitSuspect: 'energy-unit-suspect', // B10
+  couplingUnitSuspect: 'coupling-unit-suspect', // B11
+  nearlyNonpolar: 'nearly-nonpolar', // B12
+  continuumRange: 'continuum-range', // B13
+  bornCorrectionLarge: 'born-correction-large', // B14
+  referenceElectrode: 'reference-electrode', // B15
+  excitationEnergySuspect: 'excitation-energy-suspect', // B16
+  rulerEndergonic: 'ruler-endergonic', // B22
+  rulerRange: 'ruler-range', // B23
+  crossRelationAsymmetric: 'cross-relation-asymmetric', // B24
+  hushBandNarrow: 'hush-band-narrow', // B31
+  gmhStrongMixing: 'gmh-strong-mixing', // B32
+  couplingZero: 'coupling-zero', // note: H = 0 gives k = 0
+  couplingNegative: 'coupling-negative', // note: sign is gauge-dependent, |H| used
+  fourPointNegative: 'four-point-negative',
+  degenerateStates: 'degenerate-states',
+} as const;
+
+/** Thermal energy k_BT in eV (CODATA 2018 k_B). */
+export function thermalEnergyEv(temperatureK: number): number {
+  return BOLTZMANN_EV_PER_K * temperatureK;
+}
+
+/** Whether a typed unit means eV (a bare number is canonical eV). */
+function typedInEv(unit: string): boolean {
+  return unit === '' || unit === 'eV';
+}
+
+/** B8: temperatures outside 150–500 K. */
+export function warnTemperatureRange(temperatureK: number, sink: WarningSink): void {
+  if (temperatureK < 150 || temperatureK > 500) {
+    sink.warn(
+      WARNING_CODES.temperatureRange,
+      'Check that λ, ΔG°, ε_s, τ_L refer to this temperature; classical Marcus questionable at ' +
+        `low T (T = ${temperatureK} K).`,
+    );
+  }
+}
+
+/**
+ * B9 and B10 for a reorganization energy or driving force: unusually large values, and values
+ * that look like kJ/mol or cm⁻¹ typed as eV.
+ * @param kind 'lambda' (B9 threshold 3 eV) or 'deltaG0' (B9 threshold 4 eV on |ΔG°|)
+ */
+export function warnEnergyMagnitude(
+  field: string,
+  kind: 'lambda' | 'deltaG0',
+  valueEv: number,
+  typedUnit: string,
+  sink: WarningSink,
+): void {
+  const magnitude = Math.abs(valueEv);
+  const limit = kind === 'lambda' ? 3 : 4;
+  if (magnitude > limit) {
+    sink.warn(
+      WARNING_CODES.valueUnusuallyLarge,
+      `Unusually large value of ${field} (${valueEv} eV); check units (kJ/mol entered as eV?).`,
+    );
+  }
+  if (typedInEv(typedUnit) && magnitude >= 20 && magnitude <= 1000) {
+    sink.warn(
+      WARNING_CODES.energyUnitSuspect,
+      `${field} = ${valueEv} eV looks like kJ/mol or cm⁻¹ entered as eV.`,
+    );
+  }
+}
+
+/** B9 (|H| > 0.5 eV) and B11 (H typed in eV but > 10, or in cm⁻¹ but < 0.01 cm⁻¹). */
+export function warnCouplingMagnitude(
+  field: string,
+  couplingEv: number,
+  typedUnit: string,
+  sink: WarningSink,
+): void {
+  const magnitude = Math.abs(couplingEv);
+  if (magnitude > 0.5) {
+    sink.warn(
+      WARNING_CODES.valueUnusuallyLarge,
+      `Unusually large value of ${field} (${couplingEv} eV); check units (kJ/mol entered as eV?).`,
+    );
+  }
+  const typedCm1 = magnitude * CM1_PER_EV;
+  if (
+    (typedInEv(typedUnit) && magnitude > 10) ||
+    (typedUnit === 'cm-1' && magnitude > 0 && typedCm1 < 0.01)
+  ) {
+    sink.warn(WARNING_CODES.couplingUnitSuspect, `Check coupling units (${field}).`);
+  }
+}
+
+/** B3: λ below k_BT makes the classical Gaussian unreliable. */
+export function warnLambdaBelowKt(lambdaEv: number, temperatureK: number, sink: WarningSink): void {
+  if (lambdaEv < thermalEnergyEv(temperatureK)) {
+    sink.warn(
+      WARNING_CODES.lambdaBelowKt,
+      'λ smaller than thermal energy: classical Gaussian not reliable.',
+    );
+  }
+}
+
+/** B1: the inverted region, where classical Marcus neglects nuclear tunnelling. */
+export function warnInvertedRegion(deltaG0Ev: number, lambdaEv: number, sink: WarningSink): void {
+  if (-deltaG0Ev > lambdaEv) {
+    sink.warn(
+      WARNING_CODES.invertedRegion,
+      'Inverted region: classical Marcus neglects nuclear tunnelling and may underestimate k by ' +
+        'orders of magnitude; use MLJ.',
+    );
+  }
+}
+
+/**
+ * B4: the golden-rule (nonadiabatic) formula overestimates when |H| > k_BT or the solvent
+ * adiabaticity κ_A = 4π|H|²τ_L/(ħλ) exceeds 0.1 (Zusman 1980; Rips & Jortner 1987).
+ */
+export function warnCouplingLarge(
+  couplingEv: number,
+  temperatureK: number,
+  sink: WarningSink,
+  adiabaticity?: number,
+): void {
+  const overKt = Math.abs(couplingEv) > thermalEnergyEv(temperatureK);
+  const overKappa = adiabaticity !== undefined && adiabaticity > 0.1;
+  if (overKt || overKappa) {
+    sink.warn(
+      WARNING_CODES.couplingLarge,
+      'Nonadiabatic (golden-rule) formula overestimates; adiabatic/solvent-controlled correction ' +
+        'needed (SCIENCE.md §3).',
+    );
+  }
+}
+
+/** B5: |H| > λ/10 lowers the barrier by about |H|, which the diabatic rate leaves out. */
+export function warnBarrierLowering(couplingEv: number, lambdaEv: number, sink: WarningSink): void {
+  if (Math.abs(couplingEv) > lambdaEv / 10) {
+    sink.warn(
+      WARNING_CODES.barrierLowering,
+      'Barrier lowering by ~|H_AB| not included in the diabatic rate.',
+    );
+  }
+}
+
+/** Notes for H = 0 (k = 0) and H < 0 (|H| used; the sign is gauge-dependent). */
+export function noteCouplingSign(couplingEv: number, sink: WarningSink): void {
+  if (couplingEv === 0) {
+    sink.warn(WARNING_CODES.couplingZero, 'H_AB = 0: no electronic coupling, so k = 0.');
+  } else if (couplingEv < 0) {
+    sink.warn(
+      WARNING_CODES.couplingNegative,
+      'H_AB < 0 used as |H_AB|: the sign of a coupling is gauge-dependent; only |H_AB|² enters.',
+    );
+  }
+}
+
+/** Underflow note when a rate is below the double range (B2); log10 k stays exact. */
+export function warnRateUnderflow(log10k: number, sink: WarningSink): void {
+  sink.warn(
+    WARNING_CODES.rateUnderflow,
+    `Rate below floating-point range; reported as log10 k (= ${log10k.toFixed(3)}), k given as 0.`,
+  );
+}

@@ -1,0 +1,114 @@
+/**
+ * `evb.multiState`: adiabatic states of a multi-state diabatic Hamiltonian.
+ */
+import { eigs } from 'mathjs';
+import type { MethodDefinition } from '../../core/method';
+import { MAX_ENERGY_EV } from '../../rates/rate-inputs';
+
+/** Largest Hamiltonian accepted (the eigen-solver is O(n³) per sweep). */
+export const MAX_STATES = 200;
+/** Relative asymmetry |H_ij − H_ji| / max|H| above which the matrix is refused. */
+const SYMMETRY_TOLERANCE = 1e-12;
+
+export interface Eigensystem {
+  /** Eigenvalues in ascending order, eV. */
+  readonly energies: number[];
+  /** vectors[k] is the normalised eigenvector of energies[k] (largest component positive). */
+  readonly vectors: number[][];
+}
+
+/** Scales a vector to unit length and turns it so its largest-magnitude component is positive. */
+function normaliseVector(vector: readonly number[]): number[] {
+  const norm = Math.hypot(...vector);
+  let pivot = 0;
+  for (let i = 1; i < vector.length; i++) {
+    if (Math.abs(vector[i]) > Math.abs(vector[pivot]) + 1e-12) pivot = i;
+  }
+  const sign = vector[pivot] < 0 ? -1 : 1;
+  return vector.map((component) => (sign * component) / norm);
+}
+
+/**
+ * Eigenvalues and eigenvectors of a real symmetric Hamiltonian by mathjs `eigs` (Jacobi
+ * rotations for real symmetric input; C. G. J. Jacobi, J. Reine Angew. Math. 1846, 30, 51; G. H.
+ * Golub, C. F. Van Loan, Matrix Computations, 4th ed., Johns Hopkins 2013, §8.5), sorted
+ * ascending, with a deterministic sign for each vector.
+ */
+export function symmetricEigensystem(hamiltonianEv: readonly (readonly number[])[]): Eigensystem {
+  const n = hamiltonianEv.length;
+  if (n === 1) return { energies: [hamiltonianEv[0][0]], vectors: [[1]] };
+  // Symmetrise exactly so round-off asymmetry below the tolerance cannot upset the solver.
+  const matrix = hamiltonianEv.map((row, i) =>
+    row.map((value, j) => 0.5 * (value + hamiltonianEv[j][i])),
+  );
+  const result = eigs(matrix) as unknown as {
+    eigenvectors: { value: number; vector: number[] }[];
+  };
+  const pairs = result.eigenvectors
+    .map(({ value, vector }) => ({
+      value: Number(value),
+      vector: normaliseVector(vector.map(Number)),
+    }))
+    .sort((a, b) => a.value - b.value);
+  return { energies: pairs.map((p) => p.value), vectors: pairs.map((p) => p.vector) };
+}
+
+export interface MultiStateInputs {
+  readonly hamiltonianEv: number[][];
+}
+
+export const multiStateMethod: MethodDefinition<MultiStateInputs> = {
+  id: 'evb.multiState',
+  summary: 'Adiabatic energies and states of a symmetric multi-state diabatic Hamiltonian.',
+  references: [
+    'C. G. J. Jacobi, J. Reine Angew. Math. 1846, 30, 51 (Jacobi eigenvalue method)',
+    'G. H. Golub, C. F. Van Loan, Matrix Computations, 4th ed., Johns Hopkins University Press 2013, §8.5',
+    'mathjs eigs (real symmetric case), https://mathjs.org/docs/reference/functions/eigs.html',
+  ],
+  inputs: [
+    {
+      name: 'hamiltonian',
+      quantity: 'array',
+      required: true,
+      description:
+        'Square symmetric matrix of diabatic energies and couplings, eV (elements may be { value, unit }).',
+    },
+  ],
+  outputs: [
+    { name: 'energies', unit: 'eV', description: 'Adiabatic energies, ascending.' },
+    {
+      name: 'vectors',
+      unit: '',
+      description: 'vectors[k]: normalised eigenvector of energies[k] in the diabatic basis.',
+    },
+  ],
+  read(reader) {
+    const hamiltonianEv = reader.quantityMatrix('hamiltonian', 'energy');
+    const n = hamiltonianEv.length;
+    if (n === 0 || reader.failed) return { hamiltonianEv };
+    if (hamiltonianEv[0].length !== n) {
+      reader.fail('hamiltonian', 'Hamiltonian must be a square matrix.');
+    } else if (n > MAX_STATES) {
+      reader.fail('hamiltonian', `Hamiltonian larger than ${MAX_STATES} states is not supported.`);
+    } else {
+      const scale = Math.max(...hamiltonianEv.flat().map(Math.abs));
+      if (scale > MAX_ENERGY_EV) {
+        reader.fail(
+          'hamiltonian',
+          `Hamiltonian elements must satisfy |H_ij| ≤ ${MAX_ENERGY_EV} eV.`,
+        );
+      }
+      for (let i = 0; i < n; i++) {
+        for (let j = i + 1; j < n; j++) {
+          if (Math.abs(hamiltonianEv[i][j] - hamiltonianEv[j][i]) > SYMMETRY_TOLERANCE * scale) {
+            reader.fail(`hamiltonian[${i}][${j}]`, 'Hamiltonian must be symmetric (H_ij = H_ji).');
+          }
+        }
+      }
+    }
+    return { hamiltonianEv };
+  },
+  compute(inputs) {
+    return { ...symmetricEigensystem(inputs.hamiltonianEv) };
+  },
+};

@@ -1,0 +1,16 @@
+/** Rate methods of the calculation core (classical Marcus, MLJ, crossover, ruler, cross relation). */
+import type { MethodDefinition } from '../core/method';
+import { crossRelationMethod } from './cross-relation/cross-relation';
+import { crossoverMethod } from './crossover/crossover';
+import { marcusMethod } from './marcus/marcus';
+import { mljMethod } from './mlj/mlj';
+import { rulerMethod } from './ruler/ruler';
+
+/** Every `rate.*` method, for the registry. */
+export const rateMethods: MethodDefinition<any>[] = [
+  marcusMethod,
+  mljMethod,
+  crossoverMethod,
+  rulerMethod,
+  crossRelationMethod,
+];
