@@ -1,0 +1,110 @@
+/**
+ * Writes one computed chunk idempotently: in ONE transaction the chunk row is locked, skipped
+ * when already done (or its screen is no longer running), its results inserted with
+ * `ON CONFLICT DO NOTHING` on (screen_id, row_number), the chunk marked done and the screen's
+ * counters advanced. A worker killed anywhere inside loses the whole transaction, so a retry
+ * neither loses nor duplicates rows.
+ */
+import type { DataSource, EntityManager } from 'typeorm';
+import { computeChunk, REGIMES, type ChunkResult } from './chunk-computer';
+import { decodeInputChunk } from './screen-parser';
+import type { ScoreChoice, ScoreKind } from './screen-score';
+
+const num = (a: Float64Array): Array<number | null> => Array.from(a, (x) => (Number.isFinite(x) ? x : null));
+
+/** Inserts the rows of a chunk result (ignoring rows already there). */
+export async function insertResults(tx: EntityManager, screenId: string, r: ChunkResult): Promise<void> {
+  const regime = (codes: Uint8Array, valid: Float64Array) =>
+    Array.from(codes, (c, i) => (Number.isFinite(valid[i]) ? REGIMES[c] : null));
+  await tx.query(
+    `INSERT INTO screen_results (screen_id, row_number, donor, acceptor, solvent, delta_g_cs,
+       delta_g_cr, lambda_inner, lambda_outer, lambda_total, coupling, temperature_k,
+       log10k_cs_marcus, log10k_cr_marcus, log10k_cs_mlj, log10k_cr_mlj, regime_cs, regime_cr,
+       warning_mask, score)
+     SELECT $1, * FROM unnest($2::int[], $3::text[], $4::text[], $5::text[], $6::float8[],
+       $7::float8[], $8::float8[], $9::float8[], $10::float8[], $11::float8[], $12::float8[],
+       $13::float8[], $14::float8[], $15::float8[], $16::float8[], $17::text[], $18::text[],
+       $19::int[], $20::float8[])
+     ON CONFLICT (screen_id, row_number) DO NOTHING`,
+    [
+      screenId,
+      r.lines,
+      r.donor,
+      r.acceptor,
+      r.solvent,
+      num(r.deltaGCs),
+      num(r.deltaGCr),
+      num(r.lambdaInner),
+      num(r.lambdaOuter),
+      num(r.lambdaTotal),
+      num(r.coupling),
+      num(r.temperature),
+      num(r.log10kCsMarcus),
+      num(r.log10kCrMarcus),
+      num(r.log10kCsMlj),
+      num(r.log10kCrMlj),
+      regime(r.regimeCs, r.log10kCsMarcus),
+      regime(r.regimeCr, r.log10kCrMarcus),
+      Array.from(r.warningMask),
+      num(r.score),
+    ],
+  );
+}
+
+export type ChunkOutcome = 'done' | 'already-done' | 'screen-not-running' | 'missing';
+
+/**
+ * Computes and stores one chunk (the body of a `screen-chunk` job).
+ * @param hooks.beforeCommit test hook: runs inside the transaction after the insert
+ */
+export async function processChunk(
+  db: DataSource,
+  screenId: string,
+  chunkIndex: number,
+  worker: string,
+  hooks: { beforeCommit?: () => Promise<void> } = {},
+): Promise<ChunkOutcome> {
+  // Counted outside the transaction, so attempts killed mid-way are counted too.
+  await db.query(
+    'UPDATE screen_chunks SET attempts = attempts + 1, worker = $3 WHERE screen_id = $1 AND chunk_index = $2',
+    [screenId, chunkIndex, worker],
+  );
+  return db.transaction(async (tx) => {
+    const rows: Array<{ status: string; screen_status: string; score_kind: string; score_floor_ev: number | null }> =
+      await tx.query(
+        `SELECT c.status, s.status AS screen_status, s.score_kind, s.score_floor_ev
+           FROM screen_chunks c JOIN screens s ON s.id = c.screen_id
+          WHERE c.screen_id = $1 AND c.chunk_index = $2
+          FOR UPDATE OF c`,
+        [screenId, chunkIndex],
+      );
+    const chunk = rows[0];
+    if (!chunk) return 'missing';
+    if (chunk.status === 'done') return 'already-done';
+    if (chunk.screen_status !== 'running') return 'screen-not-running';
+    const inputs: Array<{ payload: string }> = await tx.query(
+      'SELECT payload FROM screen_inputs WHERE screen_id = $1 AND chunk_index = $2',
+      [screenId, chunkIndex],
+    );
+    if (!inputs[0]) return 'missing';
+    const score: ScoreChoice = {
+      kind: chunk.score_kind as ScoreKind,
+      floorEv: chunk.score_floor_ev ?? undefined,
+    };
+    const result = computeChunk(decodeInputChunk(chunkIndex, inputs[0].payload), score);
+    await insertResults(tx, screenId, result);
+    await hooks.beforeCommit?.();
+    await tx.query(
+      `UPDATE screen_chunks SET status = 'done', finished_at = now() WHERE screen_id = $1 AND chunk_index = $2`,
+      [screenId, chunkIndex],
+    );
+    await tx.query(
+      `UPDATE screens SET rows_done = rows_done + $2, chunks_done = chunks_done + 1,
+              status = CASE WHEN chunks_done + 1 >= chunk_count AND status = 'running' THEN 'done' ELSE status END,
+              finished_at = CASE WHEN chunks_done + 1 >= chunk_count AND status = 'running' THEN now() ELSE finished_at END
+        WHERE id = $1`,
+      [screenId, result.size],
+    );
+    return 'done';
+  });
+}
