@@ -5,3 +5,6 @@ export * from './pairs';
 export * from './roles';
 export * from './workspaces';
 export * from './pair-calc';
+export * from './reports';
+export * from './report-format';
+export * from './traces';

@@ -1,0 +1,130 @@
+/**
+ * The strings a report prints, built from a snapshot: shared by the PDF renderer and the CSV
+ * export so both say the same thing. Formatting of numbers lives in `@gapwise/contracts`.
+ */
+import {
+  displayUnit,
+  formatEnergyEv,
+  formatFixed,
+  formatLog10,
+  formatNumber,
+  formatInputQuantity,
+  formatRate,
+  formatRegime,
+  formatUncertainty,
+  type Provenance,
+  type ReportInput,
+  type ReportModelResult,
+  type ReportPairSnapshot,
+} from '@gapwise/contracts';
+
+export const MODEL_NAMES: Readonly<Record<string, string>> = {
+  marcus: 'Classical nonadiabatic Marcus',
+  mlj: 'Marcus–Levich–Jortner (one quantum mode)',
+  crossover: 'Nonadiabatic–adiabatic crossover (solvent control)',
+  ruler: 'Empirical protein ruler',
+};
+
+export function modelName(model: string): string {
+  return MODEL_NAMES[model] ?? model;
+}
+
+/** "Literature — Smith et al. 2020" / "Derived — drivingForce.rehmWeller (from …)". */
+export function provenanceText(p: Provenance): string {
+  const kind = p.kind.charAt(0).toUpperCase() + p.kind.slice(1);
+  const parts: string[] = [];
+  if (p.citation) parts.push(p.citation);
+  if (p.methodId) {
+    const inputs = p.methodInputs
+      ? Object.entries(p.methodInputs)
+          .map(([k, v]) => `${k} = ${typeof v === 'number' ? formatNumber(v) : JSON.stringify(v)}`)
+          .join(', ')
+      : '';
+    parts.push(inputs ? `${p.methodId} from ${inputs}` : p.methodId);
+  }
+  if (p.sources && p.sources.length > 0) parts.push(`sources: ${p.sources.map((s) => `${s.type} ${s.id}`).join(', ')}`);
+  if (p.note) parts.push(p.note);
+  return parts.length > 0 ? `${kind}: ${parts.join('; ')}` : kind;
+}
+
+/** "−6.918 kcal/mol" — the value as the user typed it. */
+export function typedText(input: ReportInput): string {
+  return formatInputQuantity(input.typedValue, input.typedUnit);
+}
+
+/** "−0.3 eV" — canonical value. */
+export function canonicalText(input: ReportInput): string {
+  return formatInputQuantity(input.value, input.canonicalUnit);
+}
+
+export function uncertaintyText(input: ReportInput): string {
+  return formatUncertainty(input.uncertainty, input.canonicalUnit);
+}
+
+/** Row of the inputs table: parameter, as typed, canonical, uncertainty, provenance. */
+export function inputRow(input: ReportInput): string[] {
+  return [input.label, typedText(input), canonicalText(input), uncertaintyText(input), provenanceText(input.provenance)];
+}
+
+/** "log10 k 10.62 – 11.21 (95 %, median 10.95; 2000 samples)". */
+export function intervalText(result: ReportModelResult, hasUncertainties = false): string {
+  const iv = result.interval;
+  if (!iv) return hasUncertainties ? 'not available for this model' : 'no uncertainties given';
+  const width = iv.percentiles[1] - iv.percentiles[0];
+  return (
+    `${formatFixed(iv.log10kLow)} to ${formatFixed(iv.log10kHigh)} ` +
+    `(${formatNumber(width, 3)} %, median ${formatFixed(iv.log10kMedian)}; ${iv.samples} samples)`
+  );
+}
+
+/** Row of the results table. */
+export function resultRow(result: ReportModelResult, hasUncertainties = false): string[] {
+  return [
+    modelName(result.model) + (result.primary ? ' (chosen)' : ''),
+    formatRate(result.k),
+    formatLog10(result.log10k),
+    formatEnergyEv(result.activationFreeEnergy),
+    formatRegime(result.regime),
+    intervalText(result, hasUncertainties),
+  ];
+}
+
+/** Whether any input of the pair states an uncertainty. */
+export function hasUncertainties(pair: ReportPairSnapshot): boolean {
+  return pair.inputs.some((i) => i.uncertainty !== null && i.uncertainty > 0);
+}
+
+/** The canonical value of one input kind, or null. */
+export function inputValue(pair: ReportPairSnapshot, kind: string): number | null {
+  return pair.inputs.find((i) => i.kind === kind)?.value ?? null;
+}
+
+/** Total λ = λ_inner + λ_outer (either may be absent), or null. */
+export function totalLambda(pair: ReportPairSnapshot): number | null {
+  const inner = inputValue(pair, 'lambdaInner');
+  const outer = inputValue(pair, 'lambdaOuter');
+  if (inner === null && outer === null) return null;
+  return (inner ?? 0) + (outer ?? 0);
+}
+
+export function primaryResult(pair: ReportPairSnapshot): ReportModelResult | null {
+  return pair.results.find((r) => r.primary) ?? null;
+}
+
+/** Row of a comparison table. */
+export function comparisonRow(pair: ReportPairSnapshot): string[] {
+  const r = primaryResult(pair);
+  const energy = (v: number | null) => (v === null ? '—' : `${formatNumber(v, 3)} eV`);
+  const h = inputValue(pair, 'coupling');
+  return [
+    `${pair.name} (v${pair.pairVersion})`,
+    energy(inputValue(pair, 'deltaG0')),
+    energy(totalLambda(pair)),
+    h === null ? '—' : `${formatNumber(Math.abs(h), 3)} eV`,
+    `${formatNumber(pair.temperatureK, 5)} ${displayUnit('K')}`,
+    modelName(pair.model),
+    formatRate(r?.k ?? null),
+    formatLog10(r?.log10k ?? null),
+    formatRegime(r?.regime ?? null),
+  ];
+}

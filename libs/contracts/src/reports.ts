@@ -1,0 +1,190 @@
+/**
+ * Reports and their review, as the API sends them and as the PDF renderer reads them.
+ *
+ * A `ReportSnapshot` is frozen when a report is created (or revised): the pair at one version,
+ * the results computed from it, the methods used with their published sources, and the software
+ * version. It never changes afterwards; its id is a content hash (`snapshotId`). The review state
+ * (status, comments, decisions) lives beside it and is passed to the renderer separately.
+ */
+import type { ParameterKind, Provenance, RateModel } from './pairs';
+
+export const REPORT_STATUSES = ['draft', 'submitted', 'changes-requested', 'approved'] as const;
+export type ReportStatus = (typeof REPORT_STATUSES)[number];
+
+export const REPORT_KINDS = ['pair', 'comparison'] as const;
+export type ReportKind = (typeof REPORT_KINDS)[number];
+
+/** Review actions and the statuses they move between (draft → submitted → …). */
+export const REPORT_TRANSITIONS = {
+  submit: { from: ['draft', 'changes-requested'], to: 'submitted' },
+  'request-changes': { from: ['submitted'], to: 'changes-requested' },
+  approve: { from: ['submitted'], to: 'approved' },
+} as const satisfies Record<string, { from: readonly ReportStatus[]; to: ReportStatus }>;
+export type ReportAction = keyof typeof REPORT_TRANSITIONS;
+
+/** One input of a pair as it stood when the snapshot was taken. */
+export interface ReportInput {
+  /** Parameter kind, or `temperature` for the pair's temperature. */
+  readonly kind: ParameterKind | 'temperature';
+  readonly label: string;
+  /** Canonical value (eV, Å, K, V, s, …). */
+  readonly value: number;
+  readonly canonicalUnit: string;
+  /** The value in the unit the user typed, and that unit. */
+  readonly typedValue: number;
+  readonly typedUnit: string;
+  /** One standard deviation in the canonical unit, or null. */
+  readonly uncertainty: number | null;
+  readonly provenance: Provenance;
+}
+
+/** Monte Carlo interval of log10 k from the stated uncertainties. */
+export interface ReportInterval {
+  readonly log10kMedian: number;
+  readonly log10kLow: number;
+  readonly log10kHigh: number;
+  /** Lower and upper percentiles, e.g. 2.5 and 97.5. */
+  readonly percentiles: readonly [number, number];
+  readonly samples: number;
+  readonly seed: number;
+}
+
+/** The result of one rate model for the pair, or why it does not apply. */
+export interface ReportModelResult {
+  /** A pair rate model, or `ruler` (the empirical protein ruler, when an edge distance is given). */
+  readonly model: RateModel | 'ruler';
+  /** Calculation method id (CALC-API.md), e.g. `rate.marcus`. */
+  readonly methodId: string;
+  /** Whether this is the pair's chosen model. */
+  readonly primary: boolean;
+  readonly applies: boolean;
+  /** When the model does not apply: what is missing or refused. */
+  readonly reason: string | null;
+  readonly k: number | null;
+  readonly log10k: number | null;
+  /** ΔG‡ in eV (classical (ΔG° + λ)²/4λ where the model does not report its own). */
+  readonly activationFreeEnergy: number | null;
+  readonly regime: string | null;
+  readonly interval: ReportInterval | null;
+  readonly warnings: ReadonlyArray<{ readonly code: string; readonly message: string }>;
+}
+
+/** A method cited in the report: the equation as printed and its published sources. */
+export interface ReportMethod {
+  readonly id: string;
+  readonly name: string;
+  /** Plain-text equation(s), Unicode (λ, Δ, ‡, subscripts, U+2212 minus). */
+  readonly equation: string;
+  readonly references: readonly string[];
+}
+
+/** Everything a report shows about one pair. */
+export interface ReportPairSnapshot {
+  readonly pairId: string;
+  readonly pairVersion: number;
+  readonly name: string;
+  readonly donor: string;
+  readonly acceptor: string;
+  readonly medium: string;
+  readonly temperatureK: number;
+  readonly model: RateModel;
+  readonly inputs: readonly ReportInput[];
+  readonly results: readonly ReportModelResult[];
+  /** Warnings of the pair as a whole, de-duplicated across models. */
+  readonly warnings: ReadonlyArray<{ readonly code: string; readonly message: string }>;
+}
+
+export interface ReportSnapshot {
+  readonly schema: 1;
+  readonly kind: ReportKind;
+  readonly title: string;
+  readonly workspace: { readonly id: string; readonly name: string };
+  readonly author: { readonly id: string; readonly displayName: string };
+  /** ISO time the snapshot was frozen. */
+  readonly createdAt: string;
+  readonly softwareVersion: string;
+  /** Physical constants' standard, e.g. `CODATA 2018`. */
+  readonly constants: string;
+  readonly pairs: readonly ReportPairSnapshot[];
+  readonly methods: readonly ReportMethod[];
+  /** The "limits of this estimate" note, as printed. */
+  readonly limitsNote: string;
+}
+
+/** One status change of a report. */
+export interface ReportTransitionView {
+  readonly from: ReportStatus | null;
+  readonly to: ReportStatus;
+  readonly by: { readonly id: string; readonly displayName: string };
+  readonly at: string;
+  readonly note: string | null;
+}
+
+export interface ReportCommentView {
+  readonly id: string;
+  readonly author: { readonly id: string; readonly displayName: string };
+  readonly body: string;
+  /** The parameter kind the comment is anchored to, or null for the report as a whole. */
+  readonly anchor: string | null;
+  readonly parentId: string | null;
+  readonly createdAt: string;
+}
+
+/** What the renderer needs besides the snapshot: the review state at rendering time. */
+export interface ReportReviewState {
+  readonly reportId: string;
+  readonly snapshotId: string;
+  readonly revision: number;
+  readonly status: ReportStatus;
+  readonly history: readonly ReportTransitionView[];
+  readonly comments: readonly ReportCommentView[];
+}
+
+/** `GET /api/reports/:id`. */
+export interface ReportView extends ReportReviewState {
+  readonly workspaceId: string;
+  readonly kind: ReportKind;
+  readonly title: string;
+  readonly author: { readonly id: string; readonly displayName: string };
+  readonly pairIds: readonly string[];
+  readonly snapshot: ReportSnapshot;
+  readonly createdAt: string;
+  readonly updatedAt: string;
+}
+
+/** A row of `GET /api/workspaces/:wid/reports` and `GET /api/reviews/waiting`. */
+export interface ReportListItem {
+  readonly id: string;
+  readonly workspaceId: string;
+  readonly workspaceName?: string;
+  readonly kind: ReportKind;
+  readonly title: string;
+  readonly status: ReportStatus;
+  readonly author: { readonly id: string; readonly displayName: string };
+  readonly pairIds: readonly string[];
+  readonly snapshotId: string;
+  readonly createdAt: string;
+  readonly updatedAt: string;
+}
+
+/** Body of `POST /api/workspaces/:wid/reports`: one pair, or several for a comparison. */
+export type ReportCreate =
+  | { readonly pairId: string; readonly title?: string }
+  | { readonly pairIds: readonly string[]; readonly title?: string };
+
+export interface ReportCommentCreate {
+  readonly body: string;
+  readonly anchor?: string | null;
+  readonly parentId?: string | null;
+}
+
+/** The cautions note of PRODUCT.md, printed on every report and on the pair page. */
+export const LIMITS_OF_ESTIMATE_NOTE =
+  'These are model estimates with stated assumptions, not measurements. Agreement with ' +
+  'experiment to within an order of magnitude is typical. Check the regime and the warnings ' +
+  'before relying on a number.';
+
+/** Whether a report in this status may still change (comments, revisions, deletion). */
+export function isReportFrozen(status: ReportStatus): boolean {
+  return status === 'approved';
+}
