@@ -7,4 +7,3 @@ export * from './workspaces';
 export * from './pair-calc';
 export * from './reports';
 export * from './report-format';
-export * from './traces';
