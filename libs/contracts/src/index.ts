@@ -7,3 +7,4 @@ export * from './workspaces';
 export * from './pair-calc';
 export * from './reports';
 export * from './report-format';
+export * from './traces';

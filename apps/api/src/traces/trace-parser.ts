@@ -12,10 +12,11 @@
  *   calculation core and handed to the sink in batches, so nothing grows with the file size.
  */
 import { toCanonical } from '@gapwise/calc';
+import { TRACE_FILE_UNITS, type TraceFileUnit } from '@gapwise/contracts';
 import { NOT_A_NUMBER, isNonFiniteWord, latin1, readStrictNumber } from './trace-number';
 
-export const TRACE_UNITS = ['eV', 'meV', 'kcal/mol', 'kJ/mol', 'hartree', 'cm-1'] as const;
-export type TraceUnit = (typeof TRACE_UNITS)[number];
+export const TRACE_UNITS = TRACE_FILE_UNITS;
+export type TraceUnit = TraceFileUnit;
 
 export const TRACE_DELIMITERS = ['auto', 'comma', 'tab', 'whitespace'] as const;
 export type TraceDelimiter = (typeof TRACE_DELIMITERS)[number];
