@@ -33,3 +33,19 @@ export interface SessionInfo {
 
 /** Password rule shared by the registration form and the API. */
 export const PASSWORD_MIN_LENGTH = 10;
+
+/** A personal API token for scripts (`GET /api/tokens`); the secret itself is never listed. */
+export interface ApiToken {
+  readonly id: string;
+  readonly name: string;
+  /** First characters of the token (`gw_…`), to recognise it. */
+  readonly prefix: string;
+  readonly createdAt: string;
+  readonly lastUsedAt: string | null;
+  readonly revokedAt: string | null;
+}
+
+/** Answer of `POST /api/tokens`: the only time the secret is shown. Send it as `Authorization: Bearer <token>`. */
+export interface CreatedApiToken extends ApiToken {
+  readonly token: string;
+}

@@ -6,5 +6,7 @@ export interface ApiErrorBody {
     readonly message: string;
     /** Every refused field when `code` is `validation-failed`. */
     readonly fields?: ReadonlyArray<{ readonly field: string; readonly message: string }>;
+    /** The current record when `code` is `version-conflict` (e.g. the current `Pair`). */
+    readonly current?: unknown;
   };
 }

@@ -133,3 +133,30 @@ export interface PairVersionSummary {
   readonly createdBy: string | null;
   readonly summary: string;
 }
+
+/** One difference between two versions of a pair (`GET /api/pairs/:id/compare`). */
+export interface PairFieldDifference {
+  /** `name`, `temperature`, `tags`, `parameters.<kind>[.value|.unit|.uncertainty|.provenance]`, `results.<field>`. */
+  readonly field: string;
+  readonly from: unknown;
+  readonly to: unknown;
+}
+
+export interface PairComparison {
+  readonly from: number;
+  readonly to: number;
+  readonly differences: PairFieldDifference[];
+}
+
+/** Query of `GET /api/workspaces/:wid/pairs`: sort keys (prefix `-` for descending). */
+export const PAIR_SORT_KEYS = [
+  'name',
+  'donor',
+  'acceptor',
+  'updatedAt',
+  'log10k',
+  'deltaG0',
+  'lambda',
+  'coupling',
+] as const;
+export type PairSortKey = (typeof PAIR_SORT_KEYS)[number];

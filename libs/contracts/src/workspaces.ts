@@ -31,3 +31,25 @@ export interface AuditEvent {
   readonly entityId: string | null;
   readonly summary: string;
 }
+
+/** Public preview of an invitation (`GET /api/invitations/:token`). */
+export interface InvitationPreview {
+  readonly workspaceName: string;
+  readonly role: Role;
+  readonly email: string;
+  readonly status: Invitation['status'];
+}
+
+/** Body of `POST /api/workspaces/:wid/invitations`. */
+export interface InvitationRequest {
+  readonly email: string;
+  readonly role: Role;
+}
+
+/** `GET /api/health`. */
+export interface HealthInfo {
+  readonly status: 'ok' | 'degraded';
+  readonly version: string;
+  readonly database: { readonly reachable: boolean };
+  readonly migrations: { readonly applied: number; readonly pending: string[] } | null;
+}

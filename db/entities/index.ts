@@ -1,0 +1,16 @@
+export { ApiTokenEntity } from './api-token';
+export { AuditEventEntity } from './audit-event';
+export { InvitationEntity } from './invitation';
+export { MailOutboxEntity } from './mail-outbox';
+export { MembershipEntity } from './membership';
+export { PairEntity } from './pair';
+export { PairParameterEntity } from './pair-parameter';
+export { PairVersionEntity } from './pair-version';
+export { UserEntity } from './user';
+export { WorkspaceEntity } from './workspace';
+export { ScreenEntity } from './screen';
+export { ScreenChunkEntity } from './screen-chunk';
+export { ScreenInputEntity } from './screen-input';
+export { ScreenResultEntity } from './screen-result';
+export { SeriesEntity } from './series';
+export { SeriesPointEntity } from './series-point';

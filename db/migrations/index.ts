@@ -1,0 +1,5 @@
+import { Initial1764640000000 } from './1764640000000-initial';
+import { ScreensSeries1796176187568 } from './1796176187568-screens-series';
+
+/** Every migration, in order (listed explicitly; see STACK.md). */
+export const migrations = [Initial1764640000000, ScreensSeries1796176187568];

@@ -1,0 +1,21 @@
+/**
+ * Seeds the demo workspaces and accounts (idempotent): `npx tsx db/seed/seed-demo.ts`.
+ * The four demo accounts share the password `gapwise-demo`: change or drop them for real use.
+ * Applies pending migrations first. DATABASE_URL defaults to the development cluster.
+ */
+import { createDataSource, DEFAULT_DATABASE_URL } from '../data-source';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD, seedDemo } from './demo-data';
+
+const dataSource = createDataSource({ url: process.env['DATABASE_URL'] || DEFAULT_DATABASE_URL, poolSize: 2 });
+try {
+  await dataSource.initialize();
+  await dataSource.runMigrations({ transaction: 'each' });
+  const report = await seedDemo(dataSource);
+  console.log(`demo seed: ${report.users} user(s), ${report.workspaces} workspace(s), ${report.pairs} pair(s) added`);
+  console.log(`demo sign-ins (password ${DEMO_PASSWORD}): ${DEMO_ACCOUNTS.map((a) => a.email).join(', ')}`);
+} catch (error) {
+  console.error(`demo seed failed: ${(error as Error).message}`);
+  process.exitCode = 1;
+} finally {
+  if (dataSource.isInitialized) await dataSource.destroy();
+}
