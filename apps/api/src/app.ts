@@ -1,0 +1,112 @@
+import 'reflect-metadata';
+import { createHash } from 'node:crypto';
+import cookieParser from 'cookie-parser';
+import express, { type Express, type RequestHandler, Router } from 'express';
+import helmet from 'helmet';
+import type { AppDeps } from './http/context';
+import { identify } from './http/authenticate';
+import { apiNotFound, errorMiddleware } from './http/error-middleware';
+import { registerAuditRoutes } from './audit/routes';
+import { registerAuthRoutes } from './auth/routes';
+import { registerCalcRoutes } from './calc/routes';
+import { registerDocsRoutes } from './docs/routes';
+import { registerHealthRoutes } from './health/routes';
+import { registerInvitationRoutes } from './invitations/routes';
+import { registerPairRoutes } from './pairs/routes';
+import { registerReportRoutes } from './reports/routes';
+import { registerTokenRoutes } from './tokens/routes';
+import { registerWorkspaceRoutes } from './workspaces/routes';
+import { serveWeb } from './web/serve-web';
+
+/**
+ * The only inline script of the Angular build: the `onload` handler critical-CSS inlining puts on
+ * the deferred stylesheet link. Allowed by hash ('unsafe-hashes'), so no other inline script runs.
+ */
+export const CRITICAL_CSS_HANDLER_HASH = `'sha256-${createHash('sha256').update("this.media='all'").digest('base64')}'`;
+
+/** Content-Security-Policy for the Angular build and the API page (everything from this origin). */
+export const CSP_DIRECTIVES = {
+  defaultSrc: ["'self'"],
+  scriptSrc: ["'self'", "'unsafe-hashes'", CRITICAL_CSS_HANDLER_HASH],
+  // Angular Material and critical-CSS inlining write inline <style>s and style attributes.
+  styleSrc: ["'self'", "'unsafe-inline'"],
+  fontSrc: ["'self'", 'data:'],
+  imgSrc: ["'self'", 'data:', 'blob:'],
+  connectSrc: ["'self'"],
+  workerSrc: ["'self'", 'blob:'],
+  objectSrc: ["'none'"],
+  baseUri: ["'self'"],
+  formAction: ["'self'"],
+  frameAncestors: ["'none'"],
+  upgradeInsecureRequests: null,
+};
+
+function cors(origins: readonly string[]): RequestHandler {
+  return (req, res, next) => {
+    const origin = req.headers.origin;
+    if (origin && origins.includes(origin)) {
+      res.setHeader('Access-Control-Allow-Origin', origin);
+      res.setHeader('Access-Control-Allow-Credentials', 'true');
+      res.setHeader('Vary', 'Origin');
+      if (req.method === 'OPTIONS') {
+        res.setHeader('Access-Control-Allow-Methods', 'GET,POST,PUT,PATCH,DELETE');
+        res.setHeader('Access-Control-Allow-Headers', 'Content-Type,Authorization,X-CSRF-Token');
+        res.status(204).end();
+        return;
+      }
+    }
+    next();
+  };
+}
+
+/** Builds every /api route on one router (so tests can list what is mounted). */
+export function createApiRouter(deps: AppDeps): Router {
+  const router = Router();
+  registerHealthRoutes(router, deps);
+  registerDocsRoutes(router, deps);
+  registerAuthRoutes(router, deps);
+  registerWorkspaceRoutes(router, deps);
+  registerInvitationRoutes(router, deps);
+  registerPairRoutes(router, deps);
+  registerReportRoutes(router, deps);
+  registerCalcRoutes(router, deps);
+  registerAuditRoutes(router, deps);
+  registerTokenRoutes(router, deps);
+  return router;
+}
+
+/** The Express app: security headers, JSON API under /api, and the built web app. */
+export function createApp(deps: AppDeps): Express {
+  const log = deps.log ?? ((m: string) => console.error(m));
+  const app = express();
+  app.locals['config'] = deps.config;
+  app.disable('x-powered-by');
+  app.set('trust proxy', false);
+  app.use(helmet({ contentSecurityPolicy: { useDefaults: false, directives: CSP_DIRECTIVES } }));
+  if (deps.config.logRequests) {
+    // Method, path and status only: never bodies, cookies or headers (passwords, tokens).
+    app.use((req, res, next) => {
+      const started = Date.now();
+      res.on('finish', () => log(`${req.method} ${req.path} ${res.statusCode} ${Date.now() - started}ms`));
+      next();
+    });
+  }
+  if (deps.config.corsOrigins.length) app.use('/api', cors(deps.config.corsOrigins));
+  const api = createApiRouter(deps);
+  app.locals['apiRouter'] = api;
+  app.use(
+    '/api',
+    (_req, res, next) => {
+      res.setHeader('Cache-Control', 'no-store');
+      next();
+    },
+    express.json({ limit: deps.config.jsonBodyLimit, strict: false }),
+    cookieParser(),
+    identify(deps),
+    api,
+    apiNotFound,
+  );
+  serveWeb(app, deps.config.webDist);
+  app.use(errorMiddleware(log));
+  return app;
+}

@@ -1,0 +1,132 @@
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { dirname, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { DEFAULT_DATABASE_URL } from '@gapwise/db';
+
+/** Repository root (apps/api/src → ../../..). */
+export const REPO_ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..', '..', '..');
+
+/** The whole configuration of the API process, validated once at start-up. */
+export interface Config {
+  readonly port: number;
+  readonly host: string;
+  readonly databaseUrl: string;
+  readonly jwtSecret: string;
+  /** Base of links in e-mails, without a trailing slash. */
+  readonly publicUrl: string;
+  readonly smtpHost: string;
+  readonly smtpPort: number;
+  readonly mailFrom: string;
+  /** Origins allowed by CORS; empty = CORS off. */
+  readonly corsOrigins: readonly string[];
+  /** bcrypt cost factor (tests use 4). */
+  readonly bcryptCost: number;
+  /** Sign-in attempts allowed per client per 15 minutes. */
+  readonly signInRateLimit: number;
+  readonly accessTokenSeconds: number;
+  readonly refreshTokenSeconds: number;
+  readonly invitationDays: number;
+  /** Set the Secure flag on cookies (behind HTTPS). */
+  readonly cookieSecure: boolean;
+  readonly jsonBodyLimit: string;
+  /** Built Angular app (index.html and assets). */
+  readonly webDist: string;
+  readonly logRequests: boolean;
+}
+
+export class ConfigError extends Error {
+  constructor(readonly problems: string[]) {
+    super(`invalid configuration:\n  ${problems.join('\n  ')}`);
+    this.name = 'ConfigError';
+  }
+}
+
+type Env = Record<string, string | undefined>;
+
+/**
+ * Reads and validates the configuration from the environment. Every problem is reported at
+ * once, and a bad value stops the process. When JWT_SECRET is unset, a secret is generated on
+ * first start into `.data/secrets/jwt-secret` (git-ignored) and reused afterwards.
+ */
+export function loadConfig(env: Env = process.env, overrides: Partial<Config> = {}): Config {
+  const problems: string[] = [];
+  const int = (name: string, fallback: number, min: number, max: number): number => {
+    const raw = env[name];
+    if (raw === undefined || raw === '') return fallback;
+    const value = Number(raw);
+    if (!Number.isInteger(value) || value < min || value > max) {
+      problems.push(`${name} must be an integer from ${min} to ${max} (got "${raw}")`);
+      return fallback;
+    }
+    return value;
+  };
+  const bool = (name: string, fallback: boolean): boolean => {
+    const raw = env[name];
+    if (raw === undefined || raw === '') return fallback;
+    if (['1', 'true', 'yes'].includes(raw.toLowerCase())) return true;
+    if (['0', 'false', 'no'].includes(raw.toLowerCase())) return false;
+    problems.push(`${name} must be true or false (got "${raw}")`);
+    return fallback;
+  };
+  const url = (name: string, fallback: string, protocols: string[]): string => {
+    const raw = env[name] || fallback;
+    try {
+      const parsed = new URL(raw);
+      if (!protocols.includes(parsed.protocol)) throw new Error();
+    } catch {
+      problems.push(`${name} must be a ${protocols.join(' or ')} URL`);
+    }
+    return raw.replace(/\/+$/, '');
+  };
+
+  const port = int('PORT', 4280, 0, 65535);
+  const host = env['HOST'] || '127.0.0.1';
+  const corsOrigins = (env['CORS_ORIGINS'] ?? '')
+    .split(',')
+    .map((s) => s.trim())
+    .filter(Boolean);
+  for (const origin of corsOrigins) {
+    if (!/^https?:\/\/[^/]+$/.test(origin)) problems.push(`CORS_ORIGINS: "${origin}" is not an origin`);
+  }
+  let jwtSecret = env['JWT_SECRET'] ?? '';
+  if (jwtSecret && jwtSecret.length < 32) problems.push('JWT_SECRET must be at least 32 characters');
+  const config: Config = {
+    port,
+    host,
+    databaseUrl: url('DATABASE_URL', DEFAULT_DATABASE_URL, ['postgres:', 'postgresql:']),
+    jwtSecret,
+    publicUrl: url('PUBLIC_URL', `http://127.0.0.1:${port || 4280}`, ['http:', 'https:']),
+    smtpHost: env['SMTP_HOST'] || '127.0.0.1',
+    smtpPort: int('SMTP_PORT', 2525, 1, 65535),
+    mailFrom: env['MAIL_FROM'] || 'Gapwise <no-reply@gapwise.test>',
+    corsOrigins,
+    bcryptCost: int('BCRYPT_COST', 12, 4, 15),
+    signInRateLimit: int('SIGN_IN_RATE_LIMIT', 10, 1, 1_000_000),
+    accessTokenSeconds: int('ACCESS_TOKEN_SECONDS', 15 * 60, 10, 24 * 3600),
+    refreshTokenSeconds: int('REFRESH_TOKEN_SECONDS', 14 * 24 * 3600, 60, 365 * 24 * 3600),
+    invitationDays: int('INVITATION_DAYS', 7, 1, 90),
+    cookieSecure: bool('COOKIE_SECURE', false),
+    jsonBodyLimit: env['JSON_BODY_LIMIT'] || '256kb',
+    webDist: resolve(REPO_ROOT, env['WEB_DIST'] || 'dist/web/browser'),
+    logRequests: bool('LOG_REQUESTS', false),
+    ...overrides,
+  };
+  if (problems.length > 0) throw new ConfigError(problems);
+  if (!config.jwtSecret) {
+    jwtSecret = readOrCreateSecret(resolve(REPO_ROOT, '.data', 'secrets', 'jwt-secret'));
+    return { ...config, jwtSecret };
+  }
+  return config;
+}
+
+function readOrCreateSecret(file: string): string {
+  if (existsSync(file)) {
+    const value = readFileSync(file, 'utf8').trim();
+    if (value.length >= 32) return value;
+  }
+  mkdirSync(dirname(file), { recursive: true, mode: 0o700 });
+  const value = randomBytes(48).toString('base64url');
+  writeFileSync(file, value + '\n', { mode: 0o600 });
+  return value;
+}

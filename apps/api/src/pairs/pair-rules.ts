@@ -1,0 +1,104 @@
+import { allowedUnits, canonicalUnit, isUnitFor, type Quantity } from '@gapwise/calc';
+import { PARAMETER_KINDS, type PairInput, type PairParameter, type Provenance } from '@gapwise/contracts';
+import type { ParameterDto, PairInputDto } from './pair-dto';
+
+type FieldError = { field: string; message: string };
+
+/** Physical lower bounds of parameter values (canonical units); anything else is only warned about. */
+const LOWER_BOUNDS: Partial<Record<keyof typeof PARAMETER_KINDS, { min: number; strict: boolean }>> = {
+  lambdaInner: { min: 0, strict: false },
+  lambdaOuter: { min: 0, strict: false },
+  hbarOmega: { min: 0, strict: true },
+  tauL: { min: 0, strict: true },
+  distance: { min: 0, strict: true },
+  edgeDistance: { min: 0, strict: false },
+  radiusDonor: { min: 0, strict: true },
+  radiusAcceptor: { min: 0, strict: true },
+  excitationEnergy: { min: 0, strict: true },
+  epsilonStatic: { min: 1, strict: false },
+  refractiveIndex: { min: 1, strict: false },
+};
+
+/** Units a parameter kind accepts; dimensionless kinds take the empty unit. */
+export function unitsForKind(kind: keyof typeof PARAMETER_KINDS): readonly string[] {
+  const quantity = PARAMETER_KINDS[kind].quantity as Quantity;
+  const units = allowedUnits(quantity);
+  return units.length ? units : [''];
+}
+
+function checkParameter(p: ParameterDto, i: number, errors: FieldError[]): void {
+  const at = (f: string) => `parameters.${i}.${f}`;
+  const quantity = PARAMETER_KINDS[p.kind].quantity as Quantity;
+  const unitOk = allowedUnits(quantity).length === 0 ? p.unit === '' : isUnitFor(p.unit, quantity);
+  if (!unitOk) {
+    errors.push({
+      field: at('unit'),
+      message: `must be one of ${unitsForKind(p.kind).map((u) => `'${u}'`).join(', ')} for ${p.kind}`,
+    });
+  }
+  const bound = LOWER_BOUNDS[p.kind];
+  if (bound && (bound.strict ? !(p.value > bound.min) : !(p.value >= bound.min))) {
+    const unit = canonicalUnit(quantity);
+    errors.push({
+      field: at('value'),
+      message: `must be ${bound.strict ? 'greater than' : 'at least'} ${bound.min}${unit ? ' ' + unit : ''}`,
+    });
+  }
+  const prov = p.provenance;
+  if (prov.kind === 'literature' && !prov.citation?.trim()) {
+    errors.push({ field: at('provenance.citation'), message: 'is required for literature values' });
+  }
+  if (prov.kind === 'derived' && !prov.methodId?.trim()) {
+    errors.push({ field: at('provenance.methodId'), message: 'is required for derived values' });
+  }
+  if (prov.methodInputs && JSON.stringify(prov.methodInputs).length > 20000) {
+    errors.push({ field: at('provenance.methodInputs'), message: 'is too large (20 kB at most)' });
+  }
+}
+
+/** Rules across fields that class-validator cannot express; every problem is returned. */
+export function pairInputProblems(input: PairInputDto): FieldError[] {
+  const errors: FieldError[] = [];
+  const seen = new Map<string, number>();
+  input.parameters.forEach((p, i) => {
+    if (seen.has(p.kind)) {
+      errors.push({ field: `parameters.${i}.kind`, message: `${p.kind} is given twice (also parameters.${seen.get(p.kind)})` });
+    } else seen.set(p.kind, i);
+    checkParameter(p, i, errors);
+  });
+  return errors;
+}
+
+const provenanceOf = (p: ParameterDto['provenance']): Provenance => ({
+  kind: p.kind,
+  citation: p.citation?.trim() || null,
+  methodId: p.methodId?.trim() || null,
+  methodInputs: p.methodInputs ?? null,
+  sources: p.sources?.map((s) => ({ type: s.type, id: s.id })) ?? null,
+  note: p.note?.trim() || null,
+});
+
+/** A validated DTO as a plain, normalised `PairInput` (trimmed, defaults filled, tags unique). */
+export function normalisePairInput(input: PairInputDto): Required<PairInput> {
+  const parameters: PairParameter[] = input.parameters.map((p) => ({
+    kind: p.kind,
+    value: p.value,
+    unit: p.unit,
+    uncertainty: p.uncertainty ?? null,
+    provenance: provenanceOf(p.provenance),
+  }));
+  const tags = [...new Set((input.tags ?? []).map((t) => t.trim()).filter(Boolean))];
+  return {
+    name: input.name.trim(),
+    donor: input.donor.trim(),
+    acceptor: input.acceptor.trim(),
+    medium: input.medium.trim(),
+    temperature: input.temperature,
+    temperatureUnit: input.temperatureUnit ?? 'K',
+    notes: input.notes ?? '',
+    status: input.status ?? 'draft',
+    tags,
+    model: input.model ?? 'marcus',
+    parameters,
+  };
+}

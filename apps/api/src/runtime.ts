@@ -1,0 +1,56 @@
+import type { DataSource } from 'typeorm';
+import { createDataSource } from '@gapwise/db';
+import type { Config } from './config';
+import type { AppDeps } from './http/context';
+import { createSmtpMailer, type Mailer } from './mail/mailer';
+import { resendPending, startMailQueue, type MailQueue } from './mail/mail-queue';
+
+export interface Runtime extends AppDeps {
+  readonly dataSource: DataSource;
+  readonly mailer: Mailer;
+  readonly queue: MailQueue;
+  close(): Promise<void>;
+}
+
+/**
+ * Connects to PostgreSQL, applies pending migrations (when asked), starts the pg-boss mail queue
+ * and the SMTP mailer. `close()` stops them in reverse order.
+ */
+export async function startRuntime(
+  config: Config,
+  options: { migrate?: boolean; log?: (message: string) => void; mailRetryDelaySeconds?: number } = {},
+): Promise<Runtime> {
+  const log = options.log ?? ((m: string) => console.error(m));
+  const dataSource = createDataSource({ url: config.databaseUrl });
+  await dataSource.initialize();
+  try {
+    if (options.migrate) {
+      const done = await dataSource.runMigrations({ transaction: 'each' });
+      if (done.length) log(`applied migrations: ${done.map((m) => m.name).join(', ')}`);
+    }
+    const mailer = createSmtpMailer(config);
+    const queue = await startMailQueue(dataSource, mailer, {
+      connectionString: config.databaseUrl,
+      retryDelay: options.mailRetryDelaySeconds,
+      log,
+    });
+    const resent = await resendPending(dataSource, queue).catch(() => 0);
+    if (resent) log(`re-queued ${resent} unsent e-mail(s)`);
+    const runtime: Runtime = {
+      config,
+      dataSource,
+      mailer,
+      queue,
+      log,
+      async close() {
+        await queue.stop().catch(() => undefined);
+        mailer.close();
+        await dataSource.destroy();
+      },
+    };
+    return runtime;
+  } catch (error) {
+    await dataSource.destroy().catch(() => undefined);
+    throw error;
+  }
+}

@@ -1,0 +1,57 @@
+import type { EntityManager } from 'typeorm';
+import type { ApiToken } from '@gapwise/contracts';
+import { hashToken } from '../auth/session-tokens';
+import { isUuid } from '../http/validate';
+
+type Row = Record<string, unknown>;
+const toToken = (r: Row): ApiToken => ({
+  id: r['id'] as string,
+  name: r['name'] as string,
+  prefix: r['prefix'] as string,
+  createdAt: (r['created_at'] as Date).toISOString(),
+  lastUsedAt: r['last_used_at'] ? (r['last_used_at'] as Date).toISOString() : null,
+  revokedAt: r['revoked_at'] ? (r['revoked_at'] as Date).toISOString() : null,
+});
+
+/** The user a live (not revoked) API token belongs to; marks it used. */
+export async function findUserIdByApiToken(db: EntityManager, token: string): Promise<string | null> {
+  if (token.length > 200) return null;
+  const rows: Row[] = await db.query(
+    `UPDATE api_tokens SET last_used_at = now()
+      WHERE token_hash = $1 AND revoked_at IS NULL RETURNING user_id`,
+    [hashToken(token)],
+  );
+  return (rows[0]?.['user_id'] as string | undefined) ?? null;
+}
+
+export async function listTokens(db: EntityManager, userId: string): Promise<ApiToken[]> {
+  const rows: Row[] = await db.query(
+    'SELECT * FROM api_tokens WHERE user_id = $1 ORDER BY created_at DESC, id',
+    [userId],
+  );
+  return rows.map(toToken);
+}
+
+export async function insertToken(
+  db: EntityManager,
+  userId: string,
+  name: string,
+  token: string,
+): Promise<ApiToken> {
+  const rows: Row[] = await db.query(
+    `INSERT INTO api_tokens (user_id, name, prefix, token_hash) VALUES ($1, $2, $3, $4) RETURNING *`,
+    [userId, name, token.slice(0, 10), hashToken(token)],
+  );
+  return toToken(rows[0]!);
+}
+
+/** Revokes one of the user's tokens; false when the user has no such token. */
+export async function revokeToken(db: EntityManager, userId: string, id: string): Promise<boolean> {
+  if (!isUuid(id)) return false;
+  const rows: Row[] = await db.query(
+    `UPDATE api_tokens SET revoked_at = coalesce(revoked_at, now())
+      WHERE id = $1 AND user_id = $2 RETURNING id`,
+    [id, userId],
+  );
+  return rows.length > 0;
+}

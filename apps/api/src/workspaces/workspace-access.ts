@@ -1,0 +1,31 @@
+import type { EntityManager } from 'typeorm';
+import type { Role } from '@gapwise/contracts';
+import { forbidden, notFound } from '../http/app-error';
+import { isUuid } from '../http/validate';
+
+/** The caller's role in a workspace, or null when not a member (or no such workspace). */
+export async function roleIn(db: EntityManager, workspaceId: string, userId: string): Promise<Role | null> {
+  if (!isUuid(workspaceId)) return null;
+  const rows: Array<{ role: Role }> = await db.query(
+    'SELECT role FROM memberships WHERE workspace_id = $1 AND user_id = $2',
+    [workspaceId, userId],
+  );
+  return rows[0]?.role ?? null;
+}
+
+/**
+ * Requires membership (else 404, so a workspace's existence never leaks) and a role the rule
+ * allows (else 403). Returns the role.
+ */
+export async function requireRole(
+  db: EntityManager,
+  workspaceId: string,
+  userId: string,
+  allowed: (role: Role) => boolean = () => true,
+  what = 'workspace',
+): Promise<Role> {
+  const role = await roleIn(db, workspaceId, userId);
+  if (!role) throw notFound(what);
+  if (!allowed(role)) throw forbidden();
+  return role;
+}

@@ -1,0 +1,128 @@
+import type { DataSource } from 'typeorm';
+import { canManageMembers, type Member, type Role, type WorkspaceSummary } from '@gapwise/contracts';
+import { AppError, forbidden, notFound } from '../http/app-error';
+import { isUuid } from '../http/validate';
+import { recordAudit } from '../audit/audit-repository';
+import { requireRole } from './workspace-access';
+import {
+  deleteWorkspace,
+  insertWorkspace,
+  listMembers,
+  lockMemberships,
+  removeMembership,
+  renameWorkspace,
+  setRole,
+  upsertMembership,
+  workspaceName,
+} from './workspace-repository';
+
+export async function createWorkspace(db: DataSource, userId: string, name: string): Promise<WorkspaceSummary> {
+  return db.transaction(async (tx) => {
+    const ws = await insertWorkspace(tx, name.trim());
+    await upsertMembership(tx, ws.id, userId, 'owner');
+    await recordAudit(tx, {
+      workspaceId: ws.id,
+      actorId: userId,
+      action: 'workspace.created',
+      entityType: 'workspace',
+      entityId: ws.id,
+      summary: `created workspace "${ws.name}"`,
+      after: { name: ws.name },
+    });
+    return { id: ws.id, name: ws.name, role: 'owner' };
+  });
+}
+
+export async function renameWorkspaceUseCase(
+  db: DataSource,
+  userId: string,
+  workspaceId: string,
+  name: string,
+): Promise<WorkspaceSummary> {
+  return db.transaction(async (tx) => {
+    const role = await requireRole(tx, workspaceId, userId, canManageMembers);
+    const before = await workspaceName(tx, workspaceId);
+    await renameWorkspace(tx, workspaceId, name.trim());
+    await recordAudit(tx, {
+      workspaceId,
+      actorId: userId,
+      action: 'workspace.renamed',
+      entityType: 'workspace',
+      entityId: workspaceId,
+      summary: `renamed workspace "${before}" to "${name.trim()}"`,
+      before: { name: before },
+      after: { name: name.trim() },
+    });
+    return { id: workspaceId, name: name.trim(), role };
+  });
+}
+
+export async function deleteWorkspaceUseCase(db: DataSource, userId: string, workspaceId: string): Promise<void> {
+  await db.transaction(async (tx) => {
+    await requireRole(tx, workspaceId, userId, canManageMembers);
+    await deleteWorkspace(tx, workspaceId);
+  });
+}
+
+export async function membersOf(db: DataSource, userId: string, workspaceId: string): Promise<Member[]> {
+  await requireRole(db.manager, workspaceId, userId);
+  return listMembers(db.manager, workspaceId);
+}
+
+const lastOwner = () =>
+  new AppError(409, 'last-owner', 'A workspace needs at least one owner; make someone else owner first.');
+
+export async function changeRole(
+  db: DataSource,
+  userId: string,
+  workspaceId: string,
+  targetId: string,
+  role: Role,
+): Promise<Member> {
+  return db.transaction(async (tx) => {
+    await requireRole(tx, workspaceId, userId, canManageMembers);
+    const members = await lockMemberships(tx, workspaceId);
+    const target = isUuid(targetId) ? members.find((m) => m.userId === targetId) : undefined;
+    if (!target) throw notFound('member');
+    const owners = members.filter((m) => m.role === 'owner');
+    if (target.role === 'owner' && role !== 'owner' && owners.length === 1) throw lastOwner();
+    if (target.role !== role) {
+      await setRole(tx, workspaceId, targetId, role);
+      await recordAudit(tx, {
+        workspaceId,
+        actorId: userId,
+        action: 'member.role-changed',
+        entityType: 'membership',
+        entityId: targetId,
+        summary: `changed a member's role from ${target.role} to ${role}`,
+        before: { role: target.role },
+        after: { role },
+      });
+    }
+    const member = (await listMembers(tx, workspaceId)).find((m) => m.userId === targetId);
+    if (!member) throw notFound('member');
+    return member;
+  });
+}
+
+/** Owners remove anyone; any member may remove themselves (leave). The last owner cannot go. */
+export async function removeMember(db: DataSource, userId: string, workspaceId: string, targetId: string): Promise<void> {
+  await db.transaction(async (tx) => {
+    const role = await requireRole(tx, workspaceId, userId);
+    if (targetId !== userId && !canManageMembers(role)) throw forbidden();
+    const members = await lockMemberships(tx, workspaceId);
+    const target = isUuid(targetId) ? members.find((m) => m.userId === targetId) : undefined;
+    if (!target) throw notFound('member');
+    if (target.role === 'owner' && members.filter((m) => m.role === 'owner').length === 1) throw lastOwner();
+    await removeMembership(tx, workspaceId, targetId);
+    await recordAudit(tx, {
+      workspaceId,
+      actorId: userId,
+      action: targetId === userId ? 'member.left' : 'member.removed',
+      entityType: 'membership',
+      entityId: targetId,
+      summary: targetId === userId ? `left the workspace (${target.role})` : `removed a member (${target.role})`,
+      before: { role: target.role },
+    });
+  });
+}
