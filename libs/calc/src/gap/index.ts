@@ -1,6 +1,27 @@
-/** Public API of the gap family of the calculation core. */
+/** Public API of the energy-gap sampling family of the calculation core (`reorg.gapSamples`). */
 import type { MethodDefinition } from '../core/method';
+import { gapSamplesMethod } from './gap-samples/gap-samples';
 
-/** Every `gap.*` method, for the registry. */
+export {
+  findPlateau,
+  GapSampleAccumulator,
+  HistogramCounter,
+  MIN_BLOCKS,
+} from './gap-accumulator/gap-accumulator';
+export type { BlockLevel, BlockPlateau, GapStatistics } from './gap-accumulator/gap-accumulator';
+export { SystematicSample } from './gap-accumulator/systematic-sample';
+export { analyseGapSamples, fitParabola, gapSamplesMethod } from './gap-samples/gap-samples';
+export type { GapSampleInputs, Parabola } from './gap-samples/gap-samples';
+export {
+  countInBins,
+  equalWidthEdges,
+  freedmanDiaconisBinCount,
+  freedmanDiaconisHistogram,
+  MAX_HISTOGRAM_BINS,
+  percentileSorted,
+} from './histogram/histogram';
+export type { Histogram } from './histogram/histogram';
+
+/** The gap-sampling methods, for the registry. */
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
-export const gapMethods: MethodDefinition<any>[] = [];
+export const gapMethods: MethodDefinition<any>[] = [gapSamplesMethod];
