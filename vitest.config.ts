@@ -7,6 +7,7 @@ const here = (path: string) => fileURLToPath(new URL(path, import.meta.url));
 export const alias = {
   '@gapwise/calc': here('./libs/calc/src/index.ts'),
   '@gapwise/contracts': here('./libs/contracts/src/index.ts'),
+  '@gapwise/plots': here('./libs/plots/src/index.ts'),
   '@gapwise/db': here('./db/index.ts'),
 };
 
