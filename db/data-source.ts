@@ -17,6 +17,9 @@ import {
   ScreenResultEntity,
   SeriesEntity,
   SeriesPointEntity,
+  ReportEntity,
+  ReportCommentEntity,
+  ReportTransitionEntity,
 } from './entities/index';
 import { migrations } from './migrations/index';
 
@@ -38,6 +41,9 @@ export const entities = [
   ScreenResultEntity,
   SeriesEntity,
   SeriesPointEntity,
+  ReportEntity,
+  ReportCommentEntity,
+  ReportTransitionEntity,
 ];
 
 /** Development database of docker-free-scripts/postgres-start.sh. */

@@ -14,3 +14,6 @@ export { ScreenInputEntity } from './screen-input';
 export { ScreenResultEntity } from './screen-result';
 export { SeriesEntity } from './series';
 export { SeriesPointEntity } from './series-point';
+export { ReportEntity } from './report';
+export { ReportCommentEntity } from './report-comment';
+export { ReportTransitionEntity } from './report-transition';

@@ -13,6 +13,7 @@ import { registerDocsRoutes } from './docs/routes';
 import { registerHealthRoutes } from './health/routes';
 import { registerInvitationRoutes } from './invitations/routes';
 import { registerPairRoutes } from './pairs/routes';
+import { registerReportRoutes } from './reports/routes';
 import { registerTokenRoutes } from './tokens/routes';
 import { registerWorkspaceRoutes } from './workspaces/routes';
 import { serveWeb } from './web/serve-web';
@@ -67,6 +68,7 @@ export function createApiRouter(deps: AppDeps): Router {
   registerWorkspaceRoutes(router, deps);
   registerInvitationRoutes(router, deps);
   registerPairRoutes(router, deps);
+  registerReportRoutes(router, deps);
   registerCalcRoutes(router, deps);
   registerAuditRoutes(router, deps);
   registerTokenRoutes(router, deps);

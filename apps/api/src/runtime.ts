@@ -4,6 +4,7 @@ import type { Config } from './config';
 import type { AppDeps } from './http/context';
 import { createSmtpMailer, type Mailer } from './mail/mailer';
 import { resendPending, startMailQueue, type MailQueue } from './mail/mail-queue';
+import { reportPdfStoreFromEnv } from './reports/report-pdf-store';
 
 export interface Runtime extends AppDeps {
   readonly dataSource: DataSource;
@@ -42,6 +43,8 @@ export async function startRuntime(
       mailer,
       queue,
       log,
+      // Report PDFs in the S3-API object store named by S3_ENDPOINT (reports/report-pdf-store.ts).
+      reportPdfStore: reportPdfStoreFromEnv(process.env),
       async close() {
         await queue.stop().catch(() => undefined);
         mailer.close();

@@ -1,5 +1,6 @@
 import { PAIR_STATUSES, PARAMETER_KINDS, PROVENANCE_KINDS, RATE_MODELS, ROLES } from '@gapwise/contracts';
 import { ROUTE_DOCS } from './route-docs';
+import { REPORT_SCHEMAS } from '../reports/report-route-docs';
 
 type Schema = Record<string, unknown>;
 const str = { type: 'string' };
@@ -108,6 +109,7 @@ const SCHEMAS: Record<string, Schema> = {
   TokenName: obj({ name: str }),
   ApiToken: obj({ id: str, name: str, prefix: str, createdAt: str, lastUsedAt: nullable(str), revokedAt: nullable(str) }),
   CreatedApiToken: obj({ id: str, name: str, prefix: str, createdAt: str, lastUsedAt: nullable(str), revokedAt: nullable(str), token: str }),
+  ...REPORT_SCHEMAS,
 };
 
 const ERROR_TEXT: Record<number, string> = {

@@ -1,3 +1,4 @@
+import { REPORT_ROUTE_DOCS } from '../reports/report-route-docs';
 /** One documented route; `path` is written as Express mounts it (under /api). */
 export interface RouteDoc {
   readonly method: 'get' | 'post' | 'put' | 'patch' | 'delete';
@@ -85,4 +86,5 @@ export const ROUTE_DOCS: readonly RouteDoc[] = [
   { method: 'get', path: '/tokens', tag: 'tokens', summary: 'My API tokens (never the secrets)', access: 'signed in', auth: true, status: 200, response: 'ApiToken[]' },
   { method: 'post', path: '/tokens', tag: 'tokens', summary: 'Create an API token; the secret `gw_…` is shown in this answer only', access: 'signed in', auth: true, body: 'TokenName', status: 201, response: 'CreatedApiToken' },
   { method: 'delete', path: '/tokens/:id', tag: 'tokens', summary: 'Revoke one of my API tokens', access: 'signed in (own tokens only)', auth: true, status: 204 },
+  ...REPORT_ROUTE_DOCS,
 ];

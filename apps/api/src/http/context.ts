@@ -2,6 +2,7 @@ import type { DataSource } from 'typeorm';
 import type { Config } from '../config';
 import type { Mailer } from '../mail/mailer';
 import type { MailQueue } from '../mail/mail-queue';
+import type { ReportPdfStore } from '../reports/report-pdf-store';
 
 /** Everything the routes and use-cases need; built once per process (or per test file). */
 export interface AppDeps {
@@ -11,6 +12,8 @@ export interface AppDeps {
   /** pg-boss backed mail queue; `null` only in tests that do not send e-mail. */
   readonly queue: MailQueue | null;
   readonly log?: (message: string) => void;
+  /** Object storage for generated report PDFs (S3 API); absent or null: regenerated on download. */
+  readonly reportPdfStore?: ReportPdfStore | null;
 }
 
 /** Who is calling, and how they proved it. */

@@ -1,0 +1,86 @@
+/**
+ * Machine-readable exports of a report snapshot: JSON (the snapshot itself with its id and
+ * review status) and CSV in long form, one value per row at full double precision, canonical
+ * units named as in CALC-API.md.
+ */
+import type { ReportView } from '@gapwise/contracts';
+import { provenanceText } from './pdf/report-text';
+
+export const CSV_COLUMNS = [
+  'section',
+  'pair_id',
+  'pair_version',
+  'pair_name',
+  'model',
+  'quantity',
+  'value',
+  'unit',
+  'typed_value',
+  'typed_unit',
+  'uncertainty',
+  'provenance',
+] as const;
+
+function cell(value: unknown): string {
+  if (value === null || value === undefined) return '';
+  const text = typeof value === 'number' ? (Number.isFinite(value) ? String(value) : '') : String(value);
+  // Quote when needed; neutralise spreadsheet formulas in text cells.
+  const safe = typeof value === 'string' && /^[=+\-@\t\r]/.test(text) && !/^-?\d/.test(text) ? `'${text}` : text;
+  return /[",\n\r]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
+}
+
+export function reportCsv(view: ReportView): string {
+  const rows: unknown[][] = [[...CSV_COLUMNS]];
+  const s = view.snapshot;
+  const meta: Array<[string, unknown]> = [
+    ['report_id', view.reportId],
+    ['snapshot_id', view.snapshotId],
+    ['revision', view.revision],
+    ['status', view.status],
+    ['title', s.title],
+    ['workspace', s.workspace.name],
+    ['author', s.author.displayName],
+    ['created_at', s.createdAt],
+    ['software_version', s.softwareVersion],
+    ['constants', s.constants],
+  ];
+  for (const [q, v] of meta) rows.push(['report', '', '', '', '', q, v, '', '', '', '', '']);
+  for (const p of s.pairs) {
+    for (const i of p.inputs) {
+      rows.push([
+        'input', p.pairId, p.pairVersion, p.name, '', i.kind, i.value, i.canonicalUnit, i.typedValue, i.typedUnit,
+        i.uncertainty, provenanceText(i.provenance),
+      ]);
+    }
+    for (const r of p.results) {
+      if (!r.applies) {
+        rows.push(['result', p.pairId, p.pairVersion, p.name, r.model, 'not_applicable', r.reason, '', '', '', '', '']);
+        continue;
+      }
+      const out: Array<[string, unknown, string]> = [
+        ['k', r.k, 's-1'],
+        ['log10k', r.log10k, ''],
+        ['activationFreeEnergy', r.activationFreeEnergy, 'eV'],
+        ['regime', r.regime, ''],
+      ];
+      if (r.interval) {
+        out.push(['log10k_median', r.interval.log10kMedian, '']);
+        out.push(['log10k_p025', r.interval.log10kLow, '']);
+        out.push(['log10k_p975', r.interval.log10kHigh, '']);
+      }
+      for (const [q, v, u] of out) rows.push(['result', p.pairId, p.pairVersion, p.name, r.model, q, v, u, '', '', '', '']);
+      for (const w of r.warnings) rows.push(['warning', p.pairId, p.pairVersion, p.name, r.model, w.code, w.message, '', '', '', '', '']);
+    }
+  }
+  return rows.map((r) => r.map(cell).join(',')).join('\r\n') + '\r\n';
+}
+
+export function reportJson(view: ReportView): unknown {
+  return {
+    reportId: view.reportId,
+    snapshotId: view.snapshotId,
+    revision: view.revision,
+    status: view.status,
+    snapshot: view.snapshot,
+  };
+}
