@@ -1,0 +1,122 @@
+import type { Express } from 'express';
+import request from 'supertest';
+import type { DataSource } from 'typeorm';
+import { startMailCapture, type MailCapture } from '../../../docker-free-scripts/mail/mail-capture-server';
+import { createApp } from '../../../apps/api/src/app';
+import { loadConfig, type Config } from '../../../apps/api/src/config';
+import { startRuntime, type Runtime } from '../../../apps/api/src/runtime';
+import { createTestDatabase, type TestDatabase } from './test-database';
+
+export interface TestApp {
+  readonly app: Express;
+  readonly config: Config;
+  readonly db: DataSource;
+  readonly runtime: Runtime;
+  readonly mail: MailCapture;
+  readonly database: TestDatabase;
+  close(): Promise<void>;
+}
+
+/**
+ * A fresh database (migrated), a real SMTP capture on a free port, the pg-boss mail queue and the
+ * Express app, configured for tests (bcrypt cost 4, no sign-in throttling unless asked).
+ */
+export async function startTestApp(overrides: Partial<Config> = {}, env: Record<string, string> = {}): Promise<TestApp> {
+  const database = await createTestDatabase();
+  const mail = await startMailCapture({ smtpPort: 0 });
+  let runtime: Runtime | null = null;
+  try {
+    const config = loadConfig(
+      {
+        DATABASE_URL: database.url,
+        JWT_SECRET: 'test-secret-test-secret-test-secret-0123456789',
+        PUBLIC_URL: 'http://127.0.0.1:4280',
+        SMTP_HOST: '127.0.0.1',
+        SMTP_PORT: String(mail.smtpPort),
+        BCRYPT_COST: '4',
+        SIGN_IN_RATE_LIMIT: '100000',
+        WEB_DIST: 'test-output/no-web-build',
+        ...env,
+      },
+      overrides,
+    );
+    runtime = await startRuntime(config, { migrate: true, log: () => undefined, mailRetryDelaySeconds: 1 });
+    const app = createApp(runtime);
+    const rt = runtime;
+    return {
+      app,
+      config,
+      db: runtime.dataSource,
+      runtime,
+      mail,
+      database,
+      async close() {
+        await rt.close();
+        await mail.stop();
+        await database.drop();
+      },
+    };
+  } catch (error) {
+    await runtime?.close().catch(() => undefined);
+    await mail.stop();
+    await database.drop();
+    throw error;
+  }
+}
+
+/** A signed-in browser-like client: cookies plus the CSRF header on writes. */
+export interface Session {
+  readonly userId: string;
+  readonly email: string;
+  readonly csrf: string;
+  readonly cookies: string[];
+  get(path: string): request.Test;
+  post(path: string, body?: unknown): request.Test;
+  put(path: string, body?: unknown): request.Test;
+  patch(path: string, body?: unknown): request.Test;
+  delete(path: string): request.Test;
+  call(method: string, path: string, body?: unknown): request.Test;
+}
+
+export function sessionFrom(app: Express, res: request.Response): Session {
+  const raw = res.headers['set-cookie'] as unknown as string[] | string | undefined;
+  const cookies = (Array.isArray(raw) ? raw : raw ? [raw] : []).map((c) => c.split(';')[0]!);
+  const csrf = res.body.csrfToken as string;
+  const call = (method: string, path: string, body?: unknown) => {
+    const m = method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete';
+    let t = request(app)[m](path).set('Cookie', cookies.join('; '));
+    if (m !== 'get') t = t.set('X-CSRF-Token', csrf);
+    if (body !== undefined) t = t.send(body as object);
+    return t;
+  };
+  return {
+    userId: res.body.user.id,
+    email: res.body.user.email,
+    csrf,
+    cookies,
+    call,
+    get: (p) => call('get', p),
+    post: (p, b) => call('post', p, b),
+    put: (p, b) => call('put', p, b),
+    patch: (p, b) => call('patch', p, b),
+    delete: (p) => call('delete', p),
+  };
+}
+
+let counter = 0;
+/** Registers a new user and returns their session. */
+export async function registerUser(app: Express, name = 'user'): Promise<Session> {
+  counter++;
+  const email = `${name}-${counter}-${Date.now()}@example.test`;
+  const res = await request(app)
+    .post('/api/auth/register')
+    .send({ email, password: 'correct horse battery', displayName: `${name} ${counter}` });
+  if (res.status !== 201) throw new Error(`register failed: ${res.status} ${JSON.stringify(res.body)}`);
+  return sessionFrom(app, res);
+}
+
+export async function signIn(app: Express, email: string, password: string): Promise<Session> {
+  const res = await request(app).post('/api/auth/sign-in').send({ email, password });
+  if (res.status !== 200) throw new Error(`sign-in failed: ${res.status} ${JSON.stringify(res.body)}`);
+  return sessionFrom(app, res);
+}
