@@ -1,0 +1,74 @@
+import { Routes } from '@angular/router';
+import { NotFound } from './not-found';
+import { signedInGuard } from './session/signed-in-guard';
+import { Shell } from './shell/shell';
+import { homeRedirect } from './workspaces/home-redirect';
+
+export const routes: Routes = [
+  {
+    path: 'sign-in',
+    title: 'Sign in · Gapwise',
+    loadComponent: () => import('./session/sign-in/sign-in').then((m) => m.SignIn),
+  },
+  {
+    path: 'register',
+    title: 'Create an account · Gapwise',
+    loadComponent: () => import('./session/register/register').then((m) => m.Register),
+  },
+  {
+    path: 'invitations/:token',
+    title: 'Invitation · Gapwise',
+    loadComponent: () =>
+      import('./session/invitation/invitation-accept').then((m) => m.InvitationAccept),
+  },
+  {
+    path: '',
+    component: Shell,
+    canActivate: [signedInGuard],
+    children: [
+      {
+        path: '',
+        pathMatch: 'full',
+        canActivate: [homeRedirect],
+        title: 'Gapwise',
+        loadComponent: () =>
+          import('./workspaces/no-workspace/no-workspace').then((m) => m.NoWorkspace),
+      },
+      {
+        path: 'w/:wid',
+        children: [
+          { path: '', pathMatch: 'full', redirectTo: 'pairs' },
+          {
+            path: 'pairs',
+            title: 'Pairs · Gapwise',
+            loadComponent: () => import('./pairs/pair-table/pair-table').then((m) => m.PairTable),
+          },
+          {
+            path: 'pairs/new',
+            title: 'New pair · Gapwise',
+            loadChildren: () =>
+              import('./pairs/pair-editor/pair-editor.routes').then((m) => m.editorRoutes),
+          },
+          {
+            path: 'pairs/:pairId',
+            title: 'Pair · Gapwise',
+            loadChildren: () =>
+              import('./pairs/pair-editor/pair-editor.routes').then((m) => m.editorRoutes),
+          },
+          {
+            path: 'pairs/:pairId/history',
+            title: 'Version history · Gapwise',
+            loadComponent: () =>
+              import('./pairs/version-history/version-history').then((m) => m.VersionHistory),
+          },
+          {
+            path: 'members',
+            title: 'Members · Gapwise',
+            loadComponent: () => import('./workspaces/members/members').then((m) => m.Members),
+          },
+        ],
+      },
+      { path: '**', component: NotFound, title: 'Not found · Gapwise' },
+    ],
+  },
+];

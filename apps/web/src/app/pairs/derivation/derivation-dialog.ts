@@ -1,0 +1,220 @@
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { FormControl, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
+import {
+  calculate,
+  findMethod,
+  type CalcAnswer,
+  type InputSpec,
+  type Quantity,
+} from '@gapwise/calc';
+import { PARAMETER_KINDS } from '@gapwise/contracts';
+import { editableText, formatSignificant, parseStrictNumber } from '../../units/number-format';
+import { displayOf, unitLabel, unitsFor } from '../../units/units';
+import {
+  QuantityGroup,
+  createQuantityGroup,
+  switchQuantityUnit,
+  typeQuantityText,
+} from '../pair-form/quantity-control';
+import type { Derivation } from './derivations';
+
+export interface DerivationDialogData {
+  readonly derivation: Derivation;
+  /** Current pair values for the pre-filled inputs: canonical value and typed unit. */
+  readonly prefill: Readonly<Record<string, { value: number; unit: string }>>;
+  /** Unit the target parameter is shown in (for the preview). */
+  readonly targetUnit: string;
+}
+
+export interface DerivationResult {
+  readonly methodId: string;
+  /** The inputs exactly as sent: numbers with the unit typed (or bare numbers / strings). */
+  readonly methodInputs: Record<string, unknown>;
+  /** Canonical values for the target and any further parameters. */
+  readonly values: ReadonlyArray<{
+    readonly kind: keyof typeof PARAMETER_KINDS;
+    readonly value: number;
+  }>;
+}
+
+interface InputRow {
+  readonly spec: InputSpec;
+  readonly label: string;
+  readonly units: readonly string[];
+  readonly group: QuantityGroup | null;
+  readonly textControl: FormControl<string> | null;
+}
+
+function labelOf(spec: InputSpec): string {
+  return spec.description.replace(/\.$/, '');
+}
+
+/** Runs one derivation method on typed inputs and hands back the value with its provenance. */
+@Component({
+  selector: 'gw-derivation-dialog',
+  imports: [
+    ReactiveFormsModule,
+    MatDialogModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+  ],
+  templateUrl: './derivation-dialog.html',
+  styleUrl: './derivation-dialog.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class DerivationDialog {
+  protected readonly data = inject<DerivationDialogData>(MAT_DIALOG_DATA);
+  private readonly ref = inject<MatDialogRef<DerivationDialog, DerivationResult>>(MatDialogRef);
+
+  protected readonly unitLabel = unitLabel;
+  protected readonly method = findMethod(this.data.derivation.methodId);
+  protected readonly rows: InputRow[] = (this.method?.inputs ?? []).map((spec) =>
+    this.rowFor(spec),
+  );
+  protected readonly answer = signal<CalcAnswer | null>(null);
+  protected readonly targetLabel = PARAMETER_KINDS[this.data.derivation.target].label;
+
+  protected readonly preview = computed(() => {
+    const a = this.answer();
+    if (!a?.ok) return null;
+    const v = a.outputs[this.data.derivation.output];
+    if (typeof v !== 'number') return null;
+    const unit = this.data.targetUnit;
+    const shown = unit ? displayOf(v, unit, 'energy') : v;
+    return {
+      canonical: v,
+      text: `${formatSignificant(shown, 4)} ${unitLabel(unit)}`,
+      eV: `${formatSignificant(v, 4)} eV`,
+    };
+  });
+  protected readonly errors = computed(() => {
+    const a = this.answer();
+    return a && !a.ok ? a.errors : [];
+  });
+
+  constructor() {
+    this.recompute();
+  }
+
+  private rowFor(spec: InputSpec): InputRow {
+    const d = this.data.derivation;
+    const units = unitsFor(spec.quantity);
+    if (spec.quantity === 'string') {
+      return {
+        spec,
+        label: labelOf(spec),
+        units,
+        group: null,
+        textControl: new FormControl('', { nonNullable: true }),
+      };
+    }
+    const pre = d.prefill[spec.name] ? this.data.prefill[spec.name] : undefined;
+    const unit =
+      pre?.unit && units.includes(pre.unit)
+        ? pre.unit
+        : (d.defaultUnits?.[spec.name] ?? units[0] ?? '');
+    const value = pre?.value ?? (typeof spec.defaultValue === 'number' ? spec.defaultValue : null);
+    const group = createQuantityGroup(
+      { label: labelOf(spec), quantity: spec.quantity as Quantity, required: spec.required },
+      { value, unit },
+    );
+    return { spec, label: labelOf(spec), units, group, textControl: null };
+  }
+
+  protected typeInput(row: InputRow, text: string): void {
+    if (row.group)
+      typeQuantityText(row.group, { label: row.label, quantity: row.spec.quantity }, text);
+    else row.textControl?.setValue(text);
+    this.recompute();
+  }
+
+  protected switchUnit(row: InputRow, unit: string): void {
+    if (!row.group) return;
+    if (this.data.derivation.sharedUnit) {
+      for (const r of this.rows) {
+        if (r.group && r.spec.quantity === row.spec.quantity) {
+          switchQuantityUnit(r.group, { label: r.label, quantity: r.spec.quantity }, unit);
+        }
+      }
+    } else {
+      switchQuantityUnit(row.group, { label: row.label, quantity: row.spec.quantity }, unit);
+    }
+    this.recompute();
+  }
+
+  /** The request inputs as the user typed them: `{ value, unit }`, bare numbers or strings. */
+  private typedInputs(): Record<string, unknown> {
+    const inputs: Record<string, unknown> = {};
+    for (const row of this.rows) {
+      if (row.textControl) {
+        if (row.textControl.value.trim()) inputs[row.spec.name] = row.textControl.value.trim();
+        continue;
+      }
+      const g = row.group!;
+      const text = g.controls.text.value.trim();
+      if (text === '') continue;
+      const typed = parseStrictNumber(text);
+      const unit = g.controls.unit.value;
+      // Invalid text is sent as is: the core names the field and the reason.
+      const value = typed ?? text;
+      inputs[row.spec.name] = unit ? { value, unit } : value;
+    }
+    return inputs;
+  }
+
+  private recompute(): void {
+    if (!this.method) return;
+    this.answer.set(calculate({ method: this.method.id, inputs: this.typedInputs() }));
+  }
+
+  protected errorFor(row: InputRow): string | null {
+    const own = row.group?.controls.text.errors;
+    if (own && row.group?.controls.text.dirty) {
+      const m = own['required'] ?? own['number'] ?? own['rule'];
+      if (typeof m === 'string') return m;
+    }
+    const fromCore = this.errors().find((e) => e.field === row.spec.name);
+    return fromCore ? fromCore.message : null;
+  }
+
+  protected otherErrors(): string[] {
+    const names = new Set(this.rows.map((r) => r.spec.name));
+    return this.errors()
+      .filter((e) => !names.has(e.field))
+      .map((e) => `${e.field}: ${e.message}`);
+  }
+
+  protected warnings(): string[] {
+    const a = this.answer();
+    return a?.ok ? a.warnings.map((w) => w.message) : [];
+  }
+
+  protected textOf(value: number | null): string {
+    return editableText(value);
+  }
+
+  protected useValue(): void {
+    const a = this.answer();
+    const preview = this.preview();
+    if (!a?.ok || !preview) return;
+    const values: Array<{ kind: keyof typeof PARAMETER_KINDS; value: number }> = [
+      { kind: this.data.derivation.target, value: preview.canonical },
+    ];
+    for (const extra of this.data.derivation.alsoFills ?? []) {
+      const v = a.outputs[extra.output];
+      if (typeof v === 'number') values.push({ kind: extra.kind, value: v });
+    }
+    this.ref.close({
+      methodId: this.data.derivation.methodId,
+      methodInputs: this.typedInputs(),
+      values,
+    });
+  }
+}

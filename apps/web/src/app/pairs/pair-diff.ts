@@ -1,0 +1,53 @@
+import { PARAMETER_KINDS, type PairInput, type PairParameter } from '@gapwise/contracts';
+import type { Quantity } from '@gapwise/calc';
+import { editableText } from '../units/number-format';
+import { displayDifference, displayOf, unitLabel } from '../units/units';
+
+export interface DiffRow {
+  readonly field: string;
+  readonly left: string;
+  readonly right: string;
+  readonly changed: boolean;
+}
+
+/** A parameter as a reader sees it: value in its typed unit, σ, source. */
+export function describeParameter(p: PairParameter | undefined): string {
+  if (!p) return '—';
+  const q = PARAMETER_KINDS[p.kind].quantity as Quantity;
+  const unit = p.unit;
+  const value = `${editableText(displayOf(p.value, unit, q))}${unit ? ' ' + unitLabel(unit) : ''}`;
+  const sigma =
+    p.uncertainty != null ? ` ± ${editableText(displayDifference(p.uncertainty, unit, q))}` : '';
+  const prov = p.provenance;
+  const source =
+    prov.kind === 'literature' && prov.citation
+      ? `literature: ${prov.citation}`
+      : prov.kind === 'derived' && prov.methodId
+        ? `derived by ${prov.methodId}`
+        : prov.kind;
+  const note = prov.note ? ` — ${prov.note}` : '';
+  return `${value}${sigma} (${source})${note}`;
+}
+
+/** Field-by-field comparison of two states of a pair (left = older or mine, right = other). */
+export function pairDifferences(left: PairInput, right: PairInput, onlyChanged = false): DiffRow[] {
+  const rows: DiffRow[] = [];
+  const add = (field: string, a: string, b: string) =>
+    rows.push({ field, left: a, right: b, changed: a !== b });
+  add('Name', left.name, right.name);
+  add('Donor', left.donor, right.donor);
+  add('Acceptor', left.acceptor, right.acceptor);
+  add('Medium', left.medium ?? '', right.medium ?? '');
+  add('Temperature', `${editableText(left.temperature)} K`, `${editableText(right.temperature)} K`);
+  add('Rate model', left.model ?? 'marcus', right.model ?? 'marcus');
+  add('Status', left.status ?? '', right.status ?? '');
+  add('Tags', (left.tags ?? []).join(', '), (right.tags ?? []).join(', '));
+  add('Notes', left.notes ?? '', right.notes ?? '');
+  for (const kind of Object.keys(PARAMETER_KINDS) as Array<keyof typeof PARAMETER_KINDS>) {
+    const a = left.parameters.find((p) => p.kind === kind);
+    const b = right.parameters.find((p) => p.kind === kind);
+    if (!a && !b) continue;
+    add(PARAMETER_KINDS[kind].label, describeParameter(a), describeParameter(b));
+  }
+  return onlyChanged ? rows.filter((r) => r.changed) : rows;
+}

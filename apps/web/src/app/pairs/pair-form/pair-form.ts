@@ -1,0 +1,202 @@
+import { FormControl, FormGroup, Validators } from '@angular/forms';
+import {
+  PARAMETER_KINDS,
+  type Pair,
+  type PairInput,
+  type PairParameter,
+  type PairRateSource,
+  type PairStatus,
+  type ParameterKind,
+  type ProvenanceKind,
+  type RateModel,
+} from '@gapwise/contracts';
+import type { Quantity } from '@gapwise/calc';
+import { QuantityGroup, QuantitySpec, ValueRule, createQuantityGroup } from './quantity-control';
+
+export type ProvenanceGroup = FormGroup<{
+  kind: FormControl<ProvenanceKind>;
+  citation: FormControl<string>;
+  note: FormControl<string>;
+  methodId: FormControl<string | null>;
+  methodInputs: FormControl<Record<string, unknown> | null>;
+}>;
+
+export type ParameterGroup = QuantityGroup & {
+  readonly controls: QuantityGroup['controls'] & { provenance: ProvenanceGroup };
+};
+
+const positive: ValueRule = (v) => (v > 0 ? null : 'must be greater than 0.');
+const notNegative: ValueRule = (v) => (v >= 0 ? null : 'must not be negative.');
+const atLeastOne: ValueRule = (v) => (v >= 1 ? null : 'must be at least 1.');
+
+/** Domain rules of VALIDATION.md part A that a single field can check. */
+const RULES: Partial<Record<ParameterKind, ValueRule>> = {
+  lambdaInner: (v) => (v >= 0 ? null : 'Reorganization energy must not be negative.'),
+  lambdaOuter: (v) => (v >= 0 ? null : 'Reorganization energy must not be negative.'),
+  hbarOmega: (v) => (v > 0 ? null : 'Mode energy must be > 0.'),
+  tauL: positive,
+  distance: (v) => (v > 0 ? null : 'Radii and distances must be > 0.'),
+  edgeDistance: notNegative,
+  radiusDonor: (v) => (v > 0 ? null : 'Radii and distances must be > 0.'),
+  radiusAcceptor: (v) => (v > 0 ? null : 'Radii and distances must be > 0.'),
+  excitationEnergy: positive,
+  epsilonStatic: atLeastOne,
+  refractiveIndex: atLeastOne,
+};
+
+/** Default unit offered for a new parameter of each kind. */
+const DEFAULT_UNITS: Partial<Record<ParameterKind, string>> = { tauL: 'ps', coupling: 'cm-1' };
+
+export function parameterSpec(kind: ParameterKind): QuantitySpec {
+  const def = PARAMETER_KINDS[kind];
+  return { label: def.label, quantity: def.quantity as Quantity, rule: RULES[kind] };
+}
+
+export const TEMPERATURE_SPEC: QuantitySpec = {
+  label: 'Temperature',
+  quantity: 'temperature',
+  required: true,
+  rule: (v) => (v > 0 ? null : 'Temperature must be > 0 K (absolute). Did you enter °C?'),
+};
+
+export function defaultUnit(kind: ParameterKind): string {
+  const q = PARAMETER_KINDS[kind].quantity;
+  return (
+    DEFAULT_UNITS[kind] ??
+    ({ energy: 'eV', time: 's', distance: 'A', potential: 'V' } as Record<string, string>)[q] ??
+    ''
+  );
+}
+
+export function createParameterGroup(kind: ParameterKind, p?: PairParameter): ParameterGroup {
+  const group = createQuantityGroup(parameterSpec(kind), {
+    value: p?.value ?? null,
+    unit: p?.unit || defaultUnit(kind),
+    uncertainty: p?.uncertainty ?? null,
+  }) as unknown as FormGroup;
+  const prov = p?.provenance;
+  group.addControl(
+    'provenance',
+    new FormGroup({
+      kind: new FormControl<ProvenanceKind>(prov?.kind ?? 'assumed', { nonNullable: true }),
+      citation: new FormControl(prov?.citation ?? '', { nonNullable: true }),
+      note: new FormControl(prov?.note ?? '', { nonNullable: true }),
+      methodId: new FormControl<string | null>(prov?.methodId ?? null),
+      methodInputs: new FormControl<Record<string, unknown> | null>(prov?.methodInputs ?? null),
+    }),
+  );
+  return group as unknown as ParameterGroup;
+}
+
+export const PARAMETER_ORDER = Object.keys(PARAMETER_KINDS) as ParameterKind[];
+
+export type ParametersGroup = FormGroup<Record<ParameterKind, ParameterGroup>>;
+
+export type PairForm = FormGroup<{
+  name: FormControl<string>;
+  donor: FormControl<string>;
+  acceptor: FormControl<string>;
+  medium: FormControl<string>;
+  notes: FormControl<string>;
+  status: FormControl<PairStatus>;
+  tags: FormControl<string>;
+  model: FormControl<RateModel>;
+  temperature: QuantityGroup;
+  parameters: ParametersGroup;
+}>;
+
+/** A typed form for a pair (or a new one, at 298.15 K with the classical Marcus model). */
+export function createPairForm(pair?: Pair | null): PairForm {
+  const params = {} as Record<ParameterKind, ParameterGroup>;
+  for (const kind of PARAMETER_ORDER) {
+    params[kind] = createParameterGroup(
+      kind,
+      pair?.parameters.find((p) => p.kind === kind),
+    );
+  }
+  return new FormGroup({
+    name: new FormControl(pair?.name ?? '', {
+      nonNullable: true,
+      validators: [Validators.required],
+    }),
+    donor: new FormControl(pair?.donor ?? '', {
+      nonNullable: true,
+      validators: [Validators.required],
+    }),
+    acceptor: new FormControl(pair?.acceptor ?? '', {
+      nonNullable: true,
+      validators: [Validators.required],
+    }),
+    medium: new FormControl(pair?.medium ?? '', { nonNullable: true }),
+    notes: new FormControl(pair?.notes ?? '', { nonNullable: true }),
+    status: new FormControl<PairStatus>(pair?.status ?? 'draft', { nonNullable: true }),
+    tags: new FormControl((pair?.tags ?? []).join(', '), { nonNullable: true }),
+    model: new FormControl<RateModel>(pair?.model ?? 'marcus', { nonNullable: true }),
+    temperature: createQuantityGroup(TEMPERATURE_SPEC, {
+      value: pair?.temperature ?? 298.15,
+      unit: pair?.temperatureUnit || 'K',
+    }),
+    parameters: new FormGroup(params),
+  });
+}
+
+/** The parameters that carry a value, in the contract's shape. */
+export function parametersOf(form: PairForm): PairParameter[] {
+  const out: PairParameter[] = [];
+  for (const kind of PARAMETER_ORDER) {
+    const g = form.controls.parameters.controls[kind];
+    const value = g.controls.value.value;
+    if (value === null || g.controls.text.value.trim() === '') continue;
+    const p = g.controls.provenance.getRawValue();
+    out.push({
+      kind,
+      value,
+      unit: g.controls.unit.value,
+      uncertainty:
+        g.controls.uncertaintyText.value.trim() === '' ? null : g.controls.uncertainty.value,
+      provenance: {
+        kind: p.kind,
+        citation: p.citation.trim() || null,
+        note: p.note.trim() || null,
+        methodId: p.kind === 'derived' ? p.methodId : null,
+        methodInputs: p.kind === 'derived' ? p.methodInputs : null,
+      },
+    });
+  }
+  return out;
+}
+
+/** The body of create / update. */
+export function pairInputOf(form: PairForm): PairInput {
+  const v = form.getRawValue();
+  return {
+    name: v.name.trim(),
+    donor: v.donor.trim(),
+    acceptor: v.acceptor.trim(),
+    medium: v.medium.trim(),
+    notes: v.notes,
+    status: v.status,
+    tags: v.tags
+      .split(',')
+      .map((t) => t.trim())
+      .filter((t) => t.length > 0),
+    model: v.model,
+    temperature: v.temperature.value ?? Number.NaN,
+    temperatureUnit: v.temperature.unit,
+    parameters: parametersOf(form),
+  };
+}
+
+/** What the rate depends on, for `computePairResults` (the same call the server makes). */
+export function rateSourceOf(form: PairForm): PairRateSource {
+  return {
+    temperature: form.controls.temperature.controls.value.value ?? Number.NaN,
+    model: form.controls.model.value,
+    parameters: parametersOf(form).map((p) => ({ kind: p.kind, value: p.value })),
+  };
+}
+
+/** Stable text of what would be saved, to tell whether anything changed since the last save. */
+export function snapshotOf(form: PairForm): string {
+  return JSON.stringify(pairInputOf(form));
+}

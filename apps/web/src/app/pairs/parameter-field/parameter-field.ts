@@ -1,0 +1,122 @@
+import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
+import { FormControl, FormGroupDirective, NgForm, ReactiveFormsModule } from '@angular/forms';
+import { ErrorStateMatcher } from '@angular/material/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatMenuModule } from '@angular/material/menu';
+import { MatSelectModule } from '@angular/material/select';
+import { MatTooltipModule } from '@angular/material/tooltip';
+import { PARAMETER_KINDS, PROVENANCE_KINDS, type ParameterKind } from '@gapwise/contracts';
+import type { Quantity } from '@gapwise/calc';
+import { unitLabel, unitsFor } from '../../units/units';
+import type { ParameterGroup } from '../pair-form/pair-form';
+import { parameterSpec } from '../pair-form/pair-form';
+import {
+  switchQuantityUnit,
+  typeQuantityText,
+  typeUncertaintyText,
+} from '../pair-form/quantity-control';
+
+/** Shows a field's error as soon as it is edited, not only after leaving it. */
+class EditedErrorMatcher implements ErrorStateMatcher {
+  isErrorState(control: FormControl | null, form: FormGroupDirective | NgForm | null): boolean {
+    return !!control && control.invalid && (control.dirty || control.touched || !!form?.submitted);
+  }
+}
+
+export interface DerivationChoice {
+  readonly id: string;
+  readonly label: string;
+}
+
+const PROVENANCE_WORDS: Record<string, string> = {
+  measured: 'Measured',
+  computed: 'Computed (quantum chemistry, simulation)',
+  literature: 'Literature (give the citation)',
+  derived: 'Derived by a Gapwise method',
+  assumed: 'Assumed',
+};
+
+/**
+ * One pair parameter: value in a unit of its quantity, uncertainty, provenance with citation
+ * and note. Keeps the canonical value; switching the unit converts the shown text from it.
+ */
+@Component({
+  selector: 'gw-parameter-field',
+  imports: [
+    ReactiveFormsModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatButtonModule,
+    MatIconModule,
+    MatMenuModule,
+    MatTooltipModule,
+  ],
+  templateUrl: './parameter-field.html',
+  styleUrl: './parameter-field.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  host: { '[attr.data-kind]': 'kind()' },
+})
+export class ParameterField {
+  readonly group = input.required<ParameterGroup>();
+  readonly kind = input.required<ParameterKind>();
+  readonly readonly = input(false);
+  readonly derivations = input<readonly DerivationChoice[]>([]);
+  /** A problem the calculation found with this input (shown under the field). */
+  readonly calcError = input<string | null>(null);
+
+  readonly deriveRequested = output<string>();
+  /** Fired on every keystroke or unit change that may change the value. */
+  readonly edited = output<void>();
+
+  protected readonly errorMatcher = new EditedErrorMatcher();
+  protected readonly provenanceKinds = PROVENANCE_KINDS;
+  protected readonly provenanceWords = PROVENANCE_WORDS;
+  protected readonly unitLabel = unitLabel;
+  protected readonly spec = computed(() => parameterSpec(this.kind()));
+  protected readonly label = computed(() => PARAMETER_KINDS[this.kind()].label);
+  protected readonly units = computed(() =>
+    unitsFor(PARAMETER_KINDS[this.kind()].quantity as Quantity),
+  );
+  protected readonly fieldId = computed(() => `param-${this.kind()}`);
+
+  protected typeValue(text: string): void {
+    typeQuantityText(this.group(), this.spec(), text);
+    this.edited.emit();
+  }
+
+  protected typeUncertainty(text: string): void {
+    typeUncertaintyText(this.group(), this.spec(), text);
+    this.edited.emit();
+  }
+
+  protected switchUnit(unit: string): void {
+    switchQuantityUnit(this.group(), this.spec(), unit);
+    this.edited.emit();
+  }
+
+  protected errorOf(control: FormControl<string>): string | null {
+    const e = control.errors;
+    if (!e) return null;
+    const first = e['required'] ?? e['number'] ?? e['rule'] ?? e['api'];
+    if (typeof first !== 'string') return null;
+    return e['rule'] && !/^[A-Z]/.test(first) ? `${this.label()} ${first}` : first;
+  }
+
+  protected derivedInputs(): string {
+    const inputs = this.group().controls.provenance.controls.methodInputs.value;
+    if (!inputs) return '';
+    return Object.entries(inputs)
+      .map(([k, v]) => {
+        if (v && typeof v === 'object' && 'value' in v) {
+          const q = v as { value: unknown; unit?: string };
+          return `${k} = ${String(q.value)}${q.unit ? ' ' + unitLabel(q.unit) : ''}`;
+        }
+        return `${k} = ${String(v)}`;
+      })
+      .join(', ');
+  }
+}

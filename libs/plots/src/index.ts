@@ -1,0 +1,4 @@
+/** Plot geometry shared by the web page and the PDF report. Import it only as `@gapwise/plots`. */
+export * from './scale';
+export * from './parabolas';
+export * from './rate-curves';
