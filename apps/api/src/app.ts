@@ -15,6 +15,7 @@ import { registerInvitationRoutes } from './invitations/routes';
 import { registerPairRoutes } from './pairs/routes';
 import { registerReportRoutes } from './reports/routes';
 import { registerTokenRoutes } from './tokens/routes';
+import { registerTraceRoutes } from './traces/routes';
 import { registerWorkspaceRoutes } from './workspaces/routes';
 import { serveWeb } from './web/serve-web';
 
@@ -72,6 +73,7 @@ export function createApiRouter(deps: AppDeps): Router {
   registerCalcRoutes(router, deps);
   registerAuditRoutes(router, deps);
   registerTokenRoutes(router, deps);
+  registerTraceRoutes(router, deps);
   return router;
 }
 

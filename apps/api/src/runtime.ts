@@ -5,6 +5,8 @@ import type { AppDeps } from './http/context';
 import { createSmtpMailer, type Mailer } from './mail/mailer';
 import { resendPending, startMailQueue, type MailQueue } from './mail/mail-queue';
 import { reportPdfStoreFromEnv } from './reports/report-pdf-store';
+import { provideTraceServices } from './traces/routes';
+import { startTraceServices, traceServicesOptionsFromEnv } from './traces/trace-services';
 
 export interface Runtime extends AppDeps {
   readonly dataSource: DataSource;
@@ -37,6 +39,9 @@ export async function startRuntime(
     });
     const resent = await resendPending(dataSource, queue).catch(() => 0);
     if (resent) log(`re-queued ${resent} unsent e-mail(s)`);
+    // Traces: object store (S3_*) and pg-boss queue `trace-analysis`, with one worker in this
+    // process unless GAPWISE_TRACE_WORKER=false (apps/api/src/traces/README.md).
+    const traces = await startTraceServices(dataSource, { ...traceServicesOptionsFromEnv(process.env, config.databaseUrl), log });
     const runtime: Runtime = {
       config,
       dataSource,
@@ -46,11 +51,13 @@ export async function startRuntime(
       // Report PDFs in the S3-API object store named by S3_ENDPOINT (reports/report-pdf-store.ts).
       reportPdfStore: reportPdfStoreFromEnv(process.env),
       async close() {
+        await traces.stop().catch(() => undefined);
         await queue.stop().catch(() => undefined);
         mailer.close();
         await dataSource.destroy();
       },
     };
+    provideTraceServices(runtime, traces);
     return runtime;
   } catch (error) {
     await dataSource.destroy().catch(() => undefined);
