@@ -87,7 +87,8 @@ async function throwawayDataDir(mode: number): Promise<string> {
   return dir;
 }
 
-describe('postgres-start.sh / postgres-stop.sh', () => {
+// initdb and a cold start take ~3 s on an idle machine, far longer on a busy two-core one.
+describe('postgres-start.sh / postgres-stop.sh', { timeout: 240_000 }, () => {
   it('creates the cluster on first start, survives overlapping starts, listens on 127.0.0.1 only', async () => {
     const dataDir = await throwawayDataDir(0o755);
     const port = await freePort();

@@ -15,6 +15,7 @@ import { spawn } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import pg from 'pg';
 
 const root = fileURLToPath(new URL('..', import.meta.url));
 const outputDir = join(root, 'test-output');
@@ -234,6 +235,38 @@ function ensureTestDatabase() {
   return testDatabase;
 }
 
+/**
+ * Stops the test cluster when this run started it and no one else (another test run in this
+ * checkout) is connected to it at the moment.
+ */
+async function stopTestClusterIfIdle(): Promise<void> {
+  if (!stopTestClusterAtEnd || !testDatabase) return;
+  const database = await testDatabase;
+  if ('error' in database) return;
+  let others = 0;
+  const client = new pg.Client({ connectionString: database.url });
+  try {
+    await client.connect();
+    const { rows } = await client.query<{ n: number }>(
+      `SELECT count(*)::int AS n FROM pg_stat_activity
+        WHERE backend_type = 'client backend' AND pid <> pg_backend_pid()`,
+    );
+    others = rows[0]?.n ?? 0;
+  } catch {
+    // Not reachable: nothing to keep alive.
+  } finally {
+    await client.end().catch(() => undefined);
+  }
+  if (others > 0) {
+    console.log(`\nLeaving the PostgreSQL test cluster running: ${others} other connection(s).`);
+    return;
+  }
+  console.log('\nStopping the PostgreSQL test cluster started by this run.');
+  await runCommand('bash', [join(root, 'docker-free-scripts/postgres-stop.sh'), '--test'], {
+    quiet: true,
+  });
+}
+
 // ---------------------------------------------------------------------------------------------
 // The suites
 
@@ -390,12 +423,7 @@ async function main(): Promise<number> {
     console.log(`── ${mark} ${step.title}: ${describeOutcome(outcome)} in ${seconds(ms)}`);
   }
 
-  if (stopTestClusterAtEnd) {
-    console.log('\nStopping the PostgreSQL test cluster started by this run.');
-    await runCommand('bash', [join(root, 'docker-free-scripts/postgres-stop.sh'), '--test'], {
-      quiet: true,
-    });
-  }
+  await stopTestClusterIfIdle();
 
   const passed = results.reduce((sum, r) => sum + r.outcome.passed, 0);
   const failed = results.reduce((sum, r) => sum + r.outcome.failed, 0);
@@ -415,11 +443,8 @@ async function main(): Promise<number> {
 const interrupt = (signal: NodeJS.Signals) => {
   console.error(`\nInterrupted (${signal}).`);
   killTree(current?.pid);
-  const stop = stopTestClusterAtEnd
-    ? runCommand('bash', [join(root, 'docker-free-scripts/postgres-stop.sh'), '--test'], {
-        quiet: true,
-      })
-    : Promise.resolve();
+  // Give the killed suite a moment to close its connections, then stop the cluster if idle.
+  const stop = new Promise((resolve) => setTimeout(resolve, 1_000)).then(stopTestClusterIfIdle);
   void stop.finally(() => process.exit(130));
 };
 process.once('SIGINT', interrupt);
