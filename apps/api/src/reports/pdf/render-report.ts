@@ -160,11 +160,11 @@ function drawPair(cursor: Cursor, snapshot: ReportSnapshot, pair: ReportPairSnap
   drawTable(
     cursor,
     [
-      { header: 'Parameter', width: 0.22 },
-      { header: 'As typed', width: 0.14, align: 'right' },
-      { header: 'Canonical', width: 0.12, align: 'right' },
-      { header: 'Uncertainty (1σ)', width: 0.13, align: 'right' },
-      { header: 'Provenance', width: 0.39 },
+      { header: 'Parameter', width: 0.24 },
+      { header: 'As typed', width: 0.18, align: 'right' },
+      { header: 'Canonical', width: 0.13, align: 'right' },
+      { header: 'Uncertainty (1σ)', width: 0.11, align: 'right' },
+      { header: 'Provenance', width: 0.34 },
     ],
     pair.inputs.map(inputRow),
   );
