@@ -99,7 +99,8 @@ function internalError(field: string, thrown: unknown): CalcAnswer {
   ]);
 }
 
-function runDefinition(method: MethodDefinition<any>, rawInputs: unknown): CalcAnswer {
+/** Runs a method definition on raw inputs (the registry-free core of `calculate`). */
+export function runDefinition(method: MethodDefinition<any>, rawInputs: unknown): CalcAnswer {
   const reader = new RequestInputReader(rawInputs);
   const inputs = method.read(reader);
   const names = method.inputs.map((input) => input.name).join(', ');
