@@ -17,11 +17,13 @@ const toToken = (r: Row): ApiToken => ({
 export async function findUserIdByApiToken(db: EntityManager, token: string): Promise<string | null> {
   if (token.length > 200) return null;
   const rows: Row[] = await db.query(
-    `UPDATE api_tokens SET last_used_at = now()
-      WHERE token_hash = $1 AND revoked_at IS NULL RETURNING user_id`,
+    'SELECT id, user_id FROM api_tokens WHERE token_hash = $1 AND revoked_at IS NULL',
     [hashToken(token)],
   );
-  return (rows[0]?.['user_id'] as string | undefined) ?? null;
+  const row = rows[0];
+  if (!row) return null;
+  await db.query('UPDATE api_tokens SET last_used_at = now() WHERE id = $1', [row['id']]);
+  return row['user_id'] as string;
 }
 
 export async function listTokens(db: EntityManager, userId: string): Promise<ApiToken[]> {
@@ -48,10 +50,8 @@ export async function insertToken(
 /** Revokes one of the user's tokens; false when the user has no such token. */
 export async function revokeToken(db: EntityManager, userId: string, id: string): Promise<boolean> {
   if (!isUuid(id)) return false;
-  const rows: Row[] = await db.query(
-    `UPDATE api_tokens SET revoked_at = coalesce(revoked_at, now())
-      WHERE id = $1 AND user_id = $2 RETURNING id`,
-    [id, userId],
-  );
-  return rows.length > 0;
+  const rows: Row[] = await db.query('SELECT id FROM api_tokens WHERE id = $1 AND user_id = $2', [id, userId]);
+  if (!rows[0]) return false;
+  await db.query('UPDATE api_tokens SET revoked_at = coalesce(revoked_at, now()) WHERE id = $1', [id]);
+  return true;
 }
