@@ -14,6 +14,8 @@ export { ScreenInputEntity } from './screen-input';
 export { ScreenResultEntity } from './screen-result';
 export { SeriesEntity } from './series';
 export { SeriesPointEntity } from './series-point';
+export { TraceEntity } from './trace';
+export { TraceAnalysisEntity } from './trace-analysis';
 export { ReportEntity } from './report';
 export { ReportCommentEntity } from './report-comment';
 export { ReportTransitionEntity } from './report-transition';

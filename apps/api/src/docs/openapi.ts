@@ -1,6 +1,7 @@
 import { PAIR_STATUSES, PARAMETER_KINDS, PROVENANCE_KINDS, RATE_MODELS, ROLES } from '@gapwise/contracts';
 import { ROUTE_DOCS } from './route-docs';
 import { REPORT_SCHEMAS } from '../reports/report-route-docs';
+import { TRACE_SCHEMAS } from '../traces/trace-route-docs';
 
 type Schema = Record<string, unknown>;
 const str = { type: 'string' };
@@ -110,6 +111,7 @@ const SCHEMAS: Record<string, Schema> = {
   ApiToken: obj({ id: str, name: str, prefix: str, createdAt: str, lastUsedAt: nullable(str), revokedAt: nullable(str) }),
   CreatedApiToken: obj({ id: str, name: str, prefix: str, createdAt: str, lastUsedAt: nullable(str), revokedAt: nullable(str), token: str }),
   ...REPORT_SCHEMAS,
+  ...TRACE_SCHEMAS,
 };
 
 const ERROR_TEXT: Record<number, string> = {

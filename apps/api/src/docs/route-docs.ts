@@ -1,4 +1,5 @@
 import { REPORT_ROUTE_DOCS } from '../reports/report-route-docs';
+import { TRACE_ROUTE_DOCS } from '../traces/trace-route-docs';
 /** One documented route; `path` is written as Express mounts it (under /api). */
 export interface RouteDoc {
   readonly method: 'get' | 'post' | 'put' | 'patch' | 'delete';
@@ -87,4 +88,5 @@ export const ROUTE_DOCS: readonly RouteDoc[] = [
   { method: 'post', path: '/tokens', tag: 'tokens', summary: 'Create an API token; the secret `gw_…` is shown in this answer only', access: 'signed in', auth: true, body: 'TokenName', status: 201, response: 'CreatedApiToken' },
   { method: 'delete', path: '/tokens/:id', tag: 'tokens', summary: 'Revoke one of my API tokens', access: 'signed in (own tokens only)', auth: true, status: 204 },
   ...REPORT_ROUTE_DOCS,
+  ...TRACE_ROUTE_DOCS,
 ];
