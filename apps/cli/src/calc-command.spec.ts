@@ -1,0 +1,117 @@
+import { spawn } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
+import { calculate, methodCatalog, serializeAnswer } from '@gapwise/calc';
+import { describe, expect, it } from 'vitest';
+
+const BIN = fileURLToPath(new URL('../bin/gapwise.js', import.meta.url));
+const SLOW = 120_000;
+
+interface Run {
+  readonly code: number | null;
+  readonly stdout: string;
+  readonly stderr: string;
+}
+
+/** Spawns `node apps/cli/bin/gapwise.js <args>` with `input` on standard input. */
+function gapwise(args: string[], input: string): Promise<Run> {
+  return new Promise((resolve, reject) => {
+    const child = spawn(process.execPath, [BIN, ...args], { stdio: ['pipe', 'pipe', 'pipe'] });
+    let stdout = '';
+    let stderr = '';
+    child.stdout.setEncoding('utf8').on('data', (chunk: string) => (stdout += chunk));
+    child.stderr.setEncoding('utf8').on('data', (chunk: string) => (stderr += chunk));
+    child.on('error', reject);
+    child.on('close', (code) => resolve({ code, stdout, stderr }));
+    child.stdin.end(input);
+  });
+}
+
+const marcus = {
+  method: 'rate.marcus',
+  inputs: { deltaG0: -0.3, lambda: 0.8, coupling: 0.01, temperature: 298.15 },
+};
+
+describe('gapwise calc', () => {
+  it(
+    'answers one request byte-identically to serializeAnswer(calculate(request)), exit 0',
+    async () => {
+      const run = await gapwise(['calc'], JSON.stringify(marcus));
+      expect(run.stdout).toBe(`${serializeAnswer(calculate(marcus))}\n`);
+      expect(run.code).toBe(0);
+      // SCIENCE.md §1 worked example: k ≈ 8.978e10 s⁻¹.
+      expect(JSON.parse(run.stdout).outputs.k).toBeCloseTo(8.978e10, -8);
+    },
+    SLOW,
+  );
+
+  it(
+    'exits 2 for a refused request and for invalid JSON (field request)',
+    async () => {
+      const refused = { method: 'rate.marcus', inputs: { ...marcus.inputs, lambda: -1 } };
+      const run = await gapwise(['calc'], JSON.stringify(refused));
+      expect(run.stdout).toBe(`${serializeAnswer(calculate(refused))}\n`);
+      expect(run.code).toBe(2);
+      const invalid = await gapwise(['calc'], '{"method": ');
+      expect(JSON.parse(invalid.stdout)).toMatchObject({
+        ok: false,
+        errors: [{ field: 'request' }],
+      });
+      expect(invalid.code).toBe(2);
+    },
+    SLOW,
+  );
+
+  it(
+    'streams --batch: one answer per line in order, a bad line answered on its own, exit 2',
+    async () => {
+      const requests: unknown[] = [
+        marcus,
+        { method: 'units.convert', inputs: { value: 1, from: 'hartree', to: 'eV' } },
+        { method: 'rate.unknown', inputs: {} },
+        { method: 'rate.ruler', inputs: { distance: 10, deltaG0: -0.5, lambda: 0.7 } },
+      ];
+      const lines = [
+        JSON.stringify(requests[0]),
+        JSON.stringify(requests[1]),
+        'not json',
+        JSON.stringify(requests[2]),
+        JSON.stringify(requests[3]),
+      ];
+      const run = await gapwise(['calc', '--batch'], `${lines.join('\n')}\n`);
+      const out = run.stdout.split('\n');
+      expect(out.pop()).toBe('');
+      expect(out).toHaveLength(5);
+      expect(out[0]).toBe(serializeAnswer(calculate(requests[0])));
+      expect(out[1]).toBe(serializeAnswer(calculate(requests[1])));
+      expect(JSON.parse(out[2])).toMatchObject({ ok: false, errors: [{ field: 'request' }] });
+      expect(out[3]).toBe(serializeAnswer(calculate(requests[2])));
+      expect(out[4]).toBe(serializeAnswer(calculate(requests[3])));
+      expect(run.code).toBe(2);
+      const allGood = await gapwise(
+        ['calc', '--batch'],
+        `${JSON.stringify(marcus)}\r\n${JSON.stringify(marcus)}\r\n`,
+      );
+      expect(allGood.stdout.trim().split('\n')).toHaveLength(2);
+      expect(allGood.code).toBe(0);
+    },
+    SLOW,
+  );
+
+  it(
+    '--help lists every registered method with its inputs and units; bad options exit 1',
+    async () => {
+      const run = await gapwise(['calc', '--help'], '');
+      expect(run.code).toBe(0);
+      for (const method of methodCatalog()) {
+        expect(run.stdout).toContain(`  ${method.id}\n`);
+        for (const input of method.inputs) expect(run.stdout).toContain(input.name);
+      }
+      expect(run.stdout).toContain('kcal/mol');
+      const bad = await gapwise(['calc', '--frobnicate'], '');
+      expect(bad.code).toBe(1);
+      const unknownCommand = await gapwise(['nope'], '');
+      expect(unknownCommand.code).toBe(1);
+    },
+    SLOW,
+  );
+});
