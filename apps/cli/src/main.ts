@@ -3,10 +3,12 @@
  * `traces`) are added as a row and a module beside this file.
  */
 import { calcCommand } from './calc-command';
+import { tracesCommand } from './traces-command';
 import type { Subcommand } from './subcommand';
 
 const SUBCOMMANDS: Readonly<Record<string, Subcommand>> = {
   calc: calcCommand,
+  traces: tracesCommand,
 };
 
 /** Exit code for a malformed command line (not a refused calculation). */

@@ -70,6 +70,8 @@ interface PassOne {
   readonly summary: GapStateSummary;
   readonly binaryPath: string;
   readonly count: number;
+  /** Bad lines skipped (only with skipBadLines). */
+  readonly skipped: number;
 }
 
 export async function analyzeTraces(
@@ -137,14 +139,14 @@ export async function analyzeTraces(
       if (error instanceof CalcRefusal) throw new TraceAnalysisRefusal([...error.errors]);
       throw error;
     }
-    for (const [state, input] of [
-      ['reactant', reactant],
-      ['product', product],
+    for (const [state, input, pass] of [
+      ['reactant', reactant, r],
+      ['product', product, p],
     ] as const) {
-      if (input.info.skippedLineCount > 0) {
+      if (pass.skipped > 0) {
         warnings.push({
           code: 'trace-bad-lines-skipped',
-          message: `${input.info.skippedLineCount} bad line${input.info.skippedLineCount === 1 ? ' was' : 's were'} skipped in the ${state} file (${input.info.fileName}).`,
+          message: `${pass.skipped} bad line${pass.skipped === 1 ? ' was' : 's were'} skipped in the ${state} file (${input.info.fileName}).`,
         });
       }
     }
@@ -152,7 +154,10 @@ export async function analyzeTraces(
     return {
       method: 'reorg.gapSamples',
       temperatureK,
-      sources: { reactant: { ...reactant.info, sampleCount: r.count }, product: { ...product.info, sampleCount: p.count } },
+      sources: {
+        reactant: { ...reactant.info, sampleCount: r.count, skippedLineCount: r.skipped },
+        product: { ...product.info, sampleCount: p.count, skippedLineCount: p.skipped },
+      },
       outputs,
       warnings,
     };
@@ -202,7 +207,8 @@ async function passOne(
     if (problems.length > 0) {
       throw new TraceAnalysisRefusal(problems.map((pr) => ({ field, message: pr.message })));
     }
-    return { summary: accumulator.summary(), binaryPath, count: accumulator.count };
+    const skipped = input.settings.skipBadLines ? read.summary.badLines.count : 0;
+    return { summary: accumulator.summary(), binaryPath, count: accumulator.count, skipped };
   } finally {
     closeSync(fd);
   }
