@@ -220,9 +220,11 @@ describe('report PDF as a document', () => {
       expect(cols[cols.length - 5]).toBe('yes');
     }
     // Every printed character has a glyph in the embedded font (no .notdef boxes).
-    const fontkit = await import('fontkit');
+    // fontkit (pdfkit's font engine) ships no type declarations.
+    const fontkitModule = 'fontkit';
+    const fontkit = (await import(fontkitModule)) as { create(b: Buffer): { hasGlyphForCodePoint(c: number): boolean } };
     const { reportFonts } = await import('../../apps/api/src/reports/pdf/fonts');
-    const regular = fontkit.create(reportFonts().regular) as unknown as { hasGlyphForCodePoint(c: number): boolean };
+    const regular = fontkit.create(reportFonts().regular);
     const missing = [...new Set(Array.from(p.text))].filter((c) => c.trim() && !regular.hasGlyphForCodePoint(c.codePointAt(0)!));
     expect(missing).toEqual([]);
     for (const c of ['λ', 'Δ', '‡', '−', '⁻', '¹', 'ħ', 'ω', 'ᵢ', 'ₒ', 'σ']) expect(p.text).toContain(c);

@@ -1,3 +1,6 @@
+import type { Provenance } from './pairs';
+import type { ReportModelResult } from './reports';
+
 /**
  * Number and unit formatting for reports: one module, so the PDF and the report page print the
  * very same strings. Negative numbers use the minus sign U+2212; exponents use Unicode
@@ -158,3 +161,45 @@ export function formatReportStatus(status: string): string {
   const s = status.replace(/-/g, ' ');
   return s.charAt(0).toUpperCase() + s.slice(1);
 }
+
+export const MODEL_NAMES: Readonly<Record<string, string>> = {
+  marcus: 'Classical nonadiabatic Marcus',
+  mlj: 'Marcus–Levich–Jortner (one quantum mode)',
+  crossover: 'Nonadiabatic–adiabatic crossover (solvent control)',
+  ruler: 'Empirical protein ruler',
+};
+
+export function modelName(model: string): string {
+  return MODEL_NAMES[model] ?? model;
+}
+
+/** "Literature — Smith et al. 2020" / "Derived — drivingForce.rehmWeller (from …)". */
+export function provenanceText(p: Provenance): string {
+  const kind = p.kind.charAt(0).toUpperCase() + p.kind.slice(1);
+  const parts: string[] = [];
+  if (p.citation) parts.push(p.citation);
+  if (p.methodId) {
+    const inputs = p.methodInputs
+      ? Object.entries(p.methodInputs)
+          .map(([k, v]) => `${k} = ${typeof v === 'number' ? formatNumber(v) : JSON.stringify(v)}`)
+          .join(', ')
+      : '';
+    parts.push(inputs ? `${p.methodId} from ${inputs}` : p.methodId);
+  }
+  if (p.sources && p.sources.length > 0) parts.push(`sources: ${p.sources.map((s) => `${s.type} ${s.id}`).join(', ')}`);
+  if (p.note) parts.push(p.note);
+  return parts.length > 0 ? `${kind}: ${parts.join('; ')}` : kind;
+}
+
+
+/** "log10 k 10.62 – 11.21 (95 %, median 10.95; 2000 samples)". */
+export function intervalText(result: ReportModelResult, hasUncertainties = false): string {
+  const iv = result.interval;
+  if (!iv) return hasUncertainties ? 'not available for this model' : 'no uncertainties given';
+  const width = iv.percentiles[1] - iv.percentiles[0];
+  return (
+    `${formatFixed(iv.log10kLow)} to ${formatFixed(iv.log10kHigh)} ` +
+    `(${formatNumber(width, 3)} %, median ${formatFixed(iv.log10kMedian)}; ${iv.samples} samples)`
+  );
+}
+

@@ -62,11 +62,31 @@ export const routes: Routes = [
               import('./pairs/version-history/version-history').then((m) => m.VersionHistory),
           },
           {
+            path: 'reports',
+            title: 'Reports · Gapwise',
+            loadComponent: () => import('./reports/report-list/report-list').then((m) => m.ReportList),
+          },
+          {
+            path: 'reports/new',
+            title: 'New report · Gapwise',
+            loadComponent: () => import('./reports/create-report/create-report').then((m) => m.CreateReport),
+          },
+          {
+            path: 'reports/:id',
+            title: 'Report · Gapwise',
+            loadComponent: () => import('./reports/report-view/report-view').then((m) => m.ReportViewPage),
+          },
+          {
             path: 'members',
             title: 'Members · Gapwise',
             loadComponent: () => import('./workspaces/members/members').then((m) => m.Members),
           },
         ],
+      },
+      {
+        path: 'reviews',
+        title: 'Reviews waiting · Gapwise',
+        loadComponent: () => import('./reports/reviews-waiting/reviews-waiting').then((m) => m.ReviewsWaiting),
       },
       { path: '**', component: NotFound, title: 'Not found · Gapwise' },
     ],

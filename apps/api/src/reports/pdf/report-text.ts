@@ -12,40 +12,15 @@ import {
   formatRate,
   formatRegime,
   formatUncertainty,
-  type Provenance,
+  intervalText,
+  modelName,
+  provenanceText,
   type ReportInput,
   type ReportModelResult,
   type ReportPairSnapshot,
 } from '@gapwise/contracts';
 
-export const MODEL_NAMES: Readonly<Record<string, string>> = {
-  marcus: 'Classical nonadiabatic Marcus',
-  mlj: 'Marcus–Levich–Jortner (one quantum mode)',
-  crossover: 'Nonadiabatic–adiabatic crossover (solvent control)',
-  ruler: 'Empirical protein ruler',
-};
-
-export function modelName(model: string): string {
-  return MODEL_NAMES[model] ?? model;
-}
-
-/** "Literature — Smith et al. 2020" / "Derived — drivingForce.rehmWeller (from …)". */
-export function provenanceText(p: Provenance): string {
-  const kind = p.kind.charAt(0).toUpperCase() + p.kind.slice(1);
-  const parts: string[] = [];
-  if (p.citation) parts.push(p.citation);
-  if (p.methodId) {
-    const inputs = p.methodInputs
-      ? Object.entries(p.methodInputs)
-          .map(([k, v]) => `${k} = ${typeof v === 'number' ? formatNumber(v) : JSON.stringify(v)}`)
-          .join(', ')
-      : '';
-    parts.push(inputs ? `${p.methodId} from ${inputs}` : p.methodId);
-  }
-  if (p.sources && p.sources.length > 0) parts.push(`sources: ${p.sources.map((s) => `${s.type} ${s.id}`).join(', ')}`);
-  if (p.note) parts.push(p.note);
-  return parts.length > 0 ? `${kind}: ${parts.join('; ')}` : kind;
-}
+export { modelName, provenanceText };
 
 /** "−6.918 kcal/mol" — the value as the user typed it. */
 export function typedText(input: ReportInput): string {
@@ -66,16 +41,7 @@ export function inputRow(input: ReportInput): string[] {
   return [input.label, typedText(input), canonicalText(input), uncertaintyText(input), provenanceText(input.provenance)];
 }
 
-/** "log10 k 10.62 – 11.21 (95 %, median 10.95; 2000 samples)". */
-export function intervalText(result: ReportModelResult, hasUncertainties = false): string {
-  const iv = result.interval;
-  if (!iv) return hasUncertainties ? 'not available for this model' : 'no uncertainties given';
-  const width = iv.percentiles[1] - iv.percentiles[0];
-  return (
-    `${formatFixed(iv.log10kLow)} to ${formatFixed(iv.log10kHigh)} ` +
-    `(${formatNumber(width, 3)} %, median ${formatFixed(iv.log10kMedian)}; ${iv.samples} samples)`
-  );
-}
+export { intervalText };
 
 /** Row of the results table. */
 export function resultRow(result: ReportModelResult, hasUncertainties = false): string[] {
