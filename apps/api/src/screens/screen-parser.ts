@@ -164,6 +164,7 @@ export async function parseScreenCsv(source: Readable | string, options: ParseOp
   let columns: ResolvedColumn[] | null = null;
   let width = 0;
   let headerKey = '';
+  let headerFirst = '';
   let fatal = false;
 
   let chunk = newChunk(0);
@@ -208,9 +209,10 @@ export async function parseScreenCsv(source: Readable | string, options: ParseOp
       columns = header.columns;
       width = header.width;
       headerKey = cells.map((c) => c.trim().toLowerCase()).join(',');
+      headerFirst = cells[0]?.trim().toLowerCase() ?? '';
       continue;
     }
-    if (cells.map((c) => c.trim().toLowerCase()).join(',') === headerKey) {
+    if (cells[0]?.trim().toLowerCase() === headerFirst && cells.map((c) => c.trim().toLowerCase()).join(',') === headerKey) {
       bad(line, 'a second header in the middle of the file');
       continue;
     }

@@ -69,6 +69,8 @@ export interface ScreenWorkerOptions {
   /** Wait between polls when the queue is empty. */
   readonly idleMs?: number;
   readonly log?: (message: string) => void;
+  /** Test hook: hold each chunk's transaction open this long before commit (kill tests). */
+  readonly chunkDelayMs?: number;
 }
 
 /**
@@ -104,7 +106,9 @@ export function startScreenWorker(boss: PgBoss, db: DataSource, options: ScreenW
       }
       for (const job of jobs) {
         try {
-          const outcome = await processChunk(db, job.data.screenId, job.data.chunkIndex, id);
+          const delay = options.chunkDelayMs;
+          const hooks = delay ? { beforeCommit: () => new Promise<void>((r) => setTimeout(r, delay)) } : {};
+          const outcome = await processChunk(db, job.data.screenId, job.data.chunkIndex, id, hooks);
           if (outcome === 'done') processed += 1;
           await boss.complete(SCREEN_QUEUE, job.id, { outcome });
         } catch (err) {
@@ -150,6 +154,7 @@ export interface ScreenServiceOptions {
   /** How often pg-boss expires lost jobs (its maintenance); default 60 s. */
   readonly maintenanceIntervalSeconds?: number;
   readonly log?: (message: string) => void;
+  readonly chunkDelayMs?: number;
 }
 
 /** Starts pg-boss for screens (its own small connection pool) and the worker when asked. */
@@ -166,7 +171,9 @@ export async function startScreenService(db: DataSource, options: ScreenServiceO
   boss.on('error', (error: Error) => options.log?.(`pg-boss (screens): ${error.message}`));
   await boss.start();
   await ensureScreenQueue(boss, queueOptions);
-  const worker = options.runWorker ? startScreenWorker(boss, db, { log: options.log }) : null;
+  const worker = options.runWorker
+    ? startScreenWorker(boss, db, { log: options.log, chunkDelayMs: options.chunkDelayMs })
+    : null;
   return {
     boss,
     queueOptions,
@@ -176,5 +183,44 @@ export async function startScreenService(db: DataSource, options: ScreenServiceO
       await worker?.stop();
       await boss.stop({ graceful: true, wait: true, timeout: 5000 });
     },
+  };
+}
+
+/**
+ * Screen settings from the environment (validated; a bad value stops the process):
+ * GAPWISE_SCREEN_WORKER (true/false, default true: a worker inside the server),
+ * GAPWISE_SCREEN_JOB_EXPIRE_SECONDS (default 120), GAPWISE_SCREEN_MAINTENANCE_SECONDS (default 60).
+ */
+export function screenServiceOptionsFromEnv(
+  env: Record<string, string | undefined>,
+  connectionString: string,
+  runWorkerDefault = true,
+): ScreenServiceOptions {
+  const problems: string[] = [];
+  const int = (name: string, fallback: number) => {
+    const raw = env[name];
+    if (raw === undefined || raw === '') return fallback;
+    const n = Number(raw);
+    if (!Number.isInteger(n) || n < 1 || n > 86_400) problems.push(`${name} must be an integer from 1 to 86400`);
+    return n;
+  };
+  const flag = env['GAPWISE_SCREEN_WORKER'];
+  let runWorker = runWorkerDefault;
+  if (flag !== undefined && flag !== '') {
+    if (['1', 'true', 'yes'].includes(flag.toLowerCase())) runWorker = true;
+    else if (['0', 'false', 'no'].includes(flag.toLowerCase())) runWorker = false;
+    else problems.push('GAPWISE_SCREEN_WORKER must be true or false');
+  }
+  const expireInSeconds = int('GAPWISE_SCREEN_JOB_EXPIRE_SECONDS', DEFAULT_SCREEN_QUEUE_OPTIONS.expireInSeconds);
+  const maintenanceIntervalSeconds = int('GAPWISE_SCREEN_MAINTENANCE_SECONDS', 60);
+  const delayRaw = env['GAPWISE_SCREEN_TEST_CHUNK_DELAY_MS'];
+  const chunkDelayMs = delayRaw ? Number(delayRaw) : undefined;
+  if (problems.length) throw new Error(`invalid screen settings:\n  ${problems.join('\n  ')}`);
+  return {
+    connectionString,
+    runWorker,
+    queueOptions: { ...DEFAULT_SCREEN_QUEUE_OPTIONS, expireInSeconds },
+    maintenanceIntervalSeconds,
+    chunkDelayMs,
   };
 }

@@ -81,6 +81,7 @@ export async function processChunk(
     const chunk = rows[0];
     if (!chunk) return 'missing';
     if (chunk.status === 'done') return 'already-done';
+    if (chunk.status !== 'pending') return 'screen-not-running';
     if (chunk.screen_status !== 'running') return 'screen-not-running';
     const inputs: Array<{ payload: string }> = await tx.query(
       'SELECT payload FROM screen_inputs WHERE screen_id = $1 AND chunk_index = $2',

@@ -2,8 +2,10 @@
  * Ranking scores a user can pick for a screen. Each is a plain function of one result row, so
  * the worker computes it with the rates and the table sorts on an indexed column.
  */
-export const SCORE_KINDS = ['cs-fast-cr-inverted', 'fastest-forward-above-floor'] as const;
-export type ScoreKind = (typeof SCORE_KINDS)[number];
+import { SCREEN_SCORE_KINDS, type ScreenScoreKind } from '@gapwise/contracts';
+
+export const SCORE_KINDS = SCREEN_SCORE_KINDS;
+export type ScoreKind = ScreenScoreKind;
 
 export interface ScoreChoice {
   readonly kind: ScoreKind;

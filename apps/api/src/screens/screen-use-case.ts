@@ -1,0 +1,292 @@
+/**
+ * Screen use-cases: upload (streamed parse into stored chunks and queued jobs, in one
+ * transaction), reuse of earlier results, cancel, re-run, and "open as pair".
+ */
+import { createHash } from 'node:crypto';
+import type { Readable } from 'node:stream';
+import type { DataSource, EntityManager } from 'typeorm';
+import { canEdit, type BadRowChoice, type Pair, type PairParameter, type Provenance, type Screen } from '@gapwise/contracts';
+import { AppError, notFound } from '../http/app-error';
+import { parseBody } from '../http/validate';
+import { recordAudit } from '../audit/audit-repository';
+import { PairInputDto } from '../pairs/pair-dto';
+import { acceptPairInput, createPair } from '../pairs/pair-use-case';
+import { requireRole } from '../workspaces/workspace-access';
+import type { ScreenService } from './screen-queue';
+import { decodeInputChunk, encodeInputChunk, parseScreenCsv, type InputChunk } from './screen-parser';
+import { findResult, findScreen, inputPayloadForLine, screenWorkspace } from './screen-repository';
+import type { ScoreChoice } from './screen-score';
+import { SCREEN_SOFTWARE_VERSION } from './screen-version';
+
+export const DEFAULT_CHUNK_SIZE = 2000;
+
+export interface UploadOptions {
+  readonly name: string;
+  readonly runGoodRows: boolean;
+  readonly badRowChoice?: BadRowChoice;
+  readonly score: ScoreChoice;
+  readonly chunkSize?: number;
+}
+
+/** Loads the screen's workspace and checks the caller's role (404 for non-members). */
+export async function screenForCaller(
+  db: EntityManager,
+  screenId: string,
+  userId: string,
+  allowed: Parameters<typeof requireRole>[3] = () => true,
+): Promise<string> {
+  const workspaceId = await screenWorkspace(db, screenId);
+  if (!workspaceId) throw notFound('screen');
+  await requireRole(db, workspaceId, userId, allowed, 'screen');
+  return workspaceId;
+}
+
+/**
+ * Parses the upload while streaming it into `screen_inputs` / `screen_chunks` inside one
+ * transaction. Bad rows answer 400 with their line numbers (nothing saved) unless the user
+ * chose to run the good rows. Equal inputs (hash) with the same software version reuse the
+ * results of an earlier finished screen of the workspace instead of computing them again.
+ */
+export async function uploadScreen(
+  db: DataSource,
+  service: ScreenService,
+  userId: string,
+  workspaceId: string,
+  source: Readable | string,
+  options: UploadOptions,
+): Promise<Screen> {
+  const started = Date.now();
+  const chunkSize = options.chunkSize ?? DEFAULT_CHUNK_SIZE;
+  const id = await db.transaction(async (tx) => {
+    await requireRole(tx, workspaceId, userId, canEdit);
+    const inserted: Array<{ id: string }> = await tx.query(
+      `INSERT INTO screens (workspace_id, name, status, input_hash, software_version, score_kind, score_floor_ev,
+         chunk_size, created_by) VALUES ($1, $2, 'uploaded', '', $3, $4, $5, $6, $7) RETURNING id`,
+      [workspaceId, options.name, SCREEN_SOFTWARE_VERSION, options.score.kind, options.score.floorEv ?? null, chunkSize, userId],
+    );
+    const screenId = inserted[0].id;
+    const summary = await parseScreenCsv(source, {
+      chunkSize,
+      onChunk: (chunk) => storeChunk(tx, screenId, chunk),
+    });
+    if (typeof source !== 'string') source.resume();
+    if (summary.fatal || (summary.badRowCount > 0 && !options.runGoodRows) || summary.goodRows === 0) {
+      throw new AppError(
+        400,
+        'screen-bad-rows',
+        summary.fatal
+          ? 'The file cannot be read as a screen.'
+          : `${summary.badRowCount} bad row(s): fix them, or run the ${summary.goodRows} good row(s).`,
+        {
+          fields: summary.badRows.map((b) => ({ field: `line ${b.line}`, message: b.message })),
+          current: { badRowCount: summary.badRowCount, goodRows: summary.goodRows, fatal: summary.fatal },
+        },
+      );
+    }
+    const inputHash = createHash('sha256')
+      .update(`${summary.inputHash}\n${options.score.kind}\n${options.score.floorEv ?? ''}`)
+      .digest('hex');
+    const choice: BadRowChoice = summary.badRowCount > 0 ? 'run-good' : (options.badRowChoice ?? 'none');
+    await tx.query(
+      `UPDATE screens SET input_hash = $2, row_count = $3, bad_row_count = $4, bad_rows = $5, bad_row_choice = $6,
+         chunk_count = $7, upload_ms = $8 WHERE id = $1`,
+      [screenId, inputHash, summary.goodRows, summary.badRowCount, JSON.stringify(summary.badRows), choice, summary.chunks, Date.now() - started],
+    );
+    const reusable: Array<{ id: string }> = await tx.query(
+      `SELECT id FROM screens WHERE workspace_id = $1 AND input_hash = $2 AND software_version = $3
+         AND status = 'done' AND id <> $4 ORDER BY finished_at DESC LIMIT 1`,
+      [workspaceId, inputHash, SCREEN_SOFTWARE_VERSION, screenId],
+    );
+    if (reusable[0]) await reuseResults(tx, screenId, reusable[0].id);
+    else {
+      await tx.query(`UPDATE screens SET status = 'running', started_at = now() WHERE id = $1`, [screenId]);
+      await service.enqueue(tx, screenId, Array.from({ length: summary.chunks }, (_, i) => i));
+    }
+    await recordAudit(tx, {
+      workspaceId,
+      actorId: userId,
+      action: 'screen.created',
+      entityType: 'screen',
+      entityId: screenId,
+      summary: `screen ${options.name}: ${summary.goodRows} row(s), ${summary.badRowCount} bad (${choice})`,
+    });
+    return screenId;
+  });
+  return (await findScreen(db.manager, id))!;
+}
+
+async function storeChunk(tx: EntityManager, screenId: string, chunk: InputChunk): Promise<void> {
+  await tx.query('INSERT INTO screen_inputs (screen_id, chunk_index, payload) VALUES ($1, $2, $3)', [
+    screenId,
+    chunk.index,
+    encodeInputChunk(chunk),
+  ]);
+  await tx.query(
+    `INSERT INTO screen_chunks (screen_id, chunk_index, first_line, last_line, row_count) VALUES ($1, $2, $3, $4, $5)`,
+    [screenId, chunk.index, chunk.lines[0], chunk.lines[chunk.lines.length - 1], chunk.lines.length],
+  );
+}
+
+/** Copies the results of a finished screen with the same inputs and software version. */
+async function reuseResults(tx: EntityManager, screenId: string, fromId: string): Promise<void> {
+  await tx.query(
+    `INSERT INTO screen_results (screen_id, row_number, donor, acceptor, solvent, delta_g_cs, delta_g_cr,
+       lambda_inner, lambda_outer, lambda_total, coupling, temperature_k, log10k_cs_marcus, log10k_cr_marcus,
+       log10k_cs_mlj, log10k_cr_mlj, regime_cs, regime_cr, warning_mask, score)
+     SELECT $1, row_number, donor, acceptor, solvent, delta_g_cs, delta_g_cr, lambda_inner, lambda_outer,
+       lambda_total, coupling, temperature_k, log10k_cs_marcus, log10k_cr_marcus, log10k_cs_mlj, log10k_cr_mlj,
+       regime_cs, regime_cr, warning_mask, score FROM screen_results WHERE screen_id = $2
+     ON CONFLICT DO NOTHING`,
+    [screenId, fromId],
+  );
+  await tx.query(`UPDATE screen_chunks SET status = 'done', finished_at = now() WHERE screen_id = $1`, [screenId]);
+  await tx.query(
+    `UPDATE screens SET status = 'done', reused_from = $2, rows_done = row_count, chunks_done = chunk_count,
+       started_at = now(), finished_at = now() WHERE id = $1`,
+    [screenId, fromId],
+  );
+}
+
+/** Stops a screen: queued chunks are skipped, finished chunks and their results stay. */
+export async function cancelScreen(db: DataSource, userId: string, screenId: string): Promise<Screen> {
+  await db.transaction(async (tx) => {
+    const workspaceId = await screenForCaller(tx, screenId, userId, canEdit);
+    // Chunks first, then the screen: the same lock order as the chunk writer (no deadlock).
+    await tx.query(`UPDATE screen_chunks SET status = 'cancelled' WHERE screen_id = $1 AND status = 'pending'`, [screenId]);
+    const rows: Array<{ id: string }> = await tx.query(
+      `UPDATE screens SET status = 'cancelled', finished_at = now() WHERE id = $1 AND status IN ('uploaded', 'running')
+       RETURNING id`,
+      [screenId],
+    );
+    if (!rows[0]) throw new AppError(409, 'screen-not-running', 'Only an uploaded or running screen can be cancelled.');
+    await recordAudit(tx, { workspaceId, actorId: userId, action: 'screen.cancelled', entityType: 'screen', entityId: screenId, summary: 'screen cancelled' });
+  });
+  return (await findScreen(db.manager, screenId))!;
+}
+
+/**
+ * Runs a screen again. A finished screen computed by this software version keeps its results
+ * (`reused: true`); otherwise unfinished chunks (or all, after a version change) are queued.
+ */
+export async function rerunScreen(
+  db: DataSource,
+  service: ScreenService,
+  userId: string,
+  screenId: string,
+): Promise<{ screen: Screen; reused: boolean }> {
+  const reused = await db.transaction(async (tx) => {
+    const workspaceId = await screenForCaller(tx, screenId, userId, canEdit);
+    const rows: Array<{ status: string; software_version: string }> = await tx.query(
+      'SELECT status, software_version FROM screens WHERE id = $1 FOR UPDATE',
+      [screenId],
+    );
+    const current = rows[0];
+    if (current.status === 'running') throw new AppError(409, 'screen-running', 'The screen is already running.');
+    if (current.status === 'done' && current.software_version === SCREEN_SOFTWARE_VERSION) return true;
+    if (current.software_version !== SCREEN_SOFTWARE_VERSION) {
+      await tx.query('DELETE FROM screen_results WHERE screen_id = $1', [screenId]);
+      await tx.query(`UPDATE screen_chunks SET status = 'pending' WHERE screen_id = $1`, [screenId]);
+      await tx.query('UPDATE screens SET rows_done = 0, chunks_done = 0, software_version = $2 WHERE id = $1', [
+        screenId,
+        SCREEN_SOFTWARE_VERSION,
+      ]);
+    } else {
+      await tx.query(`UPDATE screen_chunks SET status = 'pending' WHERE screen_id = $1 AND status <> 'done'`, [screenId]);
+    }
+    const pending: Array<{ chunk_index: number }> = await tx.query(
+      `SELECT chunk_index FROM screen_chunks WHERE screen_id = $1 AND status = 'pending' ORDER BY chunk_index`,
+      [screenId],
+    );
+    await tx.query(
+      `UPDATE screens SET status = CASE WHEN $2 = 0 THEN 'done' ELSE 'running' END, error = NULL, started_at = now(),
+         finished_at = CASE WHEN $2 = 0 THEN now() ELSE NULL END WHERE id = $1`,
+      [screenId, pending.length],
+    );
+    await service.enqueue(tx, screenId, pending.map((p) => p.chunk_index));
+    await recordAudit(tx, { workspaceId, actorId: userId, action: 'screen.rerun', entityType: 'screen', entityId: screenId, summary: `screen re-run: ${pending.length} chunk(s) queued` });
+    return false;
+  });
+  return { screen: (await findScreen(db.manager, screenId))!, reused };
+}
+
+/**
+ * Creates a pair from one result row through the pair use-case (so it gets a version and an
+ * audit event). Derived parameters name their method, inputs and the screen as source.
+ */
+export async function openRowAsPair(db: DataSource, userId: string, screenId: string, line: number): Promise<Pair> {
+  const workspaceId = await screenForCaller(db.manager, screenId, userId, canEdit);
+  const screen = (await findScreen(db.manager, screenId))!;
+  const row = await findResult(db.manager, screenId, line);
+  const stored = await inputPayloadForLine(db.manager, screenId, line);
+  if (!row || !stored) throw notFound('screen row');
+  const input = decodeInputChunk(stored.chunkIndex, stored.payload);
+  const i = input.lines.indexOf(line);
+  if (i < 0) throw notFound('screen row');
+  const v = (key: keyof InputChunk['values']) => input.values[key][i];
+  const source = [{ type: 'screen', id: screenId }];
+  const note = `From screen "${screen.name}", line ${line}.`;
+  const given: Provenance = { kind: 'assumed', note: `${note} Value as given in the uploaded file.` };
+  const params: PairParameter[] = [];
+  const add = (kind: PairParameter['kind'], value: number | null, unit: string, provenance: Provenance) => {
+    if (value === null || !Number.isFinite(value)) return;
+    params.push({ kind, value, unit, uncertainty: null, provenance });
+  };
+  const rwInputs = {
+    donorOxidation: v('donorOxidation'),
+    acceptorReduction: v('acceptorReduction'),
+    excitationEnergy: v('excitationEnergy'),
+    distance: v('distance'),
+    epsilon: v('epsilon'),
+  };
+  add('deltaG0', row.deltaGCs, 'eV', { kind: 'derived', methodId: 'drivingForce.rehmWeller', methodInputs: rwInputs, sources: source, note });
+  add('deltaG0Recombination', row.deltaGCr, 'eV', { kind: 'derived', methodId: 'drivingForce.rehmWeller', methodInputs: rwInputs, sources: source, note });
+  add('lambdaInner', row.lambdaInner, 'eV', given);
+  add(
+    'lambdaOuter',
+    row.lambdaOuter,
+    'eV',
+    Number.isNaN(v('lambdaOuter'))
+      ? {
+          kind: 'derived',
+          methodId: 'reorg.twoSphere',
+          methodInputs: { radiusDonor: v('radiusDonor'), radiusAcceptor: v('radiusAcceptor'), distance: v('distance'), epsilon: v('epsilon'), refractiveIndex: v('refractiveIndex') },
+          sources: source,
+          note,
+        }
+      : given,
+  );
+  add(
+    'coupling',
+    row.coupling,
+    'eV',
+    Number.isNaN(v('coupling'))
+      ? {
+          kind: 'derived',
+          methodId: 'coupling.distanceDecay',
+          methodInputs: { coupling0: v('coupling0'), distance0: v('distance0'), beta: v('beta'), distance: v('distance') },
+          sources: source,
+          note,
+        }
+      : given,
+  );
+  add('hbarOmega', Number.isNaN(v('hbarOmega')) ? null : v('hbarOmega'), 'eV', given);
+  add('distance', v('distance'), 'A', given);
+  add('radiusDonor', Number.isNaN(v('radiusDonor')) ? null : v('radiusDonor'), 'A', given);
+  add('radiusAcceptor', Number.isNaN(v('radiusAcceptor')) ? null : v('radiusAcceptor'), 'A', given);
+  add('donorOxidation', v('donorOxidation'), 'V', given);
+  add('acceptorReduction', v('acceptorReduction'), 'V', given);
+  add('excitationEnergy', v('excitationEnergy'), 'eV', given);
+  add('epsilonStatic', v('epsilon'), '', given);
+  add('refractiveIndex', Number.isNaN(v('refractiveIndex')) ? null : v('refractiveIndex'), '', given);
+  const dto = parseBody(PairInputDto, {
+    name: `${row.donor} / ${row.acceptor} (screen line ${line})`,
+    donor: row.donor,
+    acceptor: row.acceptor,
+    medium: row.solvent || `ε = ${v('epsilon')}`,
+    temperature: row.temperature ?? v('temperature'),
+    notes: note,
+    model: Number.isNaN(v('hbarOmega')) ? 'marcus' : 'mlj',
+    parameters: params,
+  });
+  return createPair(db, userId, workspaceId, acceptPairInput(dto));
+}

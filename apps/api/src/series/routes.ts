@@ -1,0 +1,57 @@
+/** Series routes: measured driving-force series, their fits, and applying a fit to pairs. */
+import type { Request, Router } from 'express';
+import { canEdit } from '@gapwise/contracts';
+import type { AppDeps } from '../http/context';
+import { requireAuth, userIdOf } from '../http/authenticate';
+import { notFound } from '../http/app-error';
+import { isUuid, parseBody } from '../http/validate';
+import { requireRole } from '../workspaces/workspace-access';
+import { SeriesApplyDto, SeriesFitDto, SeriesInputDto, SeriesUpdateDto } from './series-dto';
+import {
+  applySeries,
+  createSeries,
+  fitSeriesUseCase,
+  listSeries,
+  readSeries,
+  updateSeries,
+} from './series-use-case';
+
+export function registerSeriesRoutes(router: Router, deps: AppDeps): void {
+  const db = deps.dataSource;
+  const id = (req: Request) => {
+    const value = String(req.params['id']);
+    if (!isUuid(value)) throw notFound('series');
+    return value;
+  };
+
+  router.post('/workspaces/:wid/series', requireAuth, async (req, res) => {
+    const wid = String(req.params['wid']);
+    await requireRole(db.manager, wid, userIdOf(req), canEdit);
+    res.status(201).json(await createSeries(db, userIdOf(req), wid, parseBody(SeriesInputDto, req.body)));
+  });
+
+  router.get('/workspaces/:wid/series', requireAuth, async (req, res) => {
+    const wid = String(req.params['wid']);
+    await requireRole(db.manager, wid, userIdOf(req));
+    res.json(await listSeries(db.manager, wid));
+  });
+
+  router.get('/series/:id', requireAuth, async (req, res) => {
+    res.json(await readSeries(db, userIdOf(req), id(req)));
+  });
+
+  router.put('/series/:id', requireAuth, async (req, res) => {
+    const seriesId = id(req);
+    res.json(await updateSeries(db, userIdOf(req), seriesId, parseBody(SeriesUpdateDto, req.body)));
+  });
+
+  router.post('/series/:id/fit', requireAuth, async (req, res) => {
+    const seriesId = id(req);
+    res.json(await fitSeriesUseCase(db, userIdOf(req), seriesId, parseBody(SeriesFitDto, req.body)));
+  });
+
+  router.post('/series/:id/apply', requireAuth, async (req, res) => {
+    const seriesId = id(req);
+    res.json({ pairs: await applySeries(db, userIdOf(req), seriesId, parseBody(SeriesApplyDto, req.body)) });
+  });
+}
