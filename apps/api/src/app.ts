@@ -14,8 +14,10 @@ import { registerHealthRoutes } from './health/routes';
 import { registerInvitationRoutes } from './invitations/routes';
 import { registerPairRoutes } from './pairs/routes';
 import { registerReportRoutes } from './reports/routes';
-import { registerTokenRoutes } from './tokens/routes';
+import { registerScreenRoutes } from './screens/routes';
 import { registerTraceRoutes } from './traces/routes';
+import { registerSeriesRoutes } from './series/routes';
+import { registerTokenRoutes } from './tokens/routes';
 import { registerWorkspaceRoutes } from './workspaces/routes';
 import { serveWeb } from './web/serve-web';
 
@@ -73,7 +75,9 @@ export function createApiRouter(deps: AppDeps): Router {
   registerCalcRoutes(router, deps);
   registerAuditRoutes(router, deps);
   registerTokenRoutes(router, deps);
+  registerScreenRoutes(router, deps);
   registerTraceRoutes(router, deps);
+  registerSeriesRoutes(router, deps);
   return router;
 }
 

@@ -4,7 +4,9 @@ import type { Config } from './config';
 import type { AppDeps } from './http/context';
 import { createSmtpMailer, type Mailer } from './mail/mailer';
 import { resendPending, startMailQueue, type MailQueue } from './mail/mail-queue';
+import { provideScreenService } from './screens/routes';
 import { reportPdfStoreFromEnv } from './reports/report-pdf-store';
+import { screenServiceOptionsFromEnv, startScreenService } from './screens/screen-queue';
 import { provideTraceServices } from './traces/routes';
 import { startTraceServices, traceServicesOptionsFromEnv } from './traces/trace-services';
 
@@ -39,6 +41,9 @@ export async function startRuntime(
     });
     const resent = await resendPending(dataSource, queue).catch(() => 0);
     if (resent) log(`re-queued ${resent} unsent e-mail(s)`);
+    // Screens: pg-boss queue `screen-chunk`, with one worker in this process unless
+    // GAPWISE_SCREEN_WORKER=false (apps/api/src/screens/README.md).
+    const screens = await startScreenService(dataSource, { ...screenServiceOptionsFromEnv(process.env, config.databaseUrl), log });
     // Traces: object store (S3_*) and pg-boss queue `trace-analysis`, with one worker in this
     // process unless GAPWISE_TRACE_WORKER=false (apps/api/src/traces/README.md).
     const traces = await startTraceServices(dataSource, { ...traceServicesOptionsFromEnv(process.env, config.databaseUrl), log });
@@ -52,11 +57,13 @@ export async function startRuntime(
       reportPdfStore: reportPdfStoreFromEnv(process.env),
       async close() {
         await traces.stop().catch(() => undefined);
+        await screens.stop().catch(() => undefined);
         await queue.stop().catch(() => undefined);
         mailer.close();
         await dataSource.destroy();
       },
     };
+    provideScreenService(runtime, screens);
     provideTraceServices(runtime, traces);
     return runtime;
   } catch (error) {

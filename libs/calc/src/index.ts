@@ -64,3 +64,17 @@ export { twoStateMixing } from './evb/two-state/two-state';
 export type { TwoStateMixing } from './evb/two-state/two-state';
 export { symmetricEigensystem } from './evb/multi-state/multi-state';
 export type { Eigensystem } from './evb/multi-state/multi-state';
+
+// Energy-gap samples: the streaming pieces the server's trace analyses use (two passes over files).
+export {
+  GapSampleAccumulator,
+  HistogramCounter,
+  gapOutputsFromCounts,
+  planGapHistograms,
+} from './gap/index';
+export type {
+  GapHistogramCounts,
+  GapHistogramPlan,
+  GapStateSummary,
+  GapStatistics,
+} from './gap/index';

@@ -8,3 +8,4 @@ export * from './pair-calc';
 export * from './reports';
 export * from './report-format';
 export * from './traces';
+export * from './screens';
