@@ -65,6 +65,10 @@ export type { TwoStateMixing } from './evb/two-state/two-state';
 export { symmetricEigensystem } from './evb/multi-state/multi-state';
 export type { Eigensystem } from './evb/multi-state/multi-state';
 
+// Driving-force series fit and its confidence band (series page, API).
+export { confidenceBandLog10k, fitDrivingForceSeries, modelLog10k } from './fit/index';
+export type { ConfidenceBand, DrivingForceFit } from './fit/index';
+
 // Energy-gap samples: the streaming pieces the server's trace analyses use (two passes over files).
 export {
   GapSampleAccumulator,
