@@ -13,8 +13,15 @@
 import { closeSync, mkdtempSync, openSync, readSync, rmSync, writeSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import * as calc from '@gapwise/calc';
-import { CalcRefusal, type CalcWarning } from '@gapwise/calc';
+import {
+  CalcRefusal,
+  GapSampleAccumulator,
+  HistogramCounter,
+  gapOutputsFromCounts,
+  planGapHistograms,
+  type CalcWarning,
+  type GapStateSummary,
+} from '@gapwise/calc';
 import type { TraceAnalysisResult, TraceSourceInfo } from '@gapwise/contracts';
 import type { TraceParseSettings } from './trace-parser';
 import { TraceFileError, readTrace, traceProblems } from './trace-stream';
@@ -43,25 +50,6 @@ export class TraceAnalysisRefusal extends Error {
     this.name = 'TraceAnalysisRefusal';
   }
 }
-
-// Streaming composition of the core, looked up at run time so this module loads even while the
-// core does not export it yet (requested in libs/calc/src/gap/NOTE-from-traces.md).
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
-type Any = any;
-type GapStateSummary = Any;
-function core(name: string): Any {
-  const found = (calc as Record<string, unknown>)[name];
-  if (!found) throw new Error(`@gapwise/calc does not export ${name} (yet)`);
-  return found;
-}
-const planGapHistograms = (...args: Any[]) => core('planGapHistograms')(...args);
-const gapOutputsFromCounts = (...args: Any[]) => core('gapOutputsFromCounts')(...args);
-const HistogramCounter = function (edges: number[]) {
-  return new (core('HistogramCounter'))(edges);
-} as unknown as new (edges: number[]) => Any;
-const GapSampleAccumulator = function () {
-  return new (core('GapSampleAccumulator'))();
-} as unknown as new () => Any;
 
 const PASS_ONE_WEIGHT = 0.85;
 const READ_BLOCK_SAMPLES = 1 << 17;
@@ -125,13 +113,13 @@ export async function analyzeTraces(
       outputs = gapOutputsFromCounts(
         r.summary,
         p.summary,
-        {
-          reactant: Array.from(own.reactant.counts),
-          product: Array.from(own.product.counts),
-          commonReactant: Array.from(common.reactant.counts),
-          commonProduct: Array.from(common.product.counts),
-        },
         plan,
+        {
+          reactant: own.reactant.counts,
+          product: own.product.counts,
+          commonReactant: common.reactant.counts,
+          commonProduct: common.product.counts,
+        },
         temperatureK,
         sink,
       );
@@ -208,7 +196,9 @@ async function passOne(
       throw new TraceAnalysisRefusal(problems.map((pr) => ({ field, message: pr.message })));
     }
     const skipped = input.settings.skipBadLines ? read.summary.badLines.count : 0;
-    return { summary: accumulator.summary(), binaryPath, count: accumulator.count, skipped };
+    const stats = accumulator.statistics();
+    const [q1, q3] = stats.quartileEstimates;
+    return { summary: { stats, iqr: q3 - q1 }, binaryPath, count: accumulator.count, skipped };
   } finally {
     closeSync(fd);
   }

@@ -10,8 +10,20 @@ export {
 } from './gap-accumulator/gap-accumulator';
 export type { BlockLevel, BlockPlateau, GapStatistics } from './gap-accumulator/gap-accumulator';
 export { SystematicSample } from './gap-accumulator/systematic-sample';
-export { analyseGapSamples, fitParabola, gapSamplesMethod } from './gap-samples/gap-samples';
-export type { GapSampleInputs, Parabola } from './gap-samples/gap-samples';
+export {
+  analyseGapSamples,
+  fitParabola,
+  gapOutputsFromCounts,
+  gapSamplesMethod,
+  planGapHistograms,
+} from './gap-samples/gap-samples';
+export type {
+  GapHistogramCounts,
+  GapHistogramPlan,
+  GapSampleInputs,
+  GapStateSummary,
+  Parabola,
+} from './gap-samples/gap-samples';
 export {
   countInBins,
   equalWidthEdges,
@@ -23,5 +35,4 @@ export {
 export type { Histogram } from './histogram/histogram';
 
 /** The gap-sampling methods, for the registry. */
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
 export const gapMethods: MethodDefinition<any>[] = [gapSamplesMethod];

@@ -5,7 +5,11 @@
 import { BOLTZMANN_EV_PER_K } from '../../core/constants';
 import { CalcRefusal } from '../../core/method';
 import type { CalcOutputs, FieldError, MethodDefinition, WarningSink } from '../../core/method';
-import { GapSampleAccumulator, type BlockLevel, type GapStatistics } from '../gap-accumulator/gap-accumulator';
+import {
+  GapSampleAccumulator,
+  type BlockLevel,
+  type GapStatistics,
+} from '../gap-accumulator/gap-accumulator';
 import {
   countInBins,
   equalWidthEdges,
@@ -43,11 +47,19 @@ export interface Parabola {
   readonly binsUsed: number;
 }
 
-/** One state's samples, sorted, with streaming statistics. */
-interface StateSummary {
+/**
+ * What the analysis needs of one state before counting: the accumulator's statistics and the
+ * interquartile range (exact from sorted samples here; from the accumulator's quartile subsample
+ * on the streaming path of the server's trace analyses).
+ */
+export interface GapStateSummary {
   readonly stats: GapStatistics;
-  readonly sorted: Float64Array;
   readonly iqr: number;
+}
+
+/** One state's samples, sorted, with streaming statistics. */
+interface StateSummary extends GapStateSummary {
+  readonly sorted: Float64Array;
 }
 
 function summarise(values: Float64Array): StateSummary {
@@ -59,7 +71,11 @@ function summarise(values: Float64Array): StateSummary {
 }
 
 /** Refusals A20, A21 and A22 that concern one state's samples alone. */
-function sampleErrors(field: string, state: StateSummary, bins: number | undefined): FieldError[] {
+function sampleErrors(
+  field: string,
+  state: GapStateSummary,
+  bins: number | undefined,
+): FieldError[] {
   const n = state.stats.count;
   if (n < 2) return [{ field, message: `Too few samples for a variance (N = ${n}).` }];
   if (n < MIN_HISTOGRAM_SAMPLES) {
@@ -80,15 +96,13 @@ function sampleErrors(field: string, state: StateSummary, bins: number | undefin
   return [];
 }
 
-function histogramBinCount(state: StateSummary): number {
-  const { sorted, iqr } = state;
-  return freedmanDiaconisBinCount(iqr, sorted.length, sorted[0], sorted[sorted.length - 1]);
+function histogramBinCount(state: GapStateSummary): number {
+  const { stats, iqr } = state;
+  return freedmanDiaconisBinCount(iqr, stats.count, stats.min, stats.max);
 }
 
-function histogramOf(state: StateSummary, bins: number | undefined): Histogram {
-  const { sorted } = state;
-  const edges = equalWidthEdges(sorted[0], sorted[sorted.length - 1], bins ?? histogramBinCount(state));
-  return { edges, counts: countInBins(sorted, edges) };
+function histogramEdges(state: GapStateSummary, bins: number | undefined): number[] {
+  return equalWidthEdges(state.stats.min, state.stats.max, bins ?? histogramBinCount(state));
 }
 
 /**
@@ -149,19 +163,22 @@ interface Curve {
 }
 
 function freeEnergyOnGrid(
-  sorted: Float64Array,
+  binCounts: ArrayLike<number>,
+  sampleCount: number,
   edges: number[],
   thermalEv: number,
   offsetEv: number,
 ): Curve {
-  const counts = countInBins(sorted, edges);
+  const counts = Array.from(binCounts);
   const width = edges[1] - edges[0];
   const x: number[] = [];
   const g: (number | null)[] = [];
   for (let i = 0; i < counts.length; i++) {
     x.push(0.5 * (edges[i] + edges[i + 1]));
     // Empty bins have G = ∞: never take log(0), leave a gap.
-    g.push(counts[i] > 0 ? offsetEv - thermalEv * Math.log(counts[i] / (sorted.length * width)) : null);
+    g.push(
+      counts[i] > 0 ? offsetEv - thermalEv * Math.log(counts[i] / (sampleCount * width)) : null,
+    );
   }
   return { x, g, counts };
 }
@@ -196,10 +213,10 @@ function stateParabola(curve: Curve, field: string, warnings: WarningSink): Para
 }
 
 /** Common grid for both states: width min(h_R, h_P), spanning both ranges. */
-function commonEdges(reactant: Histogram, product: Histogram): number[] {
-  const width = Math.min(reactant.edges[1] - reactant.edges[0], product.edges[1] - product.edges[0]);
-  const low = Math.min(reactant.edges[0], product.edges[0]);
-  const high = Math.max(reactant.edges[reactant.edges.length - 1], product.edges[product.edges.length - 1]);
+function commonEdges(reactant: readonly number[], product: readonly number[]): number[] {
+  const width = Math.min(reactant[1] - reactant[0], product[1] - product[0]);
+  const low = Math.min(reactant[0], product[0]);
+  const high = Math.max(reactant[reactant.length - 1], product[product.length - 1]);
   const bins = Math.max(1, Math.ceil((high - low) / width));
   if (bins > MAX_HISTOGRAM_BINS) {
     throw new CalcRefusal([
@@ -210,7 +227,11 @@ function commonEdges(reactant: Histogram, product: Histogram): number[] {
 }
 
 function blockTable(levels: readonly BlockLevel[]) {
-  return levels.map((l) => ({ blockSize: l.blockSize, blocks: l.blocks, standardError: l.standardError }));
+  return levels.map((l) => ({
+    blockSize: l.blockSize,
+    blocks: l.blocks,
+    standardError: l.standardError,
+  }));
 }
 
 /**
@@ -237,19 +258,49 @@ function blockTable(levels: readonly BlockLevel[]) {
  * D. Freedman, P. Diaconis, Z. Wahrscheinlichkeitstheorie verw. Geb. 1981, 57, 453.
  */
 export function analyseGapSamples(inputs: GapSampleInputs, warnings: WarningSink): CalcOutputs {
-  const thermalEv = BOLTZMANN_EV_PER_K * inputs.temperatureK;
   const reactant = summarise(inputs.reactant);
   const product = summarise(inputs.product);
+  const plan = planGapHistograms(reactant, product, inputs.bins);
+  const counts: GapHistogramCounts = {
+    reactant: countInBins(reactant.sorted, plan.reactantEdges),
+    product: countInBins(product.sorted, plan.productEdges),
+    commonReactant: countInBins(reactant.sorted, plan.commonEdges),
+    commonProduct: countInBins(product.sorted, plan.commonEdges),
+  };
+  return gapOutputsFromCounts(reactant, product, plan, counts, inputs.temperatureK, warnings);
+}
+
+/** Bin edges of both states' own histograms and of the common grid of the free-energy curves. */
+export interface GapHistogramPlan {
+  readonly reactantEdges: number[];
+  readonly productEdges: number[];
+  readonly commonEdges: number[];
+}
+
+/** Counts of each state's samples in the plan's edges (`countInBins` or `HistogramCounter`). */
+export interface GapHistogramCounts {
+  readonly reactant: ArrayLike<number>;
+  readonly product: ArrayLike<number>;
+  readonly commonReactant: ArrayLike<number>;
+  readonly commonProduct: ArrayLike<number>;
+}
+
+/**
+ * First half of `analyseGapSamples`, for callers that stream the samples (the server's trace
+ * analyses read 10⁷-line files twice instead of holding them): refusals A20–A22 and A24 from the
+ * two states' summaries, then the edges the samples must be counted into.
+ */
+export function planGapHistograms(
+  reactant: GapStateSummary,
+  product: GapStateSummary,
+  bins?: number,
+): GapHistogramPlan {
   const errors = [
-    ...sampleErrors(REACTANT, reactant, inputs.bins),
-    ...sampleErrors(PRODUCT, product, inputs.bins),
+    ...sampleErrors(REACTANT, reactant, bins),
+    ...sampleErrors(PRODUCT, product, bins),
   ];
   if (errors.length > 0) throw new CalcRefusal(errors);
-
-  const r = reactant.stats;
-  const p = product.stats;
-  const lambdaFromMeans = (r.mean - p.mean) / 2;
-  if (!(lambdaFromMeans > 0)) {
+  if (!((reactant.stats.mean - product.stats.mean) / 2 > 0)) {
     throw new CalcRefusal([
       {
         field: REACTANT,
@@ -259,20 +310,54 @@ export function analyseGapSamples(inputs: GapSampleInputs, warnings: WarningSink
       },
     ]);
   }
+  const reactantEdges = histogramEdges(reactant, bins);
+  const productEdges = histogramEdges(product, bins);
+  return { reactantEdges, productEdges, commonEdges: commonEdges(reactantEdges, productEdges) };
+}
+
+/**
+ * Second half of `analyseGapSamples`: every output from the two states' summaries and their
+ * counts in the plan's edges (see the method notes above `analyseGapSamples`).
+ */
+export function gapOutputsFromCounts(
+  reactant: GapStateSummary,
+  product: GapStateSummary,
+  plan: GapHistogramPlan,
+  counts: GapHistogramCounts,
+  temperatureK: number,
+  warnings: WarningSink,
+): CalcOutputs {
+  const thermalEv = BOLTZMANN_EV_PER_K * temperatureK;
+  const r = reactant.stats;
+  const p = product.stats;
+  const lambdaFromMeans = (r.mean - p.mean) / 2;
   const deltaG0FromMeans = (r.mean + p.mean) / 2;
   const lambdaFromVarianceReactant = r.variance / (2 * thermalEv);
   const lambdaFromVarianceProduct = p.variance / (2 * thermalEv);
   const linearResponseRatio =
     (lambdaFromVarianceReactant + lambdaFromVarianceProduct) / 2 / lambdaFromMeans;
 
-  const histograms = { reactant: histogramOf(reactant, inputs.bins), product: histogramOf(product, inputs.bins) };
-  const edges = commonEdges(histograms.reactant, histograms.product);
-  const curveR = freeEnergyOnGrid(reactant.sorted, edges, thermalEv, 0);
-  const curveP = freeEnergyOnGrid(product.sorted, edges, thermalEv, deltaG0FromMeans);
+  const histograms: { reactant: Histogram; product: Histogram } = {
+    reactant: { edges: plan.reactantEdges, counts: Array.from(counts.reactant) },
+    product: { edges: plan.productEdges, counts: Array.from(counts.product) },
+  };
+  const edges = plan.commonEdges;
+  const curveR = freeEnergyOnGrid(counts.commonReactant, r.count, edges, thermalEv, 0);
+  const curveP = freeEnergyOnGrid(
+    counts.commonProduct,
+    p.count,
+    edges,
+    thermalEv,
+    deltaG0FromMeans,
+  );
   const parabolaR = stateParabola(curveR, REACTANT, warnings);
   const parabolaP = stateParabola(curveP, PRODUCT, warnings);
 
-  const curves = { x: [] as number[], reactant: [] as (number | null)[], product: [] as (number | null)[] };
+  const curves = {
+    x: [] as number[],
+    reactant: [] as (number | null)[],
+    product: [] as (number | null)[],
+  };
   const deviations: number[] = [];
   for (let i = 0; i < curveR.x.length; i++) {
     const gr = curveR.g[i];
@@ -288,7 +373,12 @@ export function analyseGapSamples(inputs: GapSampleInputs, warnings: WarningSink
   const seR = r.plateau.standardError;
   const seP = p.plateau.standardError;
   const seCombined = 0.5 * Math.hypot(seR, seP);
-  warnGap({ lambdaFromMeans, lambdaFromVarianceReactant, lambdaFromVarianceProduct }, r, p, warnings);
+  warnGap(
+    { lambdaFromMeans, lambdaFromVarianceReactant, lambdaFromVarianceProduct },
+    r,
+    p,
+    warnings,
+  );
 
   return {
     meanReactant: r.mean,
@@ -320,7 +410,10 @@ export function analyseGapSamples(inputs: GapSampleInputs, warnings: WarningSink
       deltaG0FromMeans: seCombined,
     },
     naiveStandardErrors: { meanReactant: r.naiveStandardError, meanProduct: p.naiveStandardError },
-    statisticalInefficiency: { reactant: r.statisticalInefficiency, product: p.statisticalInefficiency },
+    statisticalInefficiency: {
+      reactant: r.statisticalInefficiency,
+      product: p.statisticalInefficiency,
+    },
     blockPlateau: { reactant: r.plateau, product: p.plateau },
     blockAnalysis: { reactant: blockTable(r.blockLevels), product: blockTable(p.blockLevels) },
     skewness: { reactant: r.skewness, product: p.skewness },
@@ -346,7 +439,10 @@ function activationFreeEnergy(
   const populated = curveR.g.filter((g): g is number => g !== null);
   const minimum = Math.min(...populated);
   const bins = curveR.x.length;
-  const zeroBin = 0 >= edges[0] && 0 <= edges[bins] ? Math.min(bins - 1, Math.floor(((0 - edges[0]) / (edges[bins] - edges[0])) * bins)) : -1;
+  const zeroBin =
+    0 >= edges[0] && 0 <= edges[bins]
+      ? Math.min(bins - 1, Math.floor(((0 - edges[0]) / (edges[bins] - edges[0])) * bins))
+      : -1;
   const overlap = r.max >= p.min && p.max >= r.min;
   const crossingSampled = (r.min <= 0 && 0 <= r.max) || (p.min <= 0 && 0 <= p.max);
   if (!overlap && !crossingSampled) {
@@ -363,19 +459,35 @@ function activationFreeEnergy(
     return { value: (curveP.g[zeroBin] as number) - minimum, source: 'product-histogram' };
   }
   // G_R(0) − G_R(min) of the parabola: c − (c − b²/(4a)).
-  return { value: (parabolaR.b * parabolaR.b) / (4 * parabolaR.a), source: 'parabola-extrapolation' };
+  return {
+    value: (parabolaR.b * parabolaR.b) / (4 * parabolaR.a),
+    source: 'parabola-extrapolation',
+  };
 }
 
 /** Warnings B17, B18 and B19 of VALIDATION.md. */
 function warnGap(
-  lambdas: { lambdaFromMeans: number; lambdaFromVarianceReactant: number; lambdaFromVarianceProduct: number },
+  lambdas: {
+    lambdaFromMeans: number;
+    lambdaFromVarianceReactant: number;
+    lambdaFromVarianceProduct: number;
+  },
   r: GapStatistics,
   p: GapStatistics,
   warnings: WarningSink,
 ): void {
-  const { lambdaFromMeans: st, lambdaFromVarianceReactant: vr, lambdaFromVarianceProduct: vp } = lambdas;
+  const {
+    lambdaFromMeans: st,
+    lambdaFromVarianceReactant: vr,
+    lambdaFromVarianceProduct: vp,
+  } = lambdas;
   const ratioRP = vr / vp;
-  if (Math.abs(vr / st - 1) > 0.1 || Math.abs(vp / st - 1) > 0.1 || ratioRP < 0.9 || ratioRP > 1.1) {
+  if (
+    Math.abs(vr / st - 1) > 0.1 ||
+    Math.abs(vp / st - 1) > 0.1 ||
+    ratioRP < 0.9 ||
+    ratioRP > 1.1
+  ) {
     warnings.warn(
       'gap-nonlinear-response',
       `Linear-response/Gaussian assumption violated (λ_St = ${st.toFixed(3)} eV, λ_var = ` +
@@ -417,10 +529,30 @@ export const gapSamplesMethod: MethodDefinition<GapSampleInputs> = {
     'D. Freedman, P. Diaconis, Z. Wahrscheinlichkeitstheorie verw. Geb. 1981, 57, 453.',
   ],
   inputs: [
-    { name: 'reactantSamples', quantity: 'array', required: true, description: 'ΔE = E_P − E_R sampled in the reactant state (eV).' },
-    { name: 'productSamples', quantity: 'array', required: true, description: 'ΔE = E_P − E_R sampled in the product state (eV).' },
-    { name: 'temperature', quantity: 'temperature', required: true, description: 'Temperature of the sampling.' },
-    { name: 'bins', quantity: 'integer', required: false, description: 'Fixed bin count (default Freedman–Diaconis).' },
+    {
+      name: 'reactantSamples',
+      quantity: 'array',
+      required: true,
+      description: 'ΔE = E_P − E_R sampled in the reactant state (eV).',
+    },
+    {
+      name: 'productSamples',
+      quantity: 'array',
+      required: true,
+      description: 'ΔE = E_P − E_R sampled in the product state (eV).',
+    },
+    {
+      name: 'temperature',
+      quantity: 'temperature',
+      required: true,
+      description: 'Temperature of the sampling.',
+    },
+    {
+      name: 'bins',
+      quantity: 'integer',
+      required: false,
+      description: 'Fixed bin count (default Freedman–Diaconis).',
+    },
   ],
   outputs: [
     { name: 'meanReactant', unit: 'eV', description: '⟨ΔE⟩_R.' },
@@ -432,15 +564,33 @@ export const gapSamplesMethod: MethodDefinition<GapSampleInputs> = {
     { name: 'lambdaFromVarianceReactant', unit: 'eV', description: 'σ_R²/(2k_BT).' },
     { name: 'lambdaFromVarianceProduct', unit: 'eV', description: 'σ_P²/(2k_BT).' },
     { name: 'linearResponseRatio', unit: '', description: 'Mean variance λ ÷ λ from means.' },
-    { name: 'freeEnergyCurves', unit: 'eV', description: '{ x, reactant, product } (null = empty bin).' },
+    {
+      name: 'freeEnergyCurves',
+      unit: 'eV',
+      description: '{ x, reactant, product } (null = empty bin).',
+    },
     { name: 'activationFreeEnergy', unit: 'eV', description: 'ΔG‡ = G_R(0) − min G_R.' },
-    { name: 'standardErrors', unit: 'eV', description: 'Block-plateau SEs of the means, λ and ΔG°.' },
+    {
+      name: 'standardErrors',
+      unit: 'eV',
+      description: 'Block-plateau SEs of the means, λ and ΔG°.',
+    },
     { name: 'statisticalInefficiency', unit: '', description: 'N·SE²/σ² per state.' },
-    { name: 'histograms', unit: 'eV', description: 'Freedman–Diaconis { edges, counts } per state.' },
+    {
+      name: 'histograms',
+      unit: 'eV',
+      description: 'Freedman–Diaconis { edges, counts } per state.',
+    },
   ],
   read(reader) {
-    const reactant = reader.quantityArray(REACTANT, 'energy', { minLength: 1, message: 'No data rows found.' });
-    const product = reader.quantityArray(PRODUCT, 'energy', { minLength: 1, message: 'No data rows found.' });
+    const reactant = reader.quantityArray(REACTANT, 'energy', {
+      minLength: 1,
+      message: 'No data rows found.',
+    });
+    const product = reader.quantityArray(PRODUCT, 'energy', {
+      minLength: 1,
+      message: 'No data rows found.',
+    });
     const temperatureK = reader.quantity('temperature', 'temperature', {
       greaterThan: 0,
       message: 'Temperature must be > 0 K (absolute). Did you enter °C?',
