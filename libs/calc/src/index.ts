@@ -82,17 +82,3 @@ export type {
   GapStateSummary,
   GapStatistics,
 } from './gap/index';
-
-// Energy-gap samples: the streaming pieces the server's trace analyses use (two passes over files).
-export {
-  GapSampleAccumulator,
-  HistogramCounter,
-  gapOutputsFromCounts,
-  planGapHistograms,
-} from './gap/index';
-export type {
-  GapHistogramCounts,
-  GapHistogramPlan,
-  GapStateSummary,
-  GapStatistics,
-} from './gap/index';
