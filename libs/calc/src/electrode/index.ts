@@ -10,5 +10,4 @@ export { logErfc, logMhcClosedForm, logMhcIntegral, mhcMethod, mhcRates } from '
 export type { MhcInputs, MhcRates } from './mhc/mhc';
 
 /** Every `electrode.*` method, for the registry. */
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
 export const electrodeMethods: MethodDefinition<any>[] = [mhcMethod, butlerVolmerMethod];

@@ -17,5 +17,4 @@ export type {
 } from './driving-force-series/driving-force-series';
 
 /** Every `fit.*` method, for the registry. */
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
 export const fitMethods: MethodDefinition<any>[] = [drivingForceSeriesMethod];

@@ -12,5 +12,4 @@ export {
 export type { QuenchInputs, QuenchResult } from './diffusion/diffusion';
 
 /** Every `quench.*` method, for the registry. */
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
 export const quenchMethods: MethodDefinition<any>[] = [diffusionMethod];

@@ -9,8 +9,12 @@ export {
   piWeightedDiffusionCm2PerS,
   randomWalkDiffusionCm2PerS,
 } from './hopping/hopping';
-export type { DiffusionForm, HoppingInputs, HoppingNeighbour, HoppingResult } from './hopping/hopping';
+export type {
+  DiffusionForm,
+  HoppingInputs,
+  HoppingNeighbour,
+  HoppingResult,
+} from './hopping/hopping';
 
 /** Every `transport.*` method, for the registry. */
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
 export const transportMethods: MethodDefinition<any>[] = [hoppingMethod];

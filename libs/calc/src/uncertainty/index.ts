@@ -18,5 +18,4 @@ export type {
 } from './monte-carlo/monte-carlo';
 
 /** Every `uncertainty.*` method, for the registry. */
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
 export const uncertaintyMethods: MethodDefinition<any>[] = [monteCarloMethod];

@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
 
+import { computeRefused } from '../../core/testing/answers';
+
 import { CalcRefusal } from '../../core/method';
 import { butlerVolmerMethod, butlerVolmerRates } from './butler-volmer';
 
@@ -31,5 +33,17 @@ describe('Butler–Volmer', () => {
     expect(() =>
       butlerVolmerMethod.compute({ ...BASE, alpha: 0.5, overpotentialV: -50 }, { warn: () => {} }),
     ).toThrow(CalcRefusal);
+  });
+});
+
+describe('electrode.butlerVolmer through the dispatcher', () => {
+  it('refuses α outside [0, 1] and k⁰ ≤ 0', () => {
+    const errors = computeRefused('electrode.butlerVolmer', {
+      k0: 0,
+      alpha: 1.5,
+      overpotential: 0.1,
+      temperature: 298.15,
+    });
+    expect(errors.map((e) => e.field).sort()).toEqual(['alpha', 'k0']);
   });
 });

@@ -54,8 +54,18 @@ export const butlerVolmerMethod: MethodDefinition<ButlerVolmerInputs> = {
     'A. J. Bard, L. R. Faulkner, Electrochemical Methods, 2nd ed., Wiley, New York, 2001.',
   ],
   inputs: [
-    { name: 'k0', quantity: 'dimensionless', required: true, description: 'Standard rate constant k⁰ (outputs share its unit).' },
-    { name: 'alpha', quantity: 'dimensionless', required: true, description: 'Transfer coefficient α (0–1).' },
+    {
+      name: 'k0',
+      quantity: 'dimensionless',
+      required: true,
+      description: 'Standard rate constant k⁰ (outputs share its unit).',
+    },
+    {
+      name: 'alpha',
+      quantity: 'dimensionless',
+      required: true,
+      description: 'Transfer coefficient α (0–1).',
+    },
     { name: 'overpotential', quantity: 'potential', required: true, description: 'η = E − E°′.' },
     { name: 'temperature', quantity: 'temperature', required: true, description: 'Temperature.' },
   ],

@@ -1,4 +1,8 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+
+import { computeOk, computeRefused, numberOutput } from '../../core/testing/answers';
+import { calculate } from '../../core/calculate';
 
 import { integrateAdaptive } from './adaptive-gauss-kronrod';
 import { logErfc, logMhcClosedForm, logMhcIntegral, mhcMethod, mhcRates, softplus } from './mhc';
@@ -41,10 +45,10 @@ describe('adaptive Gauss–Kronrod', () => {
 
 describe('logErfc', () => {
   it.each([
-    [25.9, -674.637351895319178967361881682],
-    [26, -679.831199763194230262387142358],
-    [30, -903.974117110643878079600243618],
-    [100, -10005.1775851226643325704667821],
+    [25.9, -674.6373518953192],
+    [26, -679.8311997631943],
+    [30, -903.9741171106439],
+    [100, -10005.177585122665],
   ])('matches mpmath log(erfc(%d)) on both sides of the series switch', (z, expected) => {
     // Expected values: mpmath (mp.dps = 30), log(erfc(z)), computed independently for this test.
     expect(Math.abs(logErfc(z) / expected - 1)).toBeLessThan(1e-13);
@@ -134,15 +138,27 @@ describe('electrode.mhc method', () => {
   });
 
   it('scales every rate by the prefactor and reports kRed/kOx = e^(−eη/k_BT)', () => {
-    const one = mhcRates({ lambdaEv: 0.4, overpotentialV: 0.05, temperatureK: 298.15, prefactor: 1 });
-    const big = mhcRates({ lambdaEv: 0.4, overpotentialV: 0.05, temperatureK: 298.15, prefactor: 1e6 });
+    const one = mhcRates({
+      lambdaEv: 0.4,
+      overpotentialV: 0.05,
+      temperatureK: 298.15,
+      prefactor: 1,
+    });
+    const big = mhcRates({
+      lambdaEv: 0.4,
+      overpotentialV: 0.05,
+      temperatureK: 298.15,
+      prefactor: 1e6,
+    });
     expect(big.kRedIntegral / one.kRedIntegral).toBeCloseTo(1e6, 3);
     expect(Math.log(one.kRedIntegral / one.kOxIntegral)).toBeCloseTo(-0.05 / KT_298, 10);
     expect(one.kRedRelativeDifference).toBeCloseTo(one.kRed / one.kRedIntegral - 1, 12);
   });
 
   it('warns mhc-closed-form-inaccurate outside 8–16 k_BT only (B25)', () => {
-    expect(warningsOf({ lambdaEv: 0.3, overpotentialV: 0, temperatureK: 298.15, prefactor: 1 })).toEqual([]);
+    expect(
+      warningsOf({ lambdaEv: 0.3, overpotentialV: 0, temperatureK: 298.15, prefactor: 1 }),
+    ).toEqual([]);
     expect(
       warningsOf({ lambdaEv: 1.0, overpotentialV: 0, temperatureK: 298.15, prefactor: 1 }),
     ).toEqual(['mhc-closed-form-inaccurate']);
@@ -161,5 +177,50 @@ describe('electrode.mhc method', () => {
     expect(softplus(800)).toBe(800);
     expect(softplus(-800)).toBe(0);
     expect(softplus(0)).toBeCloseTo(Math.LN2, 15);
+  });
+});
+
+describe('electrode.mhc through the dispatcher', () => {
+  it('computes with units and echoes finite outputs', () => {
+    const answer = computeOk('electrode.mhc', {
+      lambda: { value: 0.3, unit: 'eV' },
+      overpotential: { value: -200, unit: 'mV' },
+      temperature: 298.15,
+    });
+    const base = computeOk('electrode.mhc', { lambda: 0.3, overpotential: 0, temperature: 298.15 });
+    expect(numberOutput(answer, 'kRedIntegral') / numberOutput(base, 'kRedIntegral')).toBeCloseTo(
+      18.8,
+      1,
+    );
+  });
+
+  it('refuses λ ≤ 0 and a non-finite overpotential (A25)', () => {
+    const errors = computeRefused('electrode.mhc', {
+      lambda: 0,
+      overpotential: 'inf',
+      temperature: 298.15,
+    });
+    expect(errors.map((e) => e.field).sort()).toEqual(['lambda', 'overpotential']);
+    expect(errors.find((e) => e.field === 'lambda')?.message).toBe(
+      'λ must be > 0; overpotential must be finite.',
+    );
+  });
+
+  it('gives finite outputs for any valid input (property)', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 1e-3, max: 5, noNaN: true }),
+        fc.double({ min: -10, max: 10, noNaN: true }),
+        fc.double({ min: 10, max: 2000, noNaN: true }),
+        (lambda, overpotential, temperature) => {
+          const answer = calculate({
+            method: 'electrode.mhc',
+            inputs: { lambda, overpotential, temperature },
+          });
+          return answer.ok;
+        },
+      ),
+      { numRuns: 200 },
+    );
   });
 });

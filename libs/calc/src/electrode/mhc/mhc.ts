@@ -32,7 +32,8 @@ export function softplus(x: number): number {
 export function logErfc(z: number): number {
   if (z < 26) return Math.log(erfc(z));
   const inv2 = 1 / (z * z);
-  const series = 1 - inv2 / 2 + (3 * inv2 * inv2) / 4 - (15 * inv2 ** 3) / 8 + (105 * inv2 ** 4) / 16;
+  const series =
+    1 - inv2 / 2 + (3 * inv2 * inv2) / 4 - (15 * inv2 ** 3) / 8 + (105 * inv2 ** 4) / 16;
   return -z * z - Math.log(z * Math.sqrt(Math.PI)) + Math.log(series);
 }
 
@@ -51,8 +52,7 @@ export function logErfc(z: number): number {
  */
 export function logMhcIntegral(lambdaOverKt: number, etaOverKt: number): number {
   const centre = lambdaOverKt + etaOverKt;
-  const logIntegrand = (x: number) =>
-    -((x - centre) ** 2) / (4 * lambdaOverKt) - softplus(x);
+  const logIntegrand = (x: number) => -((x - centre) ** 2) / (4 * lambdaOverKt) - softplus(x);
   // h'(x) = −(x − μ)/(2λ̃) − 1/(1 + e^−x) is decreasing: ≥ 0 at μ − 2λ̃, < 0 at μ.
   let low = centre - 2 * lambdaOverKt;
   let high = centre;

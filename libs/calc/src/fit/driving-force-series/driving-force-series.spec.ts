@@ -1,6 +1,8 @@
 import seedrandom from 'seedrandom';
 import { describe, expect, it } from 'vitest';
 
+import { computeOk, computeRefused, numberOutput } from '../../core/testing/answers';
+
 import { CalcRefusal } from '../../core/method';
 import {
   confidenceBandLog10k,
@@ -31,7 +33,7 @@ function mljLog10(dg: number, ls: number, lv: number, w: number, h: number): num
     sum += poisson * Math.exp(-((dg + ls + n * w) ** 2) / (4 * ls * KT));
     poisson *= s / (n + 1);
   }
-  return Math.log10(((2 * Math.PI) / HBAR) * h * h * sum / Math.sqrt(4 * Math.PI * ls * KT));
+  return Math.log10((((2 * Math.PI) / HBAR) * h * h * sum) / Math.sqrt(4 * Math.PI * ls * KT));
 }
 
 const GRID = [-0.1, -0.3, -0.5, -0.7, -0.9, -1.1, -1.3, -1.5];
@@ -150,7 +152,13 @@ describe('fit.drivingForceSeries', () => {
       (x) => marcusLog10(x, 0.8, 0.01),
       (i) => 0.05 * Math.sin(3 * i),
     );
-    expect(codes({ points: [...wide, ...wide.map((p) => ({ ...p, k: p.k * 1.1 }))], temperatureK: T, model: 'marcus' })).toEqual([]);
+    expect(
+      codes({
+        points: [...wide, ...wide.map((p) => ({ ...p, k: p.k * 1.1 }))],
+        temperatureK: T,
+        model: 'marcus',
+      }),
+    ).toEqual([]);
   });
 
   it('refuses points that cannot separate λ and H', () => {
@@ -167,5 +175,63 @@ describe('fit.drivingForceSeries', () => {
         model: 'marcus',
       }),
     ).toThrow(CalcRefusal);
+  });
+});
+
+describe('fit.drivingForceSeries through the dispatcher', () => {
+  const message = 'Need ≥ 3 distinct points with k > 0 to fit λ and H with uncertainties.';
+
+  it('refuses fewer than 3 points, duplicate ΔG° only, and k ≤ 0 (A15)', () => {
+    expect(
+      computeRefused('fit.drivingForceSeries', {
+        points: [
+          { deltaG0: -0.3, k: 1e9 },
+          { deltaG0: -0.5, k: 1e10 },
+        ],
+        temperature: T,
+      }),
+    ).toEqual([{ field: 'points', message }]);
+    expect(
+      computeRefused('fit.drivingForceSeries', {
+        points: [
+          { deltaG0: -0.3, k: 1e9 },
+          { deltaG0: -0.3, k: 2e9 },
+          { deltaG0: -0.3, k: 3e9 },
+        ],
+        temperature: T,
+      }),
+    ).toEqual([{ field: 'points', message }]);
+    const errors = computeRefused('fit.drivingForceSeries', {
+      points: [
+        { deltaG0: -0.3, k: 1e9 },
+        { deltaG0: -0.5, k: 0 },
+        { deltaG0: -0.7, k: 1e10 },
+      ],
+      temperature: T,
+    });
+    expect(errors).toContainEqual({ field: 'points[1].k', message });
+  });
+
+  it('needs hbarOmega and lambdaVib for the mlj model', () => {
+    const errors = computeRefused('fit.drivingForceSeries', {
+      points: points((x) => marcusLog10(x, 0.8, 0.01)).map((p) => ({
+        deltaG0: p.deltaG0Ev,
+        k: p.k,
+      })),
+      temperature: T,
+      model: 'mlj',
+    });
+    expect(errors.map((e) => e.field).sort()).toEqual(['hbarOmega', 'lambdaVib']);
+  });
+
+  it('fits through the dispatcher with energies in kcal/mol', () => {
+    const answer = computeOk('fit.drivingForceSeries', {
+      points: points((x) => marcusLog10(x, 0.75, 0.012)).map((p) => ({
+        deltaG0: { value: p.deltaG0Ev * 23.06054783, unit: 'kcal/mol' },
+        k: p.k,
+      })),
+      temperature: T,
+    });
+    expect(numberOutput(answer, 'lambda')).toBeCloseTo(0.75, 7);
   });
 });

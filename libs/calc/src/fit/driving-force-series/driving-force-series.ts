@@ -291,7 +291,11 @@ export function confidenceBandLog10k(
 }
 
 /** Warnings B29 and B30 of VALIDATION.md. */
-export function warnFit(fit: DrivingForceFit, points: readonly SeriesPoint[], sink: WarningSink): void {
+export function warnFit(
+  fit: DrivingForceFit,
+  points: readonly SeriesPoint[],
+  sink: WarningSink,
+): void {
   const inverted = points.some((p) => -p.deltaG0Ev > fit.lambdaEv);
   if (!inverted || Math.abs(fit.correlation) > 0.95) {
     sink.warn(
@@ -323,10 +327,26 @@ export const drivingForceSeriesMethod: MethodDefinition<DrivingForceInputs> = {
     'J. Jortner, J. Chem. Phys. 1976, 64, 4860. doi:10.1063/1.432142',
   ],
   inputs: [
-    { name: 'points', quantity: 'array', required: true, description: 'Series [{ deltaG0 (eV), k (s⁻¹) }], ≥ 3 distinct ΔG°.' },
+    {
+      name: 'points',
+      quantity: 'array',
+      required: true,
+      description: 'Series [{ deltaG0 (eV), k (s⁻¹) }], ≥ 3 distinct ΔG°.',
+    },
     { name: 'temperature', quantity: 'temperature', required: true, description: 'Temperature.' },
-    { name: 'model', quantity: 'string', required: false, defaultValue: 'marcus', description: "'marcus' or 'mlj'." },
-    { name: 'hbarOmega', quantity: 'energy', required: false, description: 'Fixed mode energy ħω (mlj).' },
+    {
+      name: 'model',
+      quantity: 'string',
+      required: false,
+      defaultValue: 'marcus',
+      description: "'marcus' or 'mlj'.",
+    },
+    {
+      name: 'hbarOmega',
+      quantity: 'energy',
+      required: false,
+      description: 'Fixed mode energy ħω (mlj).',
+    },
     { name: 'lambdaVib', quantity: 'energy', required: false, description: 'Fixed λ_vib (mlj).' },
   ],
   outputs: [
@@ -353,7 +373,8 @@ export const drivingForceSeriesMethod: MethodDefinition<DrivingForceInputs> = {
       message: 'Temperature must be > 0 K (absolute). Did you enter °C?',
     });
     const model = reader.choice<FitModel>('model', ['marcus', 'mlj'], 'marcus');
-    const read = model === 'mlj' ? reader.quantity.bind(reader) : reader.optionalQuantity.bind(reader);
+    const read =
+      model === 'mlj' ? reader.quantity.bind(reader) : reader.optionalQuantity.bind(reader);
     const hbarOmegaEv = read('hbarOmega', 'energy', {
       greaterThan: 0,
       message: 'Mode energy must be > 0.',

@@ -148,7 +148,10 @@ export class GapSampleAccumulator {
       const blocks = this.blockCount[level];
       if (blocks < 2) break;
       const sum = this.blockSum[level];
-      const variance = Math.max(0, (this.blockSumSquares[level] - (sum * sum) / blocks) / (blocks - 1));
+      const variance = Math.max(
+        0,
+        (this.blockSumSquares[level] - (sum * sum) / blocks) / (blocks - 1),
+      );
       levels.push({
         blockSize: 2 ** level,
         blocks,
@@ -200,7 +203,11 @@ const PLATEAU_LOOKAHEAD = 2;
 export function findPlateau(levels: readonly BlockLevel[]): BlockPlateau {
   const usable = levels.filter((l) => l.blocks >= MIN_BLOCKS);
   if (usable.length === 0) {
-    const last = levels[levels.length - 1] ?? { blockSize: 1, blocks: 0, standardError: Number.NaN };
+    const last = levels[levels.length - 1] ?? {
+      blockSize: 1,
+      blocks: 0,
+      standardError: Number.NaN,
+    };
     return { ...pick(last), reached: false };
   }
   for (let k = 0; k < usable.length; k++) {

@@ -1,6 +1,8 @@
 import seedrandom from 'seedrandom';
 import { describe, expect, it } from 'vitest';
 
+import { computeOk, computeRefused, numberOutput } from '../../core/testing/answers';
+
 import { CalcRefusal } from '../../core/method';
 import { analyseGapSamples, fitParabola } from './gap-samples';
 
@@ -172,5 +174,29 @@ describe('fitParabola', () => {
     expect(fit.b).toBeCloseTo(-3, 10);
     expect(fit.c).toBeCloseTo(1, 10);
     expect(fit.lambda).toBeCloseTo(0.125, 10);
+  });
+});
+
+describe('reorg.gapSamples through the dispatcher', () => {
+  it('refuses empty arrays (A17) and non-numeric or non-finite elements (A16, A18)', () => {
+    const errors = computeRefused('reorg.gapSamples', {
+      reactantSamples: [],
+      productSamples: [0.1, 'abc', null, -0.2],
+      temperature: T,
+    });
+    expect(errors).toContainEqual({ field: 'reactantSamples', message: 'No data rows found.' });
+    expect(errors.map((e) => e.field)).toContain('productSamples[1]');
+    expect(errors.map((e) => e.field)).toContain('productSamples[2]');
+  });
+
+  it('computes and returns JSON-safe outputs (null only in curve gaps)', () => {
+    const { reactant, product } = linearResponse(5000, -0.3, 0.8, 'dispatch');
+    const answer = computeOk('reorg.gapSamples', {
+      reactantSamples: Array.from(reactant),
+      productSamples: Array.from(product),
+      temperature: T,
+    });
+    expect(numberOutput(answer, 'lambdaFromMeans')).toBeCloseTo(0.8, 1);
+    expect(JSON.parse(JSON.stringify(answer))).toEqual(answer);
   });
 });

@@ -31,7 +31,12 @@ export function percentileSorted(sorted: ArrayLike<number>, fraction: number): n
  * References: D. Freedman, P. Diaconis, Z. Wahrscheinlichkeitstheorie verw. Geb. 1981, 57, 453
  * (doi 10.1007/BF01025868).
  */
-export function freedmanDiaconisBinCount(iqr: number, count: number, min: number, max: number): number {
+export function freedmanDiaconisBinCount(
+  iqr: number,
+  count: number,
+  min: number,
+  max: number,
+): number {
   // count ** (−1/3) rather than cbrt(1/count): the same rounding as numpy, so the same ceil.
   const width = 2 * iqr * count ** (-1 / 3);
   if (!(width > 0)) return 0;

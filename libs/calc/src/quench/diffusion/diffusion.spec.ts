@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
 
+import { computeOk, computeRefused, numberOutput } from '../../core/testing/answers';
+
 import {
   debyeFactor,
   diffusionMethod,
@@ -29,7 +31,7 @@ describe('quench.diffusion', () => {
     expect(debyeFactor(0, 35.94, 7, 298.15)).toBe(1);
     // δ/(e^δ − 1) at small δ is 1 − δ/2 + δ²/12 (Taylor series, exact).
     const delta = 1e-6;
-    const tiny = debyeFactor(1, (14.3996454784 / (8.617333262e-5 * 298.15 * 7)) / delta, 7, 298.15);
+    const tiny = debyeFactor(1, 14.3996454784 / (8.617333262e-5 * 298.15 * 7) / delta, 7, 298.15);
     expect(tiny).toBeCloseTo(1 - delta / 2, 12);
   });
 
@@ -59,5 +61,29 @@ describe('quench.diffusion', () => {
     expect(codes({ ...NEUTRAL, viscosityPaS: 0.89e-3, kEtPerS: 1e12 })).toEqual([
       'quench-scheme-incomplete',
     ]);
+  });
+});
+
+describe('quench.diffusion through the dispatcher', () => {
+  it('converts cP to Pa s (0.89 cP water → 7.43e9 M⁻¹ s⁻¹, SCIENCE.md §13)', () => {
+    const answer = computeOk('quench.diffusion', {
+      viscosity: { value: 0.89, unit: 'cP' },
+      temperature: { value: 25, unit: 'degC' },
+    });
+    expect(numberOutput(answer, 'kDiffusion') / 7.43e9).toBeCloseTo(1, 3);
+  });
+
+  it('refuses viscosity ≤ 0 (A12), and ε or R ≤ 0 for ions (A27)', () => {
+    expect(computeRefused('quench.diffusion', { viscosity: 0, temperature: 298.15 })).toEqual([
+      { field: 'viscosity', message: 'Must be > 0.' },
+    ]);
+    const errors = computeRefused('quench.diffusion', {
+      viscosity: 3.41e-4,
+      temperature: 298.15,
+      chargeProduct: -1,
+      epsilon: 0,
+      distance: -7,
+    });
+    expect(errors.map((e) => e.field).sort()).toEqual(['distance', 'epsilon']);
   });
 });

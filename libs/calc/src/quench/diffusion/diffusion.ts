@@ -22,7 +22,9 @@ const POSITIVE_MESSAGE = 'Must be > 0.';
  * Trans. Electrochem. Soc. 1942, 82, 265 (doi 10.1149/1.3071413).
  */
 export function smoluchowskiRateM1S1(viscosityPaS: number, temperatureK: number): number {
-  return ((8 * GAS_CONSTANT_J_PER_MOL_K * temperatureK) / (3 * viscosityPaS)) * LITRES_PER_CUBIC_METRE;
+  return (
+    ((8 * GAS_CONSTANT_J_PER_MOL_K * temperatureK) / (3 * viscosityPaS)) * LITRES_PER_CUBIC_METRE
+  );
 }
 
 /**
@@ -85,7 +87,12 @@ export function diffusionQuenching(inputs: QuenchInputs): QuenchResult {
   const factor =
     inputs.chargeProduct === 0
       ? 1
-      : debyeFactor(inputs.chargeProduct, inputs.epsilon!, inputs.distanceAngstrom!, inputs.temperatureK);
+      : debyeFactor(
+          inputs.chargeProduct,
+          inputs.epsilon!,
+          inputs.distanceAngstrom!,
+          inputs.temperatureK,
+        );
   const kDiffusion = kDiffusionNeutral * factor;
   const { kEtPerS, kMinusDiffusionPerS, kqObserved } = inputs;
   const scheme = kEtPerS !== undefined && kMinusDiffusionPerS !== undefined;
@@ -131,19 +138,54 @@ export const diffusionMethod: MethodDefinition<QuenchInputs> = {
   inputs: [
     { name: 'viscosity', quantity: 'viscosity', required: true, description: 'Solvent viscosity.' },
     { name: 'temperature', quantity: 'temperature', required: true, description: 'Temperature.' },
-    { name: 'kET', quantity: 'rateFirstOrder', required: false, description: 'ET rate within the encounter complex.' },
-    { name: 'kMinusDiffusion', quantity: 'rateFirstOrder', required: false, description: 'Escape rate k₋d of the encounter complex.' },
-    { name: 'chargeProduct', quantity: 'integer', required: false, defaultValue: 0, description: 'z_A z_B for ions (Debye factor).' },
-    { name: 'epsilon', quantity: 'dimensionless', required: false, description: 'Static dielectric constant (ions only).' },
-    { name: 'distance', quantity: 'distance', required: false, description: 'Encounter distance R (ions only).' },
-    { name: 'kqObserved', quantity: 'rateSecondOrder', required: false, description: 'Measured k_q to compare with k_d.' },
+    {
+      name: 'kET',
+      quantity: 'rateFirstOrder',
+      required: false,
+      description: 'ET rate within the encounter complex.',
+    },
+    {
+      name: 'kMinusDiffusion',
+      quantity: 'rateFirstOrder',
+      required: false,
+      description: 'Escape rate k₋d of the encounter complex.',
+    },
+    {
+      name: 'chargeProduct',
+      quantity: 'integer',
+      required: false,
+      defaultValue: 0,
+      description: 'z_A z_B for ions (Debye factor).',
+    },
+    {
+      name: 'epsilon',
+      quantity: 'dimensionless',
+      required: false,
+      description: 'Static dielectric constant (ions only).',
+    },
+    {
+      name: 'distance',
+      quantity: 'distance',
+      required: false,
+      description: 'Encounter distance R (ions only).',
+    },
+    {
+      name: 'kqObserved',
+      quantity: 'rateSecondOrder',
+      required: false,
+      description: 'Measured k_q to compare with k_d.',
+    },
   ],
   outputs: [
     { name: 'kDiffusion', unit: 'M-1 s-1', description: 'k_d (× Debye factor for ions).' },
     { name: 'kDiffusionNeutral', unit: 'M-1 s-1', description: '8RT/(3η).' },
     { name: 'debyeFactor', unit: '', description: 'δ/(e^δ − 1); 1 for neutral partners.' },
     { name: 'kq', unit: 'M-1 s-1', description: 'k_d/(1 + k₋d/k_ET), or k_d.' },
-    { name: 'equilibriumConstant', unit: 'M-1', description: 'K_d = k_d/k₋d (when k₋d > 0 given).' },
+    {
+      name: 'equilibriumConstant',
+      unit: 'M-1',
+      description: 'K_d = k_d/k₋d (when k₋d > 0 given).',
+    },
     { name: 'kqObservedOverKd', unit: '', description: 'kqObserved/k_d (when given).' },
   ],
   read(reader) {

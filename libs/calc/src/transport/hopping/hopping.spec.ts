@@ -1,6 +1,8 @@
 import seedrandom from 'seedrandom';
 import { describe, expect, it } from 'vitest';
 
+import { computeOk, computeRefused, numberOutput } from '../../core/testing/answers';
+
 import {
   einsteinMobilityCm2PerVS,
   hoppingMethod,
@@ -53,7 +55,7 @@ function kineticMonteCarlo(
 describe('hopping kernels', () => {
   it('gives the exact 1D chain result D = r²k (SCIENCE.md §12)', () => {
     expect(randomWalkDiffusionCm2PerS([3.5, 3.5], [2e12, 2e12], 1)).toBeCloseTo(
-      (3.5e-8) ** 2 * 2e12,
+      3.5e-8 ** 2 * 2e12,
       20,
     );
   });
@@ -105,7 +107,7 @@ describe('transport.hopping method', () => {
     const k = Math.exp(logMarcusRate(0.005, 0, 0.2, 300));
     expect(out.rates[0]).toBeCloseTo(k, 0);
     expect(out.rates[1]).toBe(out.rates[0]);
-    expect(out.diffusion / ((5e-8) ** 2 * k)).toBeCloseTo(1, 12);
+    expect(out.diffusion / (5e-8 ** 2 * k)).toBeCloseTo(1, 12);
     expect(out.mobility).toBeCloseTo(out.diffusion / (8.617333262e-5 * 300), 15);
   });
 
@@ -130,5 +132,41 @@ describe('transport.hopping method', () => {
     expect(warnCodes({ ...base, form: 'pi-weighted' })).toEqual(['hopping-pi-weighted-form']);
     const out = hoppingTransport({ ...base, form: 'pi-weighted' });
     expect(out.diffusion / out.diffusionRandomWalk).toBeCloseTo(0.5, 12);
+  });
+});
+
+describe('transport.hopping through the dispatcher', () => {
+  const neighbour = { distance: 5, coupling: { value: 40, unit: 'cm-1' }, deltaG0: 0 };
+
+  it('computes with units in the neighbour list', () => {
+    const answer = computeOk('transport.hopping', {
+      neighbors: [neighbour, { ...neighbour, distance: { value: 0.5, unit: 'nm' } }],
+      lambda: 0.2,
+      temperature: 300,
+      dimensions: 1,
+    });
+    const rates = answer.outputs['rates'] as number[];
+    expect(rates[0]).toBe(rates[1]);
+    expect(numberOutput(answer, 'diffusion') / (5e-8 ** 2 * rates[0])).toBeCloseTo(1, 12);
+  });
+
+  it('refuses an empty list, a zero distance and n ∉ {1, 2, 3} (A26)', () => {
+    const message = 'Need ≥ 1 neighbour with r > 0 and n = 1, 2 or 3.';
+    expect(
+      computeRefused('transport.hopping', {
+        neighbors: [],
+        lambda: 0.2,
+        temperature: 300,
+        dimensions: 1,
+      }),
+    ).toEqual([{ field: 'neighbors', message }]);
+    const errors = computeRefused('transport.hopping', {
+      neighbors: [{ ...neighbour, distance: 0 }],
+      lambda: 0.2,
+      temperature: 300,
+      dimensions: 4,
+    });
+    expect(errors).toContainEqual({ field: 'neighbors[0].distance', message });
+    expect(errors).toContainEqual({ field: 'dimensions', message });
   });
 });

@@ -174,7 +174,12 @@ export const hoppingMethod: MethodDefinition<HoppingInputs> = {
     },
     { name: 'lambda', quantity: 'energy', required: true, description: 'Reorganization energy λ.' },
     { name: 'temperature', quantity: 'temperature', required: true, description: 'Temperature.' },
-    { name: 'dimensions', quantity: 'integer', required: true, description: 'Lattice dimensionality n (1, 2 or 3).' },
+    {
+      name: 'dimensions',
+      quantity: 'integer',
+      required: true,
+      description: 'Lattice dimensionality n (1, 2 or 3).',
+    },
     {
       name: 'form',
       quantity: 'string',
@@ -215,7 +220,11 @@ export const hoppingMethod: MethodDefinition<HoppingInputs> = {
       atMost: 3,
       message: NEIGHBOUR_MESSAGE,
     }) as 1 | 2 | 3;
-    const form = reader.choice<DiffusionForm>('form', ['random-walk', 'pi-weighted'], 'random-walk');
+    const form = reader.choice<DiffusionForm>(
+      'form',
+      ['random-walk', 'pi-weighted'],
+      'random-walk',
+    );
     return { neighbours, lambdaEv, temperatureK, dimensions, form };
   },
   compute(inputs, warnings): CalcOutputs {

@@ -9,7 +9,12 @@ const KT = 8.617333262e-5 * 298.15;
 /** Standard normal 97.5 % point (exact to 16 digits; any normal table). */
 const Z975 = 1.959963984540054;
 
-function monteCarlo(inner: Record<string, unknown>, samples: number, seed: number, method = 'rate.marcus') {
+function monteCarlo(
+  inner: Record<string, unknown>,
+  samples: number,
+  seed: number,
+  method = 'rate.marcus',
+) {
   return calculate({
     method: 'uncertainty.monteCarlo',
     inputs: { method, inputs: inner, samples, seed },
@@ -54,14 +59,27 @@ describe('uncertainty.monteCarlo', () => {
     // Sampling SE of a 2.5 % point at N = 2×10⁴ is ≈ 0.005 in log10 k: allow 5 SE.
     expect(Math.abs(log10k.p025 - marcusLog10(-0.3 + Z975 * 0.05, 0.8, 0.01))).toBeLessThan(0.025);
     expect(Math.abs(log10k.p975 - marcusLog10(-0.3 - Z975 * 0.05, 0.8, 0.01))).toBeLessThan(0.025);
-    const histogram = (answer.outputs['histograms'] as Record<string, { counts: number[] }>)['log10k'];
+    const histogram = (answer.outputs['histograms'] as Record<string, { counts: number[] }>)[
+      'log10k'
+    ];
     expect(histogram.counts.reduce((a, b) => a + b, 0)).toBe(20_000);
   });
 
   it('keeps uniform draws within their bounds and spreads them evenly', () => {
-    const answer = monteCarlo({ value: { low: 1, high: 3 }, from: 'eV', to: 'eV' }, 4000, 3, 'units.convert');
+    const answer = monteCarlo(
+      { value: { low: 1, high: 3 }, from: 'eV', to: 'eV' },
+      4000,
+      3,
+      'units.convert',
+    );
     if (!answer.ok) throw new Error(JSON.stringify(answer.errors));
-    const value = answer.outputs['value'] as { min: number; max: number; p025: number; p975: number; median: number };
+    const value = answer.outputs['value'] as {
+      min: number;
+      max: number;
+      p025: number;
+      p975: number;
+      median: number;
+    };
     expect(value.min).toBeGreaterThanOrEqual(1);
     expect(value.max).toBeLessThan(3);
     // Exact quantiles of U(1, 3): 1.05, 2, 2.95; binomial SE of each ≈ 0.005–0.016.

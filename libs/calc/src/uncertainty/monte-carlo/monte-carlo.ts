@@ -133,7 +133,8 @@ export function numericOutputs(outputs: CalcOutputs): Map<string, number> {
 
 function setAtPath(target: unknown, path: readonly (string | number)[], value: unknown): void {
   let node = target as Record<string | number, unknown>;
-  for (let i = 0; i < path.length - 1; i++) node = node[path[i]] as Record<string | number, unknown>;
+  for (let i = 0; i < path.length - 1; i++)
+    node = node[path[i]] as Record<string | number, unknown>;
   node[path[path.length - 1]] = value;
 }
 
@@ -149,7 +150,8 @@ function deepCopy<T>(value: T): T {
 
 function pathName(path: readonly (string | number)[]): string {
   return path.reduce<string>(
-    (name, key) => (typeof key === 'number' ? `${name}[${key}]` : name === '' ? key : `${name}.${key}`),
+    (name, key) =>
+      typeof key === 'number' ? `${name}[${key}]` : name === '' ? key : `${name}.${key}`,
     '',
   );
 }
@@ -187,7 +189,10 @@ export function extractDistributions(
     const allowed = isNormal ? ['value', 'sigma', 'unit'] : ['low', 'high', 'unit'];
     const extra = Object.keys(node).filter((key) => !allowed.includes(key));
     if (extra.length > 0 || (isNormal && isUniform)) {
-      fail(field, 'Give either { value, sigma } (normal) or { low, high } (uniform), with an optional unit.');
+      fail(
+        field,
+        'Give either { value, sigma } (normal) or { low, high } (uniform), with an optional unit.',
+      );
       return;
     }
     let distribution: Distribution;
@@ -206,7 +211,10 @@ export function extractDistributions(
       }
       distribution = { kind: 'uniform', low, high };
     }
-    const centre = distribution.kind === 'normal' ? distribution.mean : (distribution.low + distribution.high) / 2;
+    const centre =
+      distribution.kind === 'normal'
+        ? distribution.mean
+        : (distribution.low + distribution.high) / 2;
     setAtPath(nominal, path, unit === undefined ? centre : { value: centre, unit });
     uncertain.push({ path, distribution, unit: unit ?? '' });
   };
@@ -218,7 +226,10 @@ function readMonteCarlo(reader: InputReader): MonteCarloInputs {
   const method = reader.raw('method');
   let methodId = '';
   if (typeof method !== 'string') {
-    reader.fail('method', 'Field method is required: the id of the method to sample, e.g. rate.marcus.');
+    reader.fail(
+      'method',
+      'Field method is required: the id of the method to sample, e.g. rate.marcus.',
+    );
   } else if (method === SELF_ID) {
     reader.fail('method', 'uncertainty.monteCarlo cannot sample itself.');
   } else if (findMethod(method) === undefined) {
@@ -269,7 +280,10 @@ export function runMonteCarlo(inputs: MonteCarloInputs, warnings: WarningSink): 
     );
   }
   if (inputs.uncertain.length === 0) {
-    warnings.warn('monte-carlo-no-uncertainty', 'No input carries { value, sigma } or { low, high }.');
+    warnings.warn(
+      'monte-carlo-no-uncertainty',
+      'No input carries { value, sigma } or { low, high }.',
+    );
   }
   const names = [...numericOutputs(nominal.outputs).keys()];
   const columns = new Map(names.map((name) => [name, new Float64Array(inputs.samples)]));
@@ -301,7 +315,10 @@ export function runMonteCarlo(inputs: MonteCarloInputs, warnings: WarningSink): 
   }
   if (used === 0) {
     throw new CalcRefusal([
-      { field: 'inputs', message: `Every sample was refused by ${inputs.method} (${firstReason}).` },
+      {
+        field: 'inputs',
+        message: `Every sample was refused by ${inputs.method} (${firstReason}).`,
+      },
     ]);
   }
   if (refused > 0) {
@@ -338,19 +355,45 @@ export const monteCarloMethod: MethodDefinition<MonteCarloInputs> = {
     'G. E. P. Box, M. E. Muller, Ann. Math. Stat. 1958, 29, 610. doi:10.1214/aoms/1177706645',
   ],
   inputs: [
-    { name: 'method', quantity: 'string', required: true, description: 'Id of the method to sample.' },
+    {
+      name: 'method',
+      quantity: 'string',
+      required: true,
+      description: 'Id of the method to sample.',
+    },
     {
       name: 'inputs',
       quantity: 'object',
       required: true,
-      description: 'Its inputs; uncertain ones as { value, sigma[, unit] } or { low, high[, unit] }.',
+      description:
+        'Its inputs; uncertain ones as { value, sigma[, unit] } or { low, high[, unit] }.',
     },
-    { name: 'samples', quantity: 'integer', required: false, defaultValue: DEFAULT_SAMPLES, description: `Number of samples (10–${MAX_SAMPLES}).` },
-    { name: 'seed', quantity: 'integer', required: false, defaultValue: 1, description: 'Seed; the same seed reproduces the result exactly.' },
+    {
+      name: 'samples',
+      quantity: 'integer',
+      required: false,
+      defaultValue: DEFAULT_SAMPLES,
+      description: `Number of samples (10–${MAX_SAMPLES}).`,
+    },
+    {
+      name: 'seed',
+      quantity: 'integer',
+      required: false,
+      defaultValue: 1,
+      description: 'Seed; the same seed reproduces the result exactly.',
+    },
   ],
   outputs: [
-    { name: '<output>', unit: 'as the inner method', description: '{ median, p025, p975, mean, sd, min, max } per numeric output.' },
-    { name: 'histograms', unit: '', description: '{ log10k: { edges, counts } } when the inner method gives log10k.' },
+    {
+      name: '<output>',
+      unit: 'as the inner method',
+      description: '{ median, p025, p975, mean, sd, min, max } per numeric output.',
+    },
+    {
+      name: 'histograms',
+      unit: '',
+      description: '{ log10k: { edges, counts } } when the inner method gives log10k.',
+    },
     { name: 'samplesUsed', unit: '', description: 'Samples the inner method accepted.' },
     { name: 'samplesRefused', unit: '', description: 'Samples it refused (left out).' },
   ],
