@@ -103,9 +103,12 @@ function internalError(field: string, thrown: unknown): CalcAnswer {
 export function runDefinition(method: MethodDefinition<any>, rawInputs: unknown): CalcAnswer {
   const reader = new RequestInputReader(rawInputs);
   const inputs = method.read(reader);
-  const names = method.inputs.map((input) => input.name).join(', ');
-  for (const field of reader.unknownFields()) {
-    reader.fail(field, `Unknown input '${field}' for ${method.id}; its inputs are ${names}.`);
+  const unknown = reader.unknownFields();
+  if (unknown.length > 0) {
+    const names = method.inputs.map((input) => input.name).join(', ');
+    for (const field of unknown) {
+      reader.fail(field, `Unknown input '${field}' for ${method.id}; its inputs are ${names}.`);
+    }
   }
   if (reader.failed) return refuse([...reader.fieldErrors]);
   const warnings = new WarningCollector();

@@ -1,0 +1,69 @@
+/**
+ * Benchmark: the vector paths `marcusLog10kInto` and `mljLog10kInto` over 10⁶ driving forces on
+ * one core (the arrays are allocated once, outside the timed part). Best of several runs, to keep
+ * the figure about the kernel rather than about whatever else the machine is doing.
+ */
+import { marcusLog10kInto, mljLog10kInto } from '../src/index';
+
+export const PAIRS = 1_000_000;
+const RUNS = 5;
+
+export interface ThroughputFigure {
+  readonly label: string;
+  readonly bestMs: number;
+  readonly perSecond: number;
+  readonly nsPerEvaluation: number;
+  readonly target: number;
+}
+
+/** Driving forces spread over −2 … +0.5 eV (normal, activationless and inverted pairs). */
+function drivingForces(): Float64Array {
+  const values = new Float64Array(PAIRS);
+  for (let i = 0; i < PAIRS; i++) values[i] = -2 + (2.5 * i) / (PAIRS - 1);
+  return values;
+}
+
+function bestOf(run: () => void): number {
+  let best = Number.POSITIVE_INFINITY;
+  for (let r = 0; r < RUNS; r++) {
+    const start = performance.now();
+    run();
+    best = Math.min(best, performance.now() - start);
+  }
+  return best;
+}
+
+function figure(label: string, bestMs: number, target: number): ThroughputFigure {
+  return {
+    label,
+    bestMs,
+    perSecond: PAIRS / (bestMs / 1000),
+    nsPerEvaluation: (bestMs * 1e6) / PAIRS,
+    target,
+  };
+}
+
+export function runVectorMarcusBench(): ThroughputFigure {
+  const dG = drivingForces();
+  const out = new Float64Array(PAIRS);
+  marcusLog10kInto(out, dG, 0.8, 0.01, 298.15); // warm-up (JIT)
+  const ms = bestOf(() => marcusLog10kInto(out, dG, 0.8, 0.01, 298.15));
+  return figure('rate.marcus vector path (λ 0.8 eV, H 0.01 eV, 298.15 K)', ms, 2e7);
+}
+
+export function runVectorMljBench(): ThroughputFigure {
+  const dG = drivingForces();
+  const out = new Float64Array(PAIRS);
+  const terms = new Float64Array(PAIRS);
+  // ħω = 0.18 eV, S = 1 (λ_v = 0.18 eV), λ_s = 0.5 eV.
+  const run = () => mljLog10kInto(out, dG, 0.5, 0.18, 0.18, 0.01, 298.15, terms);
+  run();
+  const ms = bestOf(run);
+  let totalTerms = 0;
+  for (let i = 0; i < PAIRS; i++) totalTerms += terms[i];
+  return figure(
+    `rate.mlj vector path (ħω 0.18 eV, S 1, λ_s 0.5 eV; mean ${(totalTerms / PAIRS).toFixed(1)} terms)`,
+    ms,
+    2e6,
+  );
+}
