@@ -91,8 +91,8 @@ export function displayUnit(unit: string): string {
  * An input value as entered: up to 6 significant figures with trailing zeros dropped, also in
  * the mantissa of scientific notation (2 × 10⁻¹³, 298.15, −6.918).
  */
-export function formatInputNumber(x: number): string {
-  const text = formatNumber(x, 6);
+export function formatInputNumber(x: number, sig = 6): string {
+  const text = formatNumber(x, sig);
   const [mantissa, rest] = text.split(' × ');
   return rest === undefined ? text : `${trimZeros(mantissa)} × ${rest}`;
 }
@@ -104,9 +104,9 @@ export function formatQuantity(value: number, unit: string, sig = 4): string {
 }
 
 /** An input value with its display unit, as entered: "298.15 K", "2 × 10⁻¹³ s". */
-export function formatInputQuantity(value: number, unit: string): string {
+export function formatInputQuantity(value: number, unit: string, sig = 6): string {
   const u = displayUnit(unit);
-  return u ? `${formatInputNumber(value)} ${u}` : formatInputNumber(value);
+  return u ? `${formatInputNumber(value, sig)} ${u}` : formatInputNumber(value, sig);
 }
 
 /** A first-order rate in scientific notation with 3 significant figures: 8.98 × 10¹⁰ s⁻¹. */
@@ -186,7 +186,8 @@ export function provenanceText(p: Provenance): string {
       : '';
     parts.push(inputs ? `${p.methodId} from ${inputs}` : p.methodId);
   }
-  if (p.sources && p.sources.length > 0) parts.push(`sources: ${p.sources.map((s) => `${s.type} ${s.id}`).join(', ')}`);
+  // Source records are listed only when the method's inputs are not (they name the same values).
+  if (p.sources && p.sources.length > 0 && !p.methodInputs) parts.push(`sources: ${p.sources.map((s) => `${s.type} ${s.id}`).join(', ')}`);
   if (p.note) parts.push(p.note);
   return parts.length > 0 ? `${kind}: ${parts.join('; ')}` : kind;
 }

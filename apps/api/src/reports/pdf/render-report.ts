@@ -160,10 +160,10 @@ function drawPair(cursor: Cursor, snapshot: ReportSnapshot, pair: ReportPairSnap
   drawTable(
     cursor,
     [
-      { header: 'Parameter', width: 0.24 },
-      { header: 'As typed', width: 0.18, align: 'right' },
-      { header: 'Canonical', width: 0.13, align: 'right' },
-      { header: 'Uncertainty (1σ)', width: 0.11, align: 'right' },
+      { header: 'Parameter', width: 0.23 },
+      { header: 'As typed', width: 0.17, align: 'right' },
+      { header: 'Canonical', width: 0.14, align: 'right' },
+      { header: '± 1σ', width: 0.12, align: 'right' },
       { header: 'Provenance', width: 0.34 },
     ],
     pair.inputs.map(inputRow),
@@ -177,7 +177,7 @@ function drawPair(cursor: Cursor, snapshot: ReportSnapshot, pair: ReportPairSnap
         { header: 'Model', width: 0.22 },
         { header: 'k', width: 0.15, align: 'right' },
         { header: 'log10 k', width: 0.09, align: 'right' },
-        { header: 'ΔG‡ (classical)', width: 0.1, align: 'right' },
+        { header: 'ΔG‡', width: 0.1, align: 'right' },
         { header: 'Regime', width: 0.12 },
         { header: 'Monte Carlo interval of log10 k', width: 0.32 },
       ],
@@ -195,7 +195,7 @@ function drawPair(cursor: Cursor, snapshot: ReportSnapshot, pair: ReportPairSnap
   }
   cursor.gap(4);
   cursor.text(
-    'k in s⁻¹ (first order); ΔG‡ is the activation free energy; the interval propagates the stated 1σ ' +
+    'k in s⁻¹ (first order); ΔG‡ is the classical activation free energy (ΔG° + λ)²/4λ; the interval propagates the stated 1σ ' +
       'uncertainties (normal distributions) through the chosen model.',
     { size: 8, color: COLORS.muted },
   );

@@ -29,7 +29,9 @@ export function typedText(input: ReportInput): string {
 
 /** "−0.3 eV" — canonical value. */
 export function canonicalText(input: ReportInput): string {
-  return formatInputQuantity(input.value, input.canonicalUnit);
+  // Converted from another unit: 5 significant figures, not the conversion's float noise.
+  const converted = input.typedUnit !== input.canonicalUnit;
+  return formatInputQuantity(input.value, input.canonicalUnit, converted ? 5 : 6);
 }
 
 export function uncertaintyText(input: ReportInput): string {
