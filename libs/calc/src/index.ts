@@ -84,12 +84,7 @@ export type {
 } from './gap/index';
 
 // Electrode kinetics, hopping transport, quenching and sampling kernels a page may plot directly.
-export {
-  butlerVolmerRates,
-  logMhcClosedForm,
-  logMhcIntegral,
-  mhcRates,
-} from './electrode/index';
+export { butlerVolmerRates, logMhcClosedForm, logMhcIntegral, mhcRates } from './electrode/index';
 export type { MhcRates } from './electrode/index';
 export { einsteinMobilityCm2PerVS, hoppingTransport } from './transport/index';
 export { debyeFactor, diffusionQuenching, smoluchowskiRateM1S1 } from './quench/index';
