@@ -39,7 +39,6 @@ const SELECT_REPORT = `
     JOIN workspaces w ON w.id = r.workspace_id
     LEFT JOIN users u ON u.id = r.author_id`;
 
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
 function toRow(r: any): ReportRow {
   return {
     id: r.id,
@@ -59,7 +58,6 @@ function toRow(r: any): ReportRow {
   };
 }
 
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
 function toListItem(r: any): ReportListItem {
   return {
     id: r.id,
@@ -158,7 +156,6 @@ export async function listTransitions(db: EntityManager, reportId: string): Prom
       WHERE t.report_id = $1 ORDER BY t.at, t.id`,
     [reportId],
   );
-  // eslint-disable-next-line @typescript-eslint/no-explicit-any
   return rows.map((r: any) => ({
     from: r.from_status,
     to: r.to_status,
@@ -193,7 +190,6 @@ export async function listComments(db: EntityManager, reportId: string): Promise
       WHERE c.report_id = $1 ORDER BY c.created_at, c.id`,
     [reportId],
   );
-  // eslint-disable-next-line @typescript-eslint/no-explicit-any
   return rows.map((r: any) => ({
     id: r.id,
     author: { id: r.author_id ?? '', displayName: r.name },
@@ -253,7 +249,6 @@ export async function memberAddresses(
       WHERE m.workspace_id = $1 AND m.role = ANY($2) AND u.id IS DISTINCT FROM $3 ORDER BY u.email`,
     [workspaceId, roles, exceptUserId],
   );
-  // eslint-disable-next-line @typescript-eslint/no-explicit-any
   return rows.map((r: any) => ({ id: r.id, email: r.email, displayName: r.display_name }));
 }
 

@@ -5,7 +5,6 @@
 import {
   displayUnit,
   formatEnergyEv,
-  formatFixed,
   formatLog10,
   formatNumber,
   formatInputQuantity,
