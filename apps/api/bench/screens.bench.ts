@@ -1,0 +1,106 @@
+/**
+ * Screens end to end: 100,000 pairs uploaded as a stream, chunked, computed by standalone worker
+ * processes and stored — once with one worker and once with two. Prints wall time, rows/s and
+ * peak memory (uploading process RSS, workers' VmHWM). Targets: one worker ≥ 5,000 pairs/s end
+ * to end; two ≥ 1.6× one; memory flat.
+ *
+ *   GAPWISE_TEST_DATABASE_URL=… npx tsx apps/api/bench/screens.bench.ts [rows]
+ * (npm run bench starts the test cluster first.) Worker start-up is not timed.
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import { readFileSync } from 'node:fs';
+import { Readable } from 'node:stream';
+import { createDataSource } from '@gapwise/db';
+import { createTestDatabase } from '../../../test/api/support/test-database';
+import { screenCsv } from '../../../test/api/screens/screen-csv';
+import { startScreenService } from '../src/screens/screen-queue';
+import { uploadScreen } from '../src/screens/screen-use-case';
+
+const rows = Number(process.argv[2] ?? 100_000);
+const database = await createTestDatabase();
+const db = createDataSource({ url: database.url });
+await db.initialize();
+await db.runMigrations({ transaction: 'each' });
+const user = (await db.query(`INSERT INTO users (email, display_name, password_hash) VALUES ('bench@example.test', 'Bench', 'x') RETURNING id`))[0].id;
+const ws = (await db.query(`INSERT INTO workspaces (name) VALUES ('bench') RETURNING id`))[0].id;
+await db.query(`INSERT INTO memberships (workspace_id, user_id, role) VALUES ($1, $2, 'owner')`, [ws, user]);
+const service = await startScreenService(db, { connectionString: database.url, runWorker: false });
+
+function peakKb(pid: number): number {
+  try {
+    const m = /VmHWM:\s+(\d+)/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'));
+    return m ? Number(m[1]) : 0;
+  } catch {
+    return 0;
+  }
+}
+
+async function startWorker(): Promise<ChildProcess> {
+  const child = spawn(process.execPath, ['--import', 'tsx', 'apps/api/src/worker.ts'], {
+    env: { ...process.env, DATABASE_URL: database.url, GAPWISE_SCREEN_MAINTENANCE_SECONDS: '5' },
+    stdio: ['ignore', 'pipe', 'inherit'],
+  });
+  await new Promise<void>((resolve, reject) => {
+    let out = '';
+    child.stdout!.on('data', (d: Buffer) => {
+      out += d.toString();
+      if (out.includes('started')) resolve();
+    });
+    child.once('exit', (c) => reject(new Error(`worker exited (${c})`)));
+  });
+  return child;
+}
+
+async function run(workerCount: number, seed: number) {
+  const workers = await Promise.all(Array.from({ length: workerCount }, startWorker));
+  const csv = screenCsv(rows, seed); // different seed: no reuse between runs
+  let peakRss = process.memoryUsage().rss;
+  const sampler = setInterval(() => (peakRss = Math.max(peakRss, process.memoryUsage().rss)), 50);
+  const workerPeaks = new Map<number, number>();
+  const started = performance.now();
+  // Stream the file in 64 kB pieces, as an HTTP upload would arrive.
+  const pieces = function* () {
+    for (let i = 0; i < csv.length; i += 65_536) yield csv.slice(i, i + 65_536);
+  };
+  const screen = await uploadScreen(db, service, user, ws, Readable.from(pieces()), {
+    name: `bench ${workerCount}`,
+    runGoodRows: false,
+    score: { kind: 'cs-fast-cr-inverted' },
+  });
+  const uploadedMs = performance.now() - started;
+  for (;;) {
+    for (const w of workers) workerPeaks.set(w.pid!, Math.max(workerPeaks.get(w.pid!) ?? 0, peakKb(w.pid!)));
+    const s = (await db.query('SELECT status, rows_done FROM screens WHERE id = $1', [screen.id]))[0];
+    if (s.status === 'done') break;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  const wallMs = performance.now() - started;
+  clearInterval(sampler);
+  const count = (await db.query('SELECT count(*)::int AS n FROM screen_results WHERE screen_id = $1', [screen.id]))[0].n;
+  await Promise.all(
+    workers.map((w) => new Promise((r) => (w.once('exit', r), w.kill('SIGTERM')))),
+  );
+  return { workerCount, wallMs, uploadedMs, count, rowsPerSecond: rows / (wallMs / 1000), peakRssMb: peakRss / 2 ** 20, workerPeakMb: [...workerPeaks.values()].map((kb) => kb / 1024) };
+}
+
+try {
+  const one = await run(1, 101);
+  const two = await run(2, 202);
+  for (const r of [one, two]) {
+    console.log(
+      `screens ${rows} pairs, ${r.workerCount} worker(s): wall ${(r.wallMs / 1000).toFixed(2)} s ` +
+        `(upload+chunking ${(r.uploadedMs / 1000).toFixed(2)} s), ${Math.round(r.rowsPerSecond)} pairs/s, ` +
+        `${r.count} rows stored; peak RSS uploader ${r.peakRssMb.toFixed(0)} MB, ` +
+        `workers ${r.workerPeakMb.map((m) => m.toFixed(0)).join(' / ')} MB`,
+    );
+  }
+  const speedup = two.rowsPerSecond / one.rowsPerSecond;
+  console.log(
+    `targets: one worker ≥ 5000 pairs/s: ${one.rowsPerSecond >= 5000 ? 'met' : 'NOT met'}; ` +
+      `two ≥ 1.6× one: ${speedup.toFixed(2)}× ${speedup >= 1.6 ? 'met' : 'NOT met'}`,
+  );
+} finally {
+  await service.stop();
+  await db.destroy();
+  await database.drop();
+}
