@@ -25,7 +25,9 @@ export class Reports1796300000000 implements MigrationInterface {
       CONSTRAINT "FK_reports_workspace" FOREIGN KEY ("workspace_id") REFERENCES "workspaces"("id") ON DELETE CASCADE,
       CONSTRAINT "FK_reports_author" FOREIGN KEY ("author_id") REFERENCES "users"("id") ON DELETE SET NULL
     )`);
-    await queryRunner.query(`CREATE INDEX "idx_reports_workspace_status" ON "reports" ("workspace_id", "status")`);
+    await queryRunner.query(
+      `CREATE INDEX "idx_reports_workspace_status" ON "reports" ("workspace_id", "status")`,
+    );
     await queryRunner.query(`CREATE TABLE "report_comments" (
       "id" uuid NOT NULL DEFAULT gen_random_uuid(),
       "report_id" uuid NOT NULL,
@@ -39,7 +41,9 @@ export class Reports1796300000000 implements MigrationInterface {
       CONSTRAINT "FK_report_comments_author" FOREIGN KEY ("author_id") REFERENCES "users"("id") ON DELETE SET NULL,
       CONSTRAINT "FK_report_comments_parent" FOREIGN KEY ("parent_id") REFERENCES "report_comments"("id") ON DELETE CASCADE
     )`);
-    await queryRunner.query(`CREATE INDEX "idx_report_comments_report" ON "report_comments" ("report_id", "created_at")`);
+    await queryRunner.query(
+      `CREATE INDEX "idx_report_comments_report" ON "report_comments" ("report_id", "created_at")`,
+    );
     await queryRunner.query(`CREATE TABLE "report_transitions" (
       "id" uuid NOT NULL DEFAULT gen_random_uuid(),
       "report_id" uuid NOT NULL,
@@ -52,7 +56,9 @@ export class Reports1796300000000 implements MigrationInterface {
       CONSTRAINT "FK_report_transitions_report" FOREIGN KEY ("report_id") REFERENCES "reports"("id") ON DELETE CASCADE,
       CONSTRAINT "FK_report_transitions_by" FOREIGN KEY ("by_id") REFERENCES "users"("id") ON DELETE SET NULL
     )`);
-    await queryRunner.query(`CREATE INDEX "idx_report_transitions_report" ON "report_transitions" ("report_id", "at")`);
+    await queryRunner.query(
+      `CREATE INDEX "idx_report_transitions_report" ON "report_transitions" ("report_id", "at")`,
+    );
   }
 
   public async down(queryRunner: QueryRunner): Promise<void> {

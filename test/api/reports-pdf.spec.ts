@@ -10,7 +10,13 @@ import { execFileSync } from 'node:child_process';
 import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { formatLog10, formatRate, type PairInput, type PairParameter, type ReportView } from '@gapwise/contracts';
+import {
+  formatLog10,
+  formatRate,
+  type PairInput,
+  type PairParameter,
+  type ReportView,
+} from '@gapwise/contracts';
 import { registerUser, startTestApp, type Session, type TestApp } from './support/test-app';
 
 const OUT = join(process.cwd(), 'test-output', 'reports');
@@ -29,11 +35,20 @@ beforeAll(async () => {
 afterAll(async () => t?.close());
 
 const assumed = { kind: 'assumed' as const };
-function param(kind: PairParameter['kind'], value: number, unit: string, uncertainty: number | null = null): PairParameter {
+function param(
+  kind: PairParameter['kind'],
+  value: number,
+  unit: string,
+  uncertainty: number | null = null,
+): PairParameter {
   return { kind, value, unit, uncertainty, provenance: assumed };
 }
 
-function pairOf(name: string, parameters: PairParameter[], extra: Partial<PairInput> = {}): PairInput {
+function pairOf(
+  name: string,
+  parameters: PairParameter[],
+  extra: Partial<PairInput> = {},
+): PairInput {
   return {
     name,
     donor: 'D-1',
@@ -60,7 +75,9 @@ interface Produced {
 
 async function produce(slug: string, input: PairInput): Promise<Produced> {
   const pair = (await editor.post(`/api/workspaces/${wid}/pairs`, input).expect(201)).body;
-  const view = (await editor.post(`/api/workspaces/${wid}/reports`, { pairId: pair.id }).expect(201)).body as ReportView;
+  const view = (
+    await editor.post(`/api/workspaces/${wid}/reports`, { pairId: pair.id }).expect(201)
+  ).body as ReportView;
   const res = await editor
     .get(`/api/reports/${view.reportId}/pdf`)
     .buffer(true)
@@ -75,7 +92,9 @@ async function produce(slug: string, input: PairInput): Promise<Produced> {
   const file = join(OUT, `${slug}.pdf`);
   writeFileSync(file, pdf);
   // Layout mode keeps each table row on one line; white space is then collapsed.
-  const text = execFileSync('pdftotext', ['-layout', '-enc', 'UTF-8', file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+  const text = execFileSync('pdftotext', ['-layout', '-enc', 'UTF-8', file, '-'], {
+    encoding: 'utf8',
+  }).replace(/\s+/g, ' ');
   return { view, pdf, text, file };
 }
 
@@ -90,7 +109,11 @@ describe('report PDFs against worked examples', () => {
   it('classical Marcus, SCIENCE.md §1 worked example (independent SciPy computation): H = 0.010 eV, λ = 0.80 eV, ΔG° = −0.30 eV, 298.15 K → k = 8.978 × 10¹⁰ s⁻¹, ΔG‡ = 0.078125 eV', async () => {
     const p = await produce(
       'marcus-worked-example',
-      pairOf('Worked Marcus', [param('deltaG0', -0.3, 'eV'), param('lambdaOuter', 0.8, 'eV'), param('coupling', 0.01, 'eV')]),
+      pairOf('Worked Marcus', [
+        param('deltaG0', -0.3, 'eV'),
+        param('lambdaOuter', 0.8, 'eV'),
+        param('coupling', 0.01, 'eV'),
+      ]),
     );
     // 8.978e10 to three significant figures; log10(8.978e10) = 10.953.
     expect(keyResult(p.text)).toBe('8.98 × 10¹⁰ s⁻¹ | 10.95');
@@ -103,14 +126,22 @@ describe('report PDFs against worked examples', () => {
     const json = p.view.snapshot.pairs[0].results.find((r) => r.primary)!;
     expect(json.k).toBeCloseTo(8.978e10, -8);
     expect(keyResult(p.text)).toBe(`${formatRate(json.k)} | ${formatLog10(json.log10k)}`);
-    const exported = await editor.get(`/api/reports/${p.view.reportId}/export?format=json`).expect(200);
+    const exported = await editor
+      .get(`/api/reports/${p.view.reportId}/export?format=json`)
+      .expect(200);
     expect(exported.body.snapshotId).toBe(p.view.snapshotId);
     expect(exported.body.snapshot.pairs[0].results[0].k).toBe(json.k);
     // Footer with the snapshot id on every page, and page numbers.
-    const pages = Number(/Pages:\s+(\d+)/.exec(execFileSync('pdfinfo', [p.file], { encoding: 'utf8' }))![1]);
+    const pages = Number(
+      /Pages:\s+(\d+)/.exec(execFileSync('pdfinfo', [p.file], { encoding: 'utf8' }))![1],
+    );
     expect(pages).toBeGreaterThanOrEqual(2);
     for (let page = 1; page <= pages; page++) {
-      const pageText = execFileSync('pdftotext', ['-f', String(page), '-l', String(page), p.file, '-'], { encoding: 'utf8' });
+      const pageText = execFileSync(
+        'pdftotext',
+        ['-f', String(page), '-l', String(page), p.file, '-'],
+        { encoding: 'utf8' },
+      );
       expect(pageText).toContain(`Snapshot ${p.view.snapshotId}`);
       expect(pageText).toContain(`Page ${page} of ${pages}`);
     }
@@ -124,7 +155,11 @@ describe('report PDFs against worked examples', () => {
       'marcus-typed-units',
       pairOf(
         'Worked Marcus, other units',
-        [param('deltaG0', -0.3, 'kcal/mol'), param('lambdaOuter', 0.8, 'kJ/mol'), param('coupling', 0.01, 'cm-1')],
+        [
+          param('deltaG0', -0.3, 'kcal/mol'),
+          param('lambdaOuter', 0.8, 'kJ/mol'),
+          param('coupling', 0.01, 'cm-1'),
+        ],
         { temperatureUnit: 'degC' },
       ),
     );
@@ -141,7 +176,11 @@ describe('report PDFs against worked examples', () => {
     expect(kMax).toBeCloseTo(1.8783e12, -8);
     const p = await produce(
       'marcus-activationless',
-      pairOf('Activationless', [param('deltaG0', -0.8, 'eV'), param('lambdaOuter', 0.8, 'eV'), param('coupling', 0.01, 'eV')]),
+      pairOf('Activationless', [
+        param('deltaG0', -0.8, 'eV'),
+        param('lambdaOuter', 0.8, 'eV'),
+        param('coupling', 0.01, 'eV'),
+      ]),
     );
     expect(keyResult(p.text)).toBe('1.88 × 10¹² s⁻¹ | 12.27');
     expect(p.text).toContain('regime: Activationless');
@@ -159,7 +198,9 @@ describe('report PDFs against worked examples', () => {
     );
     // Results table row: model, k (10^8.983 = 9.61 × 10⁸), log10 k to two decimals.
     expect(p.text).toMatch(/Empirical protein ruler 9\.61 × 10⁸ s⁻¹ 8\.98 /);
-    expect(p.text).toContain('C. C. Moser, J. M. Keske, K. Warncke, R. S. Farid, P. L. Dutton, Nature 1992, 355, 796');
+    expect(p.text).toContain(
+      'C. C. Moser, J. M. Keske, K. Warncke, R. S. Farid, P. L. Dutton, Nature 1992, 355, 796',
+    );
   });
 
   it('Marcus–Levich–Jortner with λ_v = 0 (S = 0) reduces exactly to classical Marcus with λ_s (SCIENCE.md §2; Jortner, J. Chem. Phys. 1976, 64, 4860, from memory) → the §1 value 8.978 × 10¹⁰ s⁻¹', async () => {
@@ -190,11 +231,18 @@ describe('report PDFs against worked examples', () => {
       'crossover',
       pairOf(
         'Crossover',
-        [param('deltaG0', -0.3, 'eV'), param('lambdaOuter', 0.8, 'eV'), param('coupling', 0.01, 'eV'), param('tauL', 0.5e-12, 'ps')],
+        [
+          param('deltaG0', -0.3, 'eV'),
+          param('lambdaOuter', 0.8, 'eV'),
+          param('coupling', 0.01, 'eV'),
+          param('tauL', 0.5e-12, 'ps'),
+        ],
         { model: 'crossover' },
       ),
     );
-    expect(keyResult(p.text)).toBe(`${formatRate(8.978e10 / (1 + kappa))} | ${formatLog10(Math.log10(8.978e10 / (1 + kappa)))}`);
+    expect(keyResult(p.text)).toBe(
+      `${formatRate(8.978e10 / (1 + kappa))} | ${formatLog10(Math.log10(8.978e10 / (1 + kappa)))}`,
+    );
     expect(keyResult(p.text)).toBe('4.09 × 10¹⁰ s⁻¹ | 10.61');
     expect(p.text).toMatch(/0\.5 ps 5 × 10⁻¹³ s/);
   });
@@ -211,7 +259,10 @@ describe('report PDF as a document', () => {
         param('coupling', 0.01, 'eV', 0.002),
       ]),
     );
-    const fonts = execFileSync('pdffonts', [p.file], { encoding: 'utf8' }).trim().split('\n').slice(2);
+    const fonts = execFileSync('pdffonts', [p.file], { encoding: 'utf8' })
+      .trim()
+      .split('\n')
+      .slice(2);
     expect(fonts.length).toBeGreaterThan(0);
     for (const line of fonts) {
       const cols = line.trim().split(/\s+/);
@@ -222,17 +273,37 @@ describe('report PDF as a document', () => {
     // Every printed character has a glyph in the embedded font (no .notdef boxes).
     // fontkit (pdfkit's font engine) ships no type declarations.
     const fontkitModule = 'fontkit';
-    const fontkit = (await import(fontkitModule)) as { create(b: Buffer): { hasGlyphForCodePoint(c: number): boolean } };
+    const fontkit = (await import(fontkitModule)) as {
+      create(b: Buffer): { hasGlyphForCodePoint(c: number): boolean };
+    };
     const { reportFonts } = await import('../../apps/api/src/reports/pdf/fonts');
     const regular = fontkit.create(reportFonts().regular);
-    const missing = [...new Set(Array.from(p.text))].filter((c) => c.trim() && !regular.hasGlyphForCodePoint(c.codePointAt(0)!));
+    const missing = [...new Set(Array.from(p.text))].filter(
+      (c) => c.trim() && !regular.hasGlyphForCodePoint(c.codePointAt(0)!),
+    );
     expect(missing).toEqual([]);
-    for (const c of ['λ', 'Δ', '‡', '−', '⁻', '¹', 'ħ', 'ω', 'ᵢ', 'ₒ', 'σ']) expect(p.text).toContain(c);
+    for (const c of ['λ', 'Δ', '‡', '−', '⁻', '¹', 'ħ', 'ω', 'ᵢ', 'ₒ', 'σ'])
+      expect(p.text).toContain(c);
 
     const png = join(OUT, 'document-checks-page1');
-    execFileSync('pdftoppm', ['-f', '1', '-l', '1', '-r', '60', '-png', '-singlefile', p.file, png]);
+    execFileSync('pdftoppm', [
+      '-f',
+      '1',
+      '-l',
+      '1',
+      '-r',
+      '60',
+      '-png',
+      '-singlefile',
+      p.file,
+      png,
+    ]);
     // Non-blank: a PPM render of the same page has many pixels that are not white.
-    const ppm = execFileSync('pdftoppm', ['-f', '1', '-l', '1', '-r', '30', '-gray', '-singlefile', p.file], { maxBuffer: 1 << 24 });
+    const ppm = execFileSync(
+      'pdftoppm',
+      ['-f', '1', '-l', '1', '-r', '30', '-gray', '-singlefile', p.file],
+      { maxBuffer: 1 << 24 },
+    );
     const header = /^P5\s+(\d+)\s+(\d+)\s+255\s/.exec(ppm.subarray(0, 40).toString('latin1'))!;
     const pixels = ppm.subarray(header[0].length);
     const dark = pixels.filter((v) => v < 200).length;
@@ -241,12 +312,22 @@ describe('report PDF as a document', () => {
   });
 
   it('regenerates byte-identical PDFs from the same snapshot and review state', async () => {
-    const p = await produce('deterministic', pairOf('Deterministic', [param('deltaG0', -0.3, 'eV'), param('lambdaOuter', 0.8, 'eV'), param('coupling', 0.01, 'eV')]));
-    const again = await editor.get(`/api/reports/${p.view.reportId}/pdf`).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const p = await produce(
+      'deterministic',
+      pairOf('Deterministic', [
+        param('deltaG0', -0.3, 'eV'),
+        param('lambdaOuter', 0.8, 'eV'),
+        param('coupling', 0.01, 'eV'),
+      ]),
+    );
+    const again = await editor
+      .get(`/api/reports/${p.view.reportId}/pdf`)
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(Buffer.compare(again.body as Buffer, p.pdf)).toBe(0);
   });
 });

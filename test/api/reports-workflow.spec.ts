@@ -23,7 +23,11 @@ let wid: string;
 let pairId: string;
 
 async function addMember(session: Session, role: Role): Promise<void> {
-  await t.db.query('INSERT INTO memberships (workspace_id, user_id, role) VALUES ($1, $2, $3)', [wid, session.userId, role]);
+  await t.db.query('INSERT INTO memberships (workspace_id, user_id, role) VALUES ($1, $2, $3)', [
+    wid,
+    session.userId,
+    role,
+  ]);
 }
 
 function pdfOf(session: Session, id: string) {
@@ -62,7 +66,9 @@ beforeAll(async () => {
   await addMember(users.reviewer, 'reviewer');
   await addMember(users.reviewer2, 'reviewer');
   await addMember(users.viewer, 'viewer');
-  pairId = (await users.author.post(`/api/workspaces/${wid}/pairs`, pairBody({ name: 'DA-3' })).expect(201)).body.id;
+  pairId = (
+    await users.author.post(`/api/workspaces/${wid}/pairs`, pairBody({ name: 'DA-3' })).expect(201)
+  ).body.id;
 });
 afterAll(async () => {
   await t?.close();
@@ -80,8 +86,12 @@ describe('report creation and access', () => {
     await users.reviewer.post(`/api/workspaces/${wid}/reports`, { pairId }).expect(403);
     await users.viewer.post(`/api/workspaces/${wid}/reports`, { pairId }).expect(403);
     await users.outsider.post(`/api/workspaces/${wid}/reports`, { pairId }).expect(404);
-    const bad = await users.author.post(`/api/workspaces/${wid}/reports`, { pairId: 'nope', extra: 1 }).expect(400);
-    expect(bad.body.error.fields.map((f: { field: string }) => f.field)).toEqual(expect.arrayContaining(['pairId', 'extra']));
+    const bad = await users.author
+      .post(`/api/workspaces/${wid}/reports`, { pairId: 'nope', extra: 1 })
+      .expect(400);
+    expect(bad.body.error.fields.map((f: { field: string }) => f.field)).toEqual(
+      expect.arrayContaining(['pairId', 'extra']),
+    );
     await users.author.post(`/api/workspaces/${wid}/reports`, {}).expect(400);
   });
 
@@ -101,20 +111,25 @@ describe('report creation and access', () => {
 
   it('freezes the pair: editing the pair later changes no number of the report', async () => {
     const r = await newReport();
-    const before = (await users.author.get(`/api/reports/${r.reportId}`).expect(200)).body as ReportView;
+    const before = (await users.author.get(`/api/reports/${r.reportId}`).expect(200))
+      .body as ReportView;
     const pdfBefore = (await pdfOf(users.author, r.reportId).expect(200)).body as Buffer;
     const pair = (await users.author.get(`/api/pairs/${pairId}`).expect(200)).body;
     const edited = pairBody({ name: 'DA-3' });
     (edited.parameters[0] as { value: number }).value = -0.9;
-    await users.author.put(`/api/pairs/${pairId}`, { ...edited, version: pair.version }).expect(200);
-    const after = (await users.author.get(`/api/reports/${r.reportId}`).expect(200)).body as ReportView;
+    await users.author
+      .put(`/api/pairs/${pairId}`, { ...edited, version: pair.version })
+      .expect(200);
+    const after = (await users.author.get(`/api/reports/${r.reportId}`).expect(200))
+      .body as ReportView;
     expect(after.snapshotId).toBe(before.snapshotId);
     expect(after.snapshot).toEqual(before.snapshot);
     expect(after.snapshot.pairs[0].inputs.find((i) => i.kind === 'deltaG0')!.value).toBe(-0.5);
     const pdfAfter = (await pdfOf(users.author, r.reportId).expect(200)).body as Buffer;
     expect(Buffer.compare(pdfAfter, pdfBefore)).toBe(0);
     // A revision takes the pair's current version.
-    const revised = (await users.author.post(`/api/reports/${r.reportId}/revise`).expect(200)).body as ReportView;
+    const revised = (await users.author.post(`/api/reports/${r.reportId}/revise`).expect(200))
+      .body as ReportView;
     expect(revised.snapshotId).not.toBe(before.snapshotId);
     expect(revised.snapshot.pairs[0].inputs.find((i) => i.kind === 'deltaG0')!.value).toBe(-0.9);
     expect(revised.snapshot.pairs[0].pairVersion).toBe(pair.version + 1);
@@ -131,20 +146,32 @@ describe('review transitions', () => {
     await users.reviewer.post(`/api/reports/${r.reportId}/approve`).expect(409);
     await users.reviewer.post(`/api/reports/${r.reportId}/request-changes`).expect(409);
     t.mail.clear();
-    const submitted = (await users.author.post(`/api/reports/${r.reportId}/submit`, { note: 'Ready' }).expect(200)).body;
+    const submitted = (
+      await users.author.post(`/api/reports/${r.reportId}/submit`, { note: 'Ready' }).expect(200)
+    ).body;
     expect(submitted.status).toBe('submitted');
     for (const who of [users.reviewer, users.reviewer2, users.owner]) {
-      const m = await t.mail.waitFor((x) => x.to.includes(who.email.toLowerCase()) && x.subject.startsWith('Review requested'));
+      const m = await t.mail.waitFor(
+        (x) => x.to.includes(who.email.toLowerCase()) && x.subject.startsWith('Review requested'),
+      );
       expect(m.text).toContain(`/w/${wid}/reports/${r.reportId}`);
       expect(m.text).toContain('Ready');
     }
     await new Promise((res) => setTimeout(res, 1500));
-    expect(t.mail.messages().some((x) => x.to.includes(users.author.email.toLowerCase()))).toBe(false);
-    expect(t.mail.messages().some((x) => x.to.includes(users.viewer.email.toLowerCase()))).toBe(false);
+    expect(t.mail.messages().some((x) => x.to.includes(users.author.email.toLowerCase()))).toBe(
+      false,
+    );
+    expect(t.mail.messages().some((x) => x.to.includes(users.viewer.email.toLowerCase()))).toBe(
+      false,
+    );
     // Submitting twice is a conflict.
     await users.editor.post(`/api/reports/${r.reportId}/submit`).expect(409);
-    const audit = await users.owner.get(`/api/workspaces/${wid}/audit?entityId=${r.reportId}`).expect(200);
-    expect(audit.body.items.map((e: { action: string }) => e.action)).toEqual(expect.arrayContaining(['report.create', 'report.submit']));
+    const audit = await users.owner
+      .get(`/api/workspaces/${wid}/audit?entityId=${r.reportId}`)
+      .expect(200);
+    expect(audit.body.items.map((e: { action: string }) => e.action)).toEqual(
+      expect.arrayContaining(['report.create', 'report.submit']),
+    );
   });
 
   it('request-changes: only reviewers and owners; e-mails the author; the author revises and resubmits', async () => {
@@ -154,20 +181,37 @@ describe('review transitions', () => {
     await users.viewer.post(`/api/reports/${r.reportId}/request-changes`).expect(403);
     await users.author.post(`/api/reports/${r.reportId}/revise`).expect(409);
     t.mail.clear();
-    const back = (await users.reviewer.post(`/api/reports/${r.reportId}/request-changes`, { note: 'Source of λ?' }).expect(200)).body;
+    const back = (
+      await users.reviewer
+        .post(`/api/reports/${r.reportId}/request-changes`, { note: 'Source of λ?' })
+        .expect(200)
+    ).body;
     expect(back.status).toBe('changes-requested');
-    const m = await t.mail.waitFor((x) => x.to.includes(users.author.email.toLowerCase()) && x.subject.startsWith('Changes requested'));
+    const m = await t.mail.waitFor(
+      (x) =>
+        x.to.includes(users.author.email.toLowerCase()) &&
+        x.subject.startsWith('Changes requested'),
+    );
     expect(m.text).toContain('Source of λ?');
     await users.author.post(`/api/reports/${r.reportId}/revise`).expect(200);
     await users.author.post(`/api/reports/${r.reportId}/submit`).expect(200);
     // The owner may also ask for changes.
     await users.owner.post(`/api/reports/${r.reportId}/request-changes`).expect(200);
-    const history = ((await users.viewer.get(`/api/reports/${r.reportId}`).expect(200)).body as ReportView).history;
-    expect(history.map((h) => h.to)).toEqual(['draft', 'submitted', 'changes-requested', 'submitted', 'changes-requested']);
+    const history = (
+      (await users.viewer.get(`/api/reports/${r.reportId}`).expect(200)).body as ReportView
+    ).history;
+    expect(history.map((h) => h.to)).toEqual([
+      'draft',
+      'submitted',
+      'changes-requested',
+      'submitted',
+      'changes-requested',
+    ]);
   });
 
   it('approve: reviewers and owners but never the author; e-mails the author; the report is frozen and its stored PDF is the one downloaded', async () => {
-    const own = (await users.owner.post(`/api/workspaces/${wid}/reports`, { pairId }).expect(201)).body as ReportView;
+    const own = (await users.owner.post(`/api/workspaces/${wid}/reports`, { pairId }).expect(201))
+      .body as ReportView;
     await users.owner.post(`/api/reports/${own.reportId}/submit`).expect(200);
     const selfApproval = await users.owner.post(`/api/reports/${own.reportId}/approve`).expect(403);
     expect(selfApproval.body.error.message).toContain('author');
@@ -179,9 +223,13 @@ describe('review transitions', () => {
     await users.editor.post(`/api/reports/${r.reportId}/approve`).expect(403);
     await users.viewer.post(`/api/reports/${r.reportId}/approve`).expect(403);
     t.mail.clear();
-    const approved = (await users.reviewer2.post(`/api/reports/${r.reportId}/approve`, { note: 'Fine' }).expect(200)).body as ReportView;
+    const approved = (
+      await users.reviewer2.post(`/api/reports/${r.reportId}/approve`, { note: 'Fine' }).expect(200)
+    ).body as ReportView;
     expect(approved.status).toBe('approved');
-    const m = await t.mail.waitFor((x) => x.to.includes(users.author.email.toLowerCase()) && x.subject.startsWith('Approved'));
+    const m = await t.mail.waitFor(
+      (x) => x.to.includes(users.author.email.toLowerCase()) && x.subject.startsWith('Approved'),
+    );
     expect(m.text).toContain(r.reportId);
 
     // Stored at approval under snapshot id + revision; downloads return exactly those bytes.
@@ -220,15 +268,36 @@ describe('comments and the waiting list', () => {
     const r = await newReport();
     await users.author.post(`/api/reports/${r.reportId}/submit`).expect(200);
     t.mail.clear();
-    const first = (await users.reviewer.post(`/api/reports/${r.reportId}/comments`, { body: 'Where does the coupling come from?', anchor: 'coupling' }).expect(201)).body as ReportView;
+    const first = (
+      await users.reviewer
+        .post(`/api/reports/${r.reportId}/comments`, {
+          body: 'Where does the coupling come from?',
+          anchor: 'coupling',
+        })
+        .expect(201)
+    ).body as ReportView;
     const parent = first.comments[0];
     expect(parent.anchor).toBe('coupling');
-    await t.mail.waitFor((x) => x.to.includes(users.author.email.toLowerCase()) && x.subject.startsWith('New comment'));
-    const reply = (await users.author.post(`/api/reports/${r.reportId}/comments`, { body: 'GMH on the CT band.', parentId: parent.id }).expect(201)).body as ReportView;
+    await t.mail.waitFor(
+      (x) => x.to.includes(users.author.email.toLowerCase()) && x.subject.startsWith('New comment'),
+    );
+    const reply = (
+      await users.author
+        .post(`/api/reports/${r.reportId}/comments`, {
+          body: 'GMH on the CT band.',
+          parentId: parent.id,
+        })
+        .expect(201)
+    ).body as ReportView;
     expect(reply.comments[1].parentId).toBe(parent.id);
-    await t.mail.waitFor((x) => x.to.includes(users.reviewer.email.toLowerCase()) && x.text.includes('GMH on the CT band.'));
+    await t.mail.waitFor(
+      (x) =>
+        x.to.includes(users.reviewer.email.toLowerCase()) && x.text.includes('GMH on the CT band.'),
+    );
     await users.viewer.post(`/api/reports/${r.reportId}/comments`, { body: 'hi' }).expect(403);
-    const bad = await users.reviewer.post(`/api/reports/${r.reportId}/comments`, { body: 'x', anchor: 'colour' }).expect(400);
+    const bad = await users.reviewer
+      .post(`/api/reports/${r.reportId}/comments`, { body: 'x', anchor: 'colour' })
+      .expect(400);
     expect(bad.body.error.fields[0].field).toBe('anchor');
     await users.reviewer.post(`/api/reports/${r.reportId}/comments`, { body: '  ' }).expect(400);
     // The PDF prints the thread with its anchor.
@@ -239,26 +308,51 @@ describe('comments and the waiting list', () => {
   it('lists submitted reports waiting for me: reviewers and owners, never my own; filters the workspace list', async () => {
     const r = await newReport();
     await users.author.post(`/api/reports/${r.reportId}/submit`).expect(200);
-    const waiting = (await users.reviewer.get('/api/reviews/waiting').expect(200)).body as ReportListItem[];
+    const waiting = (await users.reviewer.get('/api/reviews/waiting').expect(200))
+      .body as ReportListItem[];
     expect(waiting.map((x) => x.id)).toContain(r.reportId);
-    expect(((await users.owner.get('/api/reviews/waiting').expect(200)).body as ReportListItem[]).map((x) => x.id)).toContain(r.reportId);
-    expect(((await users.author.get('/api/reviews/waiting').expect(200)).body as ReportListItem[]).map((x) => x.id)).not.toContain(r.reportId);
+    expect(
+      ((await users.owner.get('/api/reviews/waiting').expect(200)).body as ReportListItem[]).map(
+        (x) => x.id,
+      ),
+    ).toContain(r.reportId);
+    expect(
+      ((await users.author.get('/api/reviews/waiting').expect(200)).body as ReportListItem[]).map(
+        (x) => x.id,
+      ),
+    ).not.toContain(r.reportId);
     expect((await users.viewer.get('/api/reviews/waiting').expect(200)).body).toEqual([]);
     expect((await users.outsider.get('/api/reviews/waiting').expect(200)).body).toEqual([]);
 
-    const submitted = (await users.viewer.get(`/api/workspaces/${wid}/reports?status=submitted`).expect(200)).body as ReportListItem[];
+    const submitted = (
+      await users.viewer.get(`/api/workspaces/${wid}/reports?status=submitted`).expect(200)
+    ).body as ReportListItem[];
     expect(submitted.every((x) => x.status === 'submitted')).toBe(true);
     expect(submitted.map((x) => x.id)).toContain(r.reportId);
-    const mine = (await users.viewer.get(`/api/workspaces/${wid}/reports?author=${users.author.userId}&pairId=${pairId}`).expect(200)).body as ReportListItem[];
+    const mine = (
+      await users.viewer
+        .get(`/api/workspaces/${wid}/reports?author=${users.author.userId}&pairId=${pairId}`)
+        .expect(200)
+    ).body as ReportListItem[];
     expect(mine.length).toBeGreaterThan(0);
-    expect(mine.every((x) => x.author.id === users.author.userId && x.pairIds.includes(pairId))).toBe(true);
+    expect(
+      mine.every((x) => x.author.id === users.author.userId && x.pairIds.includes(pairId)),
+    ).toBe(true);
     await users.viewer.get(`/api/workspaces/${wid}/reports?status=done`).expect(400);
     await users.outsider.get(`/api/workspaces/${wid}/reports`).expect(404);
   });
 
   it('comparison reports freeze several pairs', async () => {
-    const other = (await users.author.post(`/api/workspaces/${wid}/pairs`, pairBody({ name: 'DA-4' })).expect(201)).body.id;
-    const r = (await users.author.post(`/api/workspaces/${wid}/reports`, { pairIds: [pairId, other] }).expect(201)).body as ReportView;
+    const other = (
+      await users.author
+        .post(`/api/workspaces/${wid}/pairs`, pairBody({ name: 'DA-4' }))
+        .expect(201)
+    ).body.id;
+    const r = (
+      await users.author
+        .post(`/api/workspaces/${wid}/reports`, { pairIds: [pairId, other] })
+        .expect(201)
+    ).body as ReportView;
     expect(r.kind).toBe('comparison');
     expect(r.snapshot.pairs.map((p) => p.name)).toEqual(['DA-3', 'DA-4']);
     await pdfOf(users.viewer, r.reportId).expect(200);

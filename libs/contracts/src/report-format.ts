@@ -9,8 +9,18 @@ import type { ReportModelResult } from './reports';
 
 const MINUS = '\u2212';
 const SUPERSCRIPT: Readonly<Record<string, string>> = {
-  '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹',
-  '-': '⁻', '+': '⁺',
+  '0': '⁰',
+  '1': '¹',
+  '2': '²',
+  '3': '³',
+  '4': '⁴',
+  '5': '⁵',
+  '6': '⁶',
+  '7': '⁷',
+  '8': '⁸',
+  '9': '⁹',
+  '-': '⁻',
+  '+': '⁺',
 };
 
 /** Replaces an ASCII hyphen-minus at the start of a number by U+2212. */
@@ -129,7 +139,12 @@ export function formatEnergyEv(valueEv: number | null): string {
 export function formatRateWithLog(k: number | null, log10k: number | null): string {
   if (k === null && log10k === null) return '—';
   // Below the double range the rate is only known through log10 k (VALIDATION.md B2).
-  const rate = k !== null && k > 0 ? formatRate(k) : log10k !== null ? `${powerOfTen(Math.floor(log10k))}…` : formatRate(k);
+  const rate =
+    k !== null && k > 0
+      ? formatRate(k)
+      : log10k !== null
+        ? `${powerOfTen(Math.floor(log10k))}…`
+        : formatRate(k);
   return log10k === null ? rate : `${rate} (log10 k = ${formatLog10(log10k)})`;
 }
 
@@ -187,11 +202,11 @@ export function provenanceText(p: Provenance): string {
     parts.push(inputs ? `${p.methodId} from ${inputs}` : p.methodId);
   }
   // Source records are listed only when the method's inputs are not (they name the same values).
-  if (p.sources && p.sources.length > 0 && !p.methodInputs) parts.push(`sources: ${p.sources.map((s) => `${s.type} ${s.id}`).join(', ')}`);
+  if (p.sources && p.sources.length > 0 && !p.methodInputs)
+    parts.push(`sources: ${p.sources.map((s) => `${s.type} ${s.id}`).join(', ')}`);
   if (p.note) parts.push(p.note);
   return parts.length > 0 ? `${kind}: ${parts.join('; ')}` : kind;
 }
-
 
 /** "log10 k 10.62 – 11.21 (95 %, median 10.95; 2000 samples)". */
 export function intervalText(result: ReportModelResult, hasUncertainties = false): string {
@@ -203,4 +218,3 @@ export function intervalText(result: ReportModelResult, hasUncertainties = false
     `(${formatNumber(width, 3)} %, median ${formatFixed(iv.log10kMedian)}; ${iv.samples} samples)`
   );
 }
-

@@ -13,19 +13,40 @@ export async function seedDemoReport(
   dataSource: DataSource,
   options: { labName: string; editorEmail: string; publicUrl?: string },
 ): Promise<boolean> {
-  const [lab] = await dataSource.query('SELECT id FROM workspaces WHERE name = $1 ORDER BY created_at LIMIT 1', [options.labName]);
-  const [editor] = await dataSource.query('SELECT id FROM users WHERE email = $1', [options.editorEmail]);
+  const [lab] = await dataSource.query(
+    'SELECT id FROM workspaces WHERE name = $1 ORDER BY created_at LIMIT 1',
+    [options.labName],
+  );
+  const [editor] = await dataSource.query('SELECT id FROM users WHERE email = $1', [
+    options.editorEmail,
+  ]);
   if (!lab || !editor) return false;
-  const [pair] = await dataSource.query('SELECT id FROM pairs WHERE workspace_id = $1 AND name = $2', [lab.id, 'DA-3']);
+  const [pair] = await dataSource.query(
+    'SELECT id FROM pairs WHERE workspace_id = $1 AND name = $2',
+    [lab.id, 'DA-3'],
+  );
   if (!pair) return false;
-  const [existing] = await dataSource.query('SELECT id FROM reports WHERE workspace_id = $1 AND title = $2', [lab.id, DEMO_REPORT_TITLE]);
+  const [existing] = await dataSource.query(
+    'SELECT id FROM reports WHERE workspace_id = $1 AND title = $2',
+    [lab.id, DEMO_REPORT_TITLE],
+  );
   if (existing) return false;
   const deps = {
     dataSource,
     config: { publicUrl: options.publicUrl ?? 'http://127.0.0.1:4280' } as Config,
     queue: null,
   };
-  const report = await createReport(deps, editor.id, lab.id, { pairIds: [pair.id], kind: 'pair', title: DEMO_REPORT_TITLE });
-  await transitionReport(deps, editor.id, report.reportId, 'submit', 'Ready for review: please check the coupling source.');
+  const report = await createReport(deps, editor.id, lab.id, {
+    pairIds: [pair.id],
+    kind: 'pair',
+    title: DEMO_REPORT_TITLE,
+  });
+  await transitionReport(
+    deps,
+    editor.id,
+    report.reportId,
+    'submit',
+    'Ready for review: please check the coupling source.',
+  );
   return true;
 }

@@ -23,9 +23,13 @@ export const CSV_COLUMNS = [
 
 function cell(value: unknown): string {
   if (value === null || value === undefined) return '';
-  const text = typeof value === 'number' ? (Number.isFinite(value) ? String(value) : '') : String(value);
+  const text =
+    typeof value === 'number' ? (Number.isFinite(value) ? String(value) : '') : String(value);
   // Quote when needed; neutralise spreadsheet formulas in text cells.
-  const safe = typeof value === 'string' && /^[=+\-@\t\r]/.test(text) && !/^-?\d/.test(text) ? `'${text}` : text;
+  const safe =
+    typeof value === 'string' && /^[=+\-@\t\r]/.test(text) && !/^-?\d/.test(text)
+      ? `'${text}`
+      : text;
   return /[",\n\r]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
 }
 
@@ -48,13 +52,36 @@ export function reportCsv(view: ReportView): string {
   for (const p of s.pairs) {
     for (const i of p.inputs) {
       rows.push([
-        'input', p.pairId, p.pairVersion, p.name, '', i.kind, i.value, i.canonicalUnit, i.typedValue, i.typedUnit,
-        i.uncertainty, provenanceText(i.provenance),
+        'input',
+        p.pairId,
+        p.pairVersion,
+        p.name,
+        '',
+        i.kind,
+        i.value,
+        i.canonicalUnit,
+        i.typedValue,
+        i.typedUnit,
+        i.uncertainty,
+        provenanceText(i.provenance),
       ]);
     }
     for (const r of p.results) {
       if (!r.applies) {
-        rows.push(['result', p.pairId, p.pairVersion, p.name, r.model, 'not_applicable', r.reason, '', '', '', '', '']);
+        rows.push([
+          'result',
+          p.pairId,
+          p.pairVersion,
+          p.name,
+          r.model,
+          'not_applicable',
+          r.reason,
+          '',
+          '',
+          '',
+          '',
+          '',
+        ]);
         continue;
       }
       const out: Array<[string, unknown, string]> = [
@@ -68,8 +95,23 @@ export function reportCsv(view: ReportView): string {
         out.push(['log10k_p025', r.interval.log10kLow, '']);
         out.push(['log10k_p975', r.interval.log10kHigh, '']);
       }
-      for (const [q, v, u] of out) rows.push(['result', p.pairId, p.pairVersion, p.name, r.model, q, v, u, '', '', '', '']);
-      for (const w of r.warnings) rows.push(['warning', p.pairId, p.pairVersion, p.name, r.model, w.code, w.message, '', '', '', '', '']);
+      for (const [q, v, u] of out)
+        rows.push(['result', p.pairId, p.pairVersion, p.name, r.model, q, v, u, '', '', '', '']);
+      for (const w of r.warnings)
+        rows.push([
+          'warning',
+          p.pairId,
+          p.pairVersion,
+          p.name,
+          r.model,
+          w.code,
+          w.message,
+          '',
+          '',
+          '',
+          '',
+          '',
+        ]);
     }
   }
   return rows.map((r) => r.map(cell).join(',')).join('\r\n') + '\r\n';

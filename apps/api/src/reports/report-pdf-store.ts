@@ -40,18 +40,26 @@ export class S3ReportPdfStore implements ReportPdfStore {
 
   async get(key: string): Promise<Buffer | null> {
     try {
-      const out = await this.client.send(new GetObjectCommand({ Bucket: this.config.bucket, Key: key }));
+      const out = await this.client.send(
+        new GetObjectCommand({ Bucket: this.config.bucket, Key: key }),
+      );
       if (!out.Body) return null;
       return Buffer.from(await out.Body.transformToByteArray());
     } catch (error) {
-      if (error instanceof NoSuchKey || (error as { name?: string }).name === 'NoSuchKey') return null;
+      if (error instanceof NoSuchKey || (error as { name?: string }).name === 'NoSuchKey')
+        return null;
       throw error;
     }
   }
 
   async put(key: string, pdf: Buffer): Promise<void> {
     await this.client.send(
-      new PutObjectCommand({ Bucket: this.config.bucket, Key: key, Body: pdf, ContentType: 'application/pdf' }),
+      new PutObjectCommand({
+        Bucket: this.config.bucket,
+        Key: key,
+        Body: pdf,
+        ContentType: 'application/pdf',
+      }),
     );
   }
 }
@@ -61,7 +69,9 @@ export class S3ReportPdfStore implements ReportPdfStore {
  * (gapwise), `S3_REGION` (us-east-1), `S3_ACCESS_KEY_ID` and `S3_SECRET_ACCESS_KEY` (S3RVER for
  * the local fake). Null when `S3_ENDPOINT` is unset: PDFs are then regenerated on download.
  */
-export function reportPdfStoreFromEnv(env: Record<string, string | undefined> = process.env): ReportPdfStore | null {
+export function reportPdfStoreFromEnv(
+  env: Record<string, string | undefined> = process.env,
+): ReportPdfStore | null {
   const endpoint = env['S3_ENDPOINT'];
   if (!endpoint) return null;
   return new S3ReportPdfStore({

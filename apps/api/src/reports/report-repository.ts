@@ -79,7 +79,11 @@ export async function reportWorkspace(db: EntityManager, reportId: string): Prom
   return rows[0]?.workspace_id ?? null;
 }
 
-export async function findReport(db: EntityManager, reportId: string, lock = false): Promise<ReportRow | null> {
+export async function findReport(
+  db: EntityManager,
+  reportId: string,
+  lock = false,
+): Promise<ReportRow | null> {
   if (lock) await db.query('SELECT id FROM reports WHERE id = $1 FOR UPDATE', [reportId]);
   const rows = await db.query(`${SELECT_REPORT} WHERE r.id = $1`, [reportId]);
   return rows[0] ? toRow(rows[0]) : null;
@@ -99,13 +103,26 @@ export async function insertReport(db: EntityManager, r: NewReport): Promise<str
   const rows = await db.query(
     `INSERT INTO reports (workspace_id, kind, title, status, author_id, pair_ids, snapshot, snapshot_id)
      VALUES ($1, $2, $3, 'draft', $4, $5, $6, $7) RETURNING id`,
-    [r.workspaceId, r.kind, r.title, r.authorId, r.pairIds, JSON.stringify(r.snapshot), r.snapshotId],
+    [
+      r.workspaceId,
+      r.kind,
+      r.title,
+      r.authorId,
+      r.pairIds,
+      JSON.stringify(r.snapshot),
+      r.snapshotId,
+    ],
   );
   return rows[0].id;
 }
 
 /** Replaces the snapshot (revision of a draft) and bumps the revision. */
-export async function replaceSnapshot(db: EntityManager, id: string, snapshot: ReportSnapshot, snapshotId: string): Promise<void> {
+export async function replaceSnapshot(
+  db: EntityManager,
+  id: string,
+  snapshot: ReportSnapshot,
+  snapshotId: string,
+): Promise<void> {
   await db.query(
     `UPDATE reports SET snapshot = $2, snapshot_id = $3, revision = revision + 1, pdf_key = NULL, updated_at = now()
       WHERE id = $1`,
@@ -113,7 +130,11 @@ export async function replaceSnapshot(db: EntityManager, id: string, snapshot: R
   );
 }
 
-export async function setStatus(db: EntityManager, id: string, status: ReportStatus): Promise<void> {
+export async function setStatus(
+  db: EntityManager,
+  id: string,
+  status: ReportStatus,
+): Promise<void> {
   await db.query(
     'UPDATE reports SET status = $2, revision = revision + 1, pdf_key = NULL, updated_at = now() WHERE id = $1',
     [id, status],
@@ -122,12 +143,24 @@ export async function setStatus(db: EntityManager, id: string, status: ReportSta
 
 /** A comment changes the review history printed in the PDF: new revision. */
 export async function bumpRevision(db: EntityManager, id: string): Promise<void> {
-  await db.query('UPDATE reports SET revision = revision + 1, pdf_key = NULL, updated_at = now() WHERE id = $1', [id]);
+  await db.query(
+    'UPDATE reports SET revision = revision + 1, pdf_key = NULL, updated_at = now() WHERE id = $1',
+    [id],
+  );
 }
 
 /** Records the stored PDF's key, only if the report is still at that revision. */
-export async function setPdfKey(db: EntityManager, id: string, revision: number, key: string): Promise<void> {
-  await db.query('UPDATE reports SET pdf_key = $3 WHERE id = $1 AND revision = $2', [id, revision, key]);
+export async function setPdfKey(
+  db: EntityManager,
+  id: string,
+  revision: number,
+  key: string,
+): Promise<void> {
+  await db.query('UPDATE reports SET pdf_key = $3 WHERE id = $1 AND revision = $2', [
+    id,
+    revision,
+    key,
+  ]);
 }
 
 export async function deleteReport(db: EntityManager, id: string): Promise<void> {
@@ -149,7 +182,10 @@ export async function insertTransition(
   );
 }
 
-export async function listTransitions(db: EntityManager, reportId: string): Promise<ReportTransitionView[]> {
+export async function listTransitions(
+  db: EntityManager,
+  reportId: string,
+): Promise<ReportTransitionView[]> {
   const rows = await db.query(
     `SELECT t.from_status, t.to_status, t.by_id, t.at, t.note, COALESCE(u.display_name, 'former member') AS name
        FROM report_transitions t LEFT JOIN users u ON u.id = t.by_id
@@ -167,7 +203,13 @@ export async function listTransitions(db: EntityManager, reportId: string): Prom
 
 export async function insertComment(
   db: EntityManager,
-  c: { reportId: string; authorId: string; body: string; anchor: string | null; parentId: string | null },
+  c: {
+    reportId: string;
+    authorId: string;
+    body: string;
+    anchor: string | null;
+    parentId: string | null;
+  },
 ): Promise<string> {
   const rows = await db.query(
     `INSERT INTO report_comments (report_id, author_id, body, anchor, parent_id, created_at)
@@ -177,12 +219,20 @@ export async function insertComment(
   return rows[0].id;
 }
 
-export async function findComment(db: EntityManager, id: string): Promise<{ reportId: string; authorId: string | null } | null> {
-  const rows = await db.query('SELECT report_id, author_id FROM report_comments WHERE id = $1', [id]);
+export async function findComment(
+  db: EntityManager,
+  id: string,
+): Promise<{ reportId: string; authorId: string | null } | null> {
+  const rows = await db.query('SELECT report_id, author_id FROM report_comments WHERE id = $1', [
+    id,
+  ]);
   return rows[0] ? { reportId: rows[0].report_id, authorId: rows[0].author_id } : null;
 }
 
-export async function listComments(db: EntityManager, reportId: string): Promise<ReportCommentView[]> {
+export async function listComments(
+  db: EntityManager,
+  reportId: string,
+): Promise<ReportCommentView[]> {
   const rows = await db.query(
     `SELECT c.id, c.author_id, c.body, c.anchor, c.parent_id, c.created_at,
             COALESCE(u.display_name, 'former member') AS name
@@ -206,7 +256,11 @@ export interface ReportListQuery {
   readonly pairId?: string;
 }
 
-export async function listReports(db: EntityManager, workspaceId: string, q: ReportListQuery): Promise<ReportListItem[]> {
+export async function listReports(
+  db: EntityManager,
+  workspaceId: string,
+  q: ReportListQuery,
+): Promise<ReportListItem[]> {
   const where = ['r.workspace_id = $1'];
   const params: unknown[] = [workspaceId];
   if (q.status) {
@@ -221,12 +275,18 @@ export async function listReports(db: EntityManager, workspaceId: string, q: Rep
     params.push(q.pairId);
     where.push(`$${params.length} = ANY(r.pair_ids)`);
   }
-  const rows = await db.query(`${SELECT_REPORT} WHERE ${where.join(' AND ')} ORDER BY r.updated_at DESC, r.id LIMIT 500`, params);
+  const rows = await db.query(
+    `${SELECT_REPORT} WHERE ${where.join(' AND ')} ORDER BY r.updated_at DESC, r.id LIMIT 500`,
+    params,
+  );
   return rows.map(toListItem);
 }
 
 /** Submitted reports in workspaces where the user reviews (owner or reviewer) and is not the author. */
-export async function listWaitingReviews(db: EntityManager, userId: string): Promise<ReportListItem[]> {
+export async function listWaitingReviews(
+  db: EntityManager,
+  userId: string,
+): Promise<ReportListItem[]> {
   const rows = await db.query(
     `${SELECT_REPORT}
       JOIN memberships m ON m.workspace_id = r.workspace_id AND m.user_id = $1 AND m.role IN ('owner', 'reviewer')
@@ -252,9 +312,14 @@ export async function memberAddresses(
   return rows.map((r: any) => ({ id: r.id, email: r.email, displayName: r.display_name }));
 }
 
-export async function userContact(db: EntityManager, userId: string): Promise<{ id: string; email: string; displayName: string } | null> {
+export async function userContact(
+  db: EntityManager,
+  userId: string,
+): Promise<{ id: string; email: string; displayName: string } | null> {
   const rows = await db.query('SELECT id, email, display_name FROM users WHERE id = $1', [userId]);
-  return rows[0] ? { id: rows[0].id, email: rows[0].email, displayName: rows[0].display_name } : null;
+  return rows[0]
+    ? { id: rows[0].id, email: rows[0].email, displayName: rows[0].display_name }
+    : null;
 }
 
 export async function workspaceName(db: EntityManager, workspaceId: string): Promise<string> {

@@ -53,7 +53,8 @@ const METHOD_TEXT: Readonly<Record<string, { name: string; equation: string }>> 
   },
   'rate.ruler': {
     name: 'Empirical protein ruler',
-    equation: 'log10 k = 13 − 0.6 (R − 3.6) − 3.1 (ΔG° + λ)²/λ (R edge to edge in Å; ΔG°, λ in eV; k in s⁻¹)',
+    equation:
+      'log10 k = 13 − 0.6 (R − 3.6) − 3.1 (ΔG° + λ)²/λ (R edge to edge in Å; ΔG°, λ in eV; k in s⁻¹)',
   },
   'uncertainty.monteCarlo': {
     name: 'Monte Carlo propagation of uncertainties',
@@ -115,7 +116,9 @@ function snapshotInputs(pair: Pair): ReportInput[] {
     },
   ];
   const order = Object.keys(PARAMETER_KINDS) as ParameterKind[];
-  const parameters = [...pair.parameters].sort((a, b) => order.indexOf(a.kind) - order.indexOf(b.kind));
+  const parameters = [...pair.parameters].sort(
+    (a, b) => order.indexOf(a.kind) - order.indexOf(b.kind),
+  );
   for (const p of parameters) {
     const def = PARAMETER_KINDS[p.kind];
     const quantity = def?.quantity ?? 'dimensionless';
@@ -136,7 +139,8 @@ function snapshotInputs(pair: Pair): ReportInput[] {
 
 /** Which request inputs a parameter's uncertainty maps onto (λ combines inner and outer). */
 function withUncertainties(request: CalcRequest, pair: Pair): Record<string, unknown> | null {
-  const sigma = (kind: ParameterKind) => pair.parameters.find((p) => p.kind === kind)?.uncertainty ?? null;
+  const sigma = (kind: ParameterKind) =>
+    pair.parameters.find((p) => p.kind === kind)?.uncertainty ?? null;
   const inputs = { ...(request.inputs as Record<string, unknown>) };
   const sigmas: Record<string, number | null> = {
     deltaG0: sigma('deltaG0'),
@@ -164,11 +168,22 @@ function monteCarlo(request: CalcRequest, pair: Pair): ReportInterval | null {
   if (!inputs) return null;
   const answer = calculate({
     method: 'uncertainty.monteCarlo',
-    inputs: { method: request.method, inputs, samples: MONTE_CARLO_SAMPLES, seed: MONTE_CARLO_SEED },
+    inputs: {
+      method: request.method,
+      inputs,
+      samples: MONTE_CARLO_SAMPLES,
+      seed: MONTE_CARLO_SEED,
+    },
   });
   if (!answer.ok) return null;
-  const log10k = answer.outputs['log10k'] as { median?: number; p025?: number; p975?: number } | undefined;
-  if (!log10k || typeof log10k.median !== 'number' || typeof log10k.p025 !== 'number' || typeof log10k.p975 !== 'number') {
+  const log10k = answer.outputs['log10k'] as
+    { median?: number; p025?: number; p975?: number } | undefined;
+  if (
+    !log10k ||
+    typeof log10k.median !== 'number' ||
+    typeof log10k.p025 !== 'number' ||
+    typeof log10k.p975 !== 'number'
+  ) {
     return null;
   }
   return {
@@ -189,9 +204,21 @@ function rulerResult(pair: Pair): ReportModelResult | null {
   const lambda = (v('lambdaInner') ?? 0) + (v('lambdaOuter') ?? 0);
   const base = { model: 'ruler' as const, methodId: 'rate.ruler', primary: false, interval: null };
   if (deltaG0 === undefined || !(lambda > 0)) {
-    return { ...base, applies: false, reason: 'needs ΔG° and λ', k: null, log10k: null, activationFreeEnergy: null, regime: null, warnings: [] };
+    return {
+      ...base,
+      applies: false,
+      reason: 'needs ΔG° and λ',
+      k: null,
+      log10k: null,
+      activationFreeEnergy: null,
+      regime: null,
+      warnings: [],
+    };
   }
-  const answer = calculate({ method: 'rate.ruler', inputs: { distance: edge.value, deltaG0, lambda } });
+  const answer = calculate({
+    method: 'rate.ruler',
+    inputs: { distance: edge.value, deltaG0, lambda },
+  });
   if (!answer.ok) {
     return {
       ...base,
@@ -302,7 +329,10 @@ function snapshotMethods(pairs: readonly ReportPairSnapshot[]): ReportMethod[] {
 }
 
 /** Builds the immutable snapshot of a report from pairs at their current versions. */
-export function buildReportSnapshot(context: SnapshotContext, pairs: readonly Pair[]): ReportSnapshot {
+export function buildReportSnapshot(
+  context: SnapshotContext,
+  pairs: readonly Pair[],
+): ReportSnapshot {
   const snapshotPairs = pairs.map(snapshotPair);
   return {
     schema: 1,

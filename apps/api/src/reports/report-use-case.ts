@@ -33,14 +33,18 @@ import { reportPdfKey, type ReportPdfStore } from './report-pdf-store';
 import * as repo from './report-repository';
 import { buildReportSnapshot, snapshotIdOf } from './report-snapshot';
 
-export type ReportDeps = Pick<AppDeps, 'dataSource' | 'config' | 'queue'> & { readonly reportPdfStore?: ReportPdfStore | null };
+export type ReportDeps = Pick<AppDeps, 'dataSource' | 'config' | 'queue'> & {
+  readonly reportPdfStore?: ReportPdfStore | null;
+};
 
 let softwareVersionCache: string | null = null;
 /** The product version printed on every report (root package.json). */
 export function softwareVersion(): string {
   if (softwareVersionCache) return softwareVersionCache;
   try {
-    const pkg = JSON.parse(readFileSync(join(REPO_ROOT, 'package.json'), 'utf8')) as { version?: string };
+    const pkg = JSON.parse(readFileSync(join(REPO_ROOT, 'package.json'), 'utf8')) as {
+      version?: string;
+    };
     softwareVersionCache = pkg.version ?? 'unknown';
   } catch {
     softwareVersionCache = 'unknown';
@@ -49,7 +53,8 @@ export function softwareVersion(): string {
 }
 
 const conflict = (code: string, message: string) => new AppError(409, code, message);
-const frozen = () => conflict('report-frozen', 'This report is approved and frozen; it cannot change.');
+const frozen = () =>
+  conflict('report-frozen', 'This report is approved and frozen; it cannot change.');
 
 /** Loads a report the caller may see (404 for non-members), checking the role rule (403). */
 export async function reportForCaller(
@@ -67,20 +72,35 @@ export async function reportForCaller(
   return { report, role };
 }
 
-async function loadPairs(db: EntityManager, workspaceId: string, pairIds: readonly string[]): Promise<Pair[]> {
+async function loadPairs(
+  db: EntityManager,
+  workspaceId: string,
+  pairIds: readonly string[],
+): Promise<Pair[]> {
   const pairs: Pair[] = [];
   const errors: Array<{ field: string; message: string }> = [];
   for (const [i, id] of pairIds.entries()) {
     const pair = isUuid(id) ? await findPair(db, id) : null;
     if (!pair || pair.workspaceId !== workspaceId) {
-      errors.push({ field: pairIds.length === 1 ? 'pairId' : `pairIds.${i}`, message: 'no such pair in this workspace' });
+      errors.push({
+        field: pairIds.length === 1 ? 'pairId' : `pairIds.${i}`,
+        message: 'no such pair in this workspace',
+      });
     } else pairs.push(pair);
   }
   if (errors.length) throw validationFailed(errors);
   return pairs;
 }
 
-async function freeze(db: EntityManager, kind: ReportKind, title: string, workspaceId: string, authorId: string, pairs: Pair[], authorName: string) {
+async function freeze(
+  db: EntityManager,
+  kind: ReportKind,
+  title: string,
+  workspaceId: string,
+  authorId: string,
+  pairs: Pair[],
+  authorName: string,
+) {
   const snapshot = buildReportSnapshot(
     {
       kind,
@@ -123,7 +143,12 @@ export interface CreateReportInput {
   readonly title?: string;
 }
 
-export async function createReport(deps: ReportDeps, userId: string, workspaceId: string, input: CreateReportInput): Promise<ReportView> {
+export async function createReport(
+  deps: ReportDeps,
+  userId: string,
+  workspaceId: string,
+  input: CreateReportInput,
+): Promise<ReportView> {
   const db = deps.dataSource;
   await requireRole(db.manager, workspaceId, userId, canEdit);
   const id = await db.transaction(async (tx) => {
@@ -131,8 +156,18 @@ export async function createReport(deps: ReportDeps, userId: string, workspaceId
     const me = await repo.userContact(tx, userId);
     const title =
       input.title?.trim() ||
-      (input.kind === 'pair' ? `${pairs[0].name}: electron-transfer rate estimate` : `Comparison of ${pairs.length} pairs`);
-    const { snapshot, snapshotId } = await freeze(tx, input.kind, title, workspaceId, userId, pairs, me?.displayName ?? '');
+      (input.kind === 'pair'
+        ? `${pairs[0].name}: electron-transfer rate estimate`
+        : `Comparison of ${pairs.length} pairs`);
+    const { snapshot, snapshotId } = await freeze(
+      tx,
+      input.kind,
+      title,
+      workspaceId,
+      userId,
+      pairs,
+      me?.displayName ?? '',
+    );
     const reportId = await repo.insertReport(tx, {
       workspaceId,
       kind: input.kind,
@@ -157,13 +192,20 @@ export async function createReport(deps: ReportDeps, userId: string, workspaceId
   return readReport(db, userId, id);
 }
 
-export async function readReport(db: DataSource, userId: string, reportId: string): Promise<ReportView> {
+export async function readReport(
+  db: DataSource,
+  userId: string,
+  reportId: string,
+): Promise<ReportView> {
   const { report } = await reportForCaller(db.manager, reportId, userId);
   return viewOf(db.manager, report);
 }
 
 async function viewOf(db: EntityManager, report: repo.ReportRow): Promise<ReportView> {
-  const [history, comments] = await Promise.all([repo.listTransitions(db, report.id), repo.listComments(db, report.id)]);
+  const [history, comments] = await Promise.all([
+    repo.listTransitions(db, report.id),
+    repo.listComments(db, report.id),
+  ]);
   return {
     reportId: report.id,
     workspaceId: report.workspaceId,
@@ -224,7 +266,10 @@ export async function transitionReport(
     const rule = REPORT_TRANSITIONS[action];
     if (isReportFrozen(report.status)) throw frozen();
     if (!(rule.from as readonly ReportStatus[]).includes(report.status)) {
-      throw conflict('invalid-transition', `A ${report.status} report cannot be ${ACTION_VERBS[action]}.`);
+      throw conflict(
+        'invalid-transition',
+        `A ${report.status} report cannot be ${ACTION_VERBS[action]}.`,
+      );
     }
     if (action === 'approve' && report.authorId === userId) {
       throw forbidden('The author of a report cannot approve it; another reviewer must.');
@@ -246,7 +291,12 @@ export async function transitionReport(
     const who = actor?.displayName ?? 'A member';
     const noteLine = note ? `\n\nNote: ${note}` : '';
     if (action === 'submit') {
-      const reviewers = await repo.memberAddresses(tx, report.workspaceId, ['owner', 'reviewer'], report.authorId);
+      const reviewers = await repo.memberAddresses(
+        tx,
+        report.workspaceId,
+        ['owner', 'reviewer'],
+        report.authorId,
+      );
       await notify(
         tx,
         deps,
@@ -265,7 +315,15 @@ export async function transitionReport(
           ? `${who} approved your report "${report.title}". It is now frozen; the approved PDF is the one ` +
             `downloaded from now on.${noteLine}\n\nOpen it: ${link}\n`
           : `${who} asked for changes to your report "${report.title}".${noteLine}\n\nOpen it: ${link}\n`;
-      await notify(tx, deps, `report-${action}`, reportId, author && author.id !== userId ? [author] : [], subject, text);
+      await notify(
+        tx,
+        deps,
+        `report-${action}`,
+        reportId,
+        author && author.id !== userId ? [author] : [],
+        subject,
+        text,
+      );
     }
   });
   if (action === 'approve') {
@@ -276,7 +334,11 @@ export async function transitionReport(
 }
 
 /** New snapshot from the pairs' current versions, while the report is a draft or sent back. */
-export async function reviseReport(deps: ReportDeps, userId: string, reportId: string): Promise<ReportView> {
+export async function reviseReport(
+  deps: ReportDeps,
+  userId: string,
+  reportId: string,
+): Promise<ReportView> {
   const db = deps.dataSource;
   await reportForCaller(db.manager, reportId, userId, canEdit);
   await db.transaction(async (tx) => {
@@ -284,7 +346,10 @@ export async function reviseReport(deps: ReportDeps, userId: string, reportId: s
     if (!report) throw notFound('report');
     if (isReportFrozen(report.status)) throw frozen();
     if (report.status !== 'draft' && report.status !== 'changes-requested') {
-      throw conflict('invalid-transition', `A ${report.status} report cannot be revised; ask the reviewer to request changes.`);
+      throw conflict(
+        'invalid-transition',
+        `A ${report.status} report cannot be revised; ask the reviewer to request changes.`,
+      );
     }
     const pairs = await loadPairs(tx, report.workspaceId, report.pairIds);
     const { snapshot, snapshotId } = await freeze(
@@ -317,13 +382,28 @@ export interface CommentInput {
   readonly parentId: string | null;
 }
 
-export async function commentOnReport(deps: ReportDeps, userId: string, reportId: string, input: CommentInput): Promise<ReportView> {
+export async function commentOnReport(
+  deps: ReportDeps,
+  userId: string,
+  reportId: string,
+  input: CommentInput,
+): Promise<ReportView> {
   const db = deps.dataSource;
-  const { report: seen } = await reportForCaller(db.manager, reportId, userId, (r) => canEdit(r) || canReview(r));
-  const anchors = new Set(seen.snapshot.pairs.flatMap((p) => p.inputs.map((i) => i.kind as string)));
+  const { report: seen } = await reportForCaller(
+    db.manager,
+    reportId,
+    userId,
+    (r) => canEdit(r) || canReview(r),
+  );
+  const anchors = new Set(
+    seen.snapshot.pairs.flatMap((p) => p.inputs.map((i) => i.kind as string)),
+  );
   const errors: Array<{ field: string; message: string }> = [];
   if (input.anchor !== null && !anchors.has(input.anchor)) {
-    errors.push({ field: 'anchor', message: `must be one of the report's parameters: ${[...anchors].join(', ')}` });
+    errors.push({
+      field: 'anchor',
+      message: `must be one of the report's parameters: ${[...anchors].join(', ')}`,
+    });
   }
   await db.transaction(async (tx) => {
     const report = await repo.findReport(tx, reportId, true);
@@ -331,7 +411,8 @@ export async function commentOnReport(deps: ReportDeps, userId: string, reportId
     if (isReportFrozen(report.status)) throw frozen();
     if (input.parentId !== null) {
       const parent = isUuid(input.parentId) ? await repo.findComment(tx, input.parentId) : null;
-      if (!parent || parent.reportId !== reportId) errors.push({ field: 'parentId', message: 'no such comment on this report' });
+      if (!parent || parent.reportId !== reportId)
+        errors.push({ field: 'parentId', message: 'no such comment on this report' });
     }
     if (errors.length) throw validationFailed(errors);
     const commentId = await repo.insertComment(tx, { reportId, authorId: userId, ...input });
@@ -374,7 +455,11 @@ export async function commentOnReport(deps: ReportDeps, userId: string, reportId
   return readReport(db, userId, reportId);
 }
 
-export async function deleteReportUseCase(deps: ReportDeps, userId: string, reportId: string): Promise<void> {
+export async function deleteReportUseCase(
+  deps: ReportDeps,
+  userId: string,
+  reportId: string,
+): Promise<void> {
   const db = deps.dataSource;
   await reportForCaller(db.manager, reportId, userId, canEdit);
   await db.transaction(async (tx) => {
@@ -409,7 +494,11 @@ function reviewState(view: ReportView): ReportReviewState {
  * The PDF of the report's current revision: the stored object when there is one, else rendered,
  * stored once, and returned.
  */
-export async function reportPdf(deps: ReportDeps, userId: string, reportId: string): Promise<{ pdf: Buffer; view: ReportView }> {
+export async function reportPdf(
+  deps: ReportDeps,
+  userId: string,
+  reportId: string,
+): Promise<{ pdf: Buffer; view: ReportView }> {
   const view = await readReport(deps.dataSource, userId, reportId);
   const store = deps.reportPdfStore ?? null;
   const key = reportPdfKey(view.snapshotId, view.revision);
@@ -427,6 +516,11 @@ export async function reportPdf(deps: ReportDeps, userId: string, reportId: stri
 
 /** A file name for downloads: letters, digits and dashes. */
 export function reportFileName(view: ReportView, extension: string): string {
-  const base = view.title.normalize('NFKD').replace(/[^A-Za-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 60) || 'report';
+  const base =
+    view.title
+      .normalize('NFKD')
+      .replace(/[^A-Za-z0-9]+/g, '-')
+      .replace(/^-|-$/g, '')
+      .slice(0, 60) || 'report';
   return `${base}-${view.snapshotId.slice(0, 12)}-r${view.revision}.${extension}`;
 }

@@ -38,25 +38,42 @@ function listQuery(req: Request): ReportListQuery {
 }
 
 /** Report routes. `reportPdfStore` (S3 API) keeps each generated PDF; null regenerates. */
-export function registerReportRoutes(router: Router, deps: AppDeps & { readonly reportPdfStore?: ReportPdfStore | null }): void {
+export function registerReportRoutes(
+  router: Router,
+  deps: AppDeps & { readonly reportPdfStore?: ReportPdfStore | null },
+): void {
   const db = deps.dataSource;
   const id = (req: Request) => String(req.params['id']);
 
   router.get('/workspaces/:wid/reports', requireAuth, async (req, res) => {
-    res.json(await listWorkspaceReports(db, userIdOf(req), String(req.params['wid']), listQuery(req)));
+    res.json(
+      await listWorkspaceReports(db, userIdOf(req), String(req.params['wid']), listQuery(req)),
+    );
   });
 
   router.post('/workspaces/:wid/reports', requireAuth, async (req, res) => {
     const dto = parseBody(ReportCreateDto, req.body);
     if ((dto.pairId === undefined) === (dto.pairIds === undefined)) {
-      throw validationFailed([{ field: 'pairId', message: 'give either pairId (one pair) or pairIds (a comparison)' }]);
+      throw validationFailed([
+        { field: 'pairId', message: 'give either pairId (one pair) or pairIds (a comparison)' },
+      ]);
     }
     const pairIds = dto.pairId ? [dto.pairId] : [...new Set(dto.pairIds)];
     if (dto.pairIds && pairIds.length < 2) {
-      throw validationFailed([{ field: 'pairIds', message: 'must list at least 2 different pairs' }]);
+      throw validationFailed([
+        { field: 'pairIds', message: 'must list at least 2 different pairs' },
+      ]);
     }
     const kind = dto.pairId ? 'pair' : 'comparison';
-    res.status(201).json(await createReport(deps, userIdOf(req), String(req.params['wid']), { pairIds, kind, title: dto.title }));
+    res
+      .status(201)
+      .json(
+        await createReport(deps, userIdOf(req), String(req.params['wid']), {
+          pairIds,
+          kind,
+          title: dto.title,
+        }),
+      );
   });
 
   router.get('/reviews/waiting', requireAuth, async (req, res) => {
@@ -79,7 +96,8 @@ export function registerReportRoutes(router: Router, deps: AppDeps & { readonly 
   router.get('/reports/:id/export', requireAuth, async (req, res) => {
     const errors: FieldError[] = [];
     const format = queryString(req.query['format'], 'format', errors) ?? 'json';
-    if (format !== 'csv' && format !== 'json') errors.push({ field: 'format', message: 'must be csv or json' });
+    if (format !== 'csv' && format !== 'json')
+      errors.push({ field: 'format', message: 'must be csv or json' });
     if (errors.length) throw validationFailed(errors);
     const view = await readReport(db, userIdOf(req), id(req));
     res.setHeader('Content-Disposition', `attachment; filename="${reportFileName(view, format)}"`);
@@ -95,7 +113,9 @@ export function registerReportRoutes(router: Router, deps: AppDeps & { readonly 
   for (const action of actions) {
     router.post(`/reports/:id/${action}`, requireAuth, async (req, res) => {
       const dto = parseBody(ReportDecisionDto, req.body ?? {});
-      res.json(await transitionReport(deps, userIdOf(req), id(req), action, dto.note?.trim() || null));
+      res.json(
+        await transitionReport(deps, userIdOf(req), id(req), action, dto.note?.trim() || null),
+      );
     });
   }
 

@@ -63,9 +63,18 @@ export class Cursor {
   heading(text: string, keepWith = 60): void {
     this.need(28 + keepWith);
     if (this.y > this.doc.page.margins.top + 1) this.y += 10;
-    drawRich(this.doc, text, this.left, this.y, this.width, { size: 12.5, bold: true, color: COLORS.teal });
+    drawRich(this.doc, text, this.left, this.y, this.width, {
+      size: 12.5,
+      bold: true,
+      color: COLORS.teal,
+    });
     this.y += 19;
-    this.doc.moveTo(this.left, this.y).lineTo(this.left + this.width, this.y).lineWidth(0.8).strokeColor(COLORS.teal).stroke();
+    this.doc
+      .moveTo(this.left, this.y)
+      .lineTo(this.left + this.width, this.y)
+      .lineWidth(0.8)
+      .strokeColor(COLORS.teal)
+      .stroke();
     this.y += 8;
   }
   subheading(text: string, keepWith = 40): void {
@@ -100,11 +109,27 @@ export function drawTable(
   const total = cursor.width;
   const widths = columns.map((c) => c.width * total);
   const xs = widths.map((_, i) => cursor.left + widths.slice(0, i).reduce((s, w) => s + w, 0));
-  const cellStyle = (bold: boolean, align?: 'left' | 'right'): TextStyle => ({ size, bold, align, leading: 1.25 });
+  const cellStyle = (bold: boolean, align?: 'left' | 'right'): TextStyle => ({
+    size,
+    bold,
+    align,
+    leading: 1.25,
+  });
   const rowHeight = (cells: readonly string[], bold: boolean) =>
-    Math.max(...cells.map((c, i) => measureRich(doc, c, widths[i] - 2 * padX, cellStyle(bold, columns[i].align)))) +
+    Math.max(
+      ...cells.map((c, i) =>
+        measureRich(doc, c, widths[i] - 2 * padX, cellStyle(bold, columns[i].align)),
+      ),
+    ) +
     2 * padY;
-  const drawRow = (cells: readonly string[], y: number, h: number, header: boolean, bold: boolean, zebra: boolean) => {
+  const drawRow = (
+    cells: readonly string[],
+    y: number,
+    h: number,
+    header: boolean,
+    bold: boolean,
+    zebra: boolean,
+  ) => {
     if (header) doc.rect(cursor.left, y, total, h).fill(COLORS.tealLight);
     else if (zebra) doc.rect(cursor.left, y, total, h).fill(COLORS.zebra);
     cells.forEach((c, i) => {
@@ -113,7 +138,12 @@ export function drawTable(
         color: header ? COLORS.teal : COLORS.text,
       });
     });
-    doc.moveTo(cursor.left, y + h).lineTo(cursor.left + total, y + h).lineWidth(0.4).strokeColor(COLORS.rule).stroke();
+    doc
+      .moveTo(cursor.left, y + h)
+      .lineTo(cursor.left + total, y + h)
+      .lineWidth(0.4)
+      .strokeColor(COLORS.rule)
+      .stroke();
   };
   const headerCells = columns.map((c) => c.header);
   const headerHeight = rowHeight(headerCells, true);
@@ -134,7 +164,13 @@ export function drawTable(
 }
 
 /** A tinted box with a coloured left bar around wrapped text (notes, cautions). */
-export function drawNote(cursor: Cursor, title: string, body: string, tint: string, bar: string): void {
+export function drawNote(
+  cursor: Cursor,
+  title: string,
+  body: string,
+  tint: string,
+  bar: string,
+): void {
   const doc = cursor.doc;
   const inner = cursor.width - 20;
   const titleH = measureRich(doc, title, inner, { size: 9.5, bold: true });
@@ -143,7 +179,11 @@ export function drawNote(cursor: Cursor, title: string, body: string, tint: stri
   cursor.need(h);
   doc.rect(cursor.left, cursor.y, cursor.width, h).fill(tint);
   doc.rect(cursor.left, cursor.y, 3, h).fill(bar);
-  drawRich(doc, title, cursor.left + 12, cursor.y + 7, inner, { size: 9.5, bold: true, color: bar });
+  drawRich(doc, title, cursor.left + 12, cursor.y + 7, inner, {
+    size: 9.5,
+    bold: true,
+    color: bar,
+  });
   drawRich(doc, body, cursor.left + 12, cursor.y + 7 + titleH, inner, { size: 9 });
   cursor.y += h;
 }

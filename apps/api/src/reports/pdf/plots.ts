@@ -12,7 +12,12 @@ import {
   temperatureCurve,
   type LinearScale,
 } from '@gapwise/plots';
-import { formatNumber, pairRateRequest, type ParameterKind, type ReportPairSnapshot } from '@gapwise/contracts';
+import {
+  formatNumber,
+  pairRateRequest,
+  type ParameterKind,
+  type ReportPairSnapshot,
+} from '@gapwise/contracts';
 import { COLORS, type Cursor, type Doc } from './page-layout';
 import { drawRich } from './rich-text';
 import { inputValue, primaryResult, totalLambda } from './report-text';
@@ -30,7 +35,14 @@ interface Axes {
   readonly inner: Frame;
 }
 
-const SERIES_COLORS = [COLORS.teal, COLORS.product, COLORS.reactant, COLORS.amber, '#6a4c93', COLORS.charcoal];
+const SERIES_COLORS = [
+  COLORS.teal,
+  COLORS.product,
+  COLORS.reactant,
+  COLORS.amber,
+  '#6a4c93',
+  COLORS.charcoal,
+];
 
 /** Frame with axes, ticks, grid and labels; returns the scales of the inner plotting area. */
 function drawAxes(
@@ -40,7 +52,12 @@ function drawAxes(
   yDomain: readonly [number, number],
   labels: { x: string; y: string; title: string },
 ): Axes {
-  const inner: Frame = { x: frame.x + 40, y: frame.y + 18, width: frame.width - 50, height: frame.height - 50 };
+  const inner: Frame = {
+    x: frame.x + 40,
+    y: frame.y + 18,
+    width: frame.width - 50,
+    height: frame.height - 50,
+  };
   const sx = linearScale(xDomain, [inner.x, inner.x + inner.width]);
   const sy = linearScale(yDomain, [inner.y + inner.height, inner.y]);
   drawRich(doc, labels.title, frame.x, frame.y, frame.width, { size: 9, bold: true });
@@ -48,7 +65,10 @@ function drawAxes(
   const xTicks = niceTicks(xDomain[0], xDomain[1], Math.max(3, Math.round(inner.width / 60)));
   const yTicks = niceTicks(yDomain[0], yDomain[1], Math.max(3, Math.round(inner.height / 32)));
   for (const t of xTicks) {
-    doc.moveTo(sx(t), inner.y).lineTo(sx(t), inner.y + inner.height).stroke();
+    doc
+      .moveTo(sx(t), inner.y)
+      .lineTo(sx(t), inner.y + inner.height)
+      .stroke();
     drawRich(doc, formatNumber(t, 3), sx(t) - 20, inner.y + inner.height + 3, 40, {
       size: 7,
       color: COLORS.muted,
@@ -56,10 +76,21 @@ function drawAxes(
     });
   }
   for (const t of yTicks) {
-    doc.moveTo(inner.x, sy(t)).lineTo(inner.x + inner.width, sy(t)).stroke();
-    drawRich(doc, formatNumber(t, 3), inner.x - 38, sy(t) - 4.5, 35, { size: 7, color: COLORS.muted, align: 'right' });
+    doc
+      .moveTo(inner.x, sy(t))
+      .lineTo(inner.x + inner.width, sy(t))
+      .stroke();
+    drawRich(doc, formatNumber(t, 3), inner.x - 38, sy(t) - 4.5, 35, {
+      size: 7,
+      color: COLORS.muted,
+      align: 'right',
+    });
   }
-  doc.rect(inner.x, inner.y, inner.width, inner.height).lineWidth(0.6).strokeColor(COLORS.muted).stroke();
+  doc
+    .rect(inner.x, inner.y, inner.width, inner.height)
+    .lineWidth(0.6)
+    .strokeColor(COLORS.muted)
+    .stroke();
   drawRich(doc, labels.x, inner.x, inner.y + inner.height + 14, inner.width, {
     size: 8,
     color: COLORS.text,
@@ -68,10 +99,17 @@ function drawAxes(
   // Vertical y label.
   doc.save();
   doc.rotate(-90, { origin: [frame.x + 6, inner.y + inner.height / 2] });
-  drawRich(doc, labels.y, frame.x + 6 - inner.height / 2, inner.y + inner.height / 2 - 6, inner.height, {
-    size: 8,
-    align: 'center',
-  });
+  drawRich(
+    doc,
+    labels.y,
+    frame.x + 6 - inner.height / 2,
+    inner.y + inner.height / 2 - 6,
+    inner.height,
+    {
+      size: 8,
+      align: 'center',
+    },
+  );
   doc.restore();
   return { sx, sy, inner };
 }
@@ -89,12 +127,23 @@ function strokePath(doc: Doc, d: string, color: string, width = 1.4, dash?: numb
   doc.restore();
 }
 
-function legend(doc: Doc, inner: Frame, items: ReadonlyArray<{ label: string; color: string; dash?: boolean; dot?: boolean }>): void {
+function legend(
+  doc: Doc,
+  inner: Frame,
+  items: ReadonlyArray<{ label: string; color: string; dash?: boolean; dot?: boolean }>,
+): void {
   let y = inner.y + 5;
   for (const item of items) {
     const x = inner.x + inner.width - 118;
     if (item.dot) doc.circle(x + 9, y + 4, 2.6).fill(item.color);
-    else strokePath(doc, `M${x},${y + 4}L${x + 18},${y + 4}`, item.color, 1.4, item.dash ? 3 : undefined);
+    else
+      strokePath(
+        doc,
+        `M${x},${y + 4}L${x + 18},${y + 4}`,
+        item.color,
+        1.4,
+        item.dash ? 3 : undefined,
+      );
     drawRich(doc, item.label, x + 22, y - 0.5, 96, { size: 7, color: COLORS.text });
     y += 10;
   }
@@ -125,7 +174,8 @@ export function drawParabolas(doc: Doc, frame: Frame, pair: ReportPairSnapshot):
   });
   const { sx, sy, inner } = axes;
   clipTo(doc, inner);
-  const at = (key: 'reactant' | 'product' | 'lower' | 'upper') => g.points.map((p) => ({ x: p.gap, y: p[key] }));
+  const at = (key: 'reactant' | 'product' | 'lower' | 'upper') =>
+    g.points.map((p) => ({ x: p.gap, y: p[key] }));
   strokePath(doc, linePath(at('lower'), sx, sy), COLORS.charcoal, 1, 3);
   strokePath(doc, linePath(at('upper'), sx, sy), COLORS.charcoal, 1, 3);
   strokePath(doc, linePath(at('reactant'), sx, sy), COLORS.reactant, 1.6);
@@ -133,14 +183,19 @@ export function drawParabolas(doc: Doc, frame: Frame, pair: ReportPairSnapshot):
   doc.circle(sx(g.crossing.gap), sy(g.crossing.energy), 2.4).fill(COLORS.text);
   for (const a of g.arrows) {
     if (a.id === 'splitting') continue;
-    const color = a.id === 'activation' ? COLORS.teal : a.id === 'lambda' ? COLORS.product : COLORS.amber;
+    const color =
+      a.id === 'activation' ? COLORS.teal : a.id === 'lambda' ? COLORS.product : COLORS.amber;
     arrow(doc, sx(a.gap), sy(a.from), sy(a.to), a.label, color);
   }
   doc.restore();
   legend(doc, inner, [
     { label: 'Reactant diabat', color: COLORS.reactant },
     { label: 'Product diabat', color: COLORS.product },
-    { label: `Adiabatic (2|H_AB| = ${formatNumber(2 * Math.abs(coupling), 3)} eV)`, color: COLORS.charcoal, dash: true },
+    {
+      label: `Adiabatic (2|H_AB| = ${formatNumber(2 * Math.abs(coupling), 3)} eV)`,
+      color: COLORS.charcoal,
+      dash: true,
+    },
   ]);
   return true;
 }
@@ -170,15 +225,40 @@ export function drawDrivingForce(doc: Doc, frame: Frame, pair: ReportPairSnapsho
   });
   clipTo(doc, inner);
   const x0 = Math.max(sx(g.invertedFrom), inner.x);
-  doc.rect(x0, inner.y, inner.x + inner.width - x0, inner.height).fillOpacity(0.07).fill(COLORS.amber);
+  doc
+    .rect(x0, inner.y, inner.x + inner.width - x0, inner.height)
+    .fillOpacity(0.07)
+    .fill(COLORS.amber);
   doc.fillOpacity(1);
-  strokePath(doc, linePath(g.points.map((p) => ({ x: p.minusDeltaG0, y: p.marcus })), sx, sy), COLORS.teal, 1.5);
+  strokePath(
+    doc,
+    linePath(
+      g.points.map((p) => ({ x: p.minusDeltaG0, y: p.marcus })),
+      sx,
+      sy,
+    ),
+    COLORS.teal,
+    1.5,
+  );
   if (g.hasMlj) {
-    strokePath(doc, linePath(g.points.map((p) => ({ x: p.minusDeltaG0, y: p.mlj })), sx, sy), COLORS.amber, 1.5, 4);
+    strokePath(
+      doc,
+      linePath(
+        g.points.map((p) => ({ x: p.minusDeltaG0, y: p.mlj })),
+        sx,
+        sy,
+      ),
+      COLORS.amber,
+      1.5,
+      4,
+    );
   }
   if (g.pair) doc.circle(sx(g.pair.x), sy(g.pair.y), 3).fill(COLORS.text);
   doc.restore();
-  drawRich(doc, 'inverted', x0 + 3, inner.y + inner.height - 11, 60, { size: 7, color: COLORS.amber });
+  drawRich(doc, 'inverted', x0 + 3, inner.y + inner.height - 11, 60, {
+    size: 7,
+    color: COLORS.amber,
+  });
   legend(doc, inner, [
     { label: 'Classical Marcus', color: COLORS.teal },
     ...(g.hasMlj ? [{ label: 'MLJ', color: COLORS.amber, dash: true }] : []),
@@ -192,7 +272,11 @@ export function drawTemperature(doc: Doc, frame: Frame, pair: ReportPairSnapshot
   const parameters = pair.inputs
     .filter((i) => i.kind !== 'temperature')
     .map((i) => ({ kind: i.kind as ParameterKind, value: i.value }));
-  const request = pairRateRequest({ temperature: pair.temperatureK, model: pair.model, parameters });
+  const request = pairRateRequest({
+    temperature: pair.temperatureK,
+    model: pair.model,
+    parameters,
+  });
   if ('missing' in request) return false;
   const g = temperatureCurve(request, pair.temperatureK);
   if (g.points.every((p) => p.log10k === null)) return false;
@@ -202,11 +286,27 @@ export function drawTemperature(doc: Doc, frame: Frame, pair: ReportPairSnapshot
     y: 'log10 (k / s⁻¹)',
   });
   clipTo(doc, inner);
-  strokePath(doc, linePath(g.points.map((p) => ({ x: p.inverseT, y: p.log10k })), sx, sy), COLORS.teal, 1.5);
+  strokePath(
+    doc,
+    linePath(
+      g.points.map((p) => ({ x: p.inverseT, y: p.log10k })),
+      sx,
+      sy,
+    ),
+    COLORS.teal,
+    1.5,
+  );
   if (g.pair) doc.circle(sx(g.pair.x), sy(g.pair.y), 3).fill(COLORS.text);
   doc.restore();
-  const ea = g.apparentEa === null ? '' : `Apparent Eₐ = ${formatNumber(g.apparentEa, 3)} eV at ${formatNumber(pair.temperatureK, 5)} K`;
-  if (ea) drawRich(doc, ea, inner.x + 4, inner.y + inner.height - 12, inner.width - 8, { size: 7, color: COLORS.muted });
+  const ea =
+    g.apparentEa === null
+      ? ''
+      : `Apparent Eₐ = ${formatNumber(g.apparentEa, 3)} eV at ${formatNumber(pair.temperatureK, 5)} K`;
+  if (ea)
+    drawRich(doc, ea, inner.x + 4, inner.y + inner.height - 12, inner.width - 8, {
+      size: 7,
+      color: COLORS.muted,
+    });
   return true;
 }
 
@@ -215,13 +315,21 @@ export function drawPairPlots(cursor: Cursor, pair: ReportPairSnapshot): void {
   const doc = cursor.doc;
   const h1 = 215;
   cursor.need(h1);
-  const drewParabolas = drawParabolas(doc, { x: cursor.left, y: cursor.y, width: cursor.width, height: h1 }, pair);
+  const drewParabolas = drawParabolas(
+    doc,
+    { x: cursor.left, y: cursor.y, width: cursor.width, height: h1 },
+    pair,
+  );
   if (drewParabolas) cursor.y += h1 + 6;
   const h2 = 205;
   cursor.need(h2);
   const half = (cursor.width - 14) / 2;
   const a = drawDrivingForce(doc, { x: cursor.left, y: cursor.y, width: half, height: h2 }, pair);
-  const b = drawTemperature(doc, { x: cursor.left + half + 14, y: cursor.y, width: half, height: h2 }, pair);
+  const b = drawTemperature(
+    doc,
+    { x: cursor.left + half + 14, y: cursor.y, width: half, height: h2 },
+    pair,
+  );
   if (a || b) cursor.y += h2 + 4;
   if (!drewParabolas && !a && !b) {
     cursor.text('No plots: the pair lacks ΔG°, λ or |H_AB|.', { size: 9, color: COLORS.muted });
@@ -257,17 +365,37 @@ export function drawComparisonPlot(cursor: Cursor, pairs: readonly ReportPairSna
   ];
   const h = 240;
   cursor.need(h);
-  const { sx, sy, inner } = drawAxes(doc, { x: cursor.left, y: cursor.y, width: cursor.width, height: h }, xDomain, yDomain, {
-    title: 'Rate against driving force, all pairs (classical Marcus with each pair’s λ and |H_AB|)',
-    x: '−ΔG° (eV)',
-    y: 'log10 (k / s⁻¹)',
-  });
+  const { sx, sy, inner } = drawAxes(
+    doc,
+    { x: cursor.left, y: cursor.y, width: cursor.width, height: h },
+    xDomain,
+    yDomain,
+    {
+      title:
+        'Rate against driving force, all pairs (classical Marcus with each pair’s λ and |H_AB|)',
+      x: '−ΔG° (eV)',
+      y: 'log10 (k / s⁻¹)',
+    },
+  );
   clipTo(doc, inner);
   for (const c of curves) {
-    strokePath(doc, linePath(c.g.points.map((p) => ({ x: p.minusDeltaG0, y: p.marcus })), sx, sy), c.color, 1.2);
+    strokePath(
+      doc,
+      linePath(
+        c.g.points.map((p) => ({ x: p.minusDeltaG0, y: p.marcus })),
+        sx,
+        sy,
+      ),
+      c.color,
+      1.2,
+    );
     if (c.g.pair) doc.circle(sx(c.g.pair.x), sy(c.g.pair.y), 3).fill(c.color);
   }
   doc.restore();
-  legend(doc, inner, curves.slice(0, 8).map((c) => ({ label: c.pair.name, color: c.color })));
+  legend(
+    doc,
+    inner,
+    curves.slice(0, 8).map((c) => ({ label: c.pair.name, color: c.color })),
+  );
   cursor.y += h + 6;
 }

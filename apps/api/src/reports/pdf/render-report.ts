@@ -20,7 +20,14 @@ import { FONT_REGULAR, FONT_SEMIBOLD, reportFonts } from './fonts';
 import { COLORS, Cursor, PAGE, drawNote, drawTable, type Doc } from './page-layout';
 import { drawRich, measureRich } from './rich-text';
 import { drawPairPlots, drawComparisonPlot } from './plots';
-import { comparisonRow, hasUncertainties, inputRow, modelName, primaryResult, resultRow } from './report-text';
+import {
+  comparisonRow,
+  hasUncertainties,
+  inputRow,
+  modelName,
+  primaryResult,
+  resultRow,
+} from './report-text';
 
 const STATUS_COLORS: Record<ReportStatus, string> = {
   draft: COLORS.muted,
@@ -30,9 +37,13 @@ const STATUS_COLORS: Record<ReportStatus, string> = {
 };
 
 /** Renders the whole report; resolves with the PDF bytes. */
-export async function renderReportPdf(snapshot: ReportSnapshot, review: ReportReviewState): Promise<Buffer> {
+export async function renderReportPdf(
+  snapshot: ReportSnapshot,
+  review: ReportReviewState,
+): Promise<Buffer> {
   const fonts = reportFonts();
-  const lastChange = review.history.length > 0 ? review.history[review.history.length - 1].at : snapshot.createdAt;
+  const lastChange =
+    review.history.length > 0 ? review.history[review.history.length - 1].at : snapshot.createdAt;
   const doc: Doc = new PDFDocument({
     size: PAGE.size,
     margins: PAGE.margin,
@@ -69,7 +80,13 @@ export async function renderReportPdf(snapshot: ReportSnapshot, review: ReportRe
   drawMethods(cursor, snapshot);
   drawWarnings(cursor, snapshot);
   cursor.heading('Limits of this estimate', 40);
-  drawNote(cursor, 'Read this before relying on a number', snapshot.limitsNote, COLORS.amberLight, COLORS.amber);
+  drawNote(
+    cursor,
+    'Read this before relying on a number',
+    snapshot.limitsNote,
+    COLORS.amberLight,
+    COLORS.amber,
+  );
   drawReview(cursor, snapshot, review);
   drawFooters(doc, snapshot, review);
   doc.end();
@@ -79,15 +96,26 @@ export async function renderReportPdf(snapshot: ReportSnapshot, review: ReportRe
 function drawTitleBlock(cursor: Cursor, snapshot: ReportSnapshot, review: ReportReviewState): void {
   const doc = cursor.doc;
   const kindLine =
-    snapshot.kind === 'comparison' ? 'GAPWISE · COMPARISON REPORT' : 'GAPWISE · ELECTRON-TRANSFER RATE REPORT';
-  drawRich(doc, kindLine, cursor.left, cursor.y, cursor.width, { size: 8, bold: true, color: COLORS.teal });
+    snapshot.kind === 'comparison'
+      ? 'GAPWISE · COMPARISON REPORT'
+      : 'GAPWISE · ELECTRON-TRANSFER RATE REPORT';
+  drawRich(doc, kindLine, cursor.left, cursor.y, cursor.width, {
+    size: 8,
+    bold: true,
+    color: COLORS.teal,
+  });
   // Status badge, top right.
   const status = formatReportStatus(review.status).toUpperCase();
   doc.font(FONT_SEMIBOLD).fontSize(8.5);
   const badgeW = doc.widthOfString(status) + 16;
   const badgeX = cursor.left + cursor.width - badgeW;
   doc.roundedRect(badgeX, cursor.y - 3, badgeW, 17, 3).fill(STATUS_COLORS[review.status]);
-  drawRich(doc, status, badgeX, cursor.y + 0.5, badgeW, { size: 8.5, bold: true, color: '#ffffff', align: 'center' });
+  drawRich(doc, status, badgeX, cursor.y + 0.5, badgeW, {
+    size: 8.5,
+    bold: true,
+    color: '#ffffff',
+    align: 'center',
+  });
   cursor.y += 16;
   cursor.y += drawRich(doc, snapshot.title, cursor.left, cursor.y, cursor.width - badgeW - 10, {
     size: 18,
@@ -110,7 +138,10 @@ function drawTitleBlock(cursor: Cursor, snapshot: ReportSnapshot, review: Report
   meta.push(['Workspace', snapshot.workspace.name]);
   meta.push(['Author', snapshot.author.displayName]);
   meta.push(['Snapshot taken', formatReportDate(snapshot.createdAt)]);
-  meta.push(['Review status', `${formatReportStatus(review.status)} (revision ${review.revision})`]);
+  meta.push([
+    'Review status',
+    `${formatReportStatus(review.status)} (revision ${review.revision})`,
+  ]);
   meta.push(['Software', `Gapwise ${snapshot.softwareVersion}; constants ${snapshot.constants}`]);
   meta.push(['Snapshot id', review.snapshotId]);
   const labelW = 92;
@@ -218,13 +249,17 @@ function drawMethods(cursor: Cursor, snapshot: ReportSnapshot): void {
       cursor.text(line, { size: 9.5, color: COLORS.charcoal }, 12);
     }
     cursor.gap(2);
-    for (const ref of method.references) cursor.text(`• ${ref}`, { size: 8.5, color: COLORS.muted }, 12);
+    for (const ref of method.references)
+      cursor.text(`• ${ref}`, { size: 8.5, color: COLORS.muted }, 12);
     cursor.gap(4);
   }
-  cursor.text(`Physical constants: ${snapshot.constants}. Energies per molecule in eV; rates in s⁻¹.`, {
-    size: 8.5,
-    color: COLORS.muted,
-  });
+  cursor.text(
+    `Physical constants: ${snapshot.constants}. Energies per molecule in eV; rates in s⁻¹.`,
+    {
+      size: 8.5,
+      color: COLORS.muted,
+    },
+  );
 }
 
 function drawWarnings(cursor: Cursor, snapshot: ReportSnapshot): void {
@@ -239,7 +274,9 @@ function drawWarnings(cursor: Cursor, snapshot: ReportSnapshot): void {
     for (const r of perModel) {
       for (const w of r.warnings) {
         const key = `${w.code}:${w.message}`;
-        const models = perModel.filter((m) => m.warnings.some((x) => x.code === w.code)).map((m) => modelName(m.model));
+        const models = perModel
+          .filter((m) => m.warnings.some((x) => x.code === w.code))
+          .map((m) => modelName(m.model));
         if (seen.has(key)) continue;
         seen.add(key);
         cursor.text(`⚠ ${w.message} (${models.join(', ')})`, { size: 9, color: COLORS.amber }, 0);
@@ -273,7 +310,9 @@ function drawReview(cursor: Cursor, snapshot: ReportSnapshot, review: ReportRevi
       review.history.map((t) => [
         formatReportDate(t.at),
         t.by.displayName,
-        t.from ? `${formatReportStatus(t.from)} → ${formatReportStatus(t.to)}` : `Created as ${formatReportStatus(t.to)}`,
+        t.from
+          ? `${formatReportStatus(t.from)} → ${formatReportStatus(t.to)}`
+          : `Created as ${formatReportStatus(t.to)}`,
         t.note ?? '',
       ]),
     );
@@ -295,7 +334,11 @@ function drawReview(cursor: Cursor, snapshot: ReportSnapshot, review: ReportRevi
       const anchor = c.anchor ? ` · on ${labels.get(c.anchor) ?? c.anchor}` : '';
       const indent = Math.min(depth, 4) * 16;
       cursor.need(30);
-      cursor.text(`${c.author.displayName} · ${formatReportDate(c.createdAt)}${anchor}`, { size: 8.5, bold: true, color: COLORS.muted }, indent);
+      cursor.text(
+        `${c.author.displayName} · ${formatReportDate(c.createdAt)}${anchor}`,
+        { size: 8.5, bold: true, color: COLORS.muted },
+        indent,
+      );
       cursor.text(c.body, { size: 9 }, indent);
       cursor.gap(5);
       walk(c.id, depth + 1);
@@ -311,13 +354,28 @@ function drawFooters(doc: Doc, snapshot: ReportSnapshot, review: ReportReviewSta
     const bottom = doc.page.height - 38;
     const left = doc.page.margins.left;
     const width = doc.page.width - left - doc.page.margins.right;
-    doc.moveTo(left, bottom - 6).lineTo(left + width, bottom - 6).lineWidth(0.4).strokeColor(COLORS.rule).stroke();
-    drawRich(doc, `Snapshot ${review.snapshotId}`, left, bottom, width * 0.75, { size: 7, color: COLORS.muted });
-    drawRich(doc, `Page ${i - range.start + 1} of ${range.count}`, left + width * 0.75, bottom, width * 0.25, {
+    doc
+      .moveTo(left, bottom - 6)
+      .lineTo(left + width, bottom - 6)
+      .lineWidth(0.4)
+      .strokeColor(COLORS.rule)
+      .stroke();
+    drawRich(doc, `Snapshot ${review.snapshotId}`, left, bottom, width * 0.75, {
       size: 7,
       color: COLORS.muted,
-      align: 'right',
     });
+    drawRich(
+      doc,
+      `Page ${i - range.start + 1} of ${range.count}`,
+      left + width * 0.75,
+      bottom,
+      width * 0.25,
+      {
+        size: 7,
+        color: COLORS.muted,
+        align: 'right',
+      },
+    );
     drawRich(
       doc,
       `Gapwise ${snapshot.softwareVersion} · ${formatReportStatus(review.status)} · model estimate, not a measurement`,

@@ -39,7 +39,13 @@ export function uncertaintyText(input: ReportInput): string {
 
 /** Row of the inputs table: parameter, as typed, canonical, uncertainty, provenance. */
 export function inputRow(input: ReportInput): string[] {
-  return [input.label, typedText(input), canonicalText(input), uncertaintyText(input), provenanceText(input.provenance)];
+  return [
+    input.label,
+    typedText(input),
+    canonicalText(input),
+    uncertaintyText(input),
+    provenanceText(input.provenance),
+  ];
 }
 
 export { intervalText };

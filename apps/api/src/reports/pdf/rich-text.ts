@@ -65,7 +65,11 @@ export function layoutRuns(doc: Doc, runs: readonly Run[], width: number, size: 
     for (const part of run.text.split(/(\s)/)) {
       if (part === '') continue;
       if (part === '\n') tokens.push('newline');
-      else tokens.push({ run: { ...run, text: part }, width: runWidth(doc, { ...run, text: part }, size) });
+      else
+        tokens.push({
+          run: { ...run, text: part },
+          width: runWidth(doc, { ...run, text: part }, size),
+        });
     }
   }
   const lines: Line[] = [];
@@ -108,7 +112,10 @@ export function layoutRuns(doc: Doc, runs: readonly Run[], width: number, size: 
       // Split an over-long word (a hash, a URL) character by character.
       for (const piece of word) {
         for (const ch of Array.from(piece.run.text)) {
-          const p = { run: { ...piece.run, text: ch }, width: runWidth(doc, { ...piece.run, text: ch }, size) };
+          const p = {
+            run: { ...piece.run, text: ch },
+            width: runWidth(doc, { ...piece.run, text: ch }, size),
+          };
           if (used + p.width > width && line.length > 0) flush();
           line.push(p);
           used += p.width;
@@ -131,7 +138,14 @@ export function measureRich(doc: Doc, text: string, width: number, style: TextSt
 }
 
 /** Draws `text` wrapped to `width` from (x, y); returns the height used. */
-export function drawRich(doc: Doc, text: string, x: number, y: number, width: number, style: TextStyle): number {
+export function drawRich(
+  doc: Doc,
+  text: string,
+  x: number,
+  y: number,
+  width: number,
+  style: TextStyle,
+): number {
   const size = style.size;
   const lineHeight = size * (style.leading ?? 1.3);
   const lines = layoutRuns(doc, parseRuns(text, style.bold), width, size);
