@@ -9,7 +9,7 @@ async function ruleHits(code: string, filePath: string): Promise<string[]> {
   return result.messages.filter((m) => m.ruleId === 'no-restricted-imports').map((m) => m.message);
 }
 
-describe('dependency rules', () => {
+describe('dependency rules', { timeout: 120_000 }, () => {
   it('refuse a framework import in libs/calc', async () => {
     expect(await ruleHits("import { Component } from '@angular/core';\nexport const x = Component;\n", 'libs/calc/src/rates/bad.ts')).toHaveLength(1);
     expect(await ruleHits("import express from 'express';\nexport const x = express;\n", 'libs/calc/src/rates/bad.ts')).toHaveLength(1);
