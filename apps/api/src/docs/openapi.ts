@@ -2,6 +2,7 @@ import { PAIR_STATUSES, PARAMETER_KINDS, PROVENANCE_KINDS, RATE_MODELS, ROLES } 
 import { ROUTE_DOCS } from './route-docs';
 import { REPORT_SCHEMAS } from '../reports/report-route-docs';
 import { TRACE_SCHEMAS } from '../traces/trace-route-docs';
+import { SCREEN_SCHEMAS } from '../screens/screen-route-docs';
 
 type Schema = Record<string, unknown>;
 const str = { type: 'string' };
@@ -112,6 +113,7 @@ const SCHEMAS: Record<string, Schema> = {
   CreatedApiToken: obj({ id: str, name: str, prefix: str, createdAt: str, lastUsedAt: nullable(str), revokedAt: nullable(str), token: str }),
   ...REPORT_SCHEMAS,
   ...TRACE_SCHEMAS,
+  ...SCREEN_SCHEMAS,
 };
 
 const ERROR_TEXT: Record<number, string> = {

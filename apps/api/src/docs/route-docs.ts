@@ -1,5 +1,6 @@
 import { REPORT_ROUTE_DOCS } from '../reports/report-route-docs';
 import { TRACE_ROUTE_DOCS } from '../traces/trace-route-docs';
+import { SCREEN_ROUTE_DOCS } from '../screens/screen-route-docs';
 /** One documented route; `path` is written as Express mounts it (under /api). */
 export interface RouteDoc {
   readonly method: 'get' | 'post' | 'put' | 'patch' | 'delete';
@@ -89,4 +90,5 @@ export const ROUTE_DOCS: readonly RouteDoc[] = [
   { method: 'delete', path: '/tokens/:id', tag: 'tokens', summary: 'Revoke one of my API tokens', access: 'signed in (own tokens only)', auth: true, status: 204 },
   ...REPORT_ROUTE_DOCS,
   ...TRACE_ROUTE_DOCS,
+  ...SCREEN_ROUTE_DOCS,
 ];
