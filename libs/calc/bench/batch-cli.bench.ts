@@ -7,7 +7,7 @@ import { spawn } from 'node:child_process';
 import { createReadStream, existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 
 const BIN = fileURLToPath(new URL('../../../apps/cli/bin/gapwise.js', import.meta.url));
 const GNU_TIME = '/usr/bin/time';
@@ -153,4 +153,10 @@ export async function runBatchCliBench(lines = BATCH_LINES): Promise<BatchFigure
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }
+}
+
+// Run directly (`npm run bench` runs every *.bench.ts): print the figure.
+if (process.argv[1] !== undefined && import.meta.url === pathToFileURL(process.argv[1]).href) {
+  const { batchSummary } = await import('./bench-report');
+  console.log(batchSummary(await runBatchCliBench()));
 }

@@ -7,6 +7,9 @@ import { BOLTZMANN_EV_PER_K } from '../core/constants';
 import { LN_TWO_PI_OVER_HBAR } from './marcus/marcus';
 import { MLJ_MAX_TERMS, MLJ_RELATIVE_TOLERANCE, mljMinimumTerms } from './mlj/mlj';
 
+/** Terms whose Poisson step ln S − ln n is tabulated per call (covers S and n* up to ~250). */
+const LN_STEP_TABLE_SIZE = 256;
+
 function checkLengths(out: Float64Array, deltaG0Ev: Float64Array): void {
   if (out.length < deltaG0Ev.length) {
     throw new RangeError(`out has ${out.length} slots for ${deltaG0Ev.length} driving forces.`);
@@ -62,6 +65,9 @@ export function mljLog10kInto(
     LN_TWO_PI_OVER_HBAR + 2 * Math.log(Math.abs(couplingEv)) - 0.5 * Math.log(Math.PI * widthEv);
   const huangRhys = lambdaVibEv / hbarOmegaEv;
   const lnS = Math.log(huangRhys);
+  // ln S − ln n for the first terms, computed once per call instead of once per term and pair.
+  const poissonSteps = new Float64Array(LN_STEP_TABLE_SIZE);
+  for (let n = 1; n < LN_STEP_TABLE_SIZE; n++) poissonSteps[n] = lnS - Math.log(n);
   for (let i = 0; i < deltaG0Ev.length; i++) {
     const offsetEv = deltaG0Ev[i] + lambdaSolventEv;
     if (huangRhys === 0) {
@@ -75,7 +81,7 @@ export function mljLog10kInto(
     let sumRelative = 0;
     let n = 0;
     for (; n < MLJ_MAX_TERMS; n++) {
-      if (n > 0) lnPoisson += lnS - Math.log(n);
+      if (n > 0) lnPoisson += n < LN_STEP_TABLE_SIZE ? poissonSteps[n] : lnS - Math.log(n);
       const energyEv = offsetEv + n * hbarOmegaEv;
       const lnTerm = lnPoisson - energyEv * energyEv * inverseWidth;
       let relative: number;
