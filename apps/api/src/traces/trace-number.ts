@@ -14,7 +14,7 @@
  * doi:10.1145/93542.93557.
  */
 
-const EXACT_POWERS_OF_TEN: readonly number[] = Array.from({ length: 23 }, (_, k) => 10 ** k);
+const EXACT_POWERS_OF_TEN = Float64Array.from({ length: 23 }, (_, k) => 10 ** k);
 
 /** Sentinel returned for text that does not follow the grammar. */
 export const NOT_A_NUMBER = Symbol('not-a-number');
@@ -102,6 +102,86 @@ export function readStrictNumber(buf: Uint8Array, start: number, end: number): n
     return negative ? -magnitude : magnitude;
   }
   return Number(latin1(buf, start, end));
+}
+
+/** Status codes of `parseStrictInto`. */
+export const PARSED = 0;
+export const NOT_NUMBER = 1;
+
+/**
+ * Same as `readStrictNumber`, for hot loops: writes the value to `out[0]` and returns `PARSED`
+ * or `NOT_NUMBER` — a small integer, so no number object is allocated per call.
+ */
+export function parseStrictInto(buf: Uint8Array, start: number, end: number, out: Float64Array): number {
+  let i = start;
+  if (i >= end) return NOT_NUMBER;
+  let negative = false;
+  let c = buf[i];
+  if (c === PLUS || c === MINUS) {
+    negative = c === MINUS;
+    i++;
+  }
+  let significand = 0;
+  let significantDigits = 0;
+  let decimalExponent = 0;
+  let digits = 0;
+  while (i < end) {
+    c = buf[i];
+    if (c < ZERO || c > NINE) break;
+    if (significand !== 0 || c !== ZERO) {
+      significand = significand * 10 + (c - ZERO);
+      significantDigits++;
+    }
+    digits++;
+    i++;
+  }
+  if (i < end && buf[i] === DOT) {
+    i++;
+    while (i < end) {
+      c = buf[i];
+      if (c < ZERO || c > NINE) break;
+      if (significand !== 0 || c !== ZERO) {
+        significand = significand * 10 + (c - ZERO);
+        significantDigits++;
+      }
+      decimalExponent--;
+      digits++;
+      i++;
+    }
+  }
+  if (digits === 0) return NOT_NUMBER;
+  if (i < end && (buf[i] === LOWER_E || buf[i] === UPPER_E)) {
+    i++;
+    let exponentNegative = false;
+    if (i < end && (buf[i] === PLUS || buf[i] === MINUS)) {
+      exponentNegative = buf[i] === MINUS;
+      i++;
+    }
+    let exponent = 0;
+    let exponentDigits = 0;
+    while (i < end) {
+      c = buf[i];
+      if (c < ZERO || c > NINE) break;
+      if (exponent < 1e6) exponent = exponent * 10 + (c - ZERO);
+      exponentDigits++;
+      i++;
+    }
+    if (exponentDigits === 0) return NOT_NUMBER;
+    decimalExponent += exponentNegative ? -exponent : exponent;
+  }
+  if (i !== end) return NOT_NUMBER;
+  if (significand === 0) {
+    out[0] = negative ? -0 : 0;
+  } else if (significantDigits <= 15 && decimalExponent >= -22 && decimalExponent <= 22) {
+    const magnitude =
+      decimalExponent >= 0
+        ? significand * EXACT_POWERS_OF_TEN[decimalExponent]
+        : significand / EXACT_POWERS_OF_TEN[-decimalExponent];
+    out[0] = negative ? -magnitude : magnitude;
+  } else {
+    out[0] = Number(latin1(buf, start, end));
+  }
+  return PARSED;
 }
 
 /** Text of bytes [start, end) read as Latin-1 (for messages and the slow path). */

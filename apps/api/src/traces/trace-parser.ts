@@ -13,7 +13,7 @@
  */
 import { toCanonical } from '@gapwise/calc';
 import { TRACE_FILE_UNITS, type TraceFileUnit } from '@gapwise/contracts';
-import { NOT_A_NUMBER, isNonFiniteWord, latin1, readStrictNumber } from './trace-number';
+import { NOT_A_NUMBER, PARSED, isNonFiniteWord, latin1, parseStrictInto, readStrictNumber } from './trace-number';
 
 export const TRACE_UNITS = TRACE_FILE_UNITS;
 export type TraceUnit = TraceFileUnit;
@@ -96,6 +96,7 @@ export class TraceLineParser {
   private batchLength = 0;
   private readonly fieldStart = new Int32Array(MAX_FIELDS);
   private readonly fieldEnd = new Int32Array(MAX_FIELDS);
+  private readonly slot = new Float64Array(1);
 
   constructor(
     private readonly settings: TraceParseSettings,
@@ -222,6 +223,7 @@ export class TraceLineParser {
       this.bad(lineNo, `Line ${lineNo}: expected ${this.columnCount} column${this.columnCount === 1 ? '' : 's'}${this.describeColumns()}, found ${count}.`);
       return;
     }
+    const slot = this.slot;
     let value = 0;
     for (let f = 0; f < count; f++) {
       const s = this.fieldStart[f];
@@ -230,8 +232,7 @@ export class TraceLineParser {
         this.bad(lineNo, `Line ${lineNo}: empty value in column ${f + 1}.`);
         return;
       }
-      const v = readStrictNumber(buf, s, e);
-      if (v === NOT_A_NUMBER) {
+      if (parseStrictInto(buf, s, e, slot) !== PARSED) {
         if (this.isHeaderRepeat(buf, count)) {
           this.bad(lineNo, `Line ${lineNo}: a second header row in the middle of the data.`);
           return;
@@ -241,17 +242,16 @@ export class TraceLineParser {
         else this.bad(lineNo, `Line ${lineNo}: '${text}' is not a number.`);
         return;
       }
+      const v = slot[0];
       if (v === Infinity || v === -Infinity) {
         this.bad(lineNo, `Line ${lineNo}: non-finite value.`);
         return;
       }
       if (f === this.column) value = v;
     }
-    this.accept(value * this.scale);
-  }
-
-  private accept(ev: number): void {
+    // Accept (inlined: a double passed to a call may be boxed).
     if (this.badCount > 0 && !this.skip) return; // refused anyway: keep scanning for bad lines only
+    const ev = value * this.scale;
     this.sampleCount++;
     this.sum += ev;
     if (ev < this.min) this.min = ev;
@@ -281,8 +281,6 @@ export class TraceLineParser {
    * field count. Fields are trimmed of blanks and of one pair of surrounding double quotes.
    */
   private splitFields(buf: Uint8Array, start: number, end: number): number {
-    const starts = this.fieldStart;
-    const ends = this.fieldEnd;
     let count = 0;
     if (this.delimiter === 'whitespace') {
       let p = start;
@@ -291,37 +289,35 @@ export class TraceLineParser {
         if (p === end) break;
         const s = p;
         while (p < end && buf[p] !== SPACE && buf[p] !== TAB) p++;
-        if (count < MAX_FIELDS) {
-          starts[count] = s;
-          ends[count] = p;
-        }
+        if (count < MAX_FIELDS) this.setField(buf, count, s, p);
         count++;
       }
-    } else {
-      const sep = this.delimiter === 'comma' ? COMMA : TAB;
-      let s = start;
-      for (let p = start; p <= end; p++) {
-        if (p === end || buf[p] === sep) {
-          let a = s;
-          let b = p;
-          while (a < b && (buf[a] === SPACE || buf[a] === TAB)) a++;
-          while (b > a && (buf[b - 1] === SPACE || buf[b - 1] === TAB)) b--;
-          if (count < MAX_FIELDS) {
-            starts[count] = a;
-            ends[count] = b;
-          }
-          count++;
-          s = p + 1;
-        }
+      return count;
+    }
+    const sep = this.delimiter === 'comma' ? COMMA : TAB;
+    let s = start;
+    for (let p = start; p < end; p++) {
+      if (buf[p] === sep) {
+        if (count < MAX_FIELDS) this.setField(buf, count, s, p);
+        count++;
+        s = p + 1;
       }
     }
-    for (let f = 0; f < Math.min(count, MAX_FIELDS); f++) {
-      if (ends[f] - starts[f] >= 2 && buf[starts[f]] === QUOTE && buf[ends[f] - 1] === QUOTE) {
-        starts[f]++;
-        ends[f]--;
-      }
-    }
+    if (count < MAX_FIELDS) this.setField(buf, count, s, end);
+    count++;
     return count;
+  }
+
+  /** Records field `f` as bytes [a, b), trimmed of blanks and of one pair of double quotes. */
+  private setField(buf: Uint8Array, f: number, a: number, b: number): void {
+    while (a < b && (buf[a] === SPACE || buf[a] === TAB)) a++;
+    while (b > a && (buf[b - 1] === SPACE || buf[b - 1] === TAB)) b--;
+    if (b - a >= 2 && buf[a] === QUOTE && buf[b - 1] === QUOTE) {
+      a++;
+      b--;
+    }
+    this.fieldStart[f] = a;
+    this.fieldEnd[f] = b;
   }
 
   private isHeaderRepeat(buf: Uint8Array, count: number): boolean {
