@@ -33,7 +33,7 @@ import {
   type ParameterKind,
 } from '@gapwise/contracts';
 import type { DrivingForceInputs } from '@gapwise/plots';
-import { animationFrameScheduler, debounceTime, map, startWith, switchMap } from 'rxjs';
+import { debounceTime, map, startWith, switchMap } from 'rxjs';
 import { apiErrorOf } from '../../session/api-errors';
 import { WorkspaceContext } from '../../workspaces/workspace-context';
 import { DrivingForcePlot } from '../../plots/driving-force-plot/driving-force-plot';
@@ -166,7 +166,7 @@ export class PairEditor implements HoldsUnsavedChanges {
   protected readonly readOnly = computed(() => !this.workspace.canEdit());
   protected readonly isNew = computed(() => !this.pairId());
 
-  /** Every edit, coalesced to one recomputation per animation frame. */
+  /** Every edit; a burst within one task (paste, derivation) gives one recomputation. */
   private readonly edits = toSignal(
     toObservable(this.form).pipe(
       switchMap((f) =>
@@ -175,7 +175,7 @@ export class PairEditor implements HoldsUnsavedChanges {
           map(() => f),
         ),
       ),
-      debounceTime(0, animationFrameScheduler),
+      debounceTime(0),
       map((f) => ({
         form: f,
         source: rateSourceOf(f),

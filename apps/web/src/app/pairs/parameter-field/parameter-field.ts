@@ -33,9 +33,9 @@ export interface DerivationChoice {
 
 const PROVENANCE_WORDS: Record<string, string> = {
   measured: 'Measured',
-  computed: 'Computed (quantum chemistry, simulation)',
-  literature: 'Literature (give the citation)',
-  derived: 'Derived by a Gapwise method',
+  computed: 'Computed',
+  literature: 'Literature',
+  derived: 'Derived',
   assumed: 'Assumed',
 };
 

@@ -1,4 +1,4 @@
-import { calculate, type CalcRequest } from '@gapwise/calc';
+import { calculate, findMethod, type CalcRequest } from '@gapwise/calc';
 import {
   pairRateRequest,
   type PairParameter,
@@ -84,6 +84,12 @@ export function monteCarloLog10k(
   for (const p of parameters)
     if (p.uncertainty && p.uncertainty > 0) sigmas[p.kind] = p.uncertainty;
   if (Object.keys(sigmas).length === 0) return { status: 'none' };
+  if (!findMethod('uncertainty.monteCarlo')) {
+    return {
+      status: 'refused',
+      message: 'Monte Carlo propagation is not available in this build.',
+    };
+  }
   const request = pairRateRequest(source);
   if ('missing' in request) return { status: 'none' };
   const inner = withSigmas(request, sigmas);

@@ -83,12 +83,15 @@ export class ResultsPanel {
     const t = this.temperature();
     const h = Math.abs(this.coupling() ?? 0);
     const adiabaticHint = r.warnings.some((w) => /coupling-large|barrier-lowering/.test(w.code));
+    const strong = !!t && h > BOLTZMANN_EV_PER_K * t;
     const electronic =
-      t && h > BOLTZMANN_EV_PER_K * t
-        ? 'Adiabatic side: |H_AB| exceeds k_BT, so the golden-rule rate overestimates.'
-        : adiabaticHint
-          ? 'Near the adiabatic limit: see the warnings.'
-          : 'Nonadiabatic: |H_AB| is well below k_BT.';
+      strong && r.model === 'crossover'
+        ? 'Adiabatic side (|H_AB| > k_BT): the crossover model includes the solvent-controlled limit.'
+        : strong
+          ? 'Adiabatic side: |H_AB| exceeds k_BT, so the golden-rule rate overestimates.'
+          : adiabaticHint
+            ? 'Near the adiabatic limit: see the warnings.'
+            : 'Nonadiabatic: |H_AB| is well below k_BT.';
     return { nuclearCode: r.regime, nuclear, electronic };
   });
 

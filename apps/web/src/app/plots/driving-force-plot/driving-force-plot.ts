@@ -61,6 +61,8 @@ const MARGIN = { top: 16, right: 24, bottom: 48, left: 62 };
 export class DrivingForcePlot {
   readonly inputs = input.required<DrivingForceInputs | null>();
   readonly filename = input('gapwise-rate-vs-driving-force');
+  /** Name of the pair's own rate model, for the marker's label. */
+  readonly model = input('');
   readonly redrawn = output<void>();
 
   private readonly svgRef = viewChild.required<ElementRef<SVGSVGElement>>('svg');
@@ -172,7 +174,7 @@ export class DrivingForcePlot {
         .attr('y', py - 8)
         .attr('font-weight', 600)
         .attr('fill', '#1f2b2b')
-        .text(`this pair: ${formatFixed(g.pair.y, 2)}`);
+        .text(`this pair${this.model() ? ` (${this.model()})` : ''}: ${formatFixed(g.pair.y, 2)}`);
     }
     attachHover(f, (xv) => {
       let best = g.points[0];

@@ -146,52 +146,52 @@ export class ParabolaPlot {
     labelAt(rEdge.gap, rEdge.reactant, 'reactant (D–A) ——', '#2f6fb3', 'start').attr('dx', 6);
     labelAt(pEdge.gap, pEdge.product, '— · product (D⁺–A⁻)', '#c0581b', 'end').attr('dx', -6);
 
-    // Labelled arrows: ΔG°, λ, ΔG‡, and the 2|H_AB| splitting.
+    // Labelled arrows: ΔG°, λ, ΔG‡, and the 2|H_AB| splitting. Short arrows get their label
+    // beside the tip (ΔG‡ above on the left, 2|H_AB| below on the right) so labels never meet.
     const arrow = (
       gap: number,
       from: number,
       to: number,
       label: string,
-      dx: number,
+      side: 'left' | 'right',
       accent = false,
     ) => {
-      if (Math.abs(y(from) - y(to)) < 2) {
+      const length = Math.abs(y(from) - y(to));
+      if (length >= 2) {
         overlay
-          .append('text')
-          .attr('x', x(gap) + dx)
-          .attr('y', y(to) - 4)
-          .attr('font-size', 12)
-          .text(label);
-        return;
+          .append('line')
+          .attr('x1', x(gap))
+          .attr('x2', x(gap))
+          .attr('y1', y(from))
+          .attr('y2', y(to))
+          .attr('stroke', accent ? '#9a6400' : '#1f2b2b')
+          .attr('stroke-width', 1.4)
+          .attr('marker-end', `url(#parabola-${accent ? 'arrow-accent' : 'arrow'})`);
       }
-      overlay
-        .append('line')
-        .attr('x1', x(gap))
-        .attr('x2', x(gap))
-        .attr('y1', y(from))
-        .attr('y2', y(to))
-        .attr('stroke', accent ? '#9a6400' : '#1f2b2b')
-        .attr('stroke-width', 1.4)
-        .attr('marker-end', `url(#parabola-${accent ? 'arrow-accent' : 'arrow'})`);
+      const short = length < 28;
+      const top = Math.min(y(from), y(to));
+      const bottom = Math.max(y(from), y(to));
+      const ly = !short ? (top + bottom) / 2 + 4 : side === 'left' ? top - 8 : bottom + 14;
       overlay
         .append('text')
-        .attr('x', x(gap) + dx)
-        .attr('y', (y(from) + y(to)) / 2 + 4)
-        .attr('text-anchor', dx < 0 ? 'end' : 'start')
+        .attr('class', 'arrow-label')
+        .attr('x', x(gap) + (side === 'left' ? -6 : 6))
+        .attr('y', ly)
+        .attr('text-anchor', side === 'left' ? 'end' : 'start')
         .attr('font-size', 12)
         .attr('font-weight', 600)
         .attr('fill', accent ? '#7a4f00' : '#1f2b2b')
         .text(label);
     };
+    const nudge = (g.gapDomain[1] - g.gapDomain[0]) * 0.035;
     for (const a of g.arrows) {
       const value = `${a.label} = ${fmt(a.to - a.from)} eV`;
       if (a.id === 'splitting') {
-        if (adiabatic)
-          arrow(a.gap + (g.gapDomain[1] - g.gapDomain[0]) * 0.035, a.from, a.to, value, 6, true);
+        if (adiabatic) arrow(a.gap + nudge, a.from, a.to, value, 'right', true);
       } else if (a.id === 'activation') {
-        arrow(a.gap, a.from, a.to, value, -6);
+        arrow(a.gap, a.from, a.to, value, 'left');
       } else {
-        arrow(a.gap, a.from, a.to, value, 6);
+        arrow(a.gap, a.from, a.to, value, 'right');
       }
     }
     overlay

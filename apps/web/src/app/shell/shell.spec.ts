@@ -1,0 +1,47 @@
+import { signal } from '@angular/core';
+import { TestBed } from '@angular/core/testing';
+import { provideRouter } from '@angular/router';
+import { Session } from '../session/session';
+import { WorkspaceContext } from '../workspaces/workspace-context';
+import { Shell } from './shell';
+
+describe('Shell', () => {
+  it('renders the product name, the workspace, its sections and the user', async () => {
+    TestBed.configureTestingModule({
+      providers: [
+        provideRouter([]),
+        {
+          provide: Session,
+          useValue: {
+            user: signal({ id: 'u1', email: 'editor@gapwise.test', displayName: 'Ada Editor' }),
+          },
+        },
+        {
+          provide: WorkspaceContext,
+          useValue: {
+            workspaceId: signal('w1'),
+            workspaces: signal([
+              { workspaceId: 'w1', workspaceName: 'Photoredox Lab', role: 'editor' },
+            ]),
+            current: signal({ workspaceId: 'w1', workspaceName: 'Photoredox Lab', role: 'editor' }),
+            role: signal('editor'),
+          },
+        },
+      ],
+    });
+    const fixture = TestBed.createComponent(Shell);
+    fixture.detectChanges();
+    await fixture.whenStable();
+    const el: HTMLElement = fixture.nativeElement;
+    expect(el.querySelector('.brand')?.textContent).toContain('Gapwise');
+    expect(el.querySelector('.workspace-name')?.textContent).toContain('Photoredox Lab');
+    const nav = Array.from(el.querySelectorAll('nav.sections a')).map((a) => [
+      a.textContent?.trim(),
+      a.getAttribute('href'),
+    ]);
+    expect(nav).toContainEqual(['Pairs', '/w/w1/pairs']);
+    expect(nav).toContainEqual(['Members', '/w/w1/members']);
+    expect(el.querySelector('.user-name')?.textContent).toContain('Ada Editor');
+    expect(el.querySelector('main#gw-main')).not.toBeNull();
+  });
+});
