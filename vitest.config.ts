@@ -19,6 +19,8 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: 'calc',
+          // Generous: CI shares 2 cores with the other suites' servers.
+          testTimeout: 30_000,
           include: ['libs/**/*.spec.ts', 'apps/cli/**/*.spec.ts', 'test/lint/**/*.spec.ts'],
           environment: 'node',
         },

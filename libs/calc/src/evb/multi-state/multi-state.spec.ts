@@ -1,4 +1,5 @@
 import fc from 'fast-check';
+import { eigs } from 'mathjs';
 import { describe, expect, it } from 'vitest';
 import { computeOk, computeRefused } from '../../core/testing/answers';
 
@@ -18,6 +19,19 @@ function energiesOf(hamiltonian: number[][]) {
 }
 
 describe('evb.multiState', () => {
+  it('agrees with mathjs eigs (Jacobi rotations, an independent general-purpose solver)', () => {
+    // A 4-state donor–bridge–bridge–acceptor Hamiltonian (eV); values invented for the check.
+    const hamiltonian = [
+      [0.0, 0.05, 0.0, 0.0],
+      [0.05, 0.8, 0.12, 0.0],
+      [0.0, 0.12, 0.75, 0.04],
+      [0.0, 0.0, 0.04, -0.1],
+    ];
+    const reference = (eigs(hamiltonian).values as number[]).map(Number).sort((x, y) => x - y);
+    const { energies } = energiesOf(hamiltonian);
+    energies.forEach((energy, k) => expect(energy).toBeCloseTo(reference[k], 12));
+  });
+
   it('gives a + 2b cos(kπ/(n + 1)) for a tridiagonal Toeplitz chain (exact, e.g. Golub & Van Loan)', () => {
     const [n, a, b] = [6, 0.3, -0.05];
     const exact = Array.from(

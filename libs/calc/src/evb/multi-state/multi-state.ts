@@ -1,7 +1,7 @@
 /**
  * `evb.multiState`: adiabatic states of a multi-state diabatic Hamiltonian.
  */
-import { eigs } from 'mathjs';
+import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import type { MethodDefinition } from '../../core/method';
 import { MAX_ENERGY_EV } from '../../rates/rate-inputs';
 
@@ -29,10 +29,13 @@ function normaliseVector(vector: readonly number[]): number[] {
 }
 
 /**
- * Eigenvalues and eigenvectors of a real symmetric Hamiltonian by mathjs `eigs` (Jacobi
- * rotations for real symmetric input; C. G. J. Jacobi, J. Reine Angew. Math. 1846, 30, 51; G. H.
- * Golub, C. F. Van Loan, Matrix Computations, 4th ed., Johns Hopkins 2013, §8.5), sorted
- * ascending, with a deterministic sign for each vector.
+ * Eigenvalues and eigenvectors of a real symmetric Hamiltonian by ml-matrix's
+ * `EigenvalueDecomposition` (Householder tridiagonalisation and the symmetric QL algorithm, the
+ * JAMA port of EISPACK tred2/tql2; G. H. Golub, C. F. Van Loan, Matrix Computations, 4th ed.,
+ * Johns Hopkins 2013, §8.3), sorted ascending, with a deterministic sign for each vector.
+ * ml-matrix is used rather than mathjs because loading mathjs costs seconds at every start of the
+ * command line and a worker; the specs check the result against mathjs `eigs` (Jacobi rotations)
+ * as an independent reference.
  */
 export function symmetricEigensystem(hamiltonianEv: readonly (readonly number[])[]): Eigensystem {
   const n = hamiltonianEv.length;
@@ -41,14 +44,10 @@ export function symmetricEigensystem(hamiltonianEv: readonly (readonly number[])
   const matrix = hamiltonianEv.map((row, i) =>
     row.map((value, j) => 0.5 * (value + hamiltonianEv[j][i])),
   );
-  const result = eigs(matrix) as unknown as {
-    eigenvectors: { value: number; vector: number[] }[];
-  };
-  const pairs = result.eigenvectors
-    .map(({ value, vector }) => ({
-      value: Number(value),
-      vector: normaliseVector(vector.map(Number)),
-    }))
+  const decomposition = new EigenvalueDecomposition(new Matrix(matrix), { assumeSymmetric: true });
+  const columns = decomposition.eigenvectorMatrix.transpose().to2DArray();
+  const pairs = decomposition.realEigenvalues
+    .map((value, k) => ({ value, vector: normaliseVector(columns[k]) }))
     .sort((a, b) => a.value - b.value);
   return { energies: pairs.map((p) => p.value), vectors: pairs.map((p) => p.vector) };
 }
@@ -61,9 +60,8 @@ export const multiStateMethod: MethodDefinition<MultiStateInputs> = {
   id: 'evb.multiState',
   summary: 'Adiabatic energies and states of a symmetric multi-state diabatic Hamiltonian.',
   references: [
-    'C. G. J. Jacobi, J. Reine Angew. Math. 1846, 30, 51 (Jacobi eigenvalue method)',
-    'G. H. Golub, C. F. Van Loan, Matrix Computations, 4th ed., Johns Hopkins University Press 2013, §8.5',
-    'mathjs eigs (real symmetric case), https://mathjs.org/docs/reference/functions/eigs.html',
+    'G. H. Golub, C. F. Van Loan, Matrix Computations, 4th ed., Johns Hopkins University Press 2013, §8.3 (symmetric QR/QL)',
+    'J. H. Wilkinson, C. Reinsch, Handbook for Automatic Computation II: Linear Algebra, Springer 1971 (tred2/tql2)',
   ],
   inputs: [
     {
