@@ -64,17 +64,39 @@ export const routes: Routes = [
           {
             path: 'reports',
             title: 'Reports · Gapwise',
-            loadComponent: () => import('./reports/report-list/report-list').then((m) => m.ReportList),
+            loadComponent: () =>
+              import('./reports/report-list/report-list').then((m) => m.ReportList),
           },
           {
             path: 'reports/new',
             title: 'New report · Gapwise',
-            loadComponent: () => import('./reports/create-report/create-report').then((m) => m.CreateReport),
+            loadComponent: () =>
+              import('./reports/create-report/create-report').then((m) => m.CreateReport),
           },
           {
             path: 'reports/:id',
             title: 'Report · Gapwise',
-            loadComponent: () => import('./reports/report-view/report-view').then((m) => m.ReportViewPage),
+            loadComponent: () =>
+              import('./reports/report-view/report-view').then((m) => m.ReportViewPage),
+          },
+          {
+            path: 'traces',
+            title: 'Traces · Gapwise',
+            loadComponent: () => import('./traces/trace-list/trace-list').then((m) => m.TraceList),
+          },
+          {
+            path: 'trace-analyses/:aid',
+            title: 'Trace analysis · Gapwise',
+            loadComponent: () =>
+              import('./traces/trace-analysis/trace-analysis').then((m) => m.TraceAnalysisPage),
+          },
+          {
+            path: 'screens',
+            loadChildren: () => import('./screens/screens.routes').then((m) => m.screenRoutes),
+          },
+          {
+            path: 'series',
+            loadChildren: () => import('./series/series.routes').then((m) => m.seriesRoutes),
           },
           {
             path: 'members',
@@ -86,7 +108,8 @@ export const routes: Routes = [
       {
         path: 'reviews',
         title: 'Reviews waiting · Gapwise',
-        loadComponent: () => import('./reports/reviews-waiting/reviews-waiting').then((m) => m.ReviewsWaiting),
+        loadComponent: () =>
+          import('./reports/reviews-waiting/reviews-waiting').then((m) => m.ReviewsWaiting),
       },
       { path: '**', component: NotFound, title: 'Not found · Gapwise' },
     ],
