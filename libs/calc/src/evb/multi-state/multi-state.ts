@@ -41,8 +41,14 @@ export function symmetricEigensystem(hamiltonianEv: readonly (readonly number[])
   const n = hamiltonianEv.length;
   if (n === 1) return { energies: [hamiltonianEv[0][0]], vectors: [[1]] };
   // Symmetrise exactly so round-off asymmetry below the tolerance cannot upset the solver.
+  // Elements below 1e-30 of the largest one are set to zero: they cannot change any eigenvalue
+  // at double precision (relative 1e-16), and subnormal numbers stall the QL iteration.
+  const scale = Math.max(...hamiltonianEv.flat().map(Math.abs));
   const matrix = hamiltonianEv.map((row, i) =>
-    row.map((value, j) => 0.5 * (value + hamiltonianEv[j][i])),
+    row.map((value, j) => {
+      const symmetric = 0.5 * (value + hamiltonianEv[j][i]);
+      return Math.abs(symmetric) < 1e-30 * scale || Math.abs(symmetric) < 1e-300 ? 0 : symmetric;
+    }),
   );
   const decomposition = new EigenvalueDecomposition(new Matrix(matrix), { assumeSymmetric: true });
   const columns = decomposition.eigenvectorMatrix.transpose().to2DArray();
