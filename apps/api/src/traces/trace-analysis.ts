@@ -60,6 +60,9 @@ interface PassOne {
   readonly count: number;
   /** Bad lines skipped (only with skipBadLines). */
   readonly skipped: number;
+  /** The ΔE column as read (1-based) and its header name. */
+  readonly columnIndex: number;
+  readonly columnName: string | null;
 }
 
 export async function analyzeTraces(
@@ -143,8 +146,8 @@ export async function analyzeTraces(
       method: 'reorg.gapSamples',
       temperatureK,
       sources: {
-        reactant: { ...reactant.info, sampleCount: r.count, skippedLineCount: r.skipped },
-        product: { ...product.info, sampleCount: p.count, skippedLineCount: p.skipped },
+        reactant: { ...reactant.info, sampleCount: r.count, skippedLineCount: r.skipped, columnIndex: r.columnIndex, columnName: r.columnName },
+        product: { ...product.info, sampleCount: p.count, skippedLineCount: p.skipped, columnIndex: p.columnIndex, columnName: p.columnName },
       },
       outputs,
       warnings,
@@ -198,7 +201,14 @@ async function passOne(
     const skipped = input.settings.skipBadLines ? read.summary.badLines.count : 0;
     const stats = accumulator.statistics();
     const [q1, q3] = stats.quartileEstimates;
-    return { summary: { stats, iqr: q3 - q1 }, binaryPath, count: accumulator.count, skipped };
+    return {
+      summary: { stats, iqr: q3 - q1 },
+      binaryPath,
+      count: accumulator.count,
+      skipped,
+      columnIndex: read.summary.columnIndex,
+      columnName: read.summary.columnName,
+    };
   } finally {
     closeSync(fd);
   }
