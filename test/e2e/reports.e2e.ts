@@ -1,0 +1,212 @@
+/**
+ * Reports and review in the browser: an editor's report through request-changes, revision and
+ * approval; and the demo reviewer approving the seeded DA-3 report with the author e-mailed.
+ */
+import { execFileSync } from 'node:child_process';
+import { writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import type { BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import {
+  apiWrite,
+  launchChromium,
+  screenshotDir,
+  shoot,
+  signIn,
+  waitForMail,
+  type Gapwise,
+} from './support/browser';
+
+const baseUrl = inject('baseUrl');
+const mailUrl = inject('mailUrl');
+const EDITOR = 'editor@gapwise.test';
+const REVIEWER = 'reviewer@gapwise.test';
+
+let gw: Gapwise;
+const contexts: BrowserContext[] = [];
+
+beforeAll(async () => {
+  gw = await launchChromium();
+});
+afterAll(async () => {
+  for (const c of contexts) await c.close().catch(() => undefined);
+  await gw?.close();
+});
+
+async function signedIn(email: string): Promise<Page> {
+  const context = await gw.context();
+  contexts.push(context);
+  const page = await context.newPage();
+  await signIn(page, baseUrl, email);
+  return page;
+}
+
+async function labId(page: Page): Promise<string> {
+  const res = await page.request.get(`${baseUrl}/api/workspaces`);
+  const list = (await res.json()) as Array<{ id: string; name: string }>;
+  const lab = list.find((w) => w.name === 'Halden Photoredox Lab');
+  if (!lab) throw new Error(`demo lab not among ${list.map((w) => w.name).join(', ')}`);
+  return lab.id;
+}
+
+/** expect.poll with time for server work (the approved PDF is rendered and stored on approval). */
+const eventually = <T>(read: () => Promise<T> | T) => expect.poll(read, { timeout: 30_000 });
+
+const status = (page: Page) => page.locator('header gw-report-status');
+
+/** Downloads the PDF through the page's button; checks the response and returns its text. */
+async function downloadPdf(page: Page, name: string): Promise<string> {
+  const href = await page.getByRole('link', { name: 'Download PDF' }).getAttribute('href');
+  const res = await page.request.get(`${baseUrl}${href}`);
+  expect(res.status()).toBe(200);
+  expect(res.headers()['content-type']).toBe('application/pdf');
+  const [download] = await Promise.all([
+    page.waitForEvent('download'),
+    page.getByRole('link', { name: 'Download PDF' }).click(),
+  ]);
+  const file = join(screenshotDir, `${name}.pdf`);
+  await download.saveAs(file);
+  const bytes = await res.body();
+  expect(bytes.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+  writeFileSync(file, bytes);
+  return execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' });
+}
+
+describe('reports and review in chromium', () => {
+  it('editor submits, reviewer asks for changes on the coupling, editor revises, reviewer approves, PDF downloads', async () => {
+    const editor = await signedIn(EDITOR);
+    const wid = await labId(editor);
+
+    // Create a report from the DA-1 pair page.
+    await editor.goto(`${baseUrl}/w/${wid}/pairs`);
+    await editor.getByRole('link', { name: 'DA-1', exact: true }).click();
+    await editor.getByRole('link', { name: /Create report/ }).click();
+    await editor.waitForURL(/\/reports\/[0-9a-f-]{36}$/);
+    const reportUrl = editor.url();
+    const reportId = reportUrl.split('/').at(-1)!;
+    await eventually(() => status(editor).textContent()).toBe('Draft');
+    await eventually(() => editor.locator('h1').textContent()).toContain('DA-1');
+    await editor.getByRole('button', { name: 'Submit for review' }).click();
+    await eventually(() => status(editor).textContent()).toBe('Submitted');
+    await waitForMail(mailUrl, REVIEWER, /^Review requested: DA-1/);
+
+    // The reviewer finds it waiting, comments on the coupling and asks for changes.
+    const reviewer = await signedIn(REVIEWER);
+    await reviewer.goto(`${baseUrl}/reviews`);
+    await reviewer.getByRole('link', { name: /^DA-1/ }).click();
+    await reviewer.waitForURL(reportUrl);
+    await reviewer.getByRole('button', { name: 'Comment on Electronic coupling |H_AB|' }).click();
+    await reviewer
+      .locator('#comment-body')
+      .fill('Please give the source of the 45 cm⁻¹ coupling (which DFT functional?).');
+    await reviewer.getByRole('button', { name: 'Post comment' }).click();
+    const comment = reviewer.locator('li.comment').filter({ hasText: '45 cm⁻¹ coupling' });
+    await eventually(() => comment.locator('.anchor').textContent()).toBe(
+      'on Electronic coupling |H_AB|',
+    );
+    await eventually(() => reviewer.locator('tr[data-kind="coupling"] .count').textContent()).toBe(
+      '1 comment',
+    );
+    await reviewer.getByLabel('Note with your decision (optional)').fill('Cite the coupling run.');
+    await reviewer.getByRole('button', { name: 'Request changes' }).click();
+    await eventually(() => status(reviewer).textContent()).toBe('Changes requested');
+    await waitForMail(mailUrl, EDITOR, /^Changes requested: DA-1/);
+
+    // The editor changes the pair, takes a new snapshot and resubmits.
+    const before = (await (await editor.request.get(`${baseUrl}/api/reports/${reportId}`)).json())
+      .snapshotId as string;
+    const pairId = (
+      (await (await editor.request.get(`${baseUrl}/api/reports/${reportId}`)).json()) as {
+        pairIds: string[];
+      }
+    ).pairIds[0];
+    const pair = (await (await editor.request.get(`${baseUrl}/api/pairs/${pairId}`)).json()) as {
+      version: number;
+    };
+    const patched = await apiWrite(editor, baseUrl, 'patch', `/api/pairs/${pairId}`, {
+      version: pair.version,
+      notes: 'Coupling: fragment-orbital run gw-calc-032, B3LYP.',
+    });
+    expect(patched.status()).toBe(200);
+    await editor.reload();
+    await eventually(() => status(editor).textContent()).toBe('Changes requested');
+    await editor.getByRole('button', { name: 'Revise from the pair' }).click();
+    await eventually(() => editor.locator('p.message').textContent()).toContain('New snapshot');
+    const after = (await (await editor.request.get(`${baseUrl}/api/reports/${reportId}`)).json())
+      .snapshotId as string;
+    expect(after).not.toBe(before);
+    await editor.getByRole('button', { name: 'Submit for review' }).click();
+    await eventually(() => status(editor).textContent()).toBe('Submitted');
+
+    // The reviewer approves; the page says so and the PDF downloads.
+    await reviewer.reload();
+    await eventually(() => status(reviewer).textContent()).toBe('Submitted');
+    await reviewer.getByRole('button', { name: 'Approve' }).click();
+    await eventually(() => status(reviewer).textContent()).toBe('Approved');
+    await eventually(() => reviewer.locator('p.frozen').textContent()).toContain(
+      'Approved and frozen',
+    );
+    expect(await reviewer.getByRole('button', { name: 'Post comment' }).count()).toBe(0);
+    await waitForMail(mailUrl, EDITOR, /^Approved: DA-1/);
+    const text = await downloadPdf(reviewer, 'e2e-da1-approved');
+    expect(text).toContain('DA-1');
+    expect(text).toContain(after);
+    expect(text.toLowerCase()).toContain('approved');
+    await shoot(reviewer, 'report-view-approved');
+    expect(gw.offLoopback).toEqual([]);
+  });
+
+  it('the demo reviewer reads the seeded DA-3 report, comments on the coupling, approves; the author is e-mailed', async () => {
+    const reviewer = await signedIn(REVIEWER);
+    await reviewer.goto(`${baseUrl}/reviews`);
+    await eventually(() =>
+      reviewer.getByRole('table', { name: 'Reports waiting for review' }).isVisible(),
+    ).toBe(true);
+    await shoot(reviewer, 'reviews-waiting');
+    await reviewer.getByRole('link', { name: /^DA-3 photoinduced charge separation/ }).click();
+    await eventually(() => status(reviewer).textContent()).toBe('Submitted');
+
+    // Inputs with units and provenance.
+    const coupling = reviewer.locator('tr[data-kind="coupling"]');
+    await eventually(() => coupling.textContent()).toContain('120 cm⁻¹');
+    expect(await coupling.textContent()).toMatch(/Derived/i);
+    const lambdaInner = reviewer.locator('tr[data-kind="lambdaInner"]');
+    expect(await lambdaInner.textContent()).toContain('gw-calc-040');
+    // The three plots are drawn (SVG with curves).
+    for (const plot of ['gw-parabola-plot', 'gw-driving-force-plot', 'gw-temperature-plot']) {
+      await eventually(() => reviewer.locator(`${plot} svg path`).count()).toBeGreaterThan(1);
+    }
+    expect(
+      await reviewer.getByRole('complementary', { name: 'Limits of this estimate' }).textContent(),
+    ).toMatch(/not measurements/i);
+    const keyResult = (await reviewer.getByTestId('key-result').textContent())!.trim();
+    await shoot(reviewer, 'report-view-submitted');
+
+    // Comment anchored on the coupling, then approve.
+    await reviewer.getByRole('button', { name: 'Comment on Electronic coupling |H_AB|' }).click();
+    await reviewer
+      .locator('#comment-body')
+      .fill('The GMH coupling of 120 cm⁻¹ is consistent with the CT band; fine for this estimate.');
+    await reviewer.getByRole('button', { name: 'Post comment' }).click();
+    await eventually(() => reviewer.locator('li.comment .anchor').first().textContent()).toBe(
+      'on Electronic coupling |H_AB|',
+    );
+    await shoot(reviewer, 'report-comments');
+    await reviewer.getByRole('button', { name: 'Approve' }).click();
+    await eventually(() => status(reviewer).textContent()).toBe('Approved');
+
+    const mail = await waitForMail(mailUrl, EDITOR, /^Approved: DA-3 photoinduced/);
+    expect(mail.text).toContain('Rhea Lindqvist approved your report');
+    expect(mail.text).toContain(`${baseUrl}/w/`);
+
+    // The downloaded PDF prints the numbers the page shows.
+    const pdf = await downloadPdf(reviewer, 'e2e-da3-approved');
+    const numbers = keyResult.match(/-?\d+(?:\.\d+)?(?:\s?×\s?10[⁻⁰¹²³⁴⁵⁶⁷⁸⁹]+)?/g) ?? [];
+    // k with its power of ten, log10 k and ΔG‡ at least.
+    expect(numbers.filter((n) => n.includes('×'))).toHaveLength(1);
+    expect(numbers.length).toBeGreaterThanOrEqual(3);
+    const flat = pdf.replace(/\s+/g, ' ');
+    for (const n of numbers) expect(flat, `PDF should print ${n}`).toContain(n);
+    expect(gw.offLoopback).toEqual([]);
+  });
+});
