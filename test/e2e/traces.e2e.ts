@@ -145,7 +145,10 @@ describe('energy-gap traces in chromium', () => {
     await signIn(page, baseUrl, 'editor@gapwise.test');
     await page.getByRole('link', { name: 'Traces', exact: true }).click();
     await page.waitForURL(/\/traces$/);
-    const before = await page.locator('table.traces-table tbody tr').count();
+    const wid = /\/w\/([0-9a-f-]{36})\//.exec(page.url())![1];
+    const stored = async () => (await page.evaluate(async (w) => (await fetch(`/api/workspaces/${w}/traces`)).json(), wid)).length as number;
+    const before = await stored();
+    await expect.poll(() => page.locator('table.traces-table tbody tr').count()).toBe(before);
     await page.locator('#file-reactant').setInputFiles({
       name: 'broken.csv',
       mimeType: 'text/csv',
@@ -161,6 +164,7 @@ describe('energy-gap traces in chromium', () => {
     await shoot(page, 'traces-refused');
     // The product file was stored (it is valid); the refused one was not.
     await expect.poll(() => page.locator('table.traces-table tbody tr').count()).toBe(before + 1);
+    expect(await stored()).toBe(before + 1);
     expect(await page.locator('table.traces-table').innerText()).not.toContain('broken.csv');
     await context.close();
   });

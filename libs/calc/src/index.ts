@@ -73,6 +73,7 @@ export type { ConfidenceBand, DrivingForceFit } from './fit/index';
 export {
   GapSampleAccumulator,
   HistogramCounter,
+  analyseGapSamples,
   gapOutputsFromCounts,
   planGapHistograms,
 } from './gap/index';

@@ -10,7 +10,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { Writable } from 'node:stream';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { analyseGapSamples } from '../../../../libs/calc/src/gap/gap-samples/gap-samples';
+import { analyseGapSamples } from '@gapwise/calc';
 import { runTracesAnalyze } from '../../../cli/src/traces-command';
 import { analyzeTraces, TraceAnalysisRefusal, type TraceAnalysisInput } from './trace-analysis';
 import { marcusGapMoments, syntheticGapSamples, writeSyntheticTrace, type SyntheticTraceSpec } from './synthetic-trace';
