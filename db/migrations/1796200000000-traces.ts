@@ -34,7 +34,9 @@ export class Traces1796200000000 implements MigrationInterface {
       CONSTRAINT "FK_traces_workspace" FOREIGN KEY ("workspace_id") REFERENCES "workspaces"("id") ON DELETE CASCADE,
       CONSTRAINT "FK_traces_uploaded_by" FOREIGN KEY ("uploaded_by") REFERENCES "users"("id") ON DELETE SET NULL
     )`);
-    await q.query(`CREATE INDEX "idx_traces_workspace" ON "traces" ("workspace_id", "uploaded_at")`);
+    await q.query(
+      `CREATE INDEX "idx_traces_workspace" ON "traces" ("workspace_id", "uploaded_at")`,
+    );
     await q.query(`CREATE INDEX "idx_traces_object_key" ON "traces" ("object_key")`);
     await q.query(`CREATE TABLE "trace_analyses" (
       "id" uuid NOT NULL DEFAULT gen_random_uuid(),
@@ -57,7 +59,9 @@ export class Traces1796200000000 implements MigrationInterface {
       CONSTRAINT "FK_trace_analyses_reactant" FOREIGN KEY ("reactant_trace_id") REFERENCES "traces"("id") ON DELETE CASCADE,
       CONSTRAINT "FK_trace_analyses_product" FOREIGN KEY ("product_trace_id") REFERENCES "traces"("id") ON DELETE CASCADE
     )`);
-    await q.query(`CREATE INDEX "idx_trace_analyses_workspace" ON "trace_analyses" ("workspace_id", "created_at")`);
+    await q.query(
+      `CREATE INDEX "idx_trace_analyses_workspace" ON "trace_analyses" ("workspace_id", "created_at")`,
+    );
   }
 
   public async down(q: QueryRunner): Promise<void> {

@@ -146,7 +146,9 @@ describe('energy-gap traces in chromium', () => {
     await page.getByRole('link', { name: 'Traces', exact: true }).click();
     await page.waitForURL(/\/traces$/);
     const wid = /\/w\/([0-9a-f-]{36})\//.exec(page.url())![1];
-    const stored = async () => (await page.evaluate(async (w) => (await fetch(`/api/workspaces/${w}/traces`)).json(), wid)).length as number;
+    const stored = async () =>
+      (await page.evaluate(async (w) => (await fetch(`/api/workspaces/${w}/traces`)).json(), wid))
+        .length as number;
     const before = await stored();
     await expect.poll(() => page.locator('table.traces-table tbody tr').count()).toBe(before);
     await page.locator('#file-reactant').setInputFiles({

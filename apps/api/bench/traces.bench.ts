@@ -45,7 +45,10 @@ function cpuSeconds(pid: number): number {
 function status(pid: number): { hwmKb: number; rssKb: number } {
   try {
     const text = readFileSync(`/proc/${pid}/status`, 'utf8');
-    return { hwmKb: Number(/VmHWM:\s+(\d+)/.exec(text)?.[1] ?? 0), rssKb: Number(/VmRSS:\s+(\d+)/.exec(text)?.[1] ?? 0) };
+    return {
+      hwmKb: Number(/VmHWM:\s+(\d+)/.exec(text)?.[1] ?? 0),
+      rssKb: Number(/VmRSS:\s+(\d+)/.exec(text)?.[1] ?? 0),
+    };
   } catch {
     return { hwmKb: 0, rssKb: 0 };
   }
@@ -58,32 +61,59 @@ try {
   const format = { header: 'frame,dE_eV', frameColumn: true, digits: 6 };
   let t0 = performance.now();
   await Promise.all([
-    writeSyntheticTrace(files.reactant, { count: samples, meanEv: m.reactantMeanEv, sdEv: m.sdEv, phi: 0.5, seed: 'bench-R' }, format),
-    writeSyntheticTrace(files.product, { count: samples, meanEv: m.productMeanEv, sdEv: m.sdEv, phi: 0.5, seed: 'bench-P' }, format),
+    writeSyntheticTrace(
+      files.reactant,
+      { count: samples, meanEv: m.reactantMeanEv, sdEv: m.sdEv, phi: 0.5, seed: 'bench-R' },
+      format,
+    ),
+    writeSyntheticTrace(
+      files.product,
+      { count: samples, meanEv: m.productMeanEv, sdEv: m.sdEv, phi: 0.5, seed: 'bench-P' },
+      format,
+    ),
   ]);
-  const sizes = { reactant: (await stat(files.reactant)).size, product: (await stat(files.product)).size };
-  console.log(`generated 2 × ${samples.toExponential(0)} samples (${(sizes.reactant / 1e6).toFixed(0)} + ${(sizes.product / 1e6).toFixed(0)} MB) in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+  const sizes = {
+    reactant: (await stat(files.reactant)).size,
+    product: (await stat(files.product)).size,
+  };
+  console.log(
+    `generated 2 × ${samples.toExponential(0)} samples (${(sizes.reactant / 1e6).toFixed(0)} + ${(sizes.product / 1e6).toFixed(0)} MB) in ${((performance.now() - t0) / 1000).toFixed(1)} s`,
+  );
 
   // 2. The real server (not timed).
   // GAPWISE_BENCH_CPU_PROF=<folder>: write a V8 CPU profile of the server there.
   const profile = process.env['GAPWISE_BENCH_CPU_PROF'];
-  server = spawn(process.execPath, [...(profile ? ['--cpu-prof', `--cpu-prof-dir=${profile}`] : []), '--import', 'tsx', 'apps/api/src/main.ts'], {
-    env: {
-      ...process.env,
-      PORT: '0',
-      DATABASE_URL: database.url,
-      S3_ENDPOINT: s3.endpoint,
-      JWT_SECRET: 'bench-secret-bench-secret-bench-secret-0123',
-      BCRYPT_COST: '4',
-      SMTP_PORT: '2599',
-      WEB_DIST: join(dir, 'no-web'),
-      GAPWISE_SCREEN_WORKER: 'false',
+  server = spawn(
+    process.execPath,
+    [
+      ...(profile ? ['--cpu-prof', `--cpu-prof-dir=${profile}`] : []),
+      '--import',
+      'tsx',
+      'apps/api/src/main.ts',
+    ],
+    {
+      env: {
+        ...process.env,
+        PORT: '0',
+        DATABASE_URL: database.url,
+        S3_ENDPOINT: s3.endpoint,
+        JWT_SECRET: 'bench-secret-bench-secret-bench-secret-0123',
+        BCRYPT_COST: '4',
+        SMTP_PORT: '2599',
+        WEB_DIST: join(dir, 'no-web'),
+        GAPWISE_SCREEN_WORKER: 'false',
+      },
+      stdio: ['ignore', 'pipe', 'pipe'],
     },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
+  );
   server.stderr!.on('data', (d: Buffer) => {
     const text = d.toString();
-    if (!/NodeVersionSupportWarning|node >=22|a\.co\/|upgrade to node|trace-warnings|^\s*$/m.test(text)) process.stderr.write(`[server] ${text}`);
+    if (
+      !/NodeVersionSupportWarning|node >=22|a\.co\/|upgrade to node|trace-warnings|^\s*$/m.test(
+        text,
+      )
+    )
+      process.stderr.write(`[server] ${text}`);
   });
   const base = await new Promise<string>((resolve, reject) => {
     let out = '';
@@ -101,13 +131,27 @@ try {
   const register = await fetch(`${base}/api/auth/register`, {
     method: 'POST',
     headers: { 'Content-Type': 'application/json' },
-    body: JSON.stringify({ email: 'bench@example.test', password: 'correct horse battery', displayName: 'Bench' }),
+    body: JSON.stringify({
+      email: 'bench@example.test',
+      password: 'correct horse battery',
+      displayName: 'Bench',
+    }),
   });
-  if (register.status !== 201) throw new Error(`register: ${register.status} ${await register.text()}`);
-  const cookie = register.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+  if (register.status !== 201)
+    throw new Error(`register: ${register.status} ${await register.text()}`);
+  const cookie = register.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .join('; ');
   const csrf = ((await register.json()) as { csrfToken: string }).csrfToken;
   const headers = { Cookie: cookie, 'X-CSRF-Token': csrf };
-  const ws = await (await fetch(`${base}/api/workspaces`, { method: 'POST', headers: { ...headers, 'Content-Type': 'application/json' }, body: JSON.stringify({ name: 'bench' }) })).json() as { id: string };
+  const ws = (await (
+    await fetch(`${base}/api/workspaces`, {
+      method: 'POST',
+      headers: { ...headers, 'Content-Type': 'application/json' },
+      body: JSON.stringify({ name: 'bench' }),
+    })
+  ).json()) as { id: string };
 
   let peak = status(pid);
   const sampler = setInterval(() => {
@@ -127,16 +171,32 @@ try {
       const tail = `\r\n--${boundary}--\r\n`;
       const url = new URL(`${base}/api/workspaces/${ws.id}/traces`);
       const req = httpRequest(
-        { host: url.hostname, port: url.port, path: url.pathname, method: 'POST', headers: { ...headers, 'Content-Type': `multipart/form-data; boundary=${boundary}`, 'Content-Length': Buffer.byteLength(head) + sizes[state] + Buffer.byteLength(tail) } },
+        {
+          host: url.hostname,
+          port: url.port,
+          path: url.pathname,
+          method: 'POST',
+          headers: {
+            ...headers,
+            'Content-Type': `multipart/form-data; boundary=${boundary}`,
+            'Content-Length': Buffer.byteLength(head) + sizes[state] + Buffer.byteLength(tail),
+          },
+        },
         (res) => {
           let body = '';
           res.on('data', (c: Buffer) => (body += c.toString()));
-          res.on('end', () => (res.statusCode === 201 ? resolve(JSON.parse(body)) : reject(new Error(`upload ${state}: ${res.statusCode} ${body.slice(0, 300)}`))));
+          res.on('end', () =>
+            res.statusCode === 201
+              ? resolve(JSON.parse(body))
+              : reject(new Error(`upload ${state}: ${res.statusCode} ${body.slice(0, 300)}`)),
+          );
         },
       );
       req.on('error', reject);
       req.write(head);
-      pipeline(createReadStream(files[state], { highWaterMark: 1 << 20 }), req, { end: false }).then(() => req.end(tail), reject);
+      pipeline(createReadStream(files[state], { highWaterMark: 1 << 20 }), req, {
+        end: false,
+      }).then(() => req.end(tail), reject);
     });
 
   // 4. Timed: both uploads at once, then the analysis.
@@ -146,14 +206,22 @@ try {
   const uploadedMs = performance.now() - t0;
   const cpuUpload = cpuSeconds(pid) - cpu0;
   const afterUpload = status(pid);
-  const started = await (await fetch(`${base}/api/workspaces/${ws.id}/trace-analyses`, {
-    method: 'POST',
-    headers: { ...headers, 'Content-Type': 'application/json' },
-    body: JSON.stringify({ reactantTraceId: r.id, productTraceId: p.id, temperature: T }),
-  })).json() as { id: string };
-  let analysis: { status: string; result: { outputs: Record<string, unknown>; warnings: Array<{ code: string }> } | null; error: unknown };
+  const started = (await (
+    await fetch(`${base}/api/workspaces/${ws.id}/trace-analyses`, {
+      method: 'POST',
+      headers: { ...headers, 'Content-Type': 'application/json' },
+      body: JSON.stringify({ reactantTraceId: r.id, productTraceId: p.id, temperature: T }),
+    })
+  ).json()) as { id: string };
+  let analysis: {
+    status: string;
+    result: { outputs: Record<string, unknown>; warnings: Array<{ code: string }> } | null;
+    error: unknown;
+  };
   for (;;) {
-    analysis = await (await fetch(`${base}/api/trace-analyses/${started.id}`, { headers })).json() as typeof analysis;
+    analysis = (await (
+      await fetch(`${base}/api/trace-analyses/${started.id}`, { headers })
+    ).json()) as typeof analysis;
     if (analysis.status === 'done' || analysis.status === 'failed') break;
     await new Promise((res) => setTimeout(res, 100));
   }
@@ -161,8 +229,14 @@ try {
   const cpuTotal = cpuSeconds(pid) - cpu0;
   clearInterval(sampler);
   const end = status(pid);
-  if (analysis.status !== 'done') throw new Error(`analysis failed: ${JSON.stringify(analysis.error)}`);
-  const out = analysis.result!.outputs as { lambdaFromMeans: number; deltaG0FromMeans: number; standardErrors: { lambdaFromMeans: number }; statisticalInefficiency: { reactant: number } };
+  if (analysis.status !== 'done')
+    throw new Error(`analysis failed: ${JSON.stringify(analysis.error)}`);
+  const out = analysis.result!.outputs as {
+    lambdaFromMeans: number;
+    deltaG0FromMeans: number;
+    standardErrors: { lambdaFromMeans: number };
+    statisticalInefficiency: { reactant: number };
+  };
   const mb = (kb: number) => (kb / 1024).toFixed(0);
   const totalS = totalMs / 1000;
   const peakMb = end.hwmKb / 1024;

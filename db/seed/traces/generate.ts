@@ -8,9 +8,18 @@
  */
 import { fileURLToPath } from 'node:url';
 import { join } from 'node:path';
-import { marcusGapMoments, writeSyntheticTrace } from '../../../apps/api/src/traces/synthetic-trace';
+import {
+  marcusGapMoments,
+  writeSyntheticTrace,
+} from '../../../apps/api/src/traces/synthetic-trace';
 
-export const DEMO_TRACE = { lambdaEv: 0.62, deltaG0Ev: -0.35, temperatureK: 300, samples: 6000, phi: 0.8 } as const;
+export const DEMO_TRACE = {
+  lambdaEv: 0.62,
+  deltaG0Ev: -0.35,
+  temperatureK: 300,
+  samples: 6000,
+  phi: 0.8,
+} as const;
 /** 1 eV in kcal/mol (CODATA 2018: e·N_A/4184). */
 const KCAL_PER_EV = (1.602176634e-19 * 6.02214076e23) / 4184;
 
@@ -22,7 +31,13 @@ for (const [state, mean] of [
 ] as const) {
   await writeSyntheticTrace(
     join(here, `demo-dyad-${state}.csv`),
-    { count: DEMO_TRACE.samples, meanEv: mean, sdEv: m.sdEv, phi: DEMO_TRACE.phi, seed: `demo-dyad-${state}` },
+    {
+      count: DEMO_TRACE.samples,
+      meanEv: mean,
+      sdEv: m.sdEv,
+      phi: DEMO_TRACE.phi,
+      seed: `demo-dyad-${state}`,
+    },
     {
       header: `# Demo energy-gap samples, ${state} state (synthetic, seeded; dE = E_P - E_R in kcal/mol)\nframe,dE_kcal`,
       frameColumn: true,

@@ -21,12 +21,26 @@ async function trace(c: CaseContext, state: 'reactant' | 'product'): Promise<str
 async function doneAnalysis(c: CaseContext): Promise<string> {
   const r = await trace(c, 'reactant');
   const p = await trace(c, 'product');
-  const source = (id: string) => ({ traceId: id, fileName: 'x.csv', sha256: '0'.repeat(64), sizeBytes: 100, unit: 'eV', columnIndex: 1, columnName: null, sampleCount: 20, skippedLineCount: 0 });
+  const source = (id: string) => ({
+    traceId: id,
+    fileName: 'x.csv',
+    sha256: '0'.repeat(64),
+    sizeBytes: 100,
+    unit: 'eV',
+    columnIndex: 1,
+    columnName: null,
+    sampleCount: 20,
+    skippedLineCount: 0,
+  });
   const result = {
     method: 'reorg.gapSamples',
     temperatureK: 300,
     sources: { reactant: source(r), product: source(p) },
-    outputs: { lambdaFromMeans: 0.6, deltaG0FromMeans: -0.3, standardErrors: { lambdaFromMeans: 0.01, deltaG0FromMeans: 0.01 } },
+    outputs: {
+      lambdaFromMeans: 0.6,
+      deltaG0FromMeans: -0.3,
+      standardErrors: { lambdaFromMeans: 0.01, deltaG0FromMeans: 0.01 },
+    },
     warnings: [],
   };
   const [row] = await c.t.db.query(
@@ -43,7 +57,10 @@ export const rows: MatrixRow[] = [
     // The role is checked before the body is read: editors get 400 for a JSON (not multipart) body.
     method: 'post',
     route: '/workspaces/:wid/traces',
-    request: (c) => ({ path: `/workspaces/${c.workspaceId}/traces`, body: { state: 'reactant', unit: 'eV' } }),
+    request: (c) => ({
+      path: `/workspaces/${c.workspaceId}/traces`,
+      body: { state: 'reactant', unit: 'eV' },
+    }),
     expect: editors(400),
   },
   {
@@ -69,7 +86,11 @@ export const rows: MatrixRow[] = [
     route: '/workspaces/:wid/trace-analyses',
     request: async (c) => ({
       path: `/workspaces/${c.workspaceId}/trace-analyses`,
-      body: { reactantTraceId: await trace(c, 'reactant'), productTraceId: await trace(c, 'product'), temperature: 300 },
+      body: {
+        reactantTraceId: await trace(c, 'reactant'),
+        productTraceId: await trace(c, 'product'),
+        temperature: 300,
+      },
     }),
     expect: editors(202),
   },

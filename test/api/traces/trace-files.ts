@@ -6,15 +6,22 @@ import { createHash } from 'node:crypto';
 import { gzipSync } from 'node:zlib';
 import { ListObjectsV2Command, type S3Client } from '@aws-sdk/client-s3';
 import type request from 'supertest';
-import { syntheticGapSamples, type SyntheticTraceSpec } from '../../../apps/api/src/traces/synthetic-trace';
+import {
+  syntheticGapSamples,
+  type SyntheticTraceSpec,
+} from '../../../apps/api/src/traces/synthetic-trace';
 import type { Session } from '../support/test-app';
 
 /** Text of a trace: header `frame,dE` and one row per sample, values divided by `evPerUnit`. */
-export function traceCsv(spec: SyntheticTraceSpec, options: { evPerUnit?: number; eol?: string; digits?: number } = {}): string {
+export function traceCsv(
+  spec: SyntheticTraceSpec,
+  options: { evPerUnit?: number; eol?: string; digits?: number } = {},
+): string {
   const eol = options.eol ?? '\n';
   const rows = ['frame,dE'];
   let i = 0;
-  for (const ev of syntheticGapSamples(spec)) rows.push(`${i++},${(ev / (options.evPerUnit ?? 1)).toFixed(options.digits ?? 9)}`);
+  for (const ev of syntheticGapSamples(spec))
+    rows.push(`${i++},${(ev / (options.evPerUnit ?? 1)).toFixed(options.digits ?? 9)}`);
   return rows.join(eol) + eol;
 }
 
@@ -29,10 +36,20 @@ export interface UploadFields {
 }
 
 /** POSTs a multipart upload with the settings as fields before the file. */
-export function uploadTrace(session: Session, workspaceId: string, body: string | Buffer, fields: UploadFields, fileName = 'trace.csv'): request.Test {
-  let req = session.call('post', `/api/workspaces/${workspaceId}/traces`).field('state', fields.state).field('unit', fields.unit);
+export function uploadTrace(
+  session: Session,
+  workspaceId: string,
+  body: string | Buffer,
+  fields: UploadFields,
+  fileName = 'trace.csv',
+): request.Test {
+  let req = session
+    .call('post', `/api/workspaces/${workspaceId}/traces`)
+    .field('state', fields.state)
+    .field('unit', fields.unit);
   if (fields.column !== undefined) req = req.field('column', fields.column);
-  if (fields.skipBadLines !== undefined) req = req.field('skipBadLines', String(fields.skipBadLines));
+  if (fields.skipBadLines !== undefined)
+    req = req.field('skipBadLines', String(fields.skipBadLines));
   return req.attach('file', typeof body === 'string' ? Buffer.from(body) : body, fileName);
 }
 

@@ -12,7 +12,11 @@ import { requireAuth, userIdOf } from '../http/authenticate';
 import { isUuid } from '../http/validate';
 import { requireRole } from '../workspaces/workspace-access';
 import type { IngestedTrace } from './trace-ingest';
-import { startTraceServices, traceServicesOptionsFromEnv, type TraceServices } from './trace-services';
+import {
+  startTraceServices,
+  traceServicesOptionsFromEnv,
+  type TraceServices,
+} from './trace-services';
 import {
   attachAnalysis,
   cleanFileName,
@@ -37,10 +41,17 @@ type UploadedFile = Express.Multer.File & { ingested?: IngestedTrace; upload?: U
 class TraceStorageEngine implements StorageEngine {
   constructor(private readonly services: TraceServices) {}
 
-  _handleFile(req: Request, file: Express.Multer.File, callback: (error?: unknown, info?: Partial<UploadedFile>) => void): void {
+  _handleFile(
+    req: Request,
+    file: Express.Multer.File,
+    callback: (error?: unknown, info?: Partial<UploadedFile>) => void,
+  ): void {
     let upload: UploadSettings;
     try {
-      upload = readUploadSettings({ ...(req.query as Record<string, unknown>), ...(req.body as Record<string, unknown>) });
+      upload = readUploadSettings({
+        ...(req.query as Record<string, unknown>),
+        ...(req.body as Record<string, unknown>),
+      });
     } catch (error) {
       file.stream.resume();
       callback(error);
@@ -55,7 +66,11 @@ class TraceStorageEngine implements StorageEngine {
     );
   }
 
-  _removeFile(_req: Request, file: Express.Multer.File & { ingested?: IngestedTrace }, callback: (error: Error | null) => void): void {
+  _removeFile(
+    _req: Request,
+    file: Express.Multer.File & { ingested?: IngestedTrace },
+    callback: (error: Error | null) => void,
+  ): void {
     // A second file in one request is refused by the limits; the stored object of the first stays
     // only if a row is written for it (recordUploadedTrace removes unreferenced objects).
     void file;
@@ -66,9 +81,18 @@ class TraceStorageEngine implements StorageEngine {
 function multerErrorToAppError(error: unknown): unknown {
   if (error instanceof multer.MulterError) {
     if (error.code === 'LIMIT_FILE_SIZE') {
-      return new AppError(413, 'payload-too-large', `A trace file may be at most ${MAX_TRACE_UPLOAD_BYTES / 1024 ** 3} GiB.`);
+      return new AppError(
+        413,
+        'payload-too-large',
+        `A trace file may be at most ${MAX_TRACE_UPLOAD_BYTES / 1024 ** 3} GiB.`,
+      );
     }
-    return validationFailed([{ field: error.field ?? 'file', message: `Upload refused (${error.code}): send one file in the field 'file'.` }]);
+    return validationFailed([
+      {
+        field: error.field ?? 'file',
+        message: `Upload refused (${error.code}): send one file in the field 'file'.`,
+      },
+    ]);
   }
   return error;
 }
@@ -107,18 +131,39 @@ export function registerTraceRoutes(router: Router, deps: AppDeps): void {
     await requireRole(db.manager, wid, userId, canEdit);
     const svc = await services();
     if (!(req.headers['content-type'] ?? '').startsWith('multipart/form-data')) {
-      throw validationFailed([{ field: 'file', message: "Send the file as multipart/form-data in the field 'file'." }]);
+      throw validationFailed([
+        { field: 'file', message: "Send the file as multipart/form-data in the field 'file'." },
+      ]);
     }
     const middleware = multer({
       storage: new TraceStorageEngine(svc),
-      limits: { files: 1, fileSize: MAX_TRACE_UPLOAD_BYTES, fields: 20, fieldSize: 1024, parts: 25 },
+      limits: {
+        files: 1,
+        fileSize: MAX_TRACE_UPLOAD_BYTES,
+        fields: 20,
+        fieldSize: 1024,
+        parts: 25,
+      },
     }).single('file');
     await new Promise<void>((resolve, reject) => {
-      middleware(req, res, (error?: unknown) => (error ? reject(multerErrorToAppError(error)) : resolve()));
+      middleware(req, res, (error?: unknown) =>
+        error ? reject(multerErrorToAppError(error)) : resolve(),
+      );
     });
     const file = req.file as UploadedFile | undefined;
-    if (!file?.ingested || !file.upload) throw validationFailed([{ field: 'file', message: "is required (a multipart field named 'file')" }]);
-    const trace = await recordUploadedTrace(db, svc, userId, wid, cleanFileName(file.originalname), file.upload, file.ingested);
+    if (!file?.ingested || !file.upload)
+      throw validationFailed([
+        { field: 'file', message: "is required (a multipart field named 'file')" },
+      ]);
+    const trace = await recordUploadedTrace(
+      db,
+      svc,
+      userId,
+      wid,
+      cleanFileName(file.originalname),
+      file.upload,
+      file.ingested,
+    );
     res.status(201).json(trace);
   });
 
@@ -140,13 +185,18 @@ export function registerTraceRoutes(router: Router, deps: AppDeps): void {
     await requireRole(db.manager, wid, userId, canEdit);
     const body = req.body as Record<string, unknown> | undefined;
     const errors: Array<{ field: string; message: string }> = [];
-    if (!body || typeof body !== 'object' || Array.isArray(body)) throw validationFailed([{ field: '(body)', message: 'must be a JSON object' }]);
+    if (!body || typeof body !== 'object' || Array.isArray(body))
+      throw validationFailed([{ field: '(body)', message: 'must be a JSON object' }]);
     for (const key of Object.keys(body)) {
-      if (!['reactantTraceId', 'productTraceId', 'temperature'].includes(key)) errors.push({ field: key, message: 'is not a known field' });
+      if (!['reactantTraceId', 'productTraceId', 'temperature'].includes(key))
+        errors.push({ field: key, message: 'is not a known field' });
     }
-    if (typeof body['reactantTraceId'] !== 'string') errors.push({ field: 'reactantTraceId', message: 'must be a trace id' });
-    if (typeof body['productTraceId'] !== 'string') errors.push({ field: 'productTraceId', message: 'must be a trace id' });
-    if (typeof body['temperature'] !== 'number') errors.push({ field: 'temperature', message: 'Temperature must be a number in K.' });
+    if (typeof body['reactantTraceId'] !== 'string')
+      errors.push({ field: 'reactantTraceId', message: 'must be a trace id' });
+    if (typeof body['productTraceId'] !== 'string')
+      errors.push({ field: 'productTraceId', message: 'must be a trace id' });
+    if (typeof body['temperature'] !== 'number')
+      errors.push({ field: 'temperature', message: 'Temperature must be a number in K.' });
     if (errors.length) throw validationFailed(errors);
     const analysis = await startAnalysis(db, await services(), userId, wid, {
       reactantTraceId: body['reactantTraceId'] as string,
@@ -168,7 +218,9 @@ export function registerTraceRoutes(router: Router, deps: AppDeps): void {
     const id = param(req, 'id');
     if (!isUuid(id)) throw notFound('trace analysis');
     const userId = userIdOf(req);
-    await readAnalysisFor(db, userId, id, false).then((a) => requireRole(db.manager, a.workspaceId, userId, canEdit, 'trace analysis'));
+    await readAnalysisFor(db, userId, id, false).then((a) =>
+      requireRole(db.manager, a.workspaceId, userId, canEdit, 'trace analysis'),
+    );
     res.json(await attachAnalysis(db, userId, id, readAttachBody(req.body)));
   });
 }
@@ -194,7 +246,12 @@ async function streamAnalysisEvents(deps: AppDeps, req: Request, res: Response):
   });
   let last = '';
   const send = (event: string) => {
-    const data = JSON.stringify({ id: analysis.id, status: analysis.status, progress: analysis.progress, error: analysis.error });
+    const data = JSON.stringify({
+      id: analysis.id,
+      status: analysis.status,
+      progress: analysis.progress,
+      error: analysis.error,
+    });
     if (event === 'progress' && data === last) return;
     last = data;
     res.write(`event: ${event}\ndata: ${data}\n\n`);
@@ -203,7 +260,9 @@ async function streamAnalysisEvents(deps: AppDeps, req: Request, res: Response):
   while (!closed) {
     if (analysis.status === 'done' || analysis.status === 'failed') {
       send('progress');
-      res.write(`event: ${analysis.status}\ndata: ${JSON.stringify({ id: analysis.id, status: analysis.status })}\n\n`);
+      res.write(
+        `event: ${analysis.status}\ndata: ${JSON.stringify({ id: analysis.id, status: analysis.status })}\n\n`,
+      );
       break;
     }
     send('progress');

@@ -71,7 +71,11 @@ export interface TraceFileFormat {
 }
 
 /** Writes a synthetic trace file; returns its byte count on disk. */
-export async function writeSyntheticTrace(path: string, spec: SyntheticTraceSpec, format: TraceFileFormat = {}): Promise<void> {
+export async function writeSyntheticTrace(
+  path: string,
+  spec: SyntheticTraceSpec,
+  format: TraceFileFormat = {},
+): Promise<void> {
   const file = createWriteStream(path);
   const gzip = format.gzip ? createGzip() : null;
   if (gzip) gzip.pipe(file);

@@ -7,7 +7,14 @@ import { setTimeout as sleep } from 'node:timers/promises';
 import type { DataSource } from 'typeorm';
 import { analyzeTraces, TraceAnalysisRefusal, type TraceAnalysisInput } from './trace-analysis';
 import type { TraceObjectStore } from './trace-object-store';
-import { claimAnalysis, completeAnalysis, failAnalysis, findTrace, setProgress, type StoredTrace } from './trace-repository';
+import {
+  claimAnalysis,
+  completeAnalysis,
+  failAnalysis,
+  findTrace,
+  setProgress,
+  type StoredTrace,
+} from './trace-repository';
 import type { TraceParseSettings } from './trace-parser';
 import { readColumnSetting } from './trace-parser';
 
@@ -55,7 +62,11 @@ export function analysisInputOf(
   };
 }
 
-async function* delayed(source: Readable, ms: number, signal?: AbortSignal): AsyncIterable<Uint8Array> {
+async function* delayed(
+  source: Readable,
+  ms: number,
+  signal?: AbortSignal,
+): AsyncIterable<Uint8Array> {
   for await (const chunk of source) {
     yield chunk as Uint8Array;
     await sleep(ms, undefined, { signal }).catch(() => undefined);
@@ -75,7 +86,9 @@ export async function runTraceAnalysisJob(
     findTrace(db.manager, claimed.productTraceId),
   ]);
   if (!reactant || !product) {
-    await failAnalysis(db.manager, analysisId, [{ field: 'traces', message: 'A trace of this analysis no longer exists.' }]);
+    await failAnalysis(db.manager, analysisId, [
+      { field: 'traces', message: 'A trace of this analysis no longer exists.' },
+    ]);
     return 'failed';
   }
   const open = (trace: StoredTrace) => async (): Promise<AsyncIterable<Uint8Array>> => {
@@ -90,7 +103,9 @@ export async function runTraceAnalysisJob(
     const now = Date.now();
     if (now - lastWrite < every) return;
     lastWrite = now;
-    pending = pending.then(() => setProgress(db.manager, analysisId, fraction)).catch(() => undefined);
+    pending = pending
+      .then(() => setProgress(db.manager, analysisId, fraction))
+      .catch(() => undefined);
   };
   try {
     const result = await analyzeTraces(
@@ -111,7 +126,10 @@ export async function runTraceAnalysisJob(
     }
     if (options.lastAttempt && !options.signal?.aborted) {
       await failAnalysis(db.manager, analysisId, [
-        { field: 'analysis', message: `The analysis could not be completed: ${(error as Error)?.message ?? error}` },
+        {
+          field: 'analysis',
+          message: `The analysis could not be completed: ${(error as Error)?.message ?? error}`,
+        },
       ]);
     }
     throw error;

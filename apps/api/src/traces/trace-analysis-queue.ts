@@ -79,7 +79,10 @@ export function startTraceWorker(
     while (!stopping) {
       let jobs: Array<PgBoss.JobWithMetadata<{ analysisId: string }>> = [];
       try {
-        jobs = await boss.fetch<{ analysisId: string }>(TRACE_ANALYSIS_QUEUE, { batchSize: 1, includeMetadata: true });
+        jobs = await boss.fetch<{ analysisId: string }>(TRACE_ANALYSIS_QUEUE, {
+          batchSize: 1,
+          includeMetadata: true,
+        });
       } catch (error) {
         if (stopping) break;
         options.log?.(`trace worker ${id}: fetch failed: ${(error as Error).message}`);
@@ -111,7 +114,9 @@ export function startTraceWorker(
         } catch (error) {
           if (stopping === 'abandon') break;
           const message = (error as Error)?.message ?? String(error);
-          options.log?.(`trace worker ${id}: analysis ${job.data.analysisId} interrupted: ${message}`);
+          options.log?.(
+            `trace worker ${id}: analysis ${job.data.analysisId} interrupted: ${message}`,
+          );
           await boss.fail(TRACE_ANALYSIS_QUEUE, job.id, { message }).catch(() => undefined);
         } finally {
           current = null;
@@ -125,7 +130,9 @@ export function startTraceWorker(
     finished: () => finished,
     async stop(mode = 'handBack') {
       stopping = mode;
-      current?.abort(new Error(mode === 'abandon' ? 'worker abandoned the job' : 'worker stopping'));
+      current?.abort(
+        new Error(mode === 'abandon' ? 'worker abandoned the job' : 'worker stopping'),
+      );
       (wake as (() => void) | null)?.();
       await loop;
     },
@@ -147,7 +154,11 @@ export async function enqueueTraceAnalysis(
       retryDelay: options.retryDelaySeconds,
       expireInSeconds: options.expireInSeconds,
       singletonKey: analysisId,
-      db: { executeSql: async (text: string, values: unknown[]) => ({ rows: await tx.query(text, values) }) },
+      db: {
+        executeSql: async (text: string, values: unknown[]) => ({
+          rows: await tx.query(text, values),
+        }),
+      },
     },
   );
 }

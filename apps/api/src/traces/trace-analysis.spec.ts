@@ -13,7 +13,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { analyseGapSamples } from '@gapwise/calc';
 import { runTracesAnalyze } from '../../../cli/src/traces-command';
 import { analyzeTraces, TraceAnalysisRefusal, type TraceAnalysisInput } from './trace-analysis';
-import { marcusGapMoments, syntheticGapSamples, writeSyntheticTrace, type SyntheticTraceSpec } from './synthetic-trace';
+import {
+  marcusGapMoments,
+  syntheticGapSamples,
+  writeSyntheticTrace,
+  type SyntheticTraceSpec,
+} from './synthetic-trace';
 import type { TraceParseSettings } from './trace-parser';
 
 /** 1 eV in kcal/mol (CODATA 2018: e·N_A/4184). */
@@ -33,11 +38,26 @@ function input(path: string, settings: TraceParseSettings, sizeBytes: number): T
     open: async () => createReadStream(path),
     settings,
     sizeBytes,
-    info: { traceId: null, fileName: path.split('/').pop()!, sha256: '', sizeBytes, unit: settings.unit, columnIndex: 2, columnName: 'dE', sampleCount: 0, skippedLineCount: 0 },
+    info: {
+      traceId: null,
+      fileName: path.split('/').pop()!,
+      sha256: '',
+      sizeBytes,
+      unit: settings.unit,
+      columnIndex: 2,
+      columnName: 'dE',
+      sampleCount: 0,
+      skippedLineCount: 0,
+    },
   };
 }
 
-async function writePair(name: string, r: SyntheticTraceSpec, p: SyntheticTraceSpec, evPerUnit = 1) {
+async function writePair(
+  name: string,
+  r: SyntheticTraceSpec,
+  p: SyntheticTraceSpec,
+  evPerUnit = 1,
+) {
   const rp = join(dir, `${name}-R.csv`);
   const pp = join(dir, `${name}-P.csv`);
   const format = { header: 'frame,dE', frameColumn: true, evPerUnit, digits: 12 };
@@ -47,35 +67,63 @@ async function writePair(name: string, r: SyntheticTraceSpec, p: SyntheticTraceS
 }
 
 const marcus = marcusGapMoments(LAMBDA, DG0, T);
-const gaussR: SyntheticTraceSpec = { count: 20_000, meanEv: marcus.reactantMeanEv, sdEv: marcus.sdEv, seed: 'gauss-R' };
-const gaussP: SyntheticTraceSpec = { count: 20_000, meanEv: marcus.productMeanEv, sdEv: marcus.sdEv, seed: 'gauss-P' };
+const gaussR: SyntheticTraceSpec = {
+  count: 20_000,
+  meanEv: marcus.reactantMeanEv,
+  sdEv: marcus.sdEv,
+  seed: 'gauss-R',
+};
+const gaussP: SyntheticTraceSpec = {
+  count: 20_000,
+  meanEv: marcus.productMeanEv,
+  sdEv: marcus.sdEv,
+  seed: 'gauss-P',
+};
 
 describe('streaming trace analysis', () => {
   it('gives exactly the outputs of the in-memory reorg.gapSamples on the same samples', async () => {
     const f = await writePair('same', gaussR, gaussP);
-    const streamed = await analyzeTraces(input(f.rp, { unit: 'eV' }, f.rs), input(f.pp, { unit: 'eV' }, f.ps), T);
+    const streamed = await analyzeTraces(
+      input(f.rp, { unit: 'eV' }, f.rs),
+      input(f.pp, { unit: 'eV' }, f.ps),
+      T,
+    );
     // The in-memory method gets the values as the files hold them (12 decimals).
     const read = async (path: string) =>
-      Float64Array.from((await readFile(path, 'utf8')).trim().split('\n').slice(1).map((l) => Number(l.split(',')[1])));
+      Float64Array.from(
+        (await readFile(path, 'utf8'))
+          .trim()
+          .split('\n')
+          .slice(1)
+          .map((l) => Number(l.split(',')[1])),
+      );
     const warnings: Array<{ code: string; message: string }> = [];
     const inMemory = analyseGapSamples(
       { reactant: await read(f.rp), product: await read(f.pp), temperatureK: T },
       { warn: (code, message) => warnings.push({ code, message }) },
     );
-    expect(JSON.parse(JSON.stringify(streamed.outputs))).toEqual(JSON.parse(JSON.stringify(inMemory)));
+    expect(JSON.parse(JSON.stringify(streamed.outputs))).toEqual(
+      JSON.parse(JSON.stringify(inMemory)),
+    );
     expect(streamed.warnings).toEqual(warnings);
   });
 
   it('recovers λ and ΔG° of Gaussian linear-response samples; λ from means = λ from variances within sampling error', async () => {
     const f = await writePair('gauss', gaussR, gaussP);
-    const res = await analyzeTraces(input(f.rp, { unit: 'eV' }, f.rs), input(f.pp, { unit: 'eV' }, f.ps), T);
+    const res = await analyzeTraces(
+      input(f.rp, { unit: 'eV' }, f.rs),
+      input(f.pp, { unit: 'eV' }, f.ps),
+      T,
+    );
     const o = res.outputs as Record<string, number> & { standardErrors: Record<string, number> };
     const se = o.standardErrors.lambdaFromMeans;
     expect(Math.abs(o.lambdaFromMeans - LAMBDA)).toBeLessThan(4 * se);
     expect(Math.abs(o.deltaG0FromMeans - DG0)).toBeLessThan(4 * se);
     // Relative SE of a variance from N independent normal samples: √(2/(N−1)) ≈ 1 %.
     expect(o.lambdaFromVarianceReactant / LAMBDA).toBeCloseTo(1, 1);
-    expect(Math.abs(o.lambdaFromVarianceProduct / LAMBDA - 1)).toBeLessThan(4 * Math.sqrt(2 / 19_999));
+    expect(Math.abs(o.lambdaFromVarianceProduct / LAMBDA - 1)).toBeLessThan(
+      4 * Math.sqrt(2 / 19_999),
+    );
     expect(Math.abs(o.linearResponseRatio - 1)).toBeLessThan(0.05);
     expect(res.warnings.map((w) => w.code)).not.toContain('gap-nonlinear-response');
     expect(res.sources.reactant.sampleCount).toBe(20_000);
@@ -88,7 +136,11 @@ describe('streaming trace analysis', () => {
       { count: 20_000, meanEv: -0.3 + 0.8, sdEv: Math.sqrt(2 * 1.0 * kT), seed: 'nl-R' },
       { count: 20_000, meanEv: -0.3 - 0.8, sdEv: Math.sqrt(2 * 0.61 * kT), seed: 'nl-P' },
     );
-    const res = await analyzeTraces(input(f.rp, { unit: 'eV' }, f.rs), input(f.pp, { unit: 'eV' }, f.ps), T);
+    const res = await analyzeTraces(
+      input(f.rp, { unit: 'eV' }, f.rs),
+      input(f.pp, { unit: 'eV' }, f.ps),
+      T,
+    );
     expect(res.warnings.map((w) => w.code)).toContain('gap-nonlinear-response');
   });
 
@@ -99,8 +151,16 @@ describe('streaming trace analysis', () => {
       { ...gaussR, count: 200_000, phi, seed: 'ar-R' },
       { ...gaussP, count: 200_000, phi, seed: 'ar-P' },
     );
-    const res = await analyzeTraces(input(f.rp, { unit: 'eV' }, f.rs), input(f.pp, { unit: 'eV' }, f.ps), T);
-    const o = res.outputs as { standardErrors: Record<string, number>; naiveStandardErrors: Record<string, number>; statisticalInefficiency: Record<string, number> };
+    const res = await analyzeTraces(
+      input(f.rp, { unit: 'eV' }, f.rs),
+      input(f.pp, { unit: 'eV' }, f.ps),
+      T,
+    );
+    const o = res.outputs as {
+      standardErrors: Record<string, number>;
+      naiveStandardErrors: Record<string, number>;
+      statisticalInefficiency: Record<string, number>;
+    };
     const expected = (1 + phi) / (1 - phi);
     // The plateau SE has a relative error ≈ 1/√(2(n_b − 1)); allow 35 % on the inefficiency.
     expect(o.statisticalInefficiency.reactant / expected).toBeGreaterThan(0.65);
@@ -113,35 +173,66 @@ describe('streaming trace analysis', () => {
   it('gives the same λ in eV for a file written in kcal/mol as for its eV twin', async () => {
     const ev = await writePair('twin-ev', gaussR, gaussP);
     const kcal = await writePair('twin-kcal', gaussR, gaussP, 1 / KCAL_PER_EV);
-    const a = await analyzeTraces(input(ev.rp, { unit: 'eV' }, ev.rs), input(ev.pp, { unit: 'eV' }, ev.ps), T);
-    const b = await analyzeTraces(input(kcal.rp, { unit: 'kcal/mol' }, kcal.rs), input(kcal.pp, { unit: 'kcal/mol' }, kcal.ps), T);
+    const a = await analyzeTraces(
+      input(ev.rp, { unit: 'eV' }, ev.rs),
+      input(ev.pp, { unit: 'eV' }, ev.ps),
+      T,
+    );
+    const b = await analyzeTraces(
+      input(kcal.rp, { unit: 'kcal/mol' }, kcal.rs),
+      input(kcal.pp, { unit: 'kcal/mol' }, kcal.ps),
+      T,
+    );
     const la = (a.outputs as Record<string, number>).lambdaFromMeans;
     const lb = (b.outputs as Record<string, number>).lambdaFromMeans;
     expect(Math.abs(lb / la - 1)).toBeLessThan(1e-9);
     // Read as eV, the kcal/mol file would be off by the factor 23.06 (a guard that units matter).
-    const wrong = await analyzeTraces(input(kcal.rp, { unit: 'eV' }, kcal.rs), input(kcal.pp, { unit: 'eV' }, kcal.ps), T);
-    expect((wrong.outputs as Record<string, number>).lambdaFromMeans / la).toBeCloseTo(KCAL_PER_EV, 6);
+    const wrong = await analyzeTraces(
+      input(kcal.rp, { unit: 'eV' }, kcal.rs),
+      input(kcal.pp, { unit: 'eV' }, kcal.ps),
+      T,
+    );
+    expect((wrong.outputs as Record<string, number>).lambdaFromMeans / la).toBeCloseTo(
+      KCAL_PER_EV,
+      6,
+    );
   });
 
   it('refuses swapped files (λ from means ≤ 0) and constant data', async () => {
     const f = await writePair('swap', gaussP, gaussR);
-    await expect(analyzeTraces(input(f.rp, { unit: 'eV' }, f.rs), input(f.pp, { unit: 'eV' }, f.ps), T)).rejects.toThrow(/Negative λ from means/);
+    await expect(
+      analyzeTraces(input(f.rp, { unit: 'eV' }, f.rs), input(f.pp, { unit: 'eV' }, f.ps), T),
+    ).rejects.toThrow(/Negative λ from means/);
     const flat = join(dir, 'flat.csv');
     await writeFile(flat, 'dE\n' + '0.5\n'.repeat(100));
     const g = await writePair('flat-ok', gaussR, gaussP);
-    const error = await analyzeTraces(input(flat, { unit: 'eV' }, 400), input(g.pp, { unit: 'eV' }, g.ps), T).catch((e) => e);
+    const error = await analyzeTraces(
+      input(flat, { unit: 'eV' }, 400),
+      input(g.pp, { unit: 'eV' }, g.ps),
+      T,
+    ).catch((e) => e);
     expect(error).toBeInstanceOf(TraceAnalysisRefusal);
     expect((error as TraceAnalysisRefusal).errors[0].message).toMatch(/All values identical/);
   });
 
   it('says on the result that bad lines were skipped', async () => {
     const rp = join(dir, 'with-bad-lines.csv');
-    const text = 'dE\n' + [...syntheticGapSamples({ ...gaussR, count: 500 })].map((x) => x.toFixed(6)).join('\n') + '\nbad\nnan\n';
+    const text =
+      'dE\n' +
+      [...syntheticGapSamples({ ...gaussR, count: 500 })].map((x) => x.toFixed(6)).join('\n') +
+      '\nbad\nnan\n';
     await writeFile(rp, text);
     const f = await writePair('skip', gaussR, gaussP);
-    const res = await analyzeTraces(input(rp, { unit: 'eV', skipBadLines: true }, text.length), input(f.pp, { unit: 'eV' }, f.ps), T);
+    const res = await analyzeTraces(
+      input(rp, { unit: 'eV', skipBadLines: true }, text.length),
+      input(f.pp, { unit: 'eV' }, f.ps),
+      T,
+    );
     expect(res.sources.reactant.skippedLineCount).toBe(2);
-    expect(res.warnings).toContainEqual({ code: 'trace-bad-lines-skipped', message: '2 bad lines were skipped in the reactant file (with-bad-lines.csv).' });
+    expect(res.warnings).toContainEqual({
+      code: 'trace-bad-lines-skipped',
+      message: '2 bad lines were skipped in the reactant file (with-bad-lines.csv).',
+    });
   });
 });
 
@@ -160,10 +251,29 @@ describe('gapwise traces analyze', () => {
   it('prints the JSON the analysis produces (same code), for kcal/mol files with --column', async () => {
     const f = await writePair('cli', gaussR, gaussP, 1 / KCAL_PER_EV);
     const out = capture();
-    const code = await runTracesAnalyze(['--reactant', f.rp, '--product', f.pp, '--unit', 'kcal/mol', '--column', '2', '--temperature', '300'], out.stream, capture().stream);
+    const code = await runTracesAnalyze(
+      [
+        '--reactant',
+        f.rp,
+        '--product',
+        f.pp,
+        '--unit',
+        'kcal/mol',
+        '--column',
+        '2',
+        '--temperature',
+        '300',
+      ],
+      out.stream,
+      capture().stream,
+    );
     expect(code).toBe(0);
     const printed = JSON.parse(out.text());
-    const direct = await analyzeTraces(input(f.rp, { unit: 'kcal/mol', column: 2 }, f.rs), input(f.pp, { unit: 'kcal/mol', column: 2 }, f.ps), 300);
+    const direct = await analyzeTraces(
+      input(f.rp, { unit: 'kcal/mol', column: 2 }, f.rs),
+      input(f.pp, { unit: 'kcal/mol', column: 2 }, f.ps),
+      300,
+    );
     expect(printed.outputs).toEqual(JSON.parse(JSON.stringify(direct.outputs)));
     expect(printed.sources.reactant.sha256).toMatch(/^[0-9a-f]{64}$/);
     expect(printed.outputs.lambdaFromMeans).toBeCloseTo(LAMBDA, 1);
@@ -174,7 +284,13 @@ describe('gapwise traces analyze', () => {
     await writeFile(bad, 'dE\n0.1\nabc\n');
     const f = await writePair('cli-bad', gaussR, gaussP);
     const out = capture();
-    expect(await runTracesAnalyze(['--reactant', bad, '--product', f.pp, '--unit', 'eV'], out.stream, capture().stream)).toBe(2);
+    expect(
+      await runTracesAnalyze(
+        ['--reactant', bad, '--product', f.pp, '--unit', 'eV'],
+        out.stream,
+        capture().stream,
+      ),
+    ).toBe(2);
     expect(JSON.parse(out.text())).toEqual({
       ok: false,
       errors: [
@@ -182,7 +298,19 @@ describe('gapwise traces analyze', () => {
         { field: 'reactantSamples', message: '1 bad line in total.' },
       ],
     });
-    expect(await runTracesAnalyze(['--reactant', bad, '--unit', 'eV'], capture().stream, capture().stream)).toBe(1);
-    expect(await runTracesAnalyze(['--reactant', bad, '--product', bad, '--unit', 'kcal'], capture().stream, capture().stream)).toBe(1);
+    expect(
+      await runTracesAnalyze(
+        ['--reactant', bad, '--unit', 'eV'],
+        capture().stream,
+        capture().stream,
+      ),
+    ).toBe(1);
+    expect(
+      await runTracesAnalyze(
+        ['--reactant', bad, '--product', bad, '--unit', 'kcal'],
+        capture().stream,
+        capture().stream,
+      ),
+    ).toBe(1);
   });
 });

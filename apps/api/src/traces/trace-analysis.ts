@@ -81,24 +81,44 @@ export async function analyzeTraces(
     const totalBytes = Math.max(1, reactant.sizeBytes + product.sizeBytes);
     const bytesSeen = { reactant: 0, product: 0 };
     const report = () =>
-      options.onProgress?.((PASS_ONE_WEIGHT * (bytesSeen.reactant + bytesSeen.product)) / totalBytes);
+      options.onProgress?.(
+        (PASS_ONE_WEIGHT * (bytesSeen.reactant + bytesSeen.product)) / totalBytes,
+      );
     const [r, p] = await Promise.all([
-      passOne('reactant', reactant, folder, (bytes) => {
-        bytesSeen.reactant = bytes;
-        report();
-      }, options.signal),
-      passOne('product', product, folder, (bytes) => {
-        bytesSeen.product = bytes;
-        report();
-      }, options.signal),
+      passOne(
+        'reactant',
+        reactant,
+        folder,
+        (bytes) => {
+          bytesSeen.reactant = bytes;
+          report();
+        },
+        options.signal,
+      ),
+      passOne(
+        'product',
+        product,
+        folder,
+        (bytes) => {
+          bytesSeen.product = bytes;
+          report();
+        },
+        options.signal,
+      ),
     ]);
     const warnings: CalcWarning[] = [];
     const sink = { warn: (code: string, message: string) => warnings.push({ code, message }) };
     let outputs: Record<string, unknown>;
     try {
       const plan = planGapHistograms(r.summary, p.summary);
-      const own = { reactant: new HistogramCounter(plan.reactantEdges), product: new HistogramCounter(plan.productEdges) };
-      const common = { reactant: new HistogramCounter(plan.commonEdges), product: new HistogramCounter(plan.commonEdges) };
+      const own = {
+        reactant: new HistogramCounter(plan.reactantEdges),
+        product: new HistogramCounter(plan.productEdges),
+      };
+      const common = {
+        reactant: new HistogramCounter(plan.commonEdges),
+        product: new HistogramCounter(plan.commonEdges),
+      };
       const total = r.count + p.count;
       let done = 0;
       for (const [state, pass] of [
@@ -146,8 +166,20 @@ export async function analyzeTraces(
       method: 'reorg.gapSamples',
       temperatureK,
       sources: {
-        reactant: { ...reactant.info, sampleCount: r.count, skippedLineCount: r.skipped, columnIndex: r.columnIndex, columnName: r.columnName },
-        product: { ...product.info, sampleCount: p.count, skippedLineCount: p.skipped, columnIndex: p.columnIndex, columnName: p.columnName },
+        reactant: {
+          ...reactant.info,
+          sampleCount: r.count,
+          skippedLineCount: r.skipped,
+          columnIndex: r.columnIndex,
+          columnName: r.columnName,
+        },
+        product: {
+          ...product.info,
+          sampleCount: p.count,
+          skippedLineCount: p.skipped,
+          columnIndex: p.columnIndex,
+          columnName: p.columnName,
+        },
       },
       outputs,
       warnings,
@@ -191,7 +223,8 @@ async function passOne(
         },
       );
     } catch (error) {
-      if (error instanceof TraceFileError) throw new TraceAnalysisRefusal([{ field, message: error.message }]);
+      if (error instanceof TraceFileError)
+        throw new TraceAnalysisRefusal([{ field, message: error.message }]);
       throw error;
     }
     const problems = traceProblems(read.summary, input.settings.skipBadLines === true);

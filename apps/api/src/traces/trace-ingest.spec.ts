@@ -5,7 +5,10 @@ import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { ListObjectsV2Command } from '@aws-sdk/client-s3';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
-import { startObjectStore, type ObjectStore } from '../../../../docker-free-scripts/s3/object-store';
+import {
+  startObjectStore,
+  type ObjectStore,
+} from '../../../../docker-free-scripts/s3/object-store';
 import { TraceRefusedError, ingestTrace } from './trace-ingest';
 import { TraceObjectStore } from './trace-object-store';
 
@@ -91,7 +94,9 @@ describe('trace ingest into object storage', () => {
     ['non-finite', 'dE\n1\n1e400\n', 'Line 3: non-finite value.'],
     ['header only', 'frame,dE\n', 'No data rows found.'],
   ])('refuses a %s file and stores nothing', async (_kind, text, message) => {
-    const error = await ingestTrace(store, chunked(Buffer.from(text)), { unit: 'eV' }).catch((e) => e);
+    const error = await ingestTrace(store, chunked(Buffer.from(text)), { unit: 'eV' }).catch(
+      (e) => e,
+    );
     expect(error).toBeInstanceOf(TraceRefusedError);
     expect((error as TraceRefusedError).problems[0].message).toBe(message);
     expect(await listKeys()).toEqual([]);
@@ -99,7 +104,9 @@ describe('trace ingest into object storage', () => {
 
   it('refuses a large multipart file whose last line is bad, leaving no object', async () => {
     const text = traceText(800_000) + '800000,oops\n'; // ≈ 14 MB: two 8 MB parts
-    const error = await ingestTrace(store, chunked(Buffer.from(text), 1 << 20), { unit: 'eV' }).catch((e) => e);
+    const error = await ingestTrace(store, chunked(Buffer.from(text), 1 << 20), {
+      unit: 'eV',
+    }).catch((e) => e);
     expect(error).toBeInstanceOf(TraceRefusedError);
     expect((error as TraceRefusedError).problems[0]).toMatchObject({ line: 800_002 });
     expect(await listKeys()).toEqual([]);
@@ -115,7 +122,9 @@ describe('trace ingest into object storage', () => {
         if (sent > 10 << 20) throw new Error('client went away');
       }
     }
-    await expect(ingestTrace(store, brokenOff(), { unit: 'eV' })).rejects.toThrow('client went away');
+    await expect(ingestTrace(store, brokenOff(), { unit: 'eV' })).rejects.toThrow(
+      'client went away',
+    );
     expect(await listKeys()).toEqual([]);
     // No completed object either in the store's own folder for the bucket's content.
     const files = await readdir(join(directory, 'gapwise'), { recursive: true });

@@ -51,7 +51,8 @@ export async function ingestTrace(
         },
       });
     } catch (error) {
-      if (error instanceof TraceFileError) throw new TraceRefusedError([{ field: 'file', message: error.message }], null);
+      if (error instanceof TraceFileError)
+        throw new TraceRefusedError([{ field: 'file', message: error.message }], null);
       throw error;
     }
     const problems = traceProblems(result.summary, settings.skipBadLines === true);
@@ -59,7 +60,13 @@ export async function ingestTrace(
     const sha256 = hash.digest('hex');
     const { key } = await staged.commit(sha256);
     committed = true;
-    return { sha256, objectKey: key, sizeBytes: result.rawBytes, gzip: result.gzip, summary: result.summary };
+    return {
+      sha256,
+      objectKey: key,
+      sizeBytes: result.rawBytes,
+      gzip: result.gzip,
+      summary: result.summary,
+    };
   } finally {
     if (!committed) await staged.discard();
   }

@@ -31,7 +31,11 @@ const UPPER_E = 0x45;
  * Reads bytes [start, end) of `buf` as a number. Returns the value (possibly ±Infinity when the
  * text overflows a double) or `NOT_A_NUMBER` when the text breaks the grammar.
  */
-export function readStrictNumber(buf: Uint8Array, start: number, end: number): number | typeof NOT_A_NUMBER {
+export function readStrictNumber(
+  buf: Uint8Array,
+  start: number,
+  end: number,
+): number | typeof NOT_A_NUMBER {
   let i = start;
   if (i >= end) return NOT_A_NUMBER;
   let negative = false;
@@ -112,7 +116,12 @@ export const NOT_NUMBER = 1;
  * Same as `readStrictNumber`, for hot loops: writes the value to `out[0]` and returns `PARSED`
  * or `NOT_NUMBER` — a small integer, so no number object is allocated per call.
  */
-export function parseStrictInto(buf: Uint8Array, start: number, end: number, out: Float64Array): number {
+export function parseStrictInto(
+  buf: Uint8Array,
+  start: number,
+  end: number,
+  out: Float64Array,
+): number {
   let i = start;
   if (i >= end) return NOT_NUMBER;
   let negative = false;
@@ -192,7 +201,17 @@ export function latin1(buf: Uint8Array, start: number, end: number): string {
 }
 
 /** Words many languages parse as floats that the strict grammar refuses as non-finite (A18). */
-const NON_FINITE_WORDS = new Set(['nan', 'inf', 'infinity', '+nan', '-nan', '+inf', '-inf', '+infinity', '-infinity']);
+const NON_FINITE_WORDS = new Set([
+  'nan',
+  'inf',
+  'infinity',
+  '+nan',
+  '-nan',
+  '+inf',
+  '-inf',
+  '+infinity',
+  '-infinity',
+]);
 
 export function isNonFiniteWord(text: string): boolean {
   return NON_FINITE_WORDS.has(text.toLowerCase());

@@ -152,8 +152,14 @@ export class TraceObjectStore {
       await this.client.send(new HeadObjectCommand({ Bucket: this.bucket, Key: key }));
       return true;
     } catch (error) {
-      const status = (error as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode;
-      if (status === 404 || (error as Error).name === 'NotFound' || (error as Error).name === 'NoSuchKey') return false;
+      const status = (error as { $metadata?: { httpStatusCode?: number } }).$metadata
+        ?.httpStatusCode;
+      if (
+        status === 404 ||
+        (error as Error).name === 'NotFound' ||
+        (error as Error).name === 'NoSuchKey'
+      )
+        return false;
       throw error;
     }
   }

@@ -6,7 +6,11 @@ import { type TraceParseSettings } from './trace-parser';
 import { readTrace, traceProblems } from './trace-stream';
 
 /** Parses a whole text (or bytes) fed in chunks of `chunkSize` bytes; collects the values. */
-async function parse(text: string | Buffer, settings: Partial<TraceParseSettings> = {}, chunkSize = 1 << 16) {
+async function parse(
+  text: string | Buffer,
+  settings: Partial<TraceParseSettings> = {},
+  chunkSize = 1 << 16,
+) {
   const bytes = typeof text === 'string' ? Buffer.from(text, 'utf8') : text;
   const values: number[] = [];
   async function* chunks() {
@@ -15,7 +19,11 @@ async function parse(text: string | Buffer, settings: Partial<TraceParseSettings
   const result = await readTrace(chunks(), { unit: 'eV', ...settings }, (v, n) => {
     for (let i = 0; i < n; i++) values.push(v[i]);
   });
-  return { ...result, values, problems: traceProblems(result.summary, settings.skipBadLines ?? false) };
+  return {
+    ...result,
+    values,
+    problems: traceProblems(result.summary, settings.skipBadLines ?? false),
+  };
 }
 
 const num = (s: string) => {
@@ -32,9 +40,18 @@ describe('strict number reading', () => {
         fc.constantFrom('', '+', '-'),
         digits,
         fc.option(fc.stringMatching(/^[0-9]{0,20}$/)),
-        fc.option(fc.tuple(fc.constantFrom('e', 'E'), fc.constantFrom('', '+', '-'), fc.integer({ min: 0, max: 400 }))),
+        fc.option(
+          fc.tuple(
+            fc.constantFrom('e', 'E'),
+            fc.constantFrom('', '+', '-'),
+            fc.integer({ min: 0, max: 400 }),
+          ),
+        ),
       )
-      .map(([sign, int, frac, exp]) => `${sign}${int}${frac === null ? '' : `.${frac}`}${exp === null ? '' : `${exp[0]}${exp[1]}${exp[2]}`}`);
+      .map(
+        ([sign, int, frac, exp]) =>
+          `${sign}${int}${frac === null ? '' : `.${frac}`}${exp === null ? '' : `${exp[0]}${exp[1]}${exp[2]}`}`,
+      );
     fc.assert(
       fc.property(text, (t) => {
         expect(Object.is(num(t), Number(t))).toBe(true);
@@ -53,17 +70,33 @@ describe('strict number reading', () => {
     expect(num('1e-400')).toBe(0);
   });
 
-  it.each(['', '.', '-', 'abc', '1,5', '0x10', '1e', '1e+', '1_000', 'nan', 'NaN', 'inf', 'Infinity', '1.2.3', '--1', '1 2'])(
-    'refuses %j',
-    (t) => {
-      expect(num(t)).toBe(NOT_A_NUMBER);
-    },
-  );
+  it.each([
+    '',
+    '.',
+    '-',
+    'abc',
+    '1,5',
+    '0x10',
+    '1e',
+    '1e+',
+    '1_000',
+    'nan',
+    'NaN',
+    'inf',
+    'Infinity',
+    '1.2.3',
+    '--1',
+    '1 2',
+  ])('refuses %j', (t) => {
+    expect(num(t)).toBe(NOT_A_NUMBER);
+  });
 });
 
 describe('trace file parsing', () => {
   it('reads a CSV with a header, comments and CRLF line ends; the last column by default', async () => {
-    const r = await parse('# made by a seeded generator\r\nframe,dE\r\n1,0.5\r\n2,0.25\r\n# note\r\n3,-1e-1\r\n');
+    const r = await parse(
+      '# made by a seeded generator\r\nframe,dE\r\n1,0.5\r\n2,0.25\r\n# note\r\n3,-1e-1\r\n',
+    );
     expect(r.problems).toEqual([]);
     expect(r.values).toEqual([0.5, 0.25, -0.1]);
     expect(r.summary).toMatchObject({
@@ -112,7 +145,8 @@ describe('trace file parsing', () => {
   });
 
   it('reads a gzip-compressed file, detected by its magic bytes', async () => {
-    const text = 'dE\n' + Array.from({ length: 1000 }, (_, i) => `${(i / 1000).toFixed(3)}`).join('\n') + '\n';
+    const text =
+      'dE\n' + Array.from({ length: 1000 }, (_, i) => `${(i / 1000).toFixed(3)}`).join('\n') + '\n';
     const r = await parse(gzipSync(Buffer.from(text)), {}, 777);
     expect(r.gzip).toBe(true);
     expect(r.values).toHaveLength(1000);
@@ -161,7 +195,9 @@ describe('trace file parsing', () => {
     for (let i = 0; i < 100; i++) lines.push(i % 2 === 0 ? `${i}` : 'x');
     const r = await parse(lines.join('\n'));
     expect(r.summary.badLines.count).toBe(50);
-    expect(r.summary.badLines.first.map((b) => b.line)).toEqual(Array.from({ length: 20 }, (_, k) => 3 + 2 * k));
+    expect(r.summary.badLines.first.map((b) => b.line)).toEqual(
+      Array.from({ length: 20 }, (_, k) => 3 + 2 * k),
+    );
     expect(r.problems.at(-1)?.message).toBe('50 bad lines in total (the first 20 are listed).');
   });
 
@@ -175,7 +211,9 @@ describe('trace file parsing', () => {
 
   it('refuses a header-only file, an empty file and a file of comments', async () => {
     for (const text of ['frame,dE\n', '', '# nothing\n\n']) {
-      expect((await parse(text)).problems).toEqual([{ field: 'file', message: 'No data rows found.' }]);
+      expect((await parse(text)).problems).toEqual([
+        { field: 'file', message: 'No data rows found.' },
+      ]);
     }
   });
 
@@ -185,7 +223,9 @@ describe('trace file parsing', () => {
   });
 
   it('refuses an unknown unit and a zero column index before reading', async () => {
-    await expect(parse('1\n', { unit: 'kcal' as never })).rejects.toThrow(/Unrecognised unit 'kcal'/);
+    await expect(parse('1\n', { unit: 'kcal' as never })).rejects.toThrow(
+      /Unrecognised unit 'kcal'/,
+    );
     await expect(parse('1\n', { column: 0 })).rejects.toThrow(/Column index/);
   });
 });

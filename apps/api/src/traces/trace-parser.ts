@@ -13,7 +13,14 @@
  */
 import { toCanonical } from '@gapwise/calc';
 import { TRACE_FILE_UNITS, type TraceFileUnit } from '@gapwise/contracts';
-import { NOT_A_NUMBER, PARSED, isNonFiniteWord, latin1, parseStrictInto, readStrictNumber } from './trace-number';
+import {
+  NOT_A_NUMBER,
+  PARSED,
+  isNonFiniteWord,
+  latin1,
+  parseStrictInto,
+  readStrictNumber,
+} from './trace-number';
 
 export const TRACE_UNITS = TRACE_FILE_UNITS;
 export type TraceUnit = TraceFileUnit;
@@ -103,18 +110,27 @@ export class TraceLineParser {
     private readonly sink: TraceSink,
   ) {
     if (!(TRACE_UNITS as readonly string[]).includes(settings.unit)) {
-      throw new TraceSettingsError('unit', `Unrecognised unit '${settings.unit}' for an energy; use one of ${TRACE_UNITS.join(', ')}.`);
+      throw new TraceSettingsError(
+        'unit',
+        `Unrecognised unit '${settings.unit}' for an energy; use one of ${TRACE_UNITS.join(', ')}.`,
+      );
     }
     this.scale = toCanonical(1, settings.unit, 'energy');
     this.skip = settings.skipBadLines === true;
     const delimiter = settings.delimiter ?? 'auto';
     if (!(TRACE_DELIMITERS as readonly string[]).includes(delimiter)) {
-      throw new TraceSettingsError('delimiter', `Delimiter must be one of ${TRACE_DELIMITERS.join(', ')}.`);
+      throw new TraceSettingsError(
+        'delimiter',
+        `Delimiter must be one of ${TRACE_DELIMITERS.join(', ')}.`,
+      );
     }
     this.delimiter = delimiter === 'auto' ? null : delimiter;
     const column = settings.column;
     if (typeof column === 'number' && (!Number.isInteger(column) || column < 1)) {
-      throw new TraceSettingsError('column', 'Column index must be a whole number ≥ 1 (the first column is 1).');
+      throw new TraceSettingsError(
+        'column',
+        'Column index must be a whole number ≥ 1 (the first column is 1).',
+      );
     }
     if (typeof column === 'string' && column.trim() === '') {
       throw new TraceSettingsError('column', 'Column name must not be empty.');
@@ -129,7 +145,9 @@ export class TraceLineParser {
   /** Feeds the next chunk of (decompressed) bytes. */
   push(chunk: Uint8Array): void {
     if (this.fatal) return;
-    let buf = Buffer.isBuffer(chunk) ? chunk : Buffer.from(chunk.buffer, chunk.byteOffset, chunk.byteLength);
+    let buf = Buffer.isBuffer(chunk)
+      ? chunk
+      : Buffer.from(chunk.buffer, chunk.byteOffset, chunk.byteLength);
     let pos = 0;
     if (this.atStart) {
       if (this.carry) {
@@ -187,7 +205,7 @@ export class TraceLineParser {
       header: this.header,
       columnCount: this.columnCount,
       columnIndex: this.column + 1,
-      columnName: this.header && this.column >= 0 ? this.header[this.column] ?? null : null,
+      columnName: this.header && this.column >= 0 ? (this.header[this.column] ?? null) : null,
       badLines: { count: this.badCount, first: [...this.badFirst] },
       fatal: this.fatal,
       minEv: n > 0 ? this.min : null,
@@ -220,7 +238,10 @@ export class TraceLineParser {
     }
     const count = this.splitFields(buf, p, end);
     if (count !== this.columnCount) {
-      this.bad(lineNo, `Line ${lineNo}: expected ${this.columnCount} column${this.columnCount === 1 ? '' : 's'}${this.describeColumns()}, found ${count}.`);
+      this.bad(
+        lineNo,
+        `Line ${lineNo}: expected ${this.columnCount} column${this.columnCount === 1 ? '' : 's'}${this.describeColumns()}, found ${count}.`,
+      );
       return;
     }
     const slot = this.slot;
@@ -353,13 +374,16 @@ export class TraceLineParser {
       const s = this.fieldStart[f];
       const e = this.fieldEnd[f];
       const text = latin1(buf, s, e);
-      if (s < e && (readStrictNumber(buf, s, e) !== NOT_A_NUMBER || isNonFiniteWord(text))) numeric++;
+      if (s < e && (readStrictNumber(buf, s, e) !== NOT_A_NUMBER || isNonFiniteWord(text)))
+        numeric++;
     }
     const isHeader = numeric === 0;
     if (isHeader) {
       this.header = [];
       for (let f = 0; f < count; f++) {
-        this.header.push(Buffer.from(buf.subarray(this.fieldStart[f], this.fieldEnd[f])).toString('utf8'));
+        this.header.push(
+          Buffer.from(buf.subarray(this.fieldStart[f], this.fieldEnd[f])).toString('utf8'),
+        );
       }
     }
     this.chooseColumn();
@@ -393,7 +417,10 @@ export class TraceLineParser {
     let index = this.header.indexOf(column);
     if (index < 0) index = this.header.findIndex((h) => h.toLowerCase() === column.toLowerCase());
     if (index < 0) {
-      this.fatal = { field: 'column', message: `Column '${column}' is not in the header (${this.header.join(',')}).` };
+      this.fatal = {
+        field: 'column',
+        message: `Column '${column}' is not in the header (${this.header.join(',')}).`,
+      };
       return;
     }
     this.column = index;

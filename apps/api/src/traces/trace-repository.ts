@@ -17,12 +17,15 @@ type Row = Record<string, unknown>;
 /** TypeORM answers UPDATE … RETURNING with [rows, affected count]. */
 async function updateReturning(db: EntityManager, sql: string, params: unknown[]): Promise<Row[]> {
   const raw: unknown = await db.query(sql, params);
-  if (Array.isArray(raw) && raw.length === 2 && Array.isArray(raw[0]) && typeof raw[1] === 'number') return raw[0] as Row[];
+  if (Array.isArray(raw) && raw.length === 2 && Array.isArray(raw[0]) && typeof raw[1] === 'number')
+    return raw[0] as Row[];
   return raw as Row[];
 }
 
-const iso = (value: unknown): string => (value instanceof Date ? value.toISOString() : String(value));
-const isoOrNull = (value: unknown): string | null => (value === null || value === undefined ? null : iso(value));
+const iso = (value: unknown): string =>
+  value instanceof Date ? value.toISOString() : String(value);
+const isoOrNull = (value: unknown): string | null =>
+  value === null || value === undefined ? null : iso(value);
 
 const TRACE_COLUMNS = `t.id, t.workspace_id, t.state, t.file_name, t.size_bytes, t.sha256, t.object_key, t.gzip,
   t.unit, t.column_setting, t.column_index, t.column_name, t.delimiter, t.skip_bad_lines,
@@ -58,7 +61,9 @@ function toTrace(r: Row): StoredTrace {
     maxEv: Number(r['max_ev']),
     meanEv: Number(r['mean_ev']),
     uploadedAt: iso(r['uploaded_at']),
-    uploadedBy: r['uploaded_by'] ? { id: String(r['uploaded_by']), displayName: String(r['uploader_name'] ?? '') } : null,
+    uploadedBy: r['uploaded_by']
+      ? { id: String(r['uploaded_by']), displayName: String(r['uploader_name'] ?? '') }
+      : null,
   };
 }
 
@@ -99,9 +104,26 @@ export async function insertTrace(db: EntityManager, t: NewTrace): Promise<strin
        skipped_line_count, skipped_lines, min_ev, max_ev, mean_ev, uploaded_by)
      VALUES ($1,$2,$3,$4,$5,$6,$7,$8,$9,$10,$11,$12,$13,$14,$15,$16,$17,$18,$19,$20,$21) RETURNING id`,
     [
-      t.workspaceId, t.state, t.fileName, t.sizeBytes, t.sha256, t.objectKey, t.gzip, t.unit,
-      t.columnSetting, t.columnIndex, t.columnName, t.delimiter, t.skipBadLines, t.sampleCount,
-      t.lineCount, t.skippedLineCount, JSON.stringify(t.skippedLines), t.minEv, t.maxEv, t.meanEv,
+      t.workspaceId,
+      t.state,
+      t.fileName,
+      t.sizeBytes,
+      t.sha256,
+      t.objectKey,
+      t.gzip,
+      t.unit,
+      t.columnSetting,
+      t.columnIndex,
+      t.columnName,
+      t.delimiter,
+      t.skipBadLines,
+      t.sampleCount,
+      t.lineCount,
+      t.skippedLineCount,
+      JSON.stringify(t.skippedLines),
+      t.minEv,
+      t.maxEv,
+      t.meanEv,
       t.uploadedBy,
     ],
   );
@@ -127,7 +149,10 @@ export async function listTraces(db: EntityManager, workspaceId: string): Promis
 
 /** How many trace rows point at a stored object (objects are shared by identical uploads). */
 export async function countObjectReferences(db: EntityManager, objectKey: string): Promise<number> {
-  const rows: Array<{ n: string }> = await db.query('SELECT count(*) AS n FROM traces WHERE object_key = $1', [objectKey]);
+  const rows: Array<{ n: string }> = await db.query(
+    'SELECT count(*) AS n FROM traces WHERE object_key = $1',
+    [objectKey],
+  );
   return Number(rows[0]?.n ?? 0);
 }
 
@@ -157,7 +182,13 @@ function toAnalysis(r: Row, withResult = true): TraceAnalysis {
 
 export async function insertAnalysis(
   db: EntityManager,
-  a: { workspaceId: string; reactantTraceId: string; productTraceId: string; temperatureK: number; createdBy: string },
+  a: {
+    workspaceId: string;
+    reactantTraceId: string;
+    productTraceId: string;
+    temperatureK: number;
+    createdBy: string;
+  },
 ): Promise<string> {
   const rows: Array<{ id: string }> = await db.query(
     `INSERT INTO trace_analyses (workspace_id, reactant_trace_id, product_trace_id, temperature_k, created_by)
@@ -167,13 +198,23 @@ export async function insertAnalysis(
   return rows[0].id;
 }
 
-export async function findAnalysis(db: EntityManager, id: string, withResult = true): Promise<TraceAnalysis | null> {
-  const rows: Row[] = await db.query(`SELECT ${ANALYSIS_COLUMNS} FROM trace_analyses WHERE id = $1`, [id]);
+export async function findAnalysis(
+  db: EntityManager,
+  id: string,
+  withResult = true,
+): Promise<TraceAnalysis | null> {
+  const rows: Row[] = await db.query(
+    `SELECT ${ANALYSIS_COLUMNS} FROM trace_analyses WHERE id = $1`,
+    [id],
+  );
   return rows[0] ? toAnalysis(rows[0], withResult) : null;
 }
 
 /** Analyses of a workspace, newest first, without their (large) results. */
-export async function listAnalyses(db: EntityManager, workspaceId: string): Promise<TraceAnalysis[]> {
+export async function listAnalyses(
+  db: EntityManager,
+  workspaceId: string,
+): Promise<TraceAnalysis[]> {
   const rows: Row[] = await db.query(
     `SELECT ${ANALYSIS_COLUMNS.replace('result,', 'NULL AS result,')} FROM trace_analyses
      WHERE workspace_id = $1 ORDER BY created_at DESC, id`,
@@ -198,14 +239,21 @@ export async function claimAnalysis(db: EntityManager, id: string): Promise<Trac
 }
 
 export async function setProgress(db: EntityManager, id: string, progress: number): Promise<void> {
-  await db.query(`UPDATE trace_analyses SET progress = $2 WHERE id = $1 AND status = 'running'`, [id, progress]);
+  await db.query(`UPDATE trace_analyses SET progress = $2 WHERE id = $1 AND status = 'running'`, [
+    id,
+    progress,
+  ]);
 }
 
 /**
  * Stores the result and marks the analysis done, once: a second writer (a retried job that
  * raced a slow first one) finds it already done and changes nothing. Returns whether it wrote.
  */
-export async function completeAnalysis(db: EntityManager, id: string, result: TraceAnalysisResult): Promise<boolean> {
+export async function completeAnalysis(
+  db: EntityManager,
+  id: string,
+  result: TraceAnalysisResult,
+): Promise<boolean> {
   const rows = await updateReturning(
     db,
     `UPDATE trace_analyses SET status = 'done', progress = 1, result = $2, error = NULL, finished_at = now()

@@ -41,7 +41,9 @@ export interface TraceServicesOptions {
 }
 
 /** Object-store settings from the environment (defaults: the local fake of `npm run s3:start`). */
-export function traceStoreConfigFromEnv(env: Record<string, string | undefined> = process.env): TraceStoreConfig {
+export function traceStoreConfigFromEnv(
+  env: Record<string, string | undefined> = process.env,
+): TraceStoreConfig {
   const endpoint = env['S3_ENDPOINT'] || `http://127.0.0.1:${env['S3_PORT'] || '4568'}`;
   try {
     const url = new URL(endpoint);
@@ -60,16 +62,24 @@ export function traceStoreConfigFromEnv(env: Record<string, string | undefined> 
 }
 
 /** Queue timings from the environment (TRACE_JOB_EXPIRE_SECONDS, TRACE_JOB_RETRY_LIMIT). */
-export function traceQueueOptionsFromEnv(env: Record<string, string | undefined> = process.env): TraceQueueOptions {
+export function traceQueueOptionsFromEnv(
+  env: Record<string, string | undefined> = process.env,
+): TraceQueueOptions {
   const int = (name: string, fallback: number, min: number, max: number) => {
     const raw = env[name];
     if (raw === undefined || raw === '') return fallback;
     const n = Number(raw);
-    if (!Number.isInteger(n) || n < min || n > max) throw new ConfigError([`${name} must be an integer from ${min} to ${max}`]);
+    if (!Number.isInteger(n) || n < min || n > max)
+      throw new ConfigError([`${name} must be an integer from ${min} to ${max}`]);
     return n;
   };
   return {
-    expireInSeconds: int('TRACE_JOB_EXPIRE_SECONDS', DEFAULT_TRACE_QUEUE_OPTIONS.expireInSeconds, 1, 24 * 3600),
+    expireInSeconds: int(
+      'TRACE_JOB_EXPIRE_SECONDS',
+      DEFAULT_TRACE_QUEUE_OPTIONS.expireInSeconds,
+      1,
+      24 * 3600,
+    ),
     retryLimit: int('TRACE_JOB_RETRY_LIMIT', DEFAULT_TRACE_QUEUE_OPTIONS.retryLimit, 0, 100),
     retryDelaySeconds: DEFAULT_TRACE_QUEUE_OPTIONS.retryDelaySeconds,
   };
@@ -85,8 +95,14 @@ export function traceServicesOptionsFromEnv(
   connectionString: string,
 ): TraceServicesOptions {
   const maintenance = env['GAPWISE_TRACE_MAINTENANCE_SECONDS'];
-  if (maintenance !== undefined && maintenance !== '' && !(Number.isInteger(Number(maintenance)) && Number(maintenance) >= 1)) {
-    throw new ConfigError(['GAPWISE_TRACE_MAINTENANCE_SECONDS must be a whole number of seconds ≥ 1']);
+  if (
+    maintenance !== undefined &&
+    maintenance !== '' &&
+    !(Number.isInteger(Number(maintenance)) && Number(maintenance) >= 1)
+  ) {
+    throw new ConfigError([
+      'GAPWISE_TRACE_MAINTENANCE_SECONDS must be a whole number of seconds ≥ 1',
+    ]);
   }
   return {
     connectionString,
@@ -97,8 +113,12 @@ export function traceServicesOptionsFromEnv(
   };
 }
 
-export async function startTraceServices(db: DataSource, options: TraceServicesOptions): Promise<TraceServices> {
-  const store = options.store instanceof TraceObjectStore ? options.store : new TraceObjectStore(options.store);
+export async function startTraceServices(
+  db: DataSource,
+  options: TraceServicesOptions,
+): Promise<TraceServices> {
+  const store =
+    options.store instanceof TraceObjectStore ? options.store : new TraceObjectStore(options.store);
   const queueOptions = { ...DEFAULT_TRACE_QUEUE_OPTIONS, ...options.queueOptions };
   const boss = new PgBoss({
     connectionString: options.connectionString,
@@ -106,7 +126,9 @@ export async function startTraceServices(db: DataSource, options: TraceServicesO
     application_name: 'gapwise-traces',
     supervise: true,
     schedule: false,
-    ...(options.maintenanceIntervalSeconds ? { maintenanceIntervalSeconds: options.maintenanceIntervalSeconds } : {}),
+    ...(options.maintenanceIntervalSeconds
+      ? { maintenanceIntervalSeconds: options.maintenanceIntervalSeconds }
+      : {}),
   });
   boss.on('error', (error: Error) => options.log?.(`pg-boss (traces): ${error.message}`));
   await boss.start();
@@ -118,7 +140,11 @@ export async function startTraceServices(db: DataSource, options: TraceServicesO
     worker: null,
     enqueue: (tx, analysisId) => enqueueTraceAnalysis(boss, tx, analysisId, queueOptions),
     startWorker(workerOptions) {
-      services.worker ??= startTraceWorker(boss, db, store, { log: options.log, ...options.worker, ...workerOptions });
+      services.worker ??= startTraceWorker(boss, db, store, {
+        log: options.log,
+        ...options.worker,
+        ...workerOptions,
+      });
       return services.worker;
     },
     async stop() {

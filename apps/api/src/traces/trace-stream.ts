@@ -58,7 +58,9 @@ export async function readTrace(
   };
 
   for await (const piece of source) {
-    const chunk = Buffer.isBuffer(piece) ? piece : Buffer.from(piece.buffer, piece.byteOffset, piece.byteLength);
+    const chunk = Buffer.isBuffer(piece)
+      ? piece
+      : Buffer.from(piece.buffer, piece.byteOffset, piece.byteLength);
     rawBytes += chunk.length;
     if (options.onRawChunk) await options.onRawChunk(chunk);
     if (!decided) {
@@ -89,7 +91,9 @@ export async function readTrace(
     }
     if (gzipError) {
       g.destroy();
-      throw new TraceFileError(`The file starts like gzip data but cannot be decompressed (${(gzipError as Error).message}).`);
+      throw new TraceFileError(
+        `The file starts like gzip data but cannot be decompressed (${(gzipError as Error).message}).`,
+      );
     }
   }
   return { summary: parser.finish(), gzip: gunzip !== null, rawBytes };
@@ -110,7 +114,13 @@ export function traceProblems(summary: TraceParseSummary, skipBadLines: boolean)
   const problems: TraceProblem[] = [];
   if (summary.fatal) problems.push({ field: summary.fatal.field, message: summary.fatal.message });
   if (!skipBadLines && summary.badLines.count > 0) {
-    problems.push(...summary.badLines.first.map((b: BadLine) => ({ field: 'file', line: b.line, message: b.message })));
+    problems.push(
+      ...summary.badLines.first.map((b: BadLine) => ({
+        field: 'file',
+        line: b.line,
+        message: b.message,
+      })),
+    );
     problems.push({
       field: 'file',
       message: badLinesSentence(summary.badLines.count, summary.badLines.first.length),

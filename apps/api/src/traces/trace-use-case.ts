@@ -22,7 +22,13 @@ import { isUuid } from '../http/validate';
 import { inputOf, pairForCaller, savePair } from '../pairs/pair-use-case';
 import { requireRole } from '../workspaces/workspace-access';
 import { TraceRefusedError, ingestTrace, type IngestedTrace } from './trace-ingest';
-import { TRACE_DELIMITERS, TraceSettingsError, readColumnSetting, type TraceDelimiter, type TraceParseSettings } from './trace-parser';
+import {
+  TRACE_DELIMITERS,
+  TraceSettingsError,
+  readColumnSetting,
+  type TraceDelimiter,
+  type TraceParseSettings,
+} from './trace-parser';
 import {
   countObjectReferences,
   findAnalysis,
@@ -78,10 +84,17 @@ export function readUploadSettings(raw: Record<string, unknown>): UploadSettings
   const columnText = text('column');
   const column = readColumnSetting(columnText);
   if (typeof column === 'number' && !(Number.isSafeInteger(column) && column >= 1)) {
-    errors.push({ field: 'column', message: 'Column index must be a whole number ≥ 1 (the first column is 1).' });
+    errors.push({
+      field: 'column',
+      message: 'Column index must be a whole number ≥ 1 (the first column is 1).',
+    });
   }
   const skip = raw['skipBadLines'];
-  if (skip !== undefined && skip !== '' && !['0', '1', 'true', 'false', 'yes', 'no', 'on', 'off'].includes(String(skip).toLowerCase())) {
+  if (
+    skip !== undefined &&
+    skip !== '' &&
+    !['0', '1', 'true', 'false', 'yes', 'no', 'on', 'off'].includes(String(skip).toLowerCase())
+  ) {
     errors.push({ field: 'skipBadLines', message: 'must be true or false' });
   }
   if (errors.length) throw validationFailed(errors);
@@ -101,7 +114,10 @@ export function readUploadSettings(raw: Record<string, unknown>): UploadSettings
 export function cleanFileName(name: string | undefined): string {
   const base = (name ?? '').split(/[\\/]/).pop() ?? '';
   // eslint-disable-next-line no-control-regex
-  const clean = base.replace(/[\u0000-\u001f\u007f]/g, '').trim().slice(0, 200);
+  const clean = base
+    .replace(/[\u0000-\u001f\u007f]/g, '')
+    .trim()
+    .slice(0, 200);
   return clean || 'trace';
 }
 
@@ -117,14 +133,16 @@ export async function ingestUpload(
     if (error instanceof TraceRefusedError) {
       throw new AppError(400, 'trace-refused', refusalMessage(error), { fields: error.problems });
     }
-    if (error instanceof TraceSettingsError) throw validationFailed([{ field: error.field, message: error.message }]);
+    if (error instanceof TraceSettingsError)
+      throw validationFailed([{ field: error.field, message: error.message }]);
     throw error;
   }
 }
 
 function refusalMessage(error: TraceRefusedError): string {
   const bad = error.summary?.badLines.count ?? 0;
-  if (bad > 0) return `The file was refused: ${bad} bad line${bad === 1 ? '' : 's'} (nothing was stored).`;
+  if (bad > 0)
+    return `The file was refused: ${bad} bad line${bad === 1 ? '' : 's'} (nothing was stored).`;
   return `The file was refused: ${error.problems[0]?.message ?? 'unreadable'} (nothing was stored).`;
 }
 
@@ -187,12 +205,20 @@ export async function recordUploadedTrace(
   }
 }
 
-export async function listTracesFor(db: DataSource, userId: string, workspaceId: string): Promise<Trace[]> {
+export async function listTracesFor(
+  db: DataSource,
+  userId: string,
+  workspaceId: string,
+): Promise<Trace[]> {
   await requireRole(db.manager, workspaceId, userId);
   return (await listTraces(db.manager, workspaceId)).map(publicTrace);
 }
 
-export async function readTraceFor(db: DataSource, userId: string, traceId: string): Promise<Trace> {
+export async function readTraceFor(
+  db: DataSource,
+  userId: string,
+  traceId: string,
+): Promise<Trace> {
   if (!isUuid(traceId)) throw notFound('trace');
   const trace = await findTrace(db.manager, traceId);
   if (!trace) throw notFound('trace');
@@ -200,13 +226,22 @@ export async function readTraceFor(db: DataSource, userId: string, traceId: stri
   return publicTrace(trace);
 }
 
-export async function listAnalysesFor(db: DataSource, userId: string, workspaceId: string): Promise<TraceAnalysis[]> {
+export async function listAnalysesFor(
+  db: DataSource,
+  userId: string,
+  workspaceId: string,
+): Promise<TraceAnalysis[]> {
   await requireRole(db.manager, workspaceId, userId);
   return listAnalyses(db.manager, workspaceId);
 }
 
 /** The analysis if the caller is a member of its workspace (404 otherwise). */
-export async function readAnalysisFor(db: DataSource, userId: string, analysisId: string, withResult = true): Promise<TraceAnalysis> {
+export async function readAnalysisFor(
+  db: DataSource,
+  userId: string,
+  analysisId: string,
+  withResult = true,
+): Promise<TraceAnalysis> {
   if (!isUuid(analysisId)) throw notFound('trace analysis');
   const analysis = await findAnalysis(db.manager, analysisId, withResult);
   if (!analysis) throw notFound('trace analysis');
@@ -233,12 +268,19 @@ export async function startAnalysis(
     isUuid(body.reactantTraceId) ? findTrace(db.manager, body.reactantTraceId) : null,
     isUuid(body.productTraceId) ? findTrace(db.manager, body.productTraceId) : null,
   ]);
-  if (!reactant || reactant.workspaceId !== workspaceId) errors.push({ field: 'reactantTraceId', message: 'is not a trace of this workspace' });
-  else if (reactant.state !== 'reactant') errors.push({ field: 'reactantTraceId', message: 'is a product-state trace' });
-  if (!product || product.workspaceId !== workspaceId) errors.push({ field: 'productTraceId', message: 'is not a trace of this workspace' });
-  else if (product.state !== 'product') errors.push({ field: 'productTraceId', message: 'is a reactant-state trace' });
+  if (!reactant || reactant.workspaceId !== workspaceId)
+    errors.push({ field: 'reactantTraceId', message: 'is not a trace of this workspace' });
+  else if (reactant.state !== 'reactant')
+    errors.push({ field: 'reactantTraceId', message: 'is a product-state trace' });
+  if (!product || product.workspaceId !== workspaceId)
+    errors.push({ field: 'productTraceId', message: 'is not a trace of this workspace' });
+  else if (product.state !== 'product')
+    errors.push({ field: 'productTraceId', message: 'is a reactant-state trace' });
   if (!(body.temperature > 0) || !Number.isFinite(body.temperature)) {
-    errors.push({ field: 'temperature', message: 'Temperature must be > 0 K (absolute). Did you enter °C?' });
+    errors.push({
+      field: 'temperature',
+      message: 'Temperature must be > 0 K (absolute). Did you enter °C?',
+    });
   }
   if (errors.length) throw validationFailed(errors);
   const id = await db.transaction(async (tx) => {
@@ -269,10 +311,12 @@ const LAMBDA_KINDS = ['lambdaOuter', 'lambdaInner'] as const;
 /** Checks the attach body; every problem at once. */
 export function readAttachBody(body: unknown): TraceAttachRequest {
   const errors: FieldError[] = [];
-  if (!body || typeof body !== 'object' || Array.isArray(body)) throw validationFailed([{ field: '(body)', message: 'must be a JSON object' }]);
+  if (!body || typeof body !== 'object' || Array.isArray(body))
+    throw validationFailed([{ field: '(body)', message: 'must be a JSON object' }]);
   const b = body as Record<string, unknown>;
   for (const key of Object.keys(b)) {
-    if (!['pairId', 'parameters', 'lambdaKind', 'version'].includes(key)) errors.push({ field: key, message: 'is not a known field' });
+    if (!['pairId', 'parameters', 'lambdaKind', 'version'].includes(key))
+      errors.push({ field: key, message: 'is not a known field' });
   }
   if (!isUuid(b['pairId'])) errors.push({ field: 'pairId', message: 'must be a pair id' });
   const parameters = b['parameters'];
@@ -282,10 +326,14 @@ export function readAttachBody(body: unknown): TraceAttachRequest {
     parameters.some((p) => !(ATTACHABLE_TRACE_PARAMETERS as readonly unknown[]).includes(p)) ||
     new Set(parameters).size !== parameters.length
   ) {
-    errors.push({ field: 'parameters', message: `must list one or more of ${ATTACHABLE_TRACE_PARAMETERS.join(', ')}` });
+    errors.push({
+      field: 'parameters',
+      message: `must list one or more of ${ATTACHABLE_TRACE_PARAMETERS.join(', ')}`,
+    });
   }
   const lambdaKind = b['lambdaKind'] ?? 'lambdaOuter';
-  if (!(LAMBDA_KINDS as readonly unknown[]).includes(lambdaKind)) errors.push({ field: 'lambdaKind', message: `must be one of ${LAMBDA_KINDS.join(', ')}` });
+  if (!(LAMBDA_KINDS as readonly unknown[]).includes(lambdaKind))
+    errors.push({ field: 'lambdaKind', message: `must be one of ${LAMBDA_KINDS.join(', ')}` });
   const version = b['version'];
   if (version !== undefined && !(Number.isSafeInteger(version) && (version as number) >= 1)) {
     errors.push({ field: 'version', message: 'must be a whole number ≥ 1' });
@@ -317,15 +365,21 @@ export async function attachAnalysis(
   const { workspaceId } = await pairForCaller(db.manager, request.pairId, userId);
   if (workspaceId !== analysis.workspaceId) throw notFound('pair');
   if (analysis.status !== 'done' || !analysis.result) {
-    throw new AppError(409, 'analysis-not-done', 'The analysis has no result yet (status ' + analysis.status + ').');
+    throw new AppError(
+      409,
+      'analysis-not-done',
+      'The analysis has no result yet (status ' + analysis.status + ').',
+    );
   }
   const result = analysis.result;
   const out = result.outputs;
   const lambda = num(out['lambdaFromMeans']);
   const deltaG0 = num(out['deltaG0FromMeans']);
   const se = (out['standardErrors'] ?? {}) as Record<string, unknown>;
-  if (lambda === null || deltaG0 === null) throw new AppError(409, 'analysis-incomplete', 'The analysis result lacks λ or ΔG°.');
-  const skipped = result.sources.reactant.skippedLineCount + result.sources.product.skippedLineCount;
+  if (lambda === null || deltaG0 === null)
+    throw new AppError(409, 'analysis-incomplete', 'The analysis result lacks λ or ΔG°.');
+  const skipped =
+    result.sources.reactant.skippedLineCount + result.sources.product.skippedLineCount;
   const provenance = (estimator: string): PairParameter['provenance'] => ({
     kind: 'derived',
     citation: null,
@@ -349,20 +403,37 @@ export async function attachAnalysis(
     note:
       `From energy-gap samples (${result.sources.reactant.fileName}, ${result.sources.product.fileName}) at ${result.temperatureK} K` +
       (skipped > 0 ? `; ${skipped} bad line${skipped === 1 ? ' was' : 's were'} skipped` : '') +
-      (result.warnings.length ? `; warnings: ${result.warnings.map((w) => w.code).join(', ')}` : ''),
+      (result.warnings.length
+        ? `; warnings: ${result.warnings.map((w) => w.code).join(', ')}`
+        : ''),
   });
   const additions: PairParameter[] = [];
   const kinds: string[] = [];
   if (request.parameters.includes('lambda')) {
     const kind = request.lambdaKind ?? 'lambdaOuter';
     kinds.push(kind);
-    additions.push({ kind, value: lambda, unit: 'eV', uncertainty: num(se['lambdaFromMeans']), provenance: provenance('lambdaFromMeans') });
+    additions.push({
+      kind,
+      value: lambda,
+      unit: 'eV',
+      uncertainty: num(se['lambdaFromMeans']),
+      provenance: provenance('lambdaFromMeans'),
+    });
   }
   if (request.parameters.includes('deltaG0')) {
     kinds.push('deltaG0');
-    additions.push({ kind: 'deltaG0', value: deltaG0, unit: 'eV', uncertainty: num(se['deltaG0FromMeans']), provenance: provenance('deltaG0FromMeans') });
+    additions.push({
+      kind: 'deltaG0',
+      value: deltaG0,
+      unit: 'eV',
+      uncertainty: num(se['deltaG0FromMeans']),
+      provenance: provenance('deltaG0FromMeans'),
+    });
   }
-  const rows: Array<{ version: number }> = await db.query('SELECT version FROM pairs WHERE id = $1', [request.pairId]);
+  const rows: Array<{ version: number }> = await db.query(
+    'SELECT version FROM pairs WHERE id = $1',
+    [request.pairId],
+  );
   const version = request.version ?? Number(rows[0]?.version);
   return savePair(
     db,
