@@ -113,9 +113,9 @@ export function readUploadSettings(raw: Record<string, unknown>): UploadSettings
 /** Cleans a client file name for display (path parts dropped, control characters removed). */
 export function cleanFileName(name: string | undefined): string {
   const base = (name ?? '').split(/[\\/]/).pop() ?? '';
-  // eslint-disable-next-line no-control-regex
-  const clean = base
-    .replace(/[\u0000-\u001f\u007f]/g, '')
+  const clean = Array.from(base)
+    .filter((ch) => ch.charCodeAt(0) > 0x1f && ch.charCodeAt(0) !== 0x7f)
+    .join('')
     .trim()
     .slice(0, 200);
   return clean || 'trace';
