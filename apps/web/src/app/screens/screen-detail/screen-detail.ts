@@ -1,0 +1,204 @@
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  effect,
+  inject,
+  signal,
+  viewChild,
+} from '@angular/core';
+import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
+import { FormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
+import { MatSelectModule } from '@angular/material/select';
+import { MatSortModule, type Sort } from '@angular/material/sort';
+import { MatTableModule } from '@angular/material/table';
+import { MatTooltipModule } from '@angular/material/tooltip';
+import { ActivatedRoute, Router, RouterLink } from '@angular/router';
+import type { Screen, ScreenResultRow } from '@gapwise/contracts';
+import { filter, map, switchMap } from 'rxjs';
+import { formatFixed, formatSignificant } from '../../units/number-format';
+import { WorkspaceContext } from '../../workspaces/workspace-context';
+import {
+  COLOUR_BY,
+  PLOT_RATES,
+  REGIME_LABELS,
+  WARNING_LABELS,
+  shownValue,
+  type ColourBy,
+  type PlotRate,
+} from '../result-columns';
+import { ResultFilters } from '../result-filters/result-filters';
+import { ScreenProgress, STATUS_ICONS, STATUS_LABELS } from '../screen-progress/screen-progress';
+import { PLOT_LIMIT, ScreenResultsStore, type BrushBox } from '../screen-results-store';
+import { ScreenScatter } from '../screen-scatter/screen-scatter';
+import { ScreensApi, isActive } from '../screens-api';
+
+/** One screen: live progress, cancel, filters, scatter plot with brush, results table, CSV. */
+@Component({
+  selector: 'gw-screen-detail',
+  imports: [
+    FormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatPaginatorModule,
+    MatSelectModule,
+    MatSortModule,
+    MatTableModule,
+    MatTooltipModule,
+    ResultFilters,
+    ScreenProgress,
+    ScreenScatter,
+  ],
+  providers: [ScreenResultsStore],
+  templateUrl: './screen-detail.html',
+  styleUrl: './screen-detail.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class ScreenDetail {
+  private readonly api = inject(ScreensApi);
+  private readonly route = inject(ActivatedRoute);
+  private readonly router = inject(Router);
+  protected readonly store = inject(ScreenResultsStore);
+  protected readonly workspace = inject(WorkspaceContext);
+
+  protected readonly wid = toSignal(this.route.paramMap.pipe(map((p) => p.get('wid') ?? '')), {
+    initialValue: '',
+  });
+  protected readonly screen = signal<Screen | null>(null);
+  protected readonly statusLabel = STATUS_LABELS;
+  protected readonly statusIcon = STATUS_ICONS;
+  protected readonly rates = PLOT_RATES;
+  protected readonly colours = COLOUR_BY;
+  protected readonly regimeLabel = REGIME_LABELS;
+  protected readonly warningLabel = WARNING_LABELS;
+  protected readonly plotLimit = PLOT_LIMIT;
+  protected readonly rate = signal<PlotRate>(PLOT_RATES[0]);
+  protected readonly colourBy = signal<ColourBy>('score');
+  protected readonly opening = signal<number | null>(null);
+  protected readonly fmt = formatFixed;
+  protected readonly sig = formatSignificant;
+  protected readonly shown = shownValue;
+  protected readonly active = computed(() => {
+    const s = this.screen();
+    return s !== null && isActive(s);
+  });
+  protected readonly columns = [
+    'rowNumber',
+    'pair',
+    'deltaGCs',
+    'deltaGCr',
+    'lambdaTotal',
+    'coupling',
+    'log10kCsMarcus',
+    'log10kCrMarcus',
+    'log10kCsMlj',
+    'log10kCrMlj',
+    'regimeCs',
+    'regimeCr',
+    'warnings',
+    'score',
+    'open',
+  ];
+  protected readonly rows = computed(() => this.store.tablePage()?.items ?? []);
+  protected readonly total = computed(() => this.store.tablePage()?.total ?? 0);
+  protected readonly plotRows = computed(() => this.store.plotPage()?.items ?? []);
+  protected readonly plotTotal = computed(() => this.store.plotPage()?.total ?? 0);
+
+  private readonly scatter = viewChild(ScreenScatter);
+
+  constructor() {
+    this.route.paramMap
+      .pipe(
+        map((p) => p.get('id')),
+        filter((id): id is string => !!id),
+        switchMap((id) => {
+          this.store.screenId.set(id);
+          return this.api.watch(id, 1000);
+        }),
+        takeUntilDestroyed(),
+      )
+      .subscribe((s) => {
+        const before = this.screen();
+        this.screen.set(s);
+        // More finished rows (or a status change): query the table and the plot again.
+        if (
+          before &&
+          (before.progress.rowsDone !== s.progress.rowsDone || before.status !== s.status)
+        ) {
+          this.store.generation.update((g) => g + 1);
+        }
+      });
+    effect(() => {
+      const s = this.screen();
+      if (s) document.title = `${s.name} · Screens · Gapwise`;
+    });
+  }
+
+  protected cancel(): void {
+    const s = this.screen();
+    if (!s) return;
+    this.api.cancel(s.id).subscribe((next) => this.screen.set(next));
+  }
+
+  protected runAgain(): void {
+    const s = this.screen();
+    if (!s) return;
+    this.api.run(s.id).subscribe(() => {
+      this.api.watch(s.id, 1000).subscribe((next) => {
+        this.screen.set(next);
+        this.store.generation.update((g) => g + 1);
+      });
+    });
+  }
+
+  protected sortBy(sort: Sort): void {
+    const key = sort.active === 'pair' ? 'donor' : sort.active;
+    this.store.setSort(
+      sort.direction === '' ? '-score' : `${sort.direction === 'desc' ? '-' : ''}${key}`,
+    );
+  }
+
+  protected page(event: PageEvent): void {
+    this.store.setPage(event.pageIndex * event.pageSize, event.pageSize);
+  }
+
+  protected brushed(box: BrushBox | null): void {
+    this.store.setBrush(box);
+  }
+
+  protected clearBrush(): void {
+    this.scatter()?.clearBrush();
+    this.store.setBrush(null);
+  }
+
+  protected brushText(b: BrushBox): string {
+    const xName = b.x === 'deltaGCs' ? '−ΔG°CS' : '−ΔG°CR';
+    return `${xName} ${formatFixed(-b.xMax, 2)} to ${formatFixed(-b.xMin, 2)} eV, log₁₀ k ${formatFixed(b.yMin, 1)} to ${formatFixed(b.yMax, 1)}`;
+  }
+
+  protected openAsPair(row: ScreenResultRow): void {
+    const s = this.screen();
+    if (!s) return;
+    this.opening.set(row.rowNumber);
+    this.api.openAsPair(s.id, row.rowNumber).subscribe({
+      next: (pair) => void this.router.navigate(['/w', this.wid(), 'pairs', pair.id]),
+      error: () => this.opening.set(null),
+    });
+  }
+
+  protected warningText(row: ScreenResultRow): string {
+    return row.warnings.map((w) => this.warningLabel[w] ?? w).join('; ');
+  }
+
+  protected choiceText(s: Screen): string {
+    if (s.badRowChoice === 'run-good') return 'chosen: run the good rows';
+    if (s.badRowChoice === 'fixed') return 'the file was fixed after a bad-row report';
+    return '';
+  }
+}

@@ -1,0 +1,97 @@
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import type { SeriesFit, SeriesModel, SeriesModelFit } from '@gapwise/contracts';
+import { formatFixed, formatSignificant } from '../../units/number-format';
+import { MODEL_NAMES } from '../series-plot/series-plot';
+
+const CM1_PER_EV = 8065.543937;
+
+/** Fitted parameters with standard errors, correlation, residuals and AIC/BIC per model. */
+@Component({
+  selector: 'gw-fit-table',
+  template: `
+    @let f = fit();
+    <table class="gw-table fit-table">
+      <caption>
+        Fitted parameters (± one standard error; T =
+        {{
+          temperature()
+        }}
+        K
+        @if (f.hbarOmega !== null) {
+          ; fixed mode ħω = {{ sig(f.hbarOmega) }} eV, λ<sub>v</sub> = {{ sig(f.lambdaVib) }} eV
+        }
+        )
+      </caption>
+      <thead>
+        <tr>
+          <th scope="col">Model</th>
+          <th scope="col" class="num">λ / eV</th>
+          <th scope="col" class="num">|H<sub>AB</sub>| / meV</th>
+          <th scope="col" class="num">|H<sub>AB</sub>| / cm⁻¹</th>
+          <th scope="col" class="num">corr(λ, H)</th>
+          <th scope="col" class="num">RMS residual / decades</th>
+          <th scope="col" class="num">AIC</th>
+          <th scope="col" class="num">BIC</th>
+        </tr>
+      </thead>
+      <tbody>
+        @for (row of rows(); track row.model) {
+          <tr [class.primary]="row.model === f.preferred">
+            <th scope="row">
+              {{ names[row.model] }}
+              @if (row.model === f.preferred && rows().length > 1) {
+                <span class="preferred">lower AIC</span>
+              }
+            </th>
+            <td class="num">{{ fx(row.lambda, 3) }} ± {{ fx(row.standardErrors.lambda, 3) }}</td>
+            <td class="num">
+              {{ sig(row.coupling * 1000) }} ± {{ sig(row.standardErrors.coupling * 1000, 2) }}
+            </td>
+            <td class="num">
+              {{ sig(row.coupling * cm) }} ± {{ sig(row.standardErrors.coupling * cm, 2) }}
+            </td>
+            <td class="num">{{ fx(row.correlation, 2) }}</td>
+            <td class="num">{{ fx(row.rmsLog10Residual, 2) }}</td>
+            <td class="num">{{ fx(row.aic, 1) }}</td>
+            <td class="num">{{ fx(row.bic, 1) }}</td>
+          </tr>
+        }
+      </tbody>
+    </table>
+    @if (warnings().length) {
+      <ul class="warnings" aria-label="Fit warnings">
+        @for (w of warnings(); track $index) {
+          <li>
+            <strong>{{ names[w.model] }}:</strong> {{ w.message }}
+          </li>
+        }
+      </ul>
+    }
+    <p class="note">
+      λ is the total reorganization energy for classical Marcus and the classical (solvent) part
+      λ<sub>s</sub> for MLJ. Standard errors come from the linearised covariance; with few points
+      treat them as rough.
+    </p>
+  `,
+  styleUrl: '../series.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class FitTable {
+  readonly fit = input.required<SeriesFit>();
+  readonly temperature = input.required<number>();
+
+  protected readonly names = MODEL_NAMES;
+  protected readonly cm = CM1_PER_EV;
+  protected readonly fx = formatFixed;
+  protected readonly sig = (v: number | null, d = 3) => formatSignificant(v, d);
+  protected readonly rows = computed(() =>
+    (['marcus', 'mlj'] as const)
+      .map((m) => this.fit().fits[m])
+      .filter((r): r is SeriesModelFit => !!r),
+  );
+  protected readonly warnings = computed(() =>
+    this.rows().flatMap((r) =>
+      r.warnings.map((w) => ({ model: r.model as SeriesModel, message: w.message })),
+    ),
+  );
+}
