@@ -68,6 +68,18 @@ export class TraceObjectStore {
         requestChecksumCalculation: 'WHEN_REQUIRED',
         responseChecksumValidation: 'WHEN_REQUIRED',
       });
+    if (!client) {
+      // Parts are not hashed a second time for the request signature: the signature covers the
+      // headers (UNSIGNED-PAYLOAD, allowed by S3 SigV4); the content is checked by its SHA-256 key.
+      this.client.middlewareStack.add(
+        (next) => async (args) => {
+          const request = args.request as { headers?: Record<string, string> };
+          if (request.headers) request.headers['x-amz-content-sha256'] = 'UNSIGNED-PAYLOAD';
+          return next(args);
+        },
+        { step: 'build', name: 'gapwiseUnsignedPayload' },
+      );
+    }
   }
 
   get bucket(): string {
