@@ -67,17 +67,6 @@ export interface TraceSourceInfo {
   readonly skippedLineCount: number;
 }
 
-/** One bin series of a histogram with its Gaussian overlay (same x as the bin centres). */
-export interface TraceHistogram {
-  readonly edges: number[];
-  readonly counts: number[];
-  /** Probability density of the bins (counts / (N h)), eV⁻¹. */
-  readonly density: number[];
-  /** Normal density with the sample mean and variance at the bin centres, eV⁻¹. */
-  readonly gaussian: number[];
-  readonly binWidthEv: number;
-}
-
 /**
  * The JSON of a finished analysis; the command line prints the same object for the same files.
  * `outputs` holds the `reorg.gapSamples` outputs (CALC-API.md) and the streaming extras.
