@@ -84,7 +84,7 @@ export function parabolaGeometry(inputs: ParabolaInputs): ParabolaGeometry {
   ) {
     throw new RangeError('parabolaGeometry needs finite ΔG°, |H_AB| and λ > 0.');
   }
-  const samples = Math.max(21, inputs.samples ?? 241);
+  const samples = Math.max(21, inputs.samples ?? 161);
   const reactantGap = deltaG0 + lambda;
   const productGap = deltaG0 - lambda;
   const pad = 0.45 * lambda;

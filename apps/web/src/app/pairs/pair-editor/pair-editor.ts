@@ -33,7 +33,7 @@ import {
   type ParameterKind,
 } from '@gapwise/contracts';
 import type { DrivingForceInputs } from '@gapwise/plots';
-import { debounceTime, map, startWith, switchMap } from 'rxjs';
+import { asapScheduler, debounceTime, map, startWith, switchMap } from 'rxjs';
 import { apiErrorOf } from '../../session/api-errors';
 import { WorkspaceContext } from '../../workspaces/workspace-context';
 import { DrivingForcePlot } from '../../plots/driving-force-plot/driving-force-plot';
@@ -166,7 +166,11 @@ export class PairEditor implements HoldsUnsavedChanges {
   protected readonly readOnly = computed(() => !this.workspace.canEdit());
   protected readonly isNew = computed(() => !this.pairId());
 
-  /** Every edit; a burst within one task (paste, derivation) gives one recomputation. */
+  /**
+   * Every edit. The several control updates of one keystroke arrive in one burst and are
+   * coalesced in a microtask, so the browser recomputes once per keystroke and draws in the
+   * same frame; the heavier Monte Carlo run waits until typing pauses (below).
+   */
   private readonly edits = toSignal(
     toObservable(this.form).pipe(
       switchMap((f) =>
@@ -175,7 +179,7 @@ export class PairEditor implements HoldsUnsavedChanges {
           map(() => f),
         ),
       ),
-      debounceTime(0),
+      debounceTime(0, asapScheduler),
       map((f) => ({
         form: f,
         source: rateSourceOf(f),
@@ -186,17 +190,21 @@ export class PairEditor implements HoldsUnsavedChanges {
   );
   protected readonly results = computed<PairResults>(() => {
     const e = this.edits();
-    return e
-      ? computePairResults(e.source)
-      : {
-          model: 'marcus',
-          k: null,
-          log10k: null,
-          activationFreeEnergy: null,
-          regime: null,
-          warnings: [],
-          errors: [],
-        };
+    if (e) {
+      const start = performance.now();
+      const results = computePairResults(e.source);
+      performance.measure('gw-recompute', { start, end: performance.now() });
+      return results;
+    }
+    return {
+      model: 'marcus',
+      k: null,
+      log10k: null,
+      activationFreeEnergy: null,
+      regime: null,
+      warnings: [],
+      errors: [],
+    };
   });
   protected readonly dirty = computed(() => {
     const e = this.edits();

@@ -55,8 +55,12 @@ export class ParabolaPlot {
       const g = this.geometry();
       const adiabatic = this.showAdiabatic();
       const svg = this.svgRef().nativeElement;
-      if (g) this.draw(svg, g, adiabatic);
-      else svg.replaceChildren();
+      if (g) {
+        const start = performance.now();
+        this.draw(svg, g, adiabatic);
+        performance.measure('gw-draw-parabolas', { start, end: performance.now() });
+      }
+      if (!g) svg.replaceChildren();
       this.redrawn.emit();
     });
   }
@@ -171,7 +175,11 @@ export class ParabolaPlot {
       const short = length < 28;
       const top = Math.min(y(from), y(to));
       const bottom = Math.max(y(from), y(to));
-      const ly = !short ? (top + bottom) / 2 + 4 : side === 'left' ? top - 8 : bottom + 14;
+      const ly = !short
+        ? (top + bottom) / 2 + 4
+        : side === 'left' && !accent
+          ? top - 8
+          : bottom + 14;
       overlay
         .append('text')
         .attr('class', 'arrow-label')
@@ -187,7 +195,11 @@ export class ParabolaPlot {
     for (const a of g.arrows) {
       const value = `${a.label} = ${fmt(a.to - a.from)} eV`;
       if (a.id === 'splitting') {
-        if (adiabatic) arrow(a.gap + nudge, a.from, a.to, value, 'right', true);
+        if (adiabatic) {
+          // Near the right edge the label goes left, below the lower tip (ΔG‡ sits above).
+          const roomRight = x(a.gap + nudge) + 130 < f.innerWidth;
+          arrow(a.gap + nudge, a.from, a.to, value, roomRight ? 'right' : 'left', true);
+        }
       } else if (a.id === 'activation') {
         arrow(a.gap, a.from, a.to, value, 'left');
       } else {
