@@ -89,7 +89,9 @@ describe('energy-gap traces in chromium', () => {
 
     // Use λ (as λₒ) and ΔG° on the first demo pair.
     await page.locator('.attach-button').click();
+    await page.locator('.pair-select').waitFor({ state: 'visible', timeout: 60_000 });
     await page.locator('.pair-select').click();
+    await page.getByRole('option').first().waitFor({ state: 'visible', timeout: 60_000 });
     const option = page.getByRole('option').first();
     const pairName = (await option.innerText()).split(' — ')[0].trim();
     await option.click();

@@ -43,16 +43,20 @@ export interface AttachDialogData {
           samples at {{ data.temperatureK }} K. They are saved as <em>derived</em> values whose
           source is this analysis and its two trace files.
         </p>
-        <mat-form-field class="wide">
-          <mat-label>Pair</mat-label>
-          <mat-select formControlName="pairId" class="pair-select">
-            @for (p of pairs(); track p.id) {
-              <mat-option [value]="p.id"
-                >{{ p.name }} — {{ p.donor }} / {{ p.acceptor }} (v{{ p.version }})</mat-option
-              >
-            }
-          </mat-select>
-        </mat-form-field>
+        @if (pairs(); as list) {
+          <mat-form-field class="wide">
+            <mat-label>Pair</mat-label>
+            <mat-select formControlName="pairId" class="pair-select">
+              @for (p of list; track p.id) {
+                <mat-option [value]="p.id"
+                  >{{ p.name }} — {{ p.donor }} / {{ p.acceptor }} (v{{ p.version }})</mat-option
+                >
+              }
+            </mat-select>
+          </mat-form-field>
+        } @else {
+          <p class="hint">Loading the pairs of this workspace…</p>
+        }
         <div class="choices">
           <mat-checkbox formControlName="lambda" class="lambda-box">λ, as</mat-checkbox>
           <mat-form-field class="kind">
@@ -111,7 +115,7 @@ export class AttachDialog {
   private readonly traces = inject(TracesApi);
   private readonly pairsApi = inject(PairsApi);
 
-  protected readonly pairs = signal<PairListItem[]>([]);
+  protected readonly pairs = signal<PairListItem[] | null>(null);
   protected readonly error = signal<string | null>(null);
   protected readonly busy = signal(false);
   protected readonly fmt = formatSignificant;
