@@ -4,8 +4,9 @@
  * Applies pending migrations first. DATABASE_URL defaults to the development cluster.
  */
 import { createDataSource, DEFAULT_DATABASE_URL } from '../data-source';
-import { DEMO_ACCOUNTS, DEMO_LAB, DEMO_PASSWORD, seedDemo } from './demo-data';
+import { DEMO_ACCOUNTS, DEMO_LAB, DEMO_MEDIATORS, DEMO_PASSWORD, seedDemo } from './demo-data';
 import { seedDemoReport } from '../../apps/api/src/reports/demo-report-seed';
+import { seedDemoScreensAndSeries } from '../../apps/api/src/screens/demo-screen-seed';
 
 const dataSource = createDataSource({ url: process.env['DATABASE_URL'] || DEFAULT_DATABASE_URL, poolSize: 2 });
 try {
@@ -17,6 +18,9 @@ try {
   if (await seedDemoReport(dataSource, { labName: DEMO_LAB, editorEmail: 'editor@gapwise.test', publicUrl: process.env['PUBLIC_URL'] })) {
     console.log('demo seed: 1 submitted report added');
   }
+  // A finished demo screen (flow-cell workspace) and a fitted demo series (lab).
+  const added = await seedDemoScreensAndSeries(dataSource, { mediatorsName: DEMO_MEDIATORS, labName: DEMO_LAB, ownerEmail: 'owner@gapwise.test', editorEmail: 'editor@gapwise.test' });
+  if (added.screen || added.series) console.log(`demo seed: ${added.screen ? '1 screen' : ''}${added.screen && added.series ? ' and ' : ''}${added.series ? '1 series' : ''} added`);
   console.log(`demo sign-ins (password ${DEMO_PASSWORD}): ${DEMO_ACCOUNTS.map((a) => a.email).join(', ')}`);
 } catch (error) {
   console.error(`demo seed failed: ${(error as Error).message}`);

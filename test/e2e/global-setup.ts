@@ -13,8 +13,9 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { TestProject } from 'vitest/node';
 import { createDataSource } from '../../db/data-source';
-import { DEMO_LAB, seedDemo } from '../../db/seed/demo-data';
+import { DEMO_LAB, DEMO_MEDIATORS, seedDemo } from '../../db/seed/demo-data';
 import { seedDemoReport } from '../../apps/api/src/reports/demo-report-seed';
+import { seedDemoScreensAndSeries } from '../../apps/api/src/screens/demo-screen-seed';
 import { startMailCapture } from '../../docker-free-scripts/mail/mail-capture-server';
 import { startObjectStore } from '../../docker-free-scripts/s3/object-store';
 import { createTestDatabase } from '../api/support/test-database';
@@ -117,6 +118,7 @@ export default async function setup(project: TestProject) {
       await dataSource.runMigrations({ transaction: 'each' });
       await seedDemo(dataSource);
       await seedDemoReport(dataSource, { labName: DEMO_LAB, editorEmail: 'editor@gapwise.test' });
+      await seedDemoScreensAndSeries(dataSource, { mediatorsName: DEMO_MEDIATORS, labName: DEMO_LAB, ownerEmail: 'owner@gapwise.test', editorEmail: 'editor@gapwise.test' });
     } finally {
       await dataSource.destroy();
     }
