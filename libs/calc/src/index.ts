@@ -48,6 +48,7 @@ export { crossRelationLnF, crossRelationRateLog } from './rates/cross-relation/c
 export { marcusRegime } from './rates/rate-inputs';
 export type { Regime } from './rates/rate-inputs';
 export { marcusLog10kInto, mljLog10kInto } from './rates/vector';
+export { marcusLog10kIntoArrays, mljLog10kIntoArrays } from './rates/vector-arrays';
 export {
   coulombWorkEv,
   ionPairCoulombTermEv,
