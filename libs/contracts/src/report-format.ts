@@ -1,3 +1,4 @@
+import { methodCatalog } from '@gapwise/calc';
 import type { Provenance } from './pairs';
 import type { ReportModelResult } from './reports';
 
@@ -188,7 +189,22 @@ export function modelName(model: string): string {
   return MODEL_NAMES[model] ?? model;
 }
 
-/** "Literature — Smith et al. 2020" / "Derived — drivingForce.rehmWeller (from …)". */
+let methodInputUnits: Map<string, Map<string, string>> | null = null;
+
+/** A derivation input with its canonical unit from the method catalog: "10.8 Å", "0.62 V". */
+function methodInputText(methodId: string, name: string, value: unknown): string {
+  if (typeof value !== 'number') return JSON.stringify(value);
+  methodInputUnits ??= new Map(
+    methodCatalog().map((m) => [m.id, new Map(m.inputs.map((i) => [i.name, i.unit]))]),
+  );
+  const unit = displayUnit(methodInputUnits.get(methodId)?.get(name) ?? '');
+  return unit ? `${formatNumber(value)} ${unit}` : formatNumber(value);
+}
+
+/**
+ * "Literature: Smith et al. 2020" / "Derived: reorg.twoSphere from distance = 10.8 Å, …"
+ * (method inputs with their canonical units).
+ */
 export function provenanceText(p: Provenance): string {
   const kind = p.kind.charAt(0).toUpperCase() + p.kind.slice(1);
   const parts: string[] = [];
@@ -196,7 +212,7 @@ export function provenanceText(p: Provenance): string {
   if (p.methodId) {
     const inputs = p.methodInputs
       ? Object.entries(p.methodInputs)
-          .map(([k, v]) => `${k} = ${typeof v === 'number' ? formatNumber(v) : JSON.stringify(v)}`)
+          .map(([k, v]) => `${k} = ${methodInputText(p.methodId!, k, v)}`)
           .join(', ')
       : '';
     parts.push(inputs ? `${p.methodId} from ${inputs}` : p.methodId);
