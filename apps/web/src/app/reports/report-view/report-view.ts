@@ -36,6 +36,7 @@ import { Session } from '../../session/session';
 import { WorkspaceContext } from '../../workspaces/workspace-context';
 import { ReportsApi } from '../reports-api';
 import { ReportStatusChip } from '../report-status-chip';
+import { RichText } from '../rich-text/rich-text';
 
 interface Thread {
   readonly comment: ReportCommentView;
@@ -56,6 +57,7 @@ interface Thread {
     ParabolaPlot,
     DrivingForcePlot,
     TemperaturePlot,
+    RichText,
   ],
   templateUrl: './report-view.html',
   styleUrl: '../reports.scss',
@@ -70,7 +72,8 @@ export class ReportViewPage {
 
   protected readonly report = signal<Report | null>(null);
   protected readonly busy = signal(false);
-  protected readonly message = signal<string | null>(null);
+  /** The outcome of the last action: a confirmation, or the server's refusal. */
+  protected readonly message = signal<{ text: string; error: boolean } | null>(null);
   protected note = '';
   protected commentBody = '';
   protected commentAnchor = '';
@@ -222,7 +225,10 @@ export class ReportViewPage {
     const r = this.report();
     if (r)
       this.run(this.api.revise(r.reportId), () =>
-        this.message.set('New snapshot taken from the pair’s current version.'),
+        this.message.set({
+          text: 'New snapshot taken from the pair’s current version.',
+          error: false,
+        }),
       );
   }
 
@@ -269,7 +275,10 @@ export class ReportViewPage {
       },
       error: (e: { error?: { error?: { message?: string } } }) => {
         this.busy.set(false);
-        this.message.set(e.error?.error?.message ?? 'The server refused this action.');
+        this.message.set({
+          text: e.error?.error?.message ?? 'The server refused this action.',
+          error: true,
+        });
       },
     });
   }

@@ -1,0 +1,106 @@
+import { CUSTOM_ELEMENTS_SCHEMA, signal } from '@angular/core';
+import { TestBed } from '@angular/core/testing';
+import { ActivatedRoute, convertToParamMap, provideRouter } from '@angular/router';
+import { of, throwError } from 'rxjs';
+import type { ReportView } from '@gapwise/contracts';
+import { DrivingForcePlot } from '../../plots/driving-force-plot/driving-force-plot';
+import { ParabolaPlot } from '../../plots/parabola-plot/parabola-plot';
+import { TemperaturePlot } from '../../plots/temperature-plot/temperature-plot';
+import { Session } from '../../session/session';
+import { WorkspaceContext } from '../../workspaces/workspace-context';
+import { ReportsApi } from '../reports-api';
+import { ReportViewPage } from './report-view';
+import { DEMO_AUTHOR_ID, DEMO_REPORT } from './testing/demo-report';
+
+const REVIEWER_ID = '00000000-0000-4000-8000-0000000000a1';
+
+function setup(options: { role: string; userId: string; api?: Partial<ReportsApi> }) {
+  const api = {
+    get: () => of(DEMO_REPORT),
+    pdfUrl: (id: string) => `/api/reports/${id}/pdf`,
+    exportUrl: (id: string, format: string) => `/api/reports/${id}/export?format=${format}`,
+    ...options.api,
+  };
+  TestBed.configureTestingModule({
+    providers: [
+      provideRouter([]),
+      { provide: ReportsApi, useValue: api },
+      { provide: Session, useValue: { user: signal({ id: options.userId }) } },
+      { provide: WorkspaceContext, useValue: { role: signal(options.role) } },
+      {
+        provide: ActivatedRoute,
+        useValue: { snapshot: { paramMap: convertToParamMap({ id: DEMO_REPORT.reportId }) } },
+      },
+    ],
+  });
+  // The plots have their own tests; here they stay unrendered elements.
+  TestBed.overrideComponent(ReportViewPage, {
+    remove: { imports: [ParabolaPlot, DrivingForcePlot, TemperaturePlot] },
+    add: { schemas: [CUSTOM_ELEMENTS_SCHEMA] },
+  });
+  const fixture = TestBed.createComponent(ReportViewPage);
+  fixture.detectChanges();
+  const el = fixture.nativeElement as HTMLElement;
+  const button = (text: string) =>
+    Array.from(el.querySelectorAll('button')).find((b) => b.textContent?.trim() === text);
+  return { fixture, el, button };
+}
+
+describe('ReportViewPage', () => {
+  it('prints parameter labels and equations with subscripts, as the PDF does', () => {
+    const { el } = setup({ role: 'reviewer', userId: REVIEWER_ID });
+    const coupling = el.querySelector('tr[data-kind="coupling"] th')!;
+    expect(coupling.querySelector('sub')?.textContent).toBe('AB');
+    expect(coupling.textContent?.trim()).toBe('Electronic coupling |HAB|');
+    const equations = Array.from(el.querySelectorAll('.equation'), (e) => e.textContent).join();
+    expect(equations).toContain('kBT');
+    expect(equations).not.toMatch(/_\{|_[A-Za-z]/);
+  });
+
+  it('shows derivation inputs with units in the provenance column', () => {
+    const { el } = setup({ role: 'reviewer', userId: REVIEWER_ID });
+    const lambdaOuter = el.querySelector('tr[data-kind="lambdaOuter"]')!.textContent!;
+    expect(lambdaOuter).toContain('distance = 10.8 Å');
+    expect(lambdaOuter).toContain('radiusDonor = 5.5 Å');
+  });
+
+  it('offers a reviewer who did not write the report both decisions', () => {
+    const { button } = setup({ role: 'reviewer', userId: REVIEWER_ID });
+    expect(button('Approve')).toBeTruthy();
+    expect(button('Request changes')).toBeTruthy();
+    expect(button('Submit for review')).toBeUndefined();
+  });
+
+  it('does not offer the author Approve, and says why', () => {
+    const { el, button } = setup({ role: 'owner', userId: DEMO_AUTHOR_ID });
+    expect(button('Approve')).toBeUndefined();
+    expect(el.querySelector('.hint')?.textContent).toContain('another reviewer approves it');
+  });
+
+  it('shows a refusal as an error and a new snapshot as a plain confirmation', () => {
+    const refused = throwError(() => ({
+      error: { error: { message: 'A approved report cannot be approved.' } },
+    }));
+    const draft: ReportView = { ...DEMO_REPORT, status: 'draft' };
+    const { fixture, el, button } = setup({
+      role: 'editor',
+      userId: DEMO_AUTHOR_ID,
+      api: {
+        get: () => of(draft),
+        decide: () => refused,
+        revise: () => of(draft),
+      },
+    });
+    button('Submit for review')!.click();
+    fixture.detectChanges();
+    const error = el.querySelector('p.message')!;
+    expect(error.textContent).toContain('cannot be approved');
+    expect(error.classList.contains('error')).toBe(true);
+
+    button('Revise from the pair')!.click();
+    fixture.detectChanges();
+    const done = el.querySelector('p.message')!;
+    expect(done.textContent).toContain('New snapshot taken');
+    expect(done.classList.contains('error')).toBe(false);
+  });
+});
