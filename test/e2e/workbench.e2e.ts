@@ -34,7 +34,7 @@ async function selectUnit(page: Page, kind: string, shown: string) {
 async function typeValue(page: Page, kind: string, text: string) {
   const input = field(page, kind).locator('input.value-input');
   await input.fill('');
-  await input.pressSequentially(text, { delay: 30 });
+  await input.pressSequentially(text, { delay: 120 });
 }
 
 async function openPair(page: Page, name: string) {
