@@ -113,7 +113,15 @@ export function monteCarloLog10k(
     median: log['median'] as number,
     p025: log['p025'] as number,
     p975: log['p975'] as number,
-    histogram: histogramOf(log) ?? histogramOf(answer.outputs),
+    // The core returns the log10 k histogram under outputs.histograms.log10k.
+    histogram:
+      histogramOf({
+        histogram: (answer.outputs['histograms'] as Record<string, unknown> | undefined)?.[
+          'log10k'
+        ],
+      }) ??
+      histogramOf(log) ??
+      histogramOf(answer.outputs),
     samples,
     warnings: answer.warnings.map((w) => w.message),
   };
