@@ -1,17 +1,27 @@
 /**
  * Computes one chunk of a screen. Per row, the driving forces of charge separation and of
- * recombination come from `drivingForce.rehmWeller`, λ_outer (when not given) from
- * `reorg.twoSphere` and |H_AB| (when not given) from `coupling.distanceDecay`, all through the
- * core's `calculate` so the numbers equal those of the pair page and the command line. Rates for
- * the whole chunk then go through the core's vector paths over Float64Arrays (no per-pair
- * allocation): classical Marcus for every row, MLJ where ħω is given (λ_inner as the quantum
- * mode's λ_v, λ_outer as the classical λ_s; SCIENCE.md §2).
+ * recombination (Rehm–Weller), λ_outer when not given (two-sphere) and |H_AB| when not given
+ * (distance decay) come from the core's exported kernels after a cheap domain check, with the
+ * warnings of the core's methods; a row outside that domain goes through the core's `calculate`
+ * (`drivingForce.rehmWeller`, `reorg.twoSphere`, `coupling.distanceDecay`) so its refusal and
+ * warnings are the dispatcher's own. A test holds the two paths equal. Rates for the whole chunk
+ * then go through the core's per-pair vector paths in one call each: classical Marcus for every
+ * row, MLJ where ħω is given (λ_inner as the quantum mode's λ_v, λ_outer as the classical λ_s;
+ * SCIENCE.md §2). The core's reference-electrode advice is not carried per row: the template asks
+ * for both potentials against one reference.
  */
 import {
   BOLTZMANN_EV_PER_K,
   calculate,
-  marcusLog10kInto,
-  mljLog10kInto,
+  distanceDecayCouplingEv,
+  ionPairCoulombTermEv,
+  marcusLog10kIntoArrays,
+  mljLog10kIntoArrays,
+  pekarFactor,
+  rehmWellerChargeRecombinationEv,
+  rehmWellerChargeSeparationEv,
+  twoSphereLambdaEv,
+  wellerSolventCorrectionEv,
   type CalcAnswer,
 } from '@gapwise/calc';
 import type { InputChunk } from './screen-parser';
@@ -44,6 +54,8 @@ export const SCREEN_WARNINGS = [
   'other', // any other warning code of the core
 ] as const;
 export type ScreenWarning = (typeof SCREEN_WARNINGS)[number];
+/** Core warnings a screen does not carry (the template asks for one reference electrode). */
+const IGNORED_WARNINGS = new Set(['reference-electrode']);
 const BIT = new Map<string, number>(SCREEN_WARNINGS.map((code, i) => [code, 1 << i]));
 const bit = (code: ScreenWarning) => BIT.get(code)!;
 
@@ -81,13 +93,154 @@ export interface ChunkResult {
 function collectWarnings(answer: CalcAnswer): number {
   if (!answer.ok) return 0;
   let mask = 0;
-  for (const w of answer.warnings) mask |= BIT.get(w.code) ?? bit('other');
+  for (const w of answer.warnings) {
+    if (!IGNORED_WARNINGS.has(w.code)) mask |= BIT.get(w.code) ?? bit('other');
+  }
   return mask;
 }
 
 function regimeOf(deltaG: number, lambda: number): number {
   if (Math.abs(deltaG + lambda) <= 0.01 * lambda) return 1;
   return -deltaG < lambda ? 0 : 2;
+}
+
+/**
+ * Derivations of one row through the core's `calculate` (validation with the full list of
+ * problems, warnings by code): the reference path, used for rows outside the fast path's domain.
+ */
+export function deriveThroughCalculate(
+  v: InputChunk['values'],
+  i: number,
+): {
+  dCs: number;
+  dCr: number;
+  lambdaOuter: number;
+  coupling: number;
+  mask: number;
+  refused: boolean;
+} {
+  let mask = 0;
+  // The Weller solvent correction takes the radii and ε_ref together (only when ε_ref is given).
+  const weller = !Number.isNaN(v.epsilonReference[i]);
+  const rw = calculate({
+    method: 'drivingForce.rehmWeller',
+    inputs: {
+      donorOxidation: v.donorOxidation[i],
+      acceptorReduction: v.acceptorReduction[i],
+      excitationEnergy: v.excitationEnergy[i],
+      distance: v.distance[i],
+      epsilon: v.epsilon[i],
+      radiusDonor: weller ? v.radiusDonor[i] : undefined,
+      radiusAcceptor: weller ? v.radiusAcceptor[i] : undefined,
+      epsilonReference: weller ? v.epsilonReference[i] : undefined,
+    },
+  });
+  mask |= collectWarnings(rw);
+  let lambdaOuter = v.lambdaOuter[i];
+  let refused = !rw.ok;
+  if (Number.isNaN(lambdaOuter)) {
+    const ts = calculate({
+      method: 'reorg.twoSphere',
+      inputs: {
+        radiusDonor: v.radiusDonor[i],
+        radiusAcceptor: v.radiusAcceptor[i],
+        distance: v.distance[i],
+        epsilon: v.epsilon[i],
+        refractiveIndex: v.refractiveIndex[i],
+      },
+    });
+    mask |= collectWarnings(ts);
+    if (ts.ok) lambdaOuter = ts.outputs.lambdaOuter as number;
+    else refused = true;
+  }
+  let coupling = v.coupling[i];
+  if (Number.isNaN(coupling)) {
+    const dd = calculate({
+      method: 'coupling.distanceDecay',
+      inputs: {
+        coupling0: v.coupling0[i],
+        distance0: v.distance0[i],
+        beta: v.beta[i],
+        distance: v.distance[i],
+      },
+    });
+    mask |= collectWarnings(dd);
+    if (dd.ok) coupling = dd.outputs.coupling as number;
+    else refused = true;
+  }
+  return {
+    dCs: rw.ok ? (rw.outputs.deltaG0CS as number) : Number.NaN,
+    dCr: rw.ok ? (rw.outputs.deltaG0CR as number) : Number.NaN,
+    lambdaOuter,
+    coupling,
+    mask,
+    refused,
+  };
+}
+
+const finite = Number.isFinite;
+
+/**
+ * The same derivations through the core's exported kernels (Rehm–Weller with the ion-pair
+ * Coulomb term and Weller's correction, two-sphere λ_outer, distance decay), with the warnings of
+ * the dispatcher's `compute`, for a row whose inputs pass a cheap domain check (the conditions
+ * under which the dispatcher's validation accepts them). Returns false, writing nothing, for any
+ * other row: that row takes `deriveThroughCalculate`, so refusals keep their messages.
+ */
+export function deriveFast(v: InputChunk['values'], i: number, into: Float64Array): boolean {
+  const eox = v.donorOxidation[i];
+  const ered = v.acceptorReduction[i];
+  const e00 = v.excitationEnergy[i];
+  const r = v.distance[i];
+  const eps = v.epsilon[i];
+  const epsRef = v.epsilonReference[i];
+  const rD = v.radiusDonor[i];
+  const rA = v.radiusAcceptor[i];
+  if (!(finite(eox) && finite(ered) && Math.abs(eox) <= 100 && Math.abs(ered) <= 100)) return false;
+  if (!(e00 > 0 && e00 <= 1e3 && r > 0 && finite(r) && eps >= 1 && finite(eps))) return false;
+  const weller = !Number.isNaN(epsRef);
+  if (weller && !(rD > 0 && rA > 0 && finite(rD) && finite(rA) && epsRef >= 1 && finite(epsRef)))
+    return false;
+  let lambdaOuter = v.lambdaOuter[i];
+  let mask = 0;
+  if (Number.isNaN(lambdaOuter)) {
+    const n = v.refractiveIndex[i];
+    if (!(rD > 0 && rA > 0 && finite(rD) && finite(rA) && n >= 1 && finite(n) && r >= rD + rA))
+      return false;
+    const pekar = pekarFactor(n, eps);
+    if (!(pekar >= 0)) return false;
+    if (pekar < 0.05) mask |= bit('nearly-nonpolar');
+    if (r > 30 || rD < 1.5 || rA < 1.5) mask |= bit('continuum-range');
+    lambdaOuter = twoSphereLambdaEv(rD, rA, r, eps, n);
+  }
+  let coupling = v.coupling[i];
+  if (Number.isNaN(coupling)) {
+    const h0 = v.coupling0[i];
+    const r0 = v.distance0[i];
+    const beta = v.beta[i];
+    if (!(finite(h0) && Math.abs(h0) <= 1e5 && r0 > 0 && r0 <= 1e4 && beta >= 0 && beta <= 100))
+      return false;
+    if (!(r <= 1e4 && (beta * (r - r0)) / 2 >= -600)) return false;
+    if (Math.abs(h0) > 0.5) mask |= bit('value-unusually-large');
+    if (Math.abs(h0) > 10) mask |= bit('other'); // the core's coupling-unit-suspect
+    coupling = distanceDecayCouplingEv(h0, r0, beta, r);
+  }
+  const correction = weller ? wellerSolventCorrectionEv(rD, rA, epsRef, eps) : 0;
+  const dCs = rehmWellerChargeSeparationEv(
+    eox,
+    ered,
+    e00,
+    ionPairCoulombTermEv(eps, r),
+    correction,
+  );
+  if (Math.abs(correction) > 0.5) mask |= bit('born-correction-large');
+  if (e00 < Math.abs(eox - ered) - 1 || e00 > 5) mask |= bit('excitation-energy-suspect');
+  into[0] = dCs;
+  into[1] = rehmWellerChargeRecombinationEv(dCs, e00);
+  into[2] = lambdaOuter;
+  into[3] = coupling;
+  into[4] = mask;
+  return true;
 }
 
 /** Computes a chunk. Pure: same input, same output. */
@@ -119,51 +272,20 @@ export function computeChunk(input: InputChunk, score: ScoreChoice): ChunkResult
   };
   // Rows whose rates can be computed; refused ones keep NaN rates.
   const valid = new Uint8Array(n);
+  const derived = new Float64Array(5);
 
   for (let i = 0; i < n; i++) {
-    let mask = 0;
-    // The Weller solvent correction takes the radii and ε_ref together (only when ε_ref is given).
-    const weller = !Number.isNaN(v.epsilonReference[i]);
-    const rw = calculate({
-      method: 'drivingForce.rehmWeller',
-      inputs: {
-        donorOxidation: v.donorOxidation[i],
-        acceptorReduction: v.acceptorReduction[i],
-        excitationEnergy: v.excitationEnergy[i],
-        distance: v.distance[i],
-        epsilon: v.epsilon[i],
-        radiusDonor: weller ? v.radiusDonor[i] : undefined,
-        radiusAcceptor: weller ? v.radiusAcceptor[i] : undefined,
-        epsilonReference: weller ? v.epsilonReference[i] : undefined,
-      },
-    });
-    mask |= collectWarnings(rw);
-    let lambdaOuter = v.lambdaOuter[i];
-    let refused = !rw.ok;
-    if (Number.isNaN(lambdaOuter)) {
-      const ts = calculate({
-        method: 'reorg.twoSphere',
-        inputs: {
-          radiusDonor: v.radiusDonor[i],
-          radiusAcceptor: v.radiusAcceptor[i],
-          distance: v.distance[i],
-          epsilon: v.epsilon[i],
-          refractiveIndex: v.refractiveIndex[i],
-        },
-      });
-      mask |= collectWarnings(ts);
-      if (ts.ok) lambdaOuter = ts.outputs.lambdaOuter as number;
-      else refused = true;
-    }
-    let coupling = v.coupling[i];
-    if (Number.isNaN(coupling)) {
-      const dd = calculate({
-        method: 'coupling.distanceDecay',
-        inputs: { coupling0: v.coupling0[i], distance0: v.distance0[i], beta: v.beta[i], distance: v.distance[i] },
-      });
-      mask |= collectWarnings(dd);
-      if (dd.ok) coupling = dd.outputs.coupling as number;
-      else refused = true;
+    let mask: number;
+    let refused = false;
+    let dCs: number;
+    let dCr: number;
+    let lambdaOuter: number;
+    let coupling: number;
+    if (deriveFast(v, i, derived)) {
+      [dCs, dCr, lambdaOuter, coupling, mask] = derived;
+    } else {
+      const slow = deriveThroughCalculate(v, i);
+      ({ dCs, dCr, lambdaOuter, coupling, mask, refused } = slow);
     }
     coupling = Math.abs(coupling);
     const lambdaInner = v.lambdaInner[i];
@@ -174,10 +296,8 @@ export function computeChunk(input: InputChunk, score: ScoreChoice): ChunkResult
     out.lambdaTotal[i] = lambda;
     out.coupling[i] = coupling;
     out.temperature[i] = temperature;
-    if (rw.ok) {
-      out.deltaGCs[i] = rw.outputs.deltaG0CS as number;
-      out.deltaGCr[i] = rw.outputs.deltaG0CR as number;
-    }
+    out.deltaGCs[i] = dCs;
+    out.deltaGCr[i] = dCr;
     if (refused) {
       mask |= bit('row-refused');
     } else if (!(lambda > 0) || 2 * coupling >= lambda) {
@@ -185,8 +305,6 @@ export function computeChunk(input: InputChunk, score: ScoreChoice): ChunkResult
     } else {
       valid[i] = 1;
       const kT = BOLTZMANN_EV_PER_K * temperature;
-      const dCs = out.deltaGCs[i];
-      const dCr = out.deltaGCr[i];
       out.regimeCs[i] = regimeOf(dCs, lambda);
       out.regimeCr[i] = regimeOf(dCr, lambda);
       if (out.regimeCs[i] === 2) mask |= bit('inverted-region');
@@ -203,28 +321,50 @@ export function computeChunk(input: InputChunk, score: ScoreChoice): ChunkResult
     out.warningMask[i] = mask;
   }
 
-  // Vector paths: per row, CS and CR share λ, H and T, so one call over a reused two-slot
-  // Float64Array gives both (no allocation per pair).
-  const dg = new Float64Array(2);
-  const res = new Float64Array(2);
-  const terms = new Float64Array(2);
-  const mljNotConverged = bit('other');
+  // Rates of the whole chunk through the core's per-pair vector paths: one call each for
+  // classical Marcus CS and CR over every row, then MLJ over the rows with ħω and λ_outer > 0
+  // (λ_inner as the mode's λ_v, λ_outer as the classical λ_s; VALIDATION.md A1, A6).
+  marcusLog10kIntoArrays(
+    out.log10kCsMarcus,
+    out.deltaGCs,
+    out.lambdaTotal,
+    out.coupling,
+    out.temperature,
+  );
+  marcusLog10kIntoArrays(
+    out.log10kCrMarcus,
+    out.deltaGCr,
+    out.lambdaTotal,
+    out.coupling,
+    out.temperature,
+  );
+  const mljRows: number[] = [];
   for (let i = 0; i < n; i++) {
-    if (!valid[i]) continue;
-    dg[0] = out.deltaGCs[i];
-    dg[1] = out.deltaGCr[i];
-    const h = out.coupling[i];
-    const t = out.temperature[i];
-    marcusLog10kInto(res, dg, out.lambdaTotal[i], h, t);
-    out.log10kCsMarcus[i] = res[0];
-    out.log10kCrMarcus[i] = res[1];
-    // MLJ needs ħω and a classical part λ_s = λ_outer > 0 (VALIDATION.md A1, A6).
-    const hbarOmega = v.hbarOmega[i];
-    if (!Number.isNaN(hbarOmega) && out.lambdaOuter[i] > 0) {
-      mljLog10kInto(res, dg, out.lambdaOuter[i], out.lambdaInner[i], hbarOmega, h, t, terms);
-      out.log10kCsMlj[i] = res[0];
-      out.log10kCrMlj[i] = res[1];
-      if (!Number.isFinite(res[0]) || !Number.isFinite(res[1])) out.warningMask[i] |= mljNotConverged;
+    if (!valid[i]) {
+      out.log10kCsMarcus[i] = Number.NaN;
+      out.log10kCrMarcus[i] = Number.NaN;
+    } else if (!Number.isNaN(v.hbarOmega[i]) && out.lambdaOuter[i] > 0) {
+      mljRows.push(i);
+    }
+  }
+  if (mljRows.length) {
+    const m = mljRows.length;
+    const pick = (a: Float64Array) => Float64Array.from(mljRows, (i) => a[i]);
+    const lamS = pick(out.lambdaOuter);
+    const lamV = pick(out.lambdaInner);
+    const hw = pick(v.hbarOmega);
+    const h = pick(out.coupling);
+    const t = pick(out.temperature);
+    const cs = new Float64Array(m);
+    const cr = new Float64Array(m);
+    mljLog10kIntoArrays(cs, pick(out.deltaGCs), lamS, lamV, hw, h, t);
+    mljLog10kIntoArrays(cr, pick(out.deltaGCr), lamS, lamV, hw, h, t);
+    const mljNotConverged = bit('other');
+    for (let j = 0; j < m; j++) {
+      const i = mljRows[j];
+      out.log10kCsMlj[i] = cs[j];
+      out.log10kCrMlj[i] = cr[j];
+      if (!Number.isFinite(cs[j]) || !Number.isFinite(cr[j])) out.warningMask[i] |= mljNotConverged;
     }
   }
 

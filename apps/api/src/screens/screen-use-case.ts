@@ -5,7 +5,14 @@
 import { createHash } from 'node:crypto';
 import type { Readable } from 'node:stream';
 import type { DataSource, EntityManager } from 'typeorm';
-import { canEdit, type BadRowChoice, type Pair, type PairParameter, type Provenance, type Screen } from '@gapwise/contracts';
+import {
+  canEdit,
+  type BadRowChoice,
+  type Pair,
+  type PairParameter,
+  type Provenance,
+  type Screen,
+} from '@gapwise/contracts';
 import { AppError, notFound } from '../http/app-error';
 import { parseBody } from '../http/validate';
 import { recordAudit } from '../audit/audit-repository';
@@ -13,7 +20,12 @@ import { PairInputDto } from '../pairs/pair-dto';
 import { acceptPairInput, createPair } from '../pairs/pair-use-case';
 import { requireRole } from '../workspaces/workspace-access';
 import type { ScreenService } from './screen-queue';
-import { decodeInputChunk, encodeInputChunk, parseScreenCsv, type InputChunk } from './screen-parser';
+import {
+  decodeInputChunk,
+  encodeInputChunk,
+  parseScreenCsv,
+  type InputChunk,
+} from './screen-parser';
 import { findResult, findScreen, inputPayloadForLine, screenWorkspace } from './screen-repository';
 import type { ScoreChoice } from './screen-score';
 import { SCREEN_SOFTWARE_VERSION } from './screen-version';
@@ -62,15 +74,37 @@ export async function uploadScreen(
     const inserted: Array<{ id: string }> = await tx.query(
       `INSERT INTO screens (workspace_id, name, status, input_hash, software_version, score_kind, score_floor_ev,
          chunk_size, created_by) VALUES ($1, $2, 'uploaded', '', $3, $4, $5, $6, $7) RETURNING id`,
-      [workspaceId, options.name, SCREEN_SOFTWARE_VERSION, options.score.kind, options.score.floorEv ?? null, chunkSize, userId],
+      [
+        workspaceId,
+        options.name,
+        SCREEN_SOFTWARE_VERSION,
+        options.score.kind,
+        options.score.floorEv ?? null,
+        chunkSize,
+        userId,
+      ],
     );
     const screenId = inserted[0].id;
+    // Parsing and storing overlap: each chunk's insert is queued on the transaction's connection
+    // while the parser reads on; at most STORE_AHEAD chunks wait, so memory stays flat.
+    let stored: Promise<void> = Promise.resolve();
+    let waiting = 0;
     const summary = await parseScreenCsv(source, {
       chunkSize,
-      onChunk: (chunk) => storeChunk(tx, screenId, chunk),
+      onChunk: async (chunk) => {
+        waiting += 1;
+        stored = stored.then(() => storeChunk(tx, screenId, chunk)).finally(() => (waiting -= 1));
+        stored.catch(() => undefined);
+        if (waiting >= STORE_AHEAD) await stored;
+      },
     });
+    await stored;
     if (typeof source !== 'string') source.resume();
-    if (summary.fatal || (summary.badRowCount > 0 && !options.runGoodRows) || summary.goodRows === 0) {
+    if (
+      summary.fatal ||
+      (summary.badRowCount > 0 && !options.runGoodRows) ||
+      summary.goodRows === 0
+    ) {
       throw new AppError(
         400,
         'screen-bad-rows',
@@ -79,18 +113,32 @@ export async function uploadScreen(
           : `${summary.badRowCount} bad row(s): fix them, or run the ${summary.goodRows} good row(s).`,
         {
           fields: summary.badRows.map((b) => ({ field: `line ${b.line}`, message: b.message })),
-          current: { badRowCount: summary.badRowCount, goodRows: summary.goodRows, fatal: summary.fatal },
+          current: {
+            badRowCount: summary.badRowCount,
+            goodRows: summary.goodRows,
+            fatal: summary.fatal,
+          },
         },
       );
     }
     const inputHash = createHash('sha256')
       .update(`${summary.inputHash}\n${options.score.kind}\n${options.score.floorEv ?? ''}`)
       .digest('hex');
-    const choice: BadRowChoice = summary.badRowCount > 0 ? 'run-good' : (options.badRowChoice ?? 'none');
+    const choice: BadRowChoice =
+      summary.badRowCount > 0 ? 'run-good' : (options.badRowChoice ?? 'none');
     await tx.query(
       `UPDATE screens SET input_hash = $2, row_count = $3, bad_row_count = $4, bad_rows = $5, bad_row_choice = $6,
          chunk_count = $7, upload_ms = $8 WHERE id = $1`,
-      [screenId, inputHash, summary.goodRows, summary.badRowCount, JSON.stringify(summary.badRows), choice, summary.chunks, Date.now() - started],
+      [
+        screenId,
+        inputHash,
+        summary.goodRows,
+        summary.badRowCount,
+        JSON.stringify(summary.badRows),
+        choice,
+        summary.chunks,
+        Date.now() - started,
+      ],
     );
     const reusable: Array<{ id: string }> = await tx.query(
       `SELECT id FROM screens WHERE workspace_id = $1 AND input_hash = $2 AND software_version = $3
@@ -99,8 +147,14 @@ export async function uploadScreen(
     );
     if (reusable[0]) await reuseResults(tx, screenId, reusable[0].id);
     else {
-      await tx.query(`UPDATE screens SET status = 'running', started_at = now() WHERE id = $1`, [screenId]);
-      await service.enqueue(tx, screenId, Array.from({ length: summary.chunks }, (_, i) => i));
+      await tx.query(`UPDATE screens SET status = 'running', started_at = now() WHERE id = $1`, [
+        screenId,
+      ]);
+      await service.enqueue(
+        tx,
+        screenId,
+        Array.from({ length: summary.chunks }, (_, i) => i),
+      );
     }
     await recordAudit(tx, {
       workspaceId,
@@ -115,15 +169,22 @@ export async function uploadScreen(
   return (await findScreen(db.manager, id))!;
 }
 
+/** Chunks whose insert may be queued ahead of the parser. */
+const STORE_AHEAD = 4;
+
+/** Stores a chunk's inputs and its chunk row in one statement (one round trip). */
 async function storeChunk(tx: EntityManager, screenId: string, chunk: InputChunk): Promise<void> {
-  await tx.query('INSERT INTO screen_inputs (screen_id, chunk_index, payload) VALUES ($1, $2, $3)', [
-    screenId,
-    chunk.index,
-    encodeInputChunk(chunk),
-  ]);
   await tx.query(
-    `INSERT INTO screen_chunks (screen_id, chunk_index, first_line, last_line, row_count) VALUES ($1, $2, $3, $4, $5)`,
-    [screenId, chunk.index, chunk.lines[0], chunk.lines[chunk.lines.length - 1], chunk.lines.length],
+    `WITH input AS (INSERT INTO screen_inputs (screen_id, chunk_index, payload) VALUES ($1, $2, $3))
+     INSERT INTO screen_chunks (screen_id, chunk_index, first_line, last_line, row_count) VALUES ($1, $2, $4, $5, $6)`,
+    [
+      screenId,
+      chunk.index,
+      encodeInputChunk(chunk),
+      chunk.lines[0],
+      chunk.lines[chunk.lines.length - 1],
+      chunk.lines.length,
+    ],
   );
 }
 
@@ -139,7 +200,10 @@ async function reuseResults(tx: EntityManager, screenId: string, fromId: string)
      ON CONFLICT DO NOTHING`,
     [screenId, fromId],
   );
-  await tx.query(`UPDATE screen_chunks SET status = 'done', finished_at = now() WHERE screen_id = $1`, [screenId]);
+  await tx.query(
+    `UPDATE screen_chunks SET status = 'done', finished_at = now() WHERE screen_id = $1`,
+    [screenId],
+  );
   await tx.query(
     `UPDATE screens SET status = 'done', reused_from = $2, rows_done = row_count, chunks_done = chunk_count,
        started_at = now(), finished_at = now() WHERE id = $1`,
@@ -148,18 +212,37 @@ async function reuseResults(tx: EntityManager, screenId: string, fromId: string)
 }
 
 /** Stops a screen: queued chunks are skipped, finished chunks and their results stay. */
-export async function cancelScreen(db: DataSource, userId: string, screenId: string): Promise<Screen> {
+export async function cancelScreen(
+  db: DataSource,
+  userId: string,
+  screenId: string,
+): Promise<Screen> {
   await db.transaction(async (tx) => {
     const workspaceId = await screenForCaller(tx, screenId, userId, canEdit);
     // Chunks first, then the screen: the same lock order as the chunk writer (no deadlock).
-    await tx.query(`UPDATE screen_chunks SET status = 'cancelled' WHERE screen_id = $1 AND status = 'pending'`, [screenId]);
+    await tx.query(
+      `UPDATE screen_chunks SET status = 'cancelled' WHERE screen_id = $1 AND status = 'pending'`,
+      [screenId],
+    );
     const rows: Array<{ id: string }> = await tx.query(
       `UPDATE screens SET status = 'cancelled', finished_at = now() WHERE id = $1 AND status IN ('uploaded', 'running')
        RETURNING id`,
       [screenId],
     );
-    if (!rows[0]) throw new AppError(409, 'screen-not-running', 'Only an uploaded or running screen can be cancelled.');
-    await recordAudit(tx, { workspaceId, actorId: userId, action: 'screen.cancelled', entityType: 'screen', entityId: screenId, summary: 'screen cancelled' });
+    if (!rows[0])
+      throw new AppError(
+        409,
+        'screen-not-running',
+        'Only an uploaded or running screen can be cancelled.',
+      );
+    await recordAudit(tx, {
+      workspaceId,
+      actorId: userId,
+      action: 'screen.cancelled',
+      entityType: 'screen',
+      entityId: screenId,
+      summary: 'screen cancelled',
+    });
   });
   return (await findScreen(db.manager, screenId))!;
 }
@@ -181,17 +264,24 @@ export async function rerunScreen(
       [screenId],
     );
     const current = rows[0];
-    if (current.status === 'running') throw new AppError(409, 'screen-running', 'The screen is already running.');
-    if (current.status === 'done' && current.software_version === SCREEN_SOFTWARE_VERSION) return true;
+    if (current.status === 'running')
+      throw new AppError(409, 'screen-running', 'The screen is already running.');
+    if (current.status === 'done' && current.software_version === SCREEN_SOFTWARE_VERSION)
+      return true;
     if (current.software_version !== SCREEN_SOFTWARE_VERSION) {
       await tx.query('DELETE FROM screen_results WHERE screen_id = $1', [screenId]);
-      await tx.query(`UPDATE screen_chunks SET status = 'pending' WHERE screen_id = $1`, [screenId]);
-      await tx.query('UPDATE screens SET rows_done = 0, chunks_done = 0, software_version = $2 WHERE id = $1', [
+      await tx.query(`UPDATE screen_chunks SET status = 'pending' WHERE screen_id = $1`, [
         screenId,
-        SCREEN_SOFTWARE_VERSION,
       ]);
+      await tx.query(
+        'UPDATE screens SET rows_done = 0, chunks_done = 0, software_version = $2 WHERE id = $1',
+        [screenId, SCREEN_SOFTWARE_VERSION],
+      );
     } else {
-      await tx.query(`UPDATE screen_chunks SET status = 'pending' WHERE screen_id = $1 AND status <> 'done'`, [screenId]);
+      await tx.query(
+        `UPDATE screen_chunks SET status = 'pending' WHERE screen_id = $1 AND status <> 'done'`,
+        [screenId],
+      );
     }
     const pending: Array<{ chunk_index: number }> = await tx.query(
       `SELECT chunk_index FROM screen_chunks WHERE screen_id = $1 AND status = 'pending' ORDER BY chunk_index`,
@@ -202,8 +292,19 @@ export async function rerunScreen(
          finished_at = CASE WHEN $2 = 0 THEN now() ELSE NULL END WHERE id = $1`,
       [screenId, pending.length],
     );
-    await service.enqueue(tx, screenId, pending.map((p) => p.chunk_index));
-    await recordAudit(tx, { workspaceId, actorId: userId, action: 'screen.rerun', entityType: 'screen', entityId: screenId, summary: `screen re-run: ${pending.length} chunk(s) queued` });
+    await service.enqueue(
+      tx,
+      screenId,
+      pending.map((p) => p.chunk_index),
+    );
+    await recordAudit(tx, {
+      workspaceId,
+      actorId: userId,
+      action: 'screen.rerun',
+      entityType: 'screen',
+      entityId: screenId,
+      summary: `screen re-run: ${pending.length} chunk(s) queued`,
+    });
     return false;
   });
   return { screen: (await findScreen(db.manager, screenId))!, reused };
@@ -213,7 +314,12 @@ export async function rerunScreen(
  * Creates a pair from one result row through the pair use-case (so it gets a version and an
  * audit event). Derived parameters name their method, inputs and the screen as source.
  */
-export async function openRowAsPair(db: DataSource, userId: string, screenId: string, line: number): Promise<Pair> {
+export async function openRowAsPair(
+  db: DataSource,
+  userId: string,
+  screenId: string,
+  line: number,
+): Promise<Pair> {
   const workspaceId = await screenForCaller(db.manager, screenId, userId, canEdit);
   const screen = (await findScreen(db.manager, screenId))!;
   const row = await findResult(db.manager, screenId, line);
@@ -225,9 +331,17 @@ export async function openRowAsPair(db: DataSource, userId: string, screenId: st
   const v = (key: keyof InputChunk['values']) => input.values[key][i];
   const source = [{ type: 'screen', id: screenId }];
   const note = `From screen "${screen.name}", line ${line}.`;
-  const given: Provenance = { kind: 'assumed', note: `${note} Value as given in the uploaded file.` };
+  const given: Provenance = {
+    kind: 'assumed',
+    note: `${note} Value as given in the uploaded file.`,
+  };
   const params: PairParameter[] = [];
-  const add = (kind: PairParameter['kind'], value: number | null, unit: string, provenance: Provenance) => {
+  const add = (
+    kind: PairParameter['kind'],
+    value: number | null,
+    unit: string,
+    provenance: Provenance,
+  ) => {
     if (value === null || !Number.isFinite(value)) return;
     params.push({ kind, value, unit, uncertainty: null, provenance });
   };
@@ -238,8 +352,20 @@ export async function openRowAsPair(db: DataSource, userId: string, screenId: st
     distance: v('distance'),
     epsilon: v('epsilon'),
   };
-  add('deltaG0', row.deltaGCs, 'eV', { kind: 'derived', methodId: 'drivingForce.rehmWeller', methodInputs: rwInputs, sources: source, note });
-  add('deltaG0Recombination', row.deltaGCr, 'eV', { kind: 'derived', methodId: 'drivingForce.rehmWeller', methodInputs: rwInputs, sources: source, note });
+  add('deltaG0', row.deltaGCs, 'eV', {
+    kind: 'derived',
+    methodId: 'drivingForce.rehmWeller',
+    methodInputs: rwInputs,
+    sources: source,
+    note,
+  });
+  add('deltaG0Recombination', row.deltaGCr, 'eV', {
+    kind: 'derived',
+    methodId: 'drivingForce.rehmWeller',
+    methodInputs: rwInputs,
+    sources: source,
+    note,
+  });
   add('lambdaInner', row.lambdaInner, 'eV', given);
   add(
     'lambdaOuter',
@@ -249,7 +375,13 @@ export async function openRowAsPair(db: DataSource, userId: string, screenId: st
       ? {
           kind: 'derived',
           methodId: 'reorg.twoSphere',
-          methodInputs: { radiusDonor: v('radiusDonor'), radiusAcceptor: v('radiusAcceptor'), distance: v('distance'), epsilon: v('epsilon'), refractiveIndex: v('refractiveIndex') },
+          methodInputs: {
+            radiusDonor: v('radiusDonor'),
+            radiusAcceptor: v('radiusAcceptor'),
+            distance: v('distance'),
+            epsilon: v('epsilon'),
+            refractiveIndex: v('refractiveIndex'),
+          },
           sources: source,
           note,
         }
@@ -263,7 +395,12 @@ export async function openRowAsPair(db: DataSource, userId: string, screenId: st
       ? {
           kind: 'derived',
           methodId: 'coupling.distanceDecay',
-          methodInputs: { coupling0: v('coupling0'), distance0: v('distance0'), beta: v('beta'), distance: v('distance') },
+          methodInputs: {
+            coupling0: v('coupling0'),
+            distance0: v('distance0'),
+            beta: v('beta'),
+            distance: v('distance'),
+          },
           sources: source,
           note,
         }
@@ -277,7 +414,12 @@ export async function openRowAsPair(db: DataSource, userId: string, screenId: st
   add('acceptorReduction', v('acceptorReduction'), 'V', given);
   add('excitationEnergy', v('excitationEnergy'), 'eV', given);
   add('epsilonStatic', v('epsilon'), '', given);
-  add('refractiveIndex', Number.isNaN(v('refractiveIndex')) ? null : v('refractiveIndex'), '', given);
+  add(
+    'refractiveIndex',
+    Number.isNaN(v('refractiveIndex')) ? null : v('refractiveIndex'),
+    '',
+    given,
+  );
   const dto = parseBody(PairInputDto, {
     name: `${row.donor} / ${row.acceptor} (screen line ${line})`,
     donor: row.donor,

@@ -6,7 +6,7 @@ import { REPO_ROOT } from '../config';
  * input hash and this version; bump SCREEN_COMPUTE_REVISION whenever the per-row computation
  * changes without a package version change.
  */
-const SCREEN_COMPUTE_REVISION = 1;
+const SCREEN_COMPUTE_REVISION = 2; // r2: kernels on the hot path; no per-row reference-electrode advice
 
 const pkg = JSON.parse(readFileSync(`${REPO_ROOT}/package.json`, 'utf8')) as { version: string };
 
