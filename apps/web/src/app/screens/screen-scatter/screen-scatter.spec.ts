@@ -1,0 +1,70 @@
+import { TestBed } from '@angular/core/testing';
+import type { ScreenResultRow } from '@gapwise/contracts';
+import { PLOT_RATES } from '../result-columns';
+import { ScreenScatter, scatterPoints } from './screen-scatter';
+
+const row = (i: number, over: Partial<ScreenResultRow> = {}): ScreenResultRow => ({
+  rowNumber: i + 2,
+  donor: `Med-${i}`,
+  acceptor: `Med-${i + 60}`,
+  solvent: 'acetonitrile',
+  deltaGCs: -0.2 - i * 0.1,
+  deltaGCr: -2.2 + i * 0.1,
+  lambdaInner: 0.2,
+  lambdaOuter: 0.8,
+  lambdaTotal: 1,
+  coupling: 0.005,
+  temperature: 298.15,
+  log10kCsMarcus: 9 + i * 0.1,
+  log10kCrMarcus: 6 - i * 0.1,
+  log10kCsMlj: null,
+  log10kCrMlj: null,
+  regimeCs: 'normal',
+  regimeCr: i % 2 ? 'inverted' : 'normal',
+  warnings: [],
+  score: i,
+  ...over,
+});
+
+describe('ScreenScatter', () => {
+  it('takes −ΔG° as x and the chosen rate as y, leaving out rows without a rate', () => {
+    const pts = scatterPoints([row(0), row(1, { log10kCsMarcus: null })], PLOT_RATES[0], 'score');
+    expect(pts).toHaveLength(1);
+    expect(pts[0].x).toBeCloseTo(0.2, 12);
+    expect(pts[0].y).toBe(9);
+    const cr = scatterPoints([row(3)], PLOT_RATES[1], 'coupling');
+    expect(cr[0].x).toBeCloseTo(1.9, 12);
+    expect(cr[0].colourValue).toBeCloseTo(5, 12); // |H_AB| shown in meV
+  });
+
+  it('draws one mark per pair, labelled axes, a colour legend, and shapes per regime', async () => {
+    const fixture = TestBed.createComponent(ScreenScatter);
+    fixture.componentRef.setInput(
+      'rows',
+      Array.from({ length: 12 }, (_, i) => row(i)),
+    );
+    fixture.componentRef.setInput('rate', PLOT_RATES[0]);
+    fixture.componentRef.setInput('colourBy', 'score');
+    fixture.detectChanges();
+    await fixture.whenStable();
+    const svg: SVGSVGElement = fixture.nativeElement.querySelector('svg');
+    expect(svg.querySelectorAll('path.point')).toHaveLength(12);
+    const labels = Array.from(svg.querySelectorAll('.axis-label')).map((t) => t.textContent);
+    expect(labels).toEqual(['Driving force −ΔG°CS / eV', 'log₁₀(kCS / s⁻¹)']);
+    expect(svg.querySelector('.legend')?.textContent).toContain('Colour: Ranking score');
+    // Numeric colouring: different scores, different fills.
+    const fills = new Set(
+      Array.from(svg.querySelectorAll('path.point')).map((p) => p.getAttribute('fill')),
+    );
+    expect(fills.size).toBeGreaterThan(5);
+
+    fixture.componentRef.setInput('colourBy', 'regimeCr');
+    fixture.detectChanges();
+    await fixture.whenStable();
+    const shapes = new Set(
+      Array.from(svg.querySelectorAll('path.point')).map((p) => p.getAttribute('d')),
+    );
+    expect(shapes.size).toBe(2); // normal and inverted: two shapes, not only two colours
+    expect(svg.querySelector('.legend')?.textContent).toContain('inverted');
+  });
+});
