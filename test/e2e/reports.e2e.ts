@@ -102,7 +102,7 @@ describe('reports and review in chromium', () => {
     await reviewer.getByRole('button', { name: 'Post comment' }).click();
     const comment = reviewer.locator('li.comment').filter({ hasText: '45 cm⁻¹ coupling' });
     await eventually(() => comment.locator('.anchor').textContent()).toBe(
-      'on Electronic coupling |H_AB|',
+      'on Electronic coupling |HAB|',
     );
     await eventually(() => reviewer.locator('tr[data-kind="coupling"] .count').textContent()).toBe(
       '1 comment',
@@ -172,9 +172,20 @@ describe('reports and review in chromium', () => {
     expect(await coupling.textContent()).toMatch(/Derived/i);
     const lambdaInner = reviewer.locator('tr[data-kind="lambdaInner"]');
     expect(await lambdaInner.textContent()).toContain('gw-calc-040');
-    // The three plots are drawn (SVG with curves).
+    // Subscripts as in the PDF, derivation inputs with units, no raw markup in the equations.
+    expect(await coupling.locator('th sub').textContent()).toBe('AB');
+    expect(await reviewer.locator('tr[data-kind="lambdaOuter"]').textContent()).toContain(
+      'distance = 10.8 Å',
+    );
+    const methods = (await reviewer.getByRole('region', { name: 'Methods' }).textContent())!;
+    expect(methods).not.toMatch(/_\{|H_AB|λ_s/);
+    // The three plots are drawn (SVG with curves), wide enough for their axis labels to read.
     for (const plot of ['gw-parabola-plot', 'gw-driving-force-plot', 'gw-temperature-plot']) {
       await eventually(() => reviewer.locator(`${plot} svg path`).count()).toBeGreaterThan(1);
+      const width = await reviewer
+        .locator(`${plot} svg`)
+        .evaluateAll((svgs) => Math.max(...svgs.map((svg) => svg.getBoundingClientRect().width)));
+      expect(width, `${plot} width`).toBeGreaterThanOrEqual(440);
     }
     expect(
       await reviewer.getByRole('complementary', { name: 'Limits of this estimate' }).textContent(),
@@ -189,7 +200,7 @@ describe('reports and review in chromium', () => {
       .fill('The GMH coupling of 120 cm⁻¹ is consistent with the CT band; fine for this estimate.');
     await reviewer.getByRole('button', { name: 'Post comment' }).click();
     await eventually(() => reviewer.locator('li.comment .anchor').first().textContent()).toBe(
-      'on Electronic coupling |H_AB|',
+      'on Electronic coupling |HAB|',
     );
     await shoot(reviewer, 'report-comments');
     await reviewer.getByRole('button', { name: 'Approve' }).click();
