@@ -1,3 +1,4 @@
+/// <reference types="vite/client" />
 import { randomBytes } from 'node:crypto';
 import request from 'supertest';
 import type { Router } from 'express';
