@@ -13,6 +13,25 @@ pg_out=$(bash docker-free-scripts/postgres-start.sh)
 DATABASE_URL=${DATABASE_URL:-$(printf '%s\n' "$pg_out" | sed -n 's/^DATABASE_URL=//p' | tail -n 1)}
 export DATABASE_URL
 
+
+export SMTP_PORT=${SMTP_PORT:-2525} MAIL_UI_PORT=${MAIL_UI_PORT:-2526} S3_PORT=${S3_PORT:-4568}
+export S3_ENDPOINT=${S3_ENDPOINT:-http://127.0.0.1:${S3_PORT}}
+say "starting mail capture (SMTP ${SMTP_PORT}) and the S3-compatible store (${S3_PORT})…"
+npx tsx docker-free-scripts/services.ts &
+services_pid=$!
+cleanup() {
+  kill "$services_pid" 2>/dev/null || true
+  wait "$services_pid" 2>/dev/null || true
+}
+trap cleanup EXIT
+trap 'exit 130' INT TERM
+
+# Wait until the object store answers before the seed writes demo files into it.
+for _ in $(seq 1 60); do
+  if (exec 3<>"/dev/tcp/127.0.0.1/${S3_PORT}") 2>/dev/null; then break; fi
+  sleep 0.5
+done
+
 say "applying migrations and the demo seed…"
 npx tsx db/migrate.ts
 npx tsx db/seed/seed-demo.ts
@@ -26,17 +45,6 @@ else
   say "web app build is up to date"
 fi
 
-export SMTP_PORT=${SMTP_PORT:-2525} MAIL_UI_PORT=${MAIL_UI_PORT:-2526} S3_PORT=${S3_PORT:-4568}
-export S3_ENDPOINT=${S3_ENDPOINT:-http://127.0.0.1:${S3_PORT}}
-say "starting mail capture (SMTP ${SMTP_PORT}) and the S3-compatible store (${S3_PORT})…"
-npx tsx docker-free-scripts/services.ts &
-services_pid=$!
-cleanup() {
-  kill "$services_pid" 2>/dev/null || true
-  wait "$services_pid" 2>/dev/null || true
-}
-trap cleanup EXIT
-trap 'exit 130' INT TERM
 
 port=${PORT:-4280}
 cat <<MSG
