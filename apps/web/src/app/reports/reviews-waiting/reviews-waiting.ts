@@ -20,7 +20,7 @@ import { ReportsApi } from '../reports-api';
                 <th scope="col">Report</th>
                 <th scope="col">Workspace</th>
                 <th scope="col">Author</th>
-                <th scope="col">Submitted</th>
+                <th scope="col">Last change</th>
               </tr>
             </thead>
             <tbody>
