@@ -76,6 +76,7 @@ export {
   HistogramCounter,
   analyseGapSamples,
   gapOutputsFromCounts,
+  mergeDiabaticCurves,
   planGapHistograms,
 } from './gap/index';
 export type {
@@ -83,6 +84,7 @@ export type {
   GapHistogramPlan,
   GapStateSummary,
   GapStatistics,
+  MergedFreeEnergyCurve,
 } from './gap/index';
 
 // Electrode kinetics, hopping transport, quenching and sampling kernels a page may plot directly.

@@ -127,6 +127,11 @@ describe('streaming trace analysis', () => {
     expect(Math.abs(o.linearResponseRatio - 1)).toBeLessThan(0.05);
     expect(res.warnings.map((w) => w.code)).not.toContain('gap-nonlinear-response');
     expect(res.sources.reactant.sampleCount).toBe(20_000);
+    // The merged curve travels with the streamed result; its shift estimates ΔG° (SCIENCE.md §7).
+    const merged = (res.outputs as { mergedCurve: Record<string, number> | null }).mergedCurve;
+    expect(merged).not.toBeNull();
+    expect(Math.abs(merged!.shiftEv - DG0)).toBeLessThan(4 * merged!.shiftStandardError);
+    expect(merged!.shiftStandardError).toBeLessThan(0.02);
   });
 
   it('warns when linear response fails (λ_St = 0.80 eV, λ_var = 1.00 and 0.61 eV)', async () => {

@@ -33,6 +33,8 @@ export {
   percentileSorted,
 } from './histogram/histogram';
 export type { Histogram } from './histogram/histogram';
+export { mergeDiabaticCurves } from './merged-curve/merged-curve';
+export type { MergedFreeEnergyCurve } from './merged-curve/merged-curve';
 
 /** The gap-sampling methods, for the registry. */
 export const gapMethods: MethodDefinition<any>[] = [gapSamplesMethod];

@@ -18,6 +18,7 @@ import {
   percentileSorted,
   type Histogram,
 } from '../histogram/histogram';
+import { mergeDiabaticCurves } from '../merged-curve/merged-curve';
 
 /** Bins with at least this many counts are fitted by the parabola (SCIENCE.md §7). */
 const WELL_POPULATED = 10;
@@ -250,7 +251,9 @@ function blockTable(levels: readonly BlockLevel[]) {
  *   product histogram, else from the reactant parabola (b²/(4a)) with warning B20;
  * - parabolas G = ax² + bx + c through bins with count ≥ 10 (weights √count): λ = 1/(4a);
  * - the exact linear free-energy relation G_P(x) − G_R(x) = x checked on bins populated in
- *   both states (mean and rms of the deviation).
+ *   both states (mean and rms of the deviation);
+ * - the merged curve (`mergeDiabaticCurves`): both histograms combined through that relation,
+ *   the constant (≈ ΔG°) fitted on the overlap; null when the states share no populated bin.
  * References: A. Warshel, J. Phys. Chem. 1982, 86, 2218 (doi 10.1021/j100209a016); M. Tachiya,
  * J. Phys. Chem. 1989, 93, 7050 (doi 10.1021/j100357a004); G. King, A. Warshel, J. Chem. Phys.
  * 1990, 93, 8682 (doi 10.1063/1.459255); J. Blumberger, Chem. Rev. 2015, 115, 11191
@@ -369,6 +372,13 @@ export function gapOutputsFromCounts(
     if (gr !== null && gp !== null) deviations.push(gp - gr - curveR.x[i]);
   }
 
+  const mergedCurve = mergeDiabaticCurves(
+    edges,
+    counts.commonReactant,
+    counts.commonProduct,
+    thermalEv,
+  );
+
   const barrier = activationFreeEnergy(curveR, curveP, edges, parabolaR, r, p, warnings);
   const seR = r.plateau.standardError;
   const seP = p.plateau.standardError;
@@ -403,6 +413,7 @@ export function gapOutputsFromCounts(
       meanDeviation: deviations.length > 0 ? mean(deviations) : null,
       rmsDeviation: deviations.length > 0 ? Math.sqrt(mean(deviations.map((d) => d * d))) : null,
     },
+    mergedCurve,
     standardErrors: {
       meanReactant: seR,
       meanProduct: seP,
@@ -524,6 +535,7 @@ export const gapSamplesMethod: MethodDefinition<GapSampleInputs> = {
   references: [
     'A. Warshel, J. Phys. Chem. 1982, 86, 2218. doi:10.1021/j100209a016',
     'M. Tachiya, J. Phys. Chem. 1989, 93, 7050. doi:10.1021/j100357a004',
+    'G. King, A. Warshel, J. Chem. Phys. 1990, 93, 8682. doi:10.1063/1.459255',
     'J. Blumberger, Chem. Rev. 2015, 115, 11191. doi:10.1021/acs.chemrev.5b00298',
     'H. Flyvbjerg, H. G. Petersen, J. Chem. Phys. 1989, 91, 461. doi:10.1063/1.457480',
     'D. Freedman, P. Diaconis, Z. Wahrscheinlichkeitstheorie verw. Geb. 1981, 57, 453.',
@@ -568,6 +580,13 @@ export const gapSamplesMethod: MethodDefinition<GapSampleInputs> = {
       name: 'freeEnergyCurves',
       unit: 'eV',
       description: '{ x, reactant, product } (null = empty bin).',
+    },
+    {
+      name: 'mergedCurve',
+      unit: 'eV',
+      description:
+        '{ x, reactant, product, overlapBins, shiftEv, shiftStandardError }: G_R and G_P = G_R + x ' +
+        'merged from both histograms, shift (≈ ΔG°) fitted on the overlap; null without overlap.',
     },
     { name: 'activationFreeEnergy', unit: 'eV', description: 'ΔG‡ = G_R(0) − min G_R.' },
     {
