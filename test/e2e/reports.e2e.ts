@@ -112,6 +112,26 @@ describe('reports and review in chromium', () => {
     await eventually(() => status(reviewer).textContent()).toBe('Changes requested');
     await waitForMail(mailUrl, EDITOR, /^Changes requested: DA-1/);
 
+    // The editor answers in the thread: the reply sits under the question, on the same parameter,
+    // and the reviewer is told.
+    await editor.reload();
+    await editor
+      .locator('li.comment')
+      .filter({ hasText: '45 cm⁻¹ coupling' })
+      .getByRole('button', {
+        name: 'Reply',
+      })
+      .click();
+    await eventually(() => editor.locator('p.replying').textContent()).toContain('Replying to');
+    await editor
+      .locator('#comment-body')
+      .fill('B3LYP/def2-TZVP, run gw-calc-032; added to the notes.');
+    await editor.getByRole('button', { name: 'Post comment' }).click();
+    const reply = editor.locator('li.comment').filter({ hasText: 'B3LYP/def2-TZVP' });
+    await eventually(() => reply.getAttribute('style')).toContain('margin-left: 24px');
+    expect(await reply.locator('.anchor').textContent()).toBe('on Electronic coupling |HAB|');
+    await waitForMail(mailUrl, REVIEWER, /^New comment: DA-1/);
+
     // The editor changes the pair, takes a new snapshot and resubmits.
     const before = (await (await editor.request.get(`${baseUrl}/api/reports/${reportId}`)).json())
       .snapshotId as string;
