@@ -1,4 +1,10 @@
-import { binDensities, gaussianOverlay, normalDensity, tiltedReactant } from './gap-outputs';
+import {
+  binDensities,
+  gaussianOverlay,
+  mergedReactant,
+  normalDensity,
+  tiltedReactant,
+} from './gap-outputs';
 
 describe('gap output transformations', () => {
   it('turns counts into densities that integrate to one', () => {
@@ -24,6 +30,24 @@ describe('gap output transformations', () => {
     ).toEqual([
       { x: -0.1, g: 0.19999999999999998 },
       { x: 0.1, g: 0.2 },
+    ]);
+  });
+
+  it('gives the merged reactant curve as points, none for an analysis without one', () => {
+    expect(mergedReactant(undefined)).toEqual([]);
+    expect(mergedReactant(null)).toEqual([]);
+    expect(
+      mergedReactant({
+        x: [-0.1, 0.1],
+        reactant: [0.3, 0.1],
+        product: [0.2, 0.2],
+        overlapBins: 1,
+        shiftEv: -0.05,
+        shiftStandardError: 0.01,
+      }),
+    ).toEqual([
+      { x: -0.1, g: 0.3 },
+      { x: 0.1, g: 0.1 },
     ]);
   });
 });

@@ -52,6 +52,11 @@ export interface GapOutputs {
     meanDeviation: number | null;
     rmsDeviation: number | null;
   };
+  /**
+   * Both histograms merged through G_P = G_R + x (null without overlap; absent from analyses
+   * finished before it was computed).
+   */
+  readonly mergedCurve?: GapMergedCurve | null;
   readonly standardErrors: {
     meanReactant: number;
     meanProduct: number;
@@ -66,6 +71,18 @@ export interface GapOutputs {
   readonly excessKurtosis: PerState<number>;
   readonly sampleCounts: PerState<number>;
   readonly histograms: PerState<GapHistogram>;
+}
+
+export interface GapMergedCurve {
+  readonly x: number[];
+  /** Merged G_R(x), eV. */
+  readonly reactant: number[];
+  /** Merged G_P(x) = G_R(x) + x, eV. */
+  readonly product: number[];
+  readonly overlapBins: number;
+  /** The constant aligning the states (≈ ΔG°), eV. */
+  readonly shiftEv: number;
+  readonly shiftStandardError: number;
 }
 
 export interface DensityPoint {
@@ -122,4 +139,14 @@ export function tiltedReactant(
     if (g !== null && g !== undefined) out.push({ x, g: g + x });
   });
   return out;
+}
+
+/** The merged G_R(x) as points to draw, or none when the analysis has no merged curve. */
+export function mergedReactant(
+  merged: GapMergedCurve | null | undefined,
+): Array<{ x: number; g: number }> {
+  if (!merged) return [];
+  return merged.x
+    .map((x, i) => ({ x, g: merged.reactant[i] }))
+    .filter((q) => Number.isFinite(q.x) && Number.isFinite(q.g));
 }

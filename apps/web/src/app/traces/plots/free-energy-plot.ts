@@ -10,11 +10,12 @@ import {
 import { line } from 'd3';
 import { PlotExport } from '../../plots/plot-export/plot-export';
 import { drawFrame } from '../../plots/plot-frame';
-import { tiltedReactant, type GapOutputs } from '../gap-outputs';
+import { mergedReactant, tiltedReactant, type GapOutputs } from '../gap-outputs';
 
 /**
  * Diabatic free-energy curves G_R(ΔE) and G_P(ΔE) from the histograms, with G_R(ΔE) + ΔE drawn
  * over G_P: the exact linear free-energy relation says they coincide where both are sampled.
+ * The merged G_R (both histograms combined through that relation) is drawn as a solid line.
  */
 @Component({
   selector: 'gw-free-energy-plot',
@@ -39,6 +40,13 @@ import { tiltedReactant, type GapOutputs } from '../gap-outputs';
         <span class="key"
           >- - - G<sub>R</sub>(ΔE) + ΔE (the relation; should lie on G<sub>P</sub>)</span
         >
+        @if (merged().length > 0) {
+          <span class="key merged" style="color: #17705b"
+            >── G<sub>R</sub>(ΔE) merged from both states (shift
+            {{ outputs().mergedCurve!.shiftEv.toFixed(3) }} eV on
+            {{ outputs().mergedCurve!.overlapBins }} shared bins)</span
+          >
+        }
       </p>
     </figure>
   `,
@@ -49,6 +57,7 @@ export class FreeEnergyPlot {
   readonly outputs = input.required<GapOutputs>();
   private readonly svgRef = viewChild.required<ElementRef<SVGSVGElement>>('svg');
   protected readonly svgEl = computed(() => this.svgRef().nativeElement);
+  protected readonly merged = computed(() => mergedReactant(this.outputs().mergedCurve));
 
   constructor() {
     effect(() => this.draw(this.svgRef().nativeElement, this.outputs()));
@@ -63,7 +72,8 @@ export class FreeEnergyPlot {
     const r = points('reactant');
     const p = points('product');
     const tilted = tiltedReactant(c);
-    const all = [...r, ...p];
+    const merged = mergedReactant(o.mergedCurve);
+    const all = [...r, ...p, ...merged];
     const xs = [...all.map((q) => q.x), 0];
     const gs = all.map((q) => q.g);
     const gMax = Math.min(Math.max(...gs), Math.min(...gs) + 1.5);
@@ -99,6 +109,20 @@ export class FreeEnergyPlot {
       .attr('stroke', '#3a3a3a')
       .attr('stroke-width', 1.4)
       .attr('stroke-dasharray', '5 4');
+    if (merged.length > 0) {
+      f.plot
+        .append('path')
+        .attr('class', 'merged')
+        .attr(
+          'd',
+          line<{ x: number; g: number }>()
+            .x((q) => f.x(q.x))
+            .y((q) => f.y(q.g))(merged),
+        )
+        .attr('fill', 'none')
+        .attr('stroke', '#17705b')
+        .attr('stroke-width', 2.2);
+    }
     const dots = (
       data: Array<{ x: number; g: number }>,
       cls: string,
