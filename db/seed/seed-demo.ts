@@ -7,6 +7,9 @@ import { createDataSource, DEFAULT_DATABASE_URL } from '../data-source';
 import { DEMO_ACCOUNTS, DEMO_LAB, DEMO_MEDIATORS, DEMO_PASSWORD, seedDemo } from './demo-data';
 import { seedDemoReport } from '../../apps/api/src/reports/demo-report-seed';
 import { seedDemoScreensAndSeries } from '../../apps/api/src/screens/demo-screen-seed';
+import { seedDemoTraces } from '../../apps/api/src/traces/demo-trace-seed';
+import { TraceObjectStore } from '../../apps/api/src/traces/trace-object-store';
+import { traceStoreConfigFromEnv } from '../../apps/api/src/traces/trace-services';
 
 const dataSource = createDataSource({ url: process.env['DATABASE_URL'] || DEFAULT_DATABASE_URL, poolSize: 2 });
 try {
@@ -21,6 +24,18 @@ try {
   // A finished demo screen (flow-cell workspace) and a fitted demo series (lab).
   const added = await seedDemoScreensAndSeries(dataSource, { mediatorsName: DEMO_MEDIATORS, labName: DEMO_LAB, ownerEmail: 'owner@gapwise.test', editorEmail: 'editor@gapwise.test' });
   if (added.screen || added.series) console.log(`demo seed: ${added.screen ? '1 screen' : ''}${added.screen && added.series ? ' and ' : ''}${added.series ? '1 series' : ''} added`);
+  // Demo energy-gap traces (lab) in object storage with a finished analysis: needs the S3 store.
+  if (process.env['S3_ENDPOINT']) {
+    const store = new TraceObjectStore(traceStoreConfigFromEnv());
+    try {
+      const t = await seedDemoTraces(dataSource, store, { labName: DEMO_LAB, editorEmail: 'editor@gapwise.test' });
+      if (t.traces || t.analysis) console.log(`demo seed: ${t.traces} trace(s)${t.analysis ? ' and 1 finished trace analysis' : ''} added`);
+    } finally {
+      store.destroy();
+    }
+  } else {
+    console.log('demo seed: demo traces skipped (S3_ENDPOINT is not set; npm start starts the S3 store and sets it)');
+  }
   console.log(`demo sign-ins (password ${DEMO_PASSWORD}): ${DEMO_ACCOUNTS.map((a) => a.email).join(', ')}`);
 } catch (error) {
   console.error(`demo seed failed: ${(error as Error).message}`);

@@ -16,6 +16,9 @@ import { createDataSource } from '../../db/data-source';
 import { DEMO_LAB, DEMO_MEDIATORS, seedDemo } from '../../db/seed/demo-data';
 import { seedDemoReport } from '../../apps/api/src/reports/demo-report-seed';
 import { seedDemoScreensAndSeries } from '../../apps/api/src/screens/demo-screen-seed';
+import { seedDemoTraces } from '../../apps/api/src/traces/demo-trace-seed';
+import { TraceObjectStore } from '../../apps/api/src/traces/trace-object-store';
+import { traceStoreConfigFromEnv } from '../../apps/api/src/traces/trace-services';
 import { startMailCapture } from '../../docker-free-scripts/mail/mail-capture-server';
 import { startObjectStore } from '../../docker-free-scripts/s3/object-store';
 import { createTestDatabase } from '../api/support/test-database';
@@ -119,6 +122,13 @@ export default async function setup(project: TestProject) {
       await seedDemo(dataSource);
       await seedDemoReport(dataSource, { labName: DEMO_LAB, editorEmail: 'editor@gapwise.test' });
       await seedDemoScreensAndSeries(dataSource, { mediatorsName: DEMO_MEDIATORS, labName: DEMO_LAB, ownerEmail: 'owner@gapwise.test', editorEmail: 'editor@gapwise.test' });
+      // The demo traces go into this run's S3 store (started above), as npm start's seed does.
+      const traceStore = new TraceObjectStore(traceStoreConfigFromEnv({ S3_ENDPOINT: store.endpoint, S3_BUCKET: store.bucket }));
+      try {
+        await seedDemoTraces(dataSource, traceStore, { labName: DEMO_LAB, editorEmail: 'editor@gapwise.test' });
+      } finally {
+        traceStore.destroy();
+      }
     } finally {
       await dataSource.destroy();
     }
