@@ -59,12 +59,10 @@ describe('screens API client', () => {
     const http = TestBed.inject(HttpTestingController);
     const seen: number[] = [];
     let completed = false;
-    api
-      .watch('s1', 1000)
-      .subscribe({
-        next: (s) => seen.push(s.progress.rowsDone),
-        complete: () => (completed = true),
-      });
+    api.watch('s1', 1000).subscribe({
+      next: (s) => seen.push(s.progress.rowsDone),
+      complete: () => (completed = true),
+    });
     await vi.advanceTimersByTimeAsync(0);
     http.expectOne('/api/screens/s1').flush(screen('running', 0));
     await vi.advanceTimersByTimeAsync(1000);
@@ -90,6 +88,7 @@ describe('screens API client', () => {
     });
     expect(report?.rows.map((r) => r.line)).toEqual([3, 9]);
     expect(report?.goodRows).toBe(8);
+    expect(report?.rows[0].message).toBe("'distance': 'x' is not a number"); // line shown once
     expect(badRowReportOf({ code: 'validation-failed', message: 'x' })).toBeNull();
   });
 });

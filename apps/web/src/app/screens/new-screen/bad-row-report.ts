@@ -20,7 +20,8 @@ export function badRowReportOf(error: ApiError): BadRowReport | null {
   }>;
   const rows = (error.fields ?? []).map((f) => {
     const m = /^line (\d+)$/.exec(f.field);
-    return { line: m ? Number(m[1]) : null, message: f.message };
+    // The message repeats "Line n: " for readers of the raw API answer; the page shows it once.
+    return { line: m ? Number(m[1]) : null, message: f.message.replace(/^Line \d+:\s*/, '') };
   });
   return {
     message: error.message,

@@ -299,7 +299,7 @@ export class ScreenScatter {
       .attr('y', 32 + barH)
       .attr('fill', '#57606a')
       .attr('font-size', 10)
-      .text('grey: no value');
+      .text('grey: no value (e.g. no score)');
   }
 
   /** Removes the brushed rectangle (the caller clears its filter). */

@@ -34,8 +34,8 @@ export interface ApplyDialogData {
       <mat-radio-group [(ngModel)]="model" aria-label="Model" class="models">
         @for (m of data.models; track m.model) {
           <mat-radio-button [value]="m.model">
-            {{ names[m.model] }}: λ = {{ fx(m.lambda, 3) }} eV, |H<sub>AB</sub>| =
-            {{ sig(m.coupling * 1000) }} meV
+            {{ names[m.model] }}: λ<sub>{{ m.model === 'mlj' ? 's' : '' }}</sub> =
+            {{ fx(m.lambda, 3) }} eV, |H<sub>AB</sub>| = {{ sig(m.coupling * 1000) }} meV
           </mat-radio-button>
         }
       </mat-radio-group>

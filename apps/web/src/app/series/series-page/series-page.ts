@@ -188,8 +188,9 @@ export class SeriesPage {
 
   /** Saves when changed, then fits (both models when the mode is given). */
   protected fitNow(): void {
+    // The mode as typed now (saving reloads the form from the stored series).
+    const v = this.form.getRawValue();
     const run = (s: Series) => {
-      const v = this.form.getRawValue();
       const hbarOmega = parseStrictNumber(v.hbarOmega);
       const lambdaVib = parseStrictNumber(v.lambdaVib);
       const mode = hbarOmega !== null && lambdaVib !== null ? { hbarOmega, lambdaVib } : {};
@@ -243,7 +244,8 @@ export class SeriesPage {
       this.addPoint({
         label: p.label,
         deltaG0: editableText(displayOf(p.deltaG0, unit, 'energy')),
-        rate: editableText(p.log10k),
+        // log10 k converted from a typed k: six significant figures (≪ any measured σ).
+        rate: editableText(Number(p.log10k.toPrecision(6))),
         sigma: editableText(p.sigmaLog10k),
       });
     }
@@ -254,10 +256,22 @@ export class SeriesPage {
       energyUnit: unit,
       rateKind: 'log10k',
       notes: s.notes,
-      model: opts.model ?? s.fit?.model ?? 'marcus',
-      hbarOmega: editableText(opts.hbarOmega ?? s.fit?.hbarOmega ?? null),
-      lambdaVib: editableText(opts.lambdaVib ?? s.fit?.lambdaVib ?? null),
     });
+    // The fit settings stay as typed unless the series stores its own.
+    const hbarOmega = opts.hbarOmega ?? s.fit?.hbarOmega;
+    const lambdaVib = opts.lambdaVib ?? s.fit?.lambdaVib;
+    if (opts.model ?? s.fit?.model) this.form.patchValue({ model: opts.model ?? s.fit?.model });
+    if (
+      hbarOmega !== undefined &&
+      hbarOmega !== null &&
+      lambdaVib !== undefined &&
+      lambdaVib !== null
+    ) {
+      this.form.patchValue({
+        hbarOmega: editableText(hbarOmega),
+        lambdaVib: editableText(lambdaVib),
+      });
+    }
     this.form.markAsPristine();
   }
 
