@@ -9,6 +9,7 @@ import {
   PairEntity,
   PairParameterEntity,
   PairVersionEntity,
+  PendingRegistrationEntity,
   UserEntity,
   WorkspaceEntity,
   ScreenEntity,
@@ -48,6 +49,7 @@ export const entities = [
   ReportEntity,
   ReportCommentEntity,
   ReportTransitionEntity,
+  PendingRegistrationEntity,
 ];
 
 /** Development database of docker-free-scripts/postgres-start.sh. */

@@ -6,6 +6,7 @@ export { MembershipEntity } from './membership';
 export { PairEntity } from './pair';
 export { PairParameterEntity } from './pair-parameter';
 export { PairVersionEntity } from './pair-version';
+export { PendingRegistrationEntity } from './pending-registration';
 export { UserEntity } from './user';
 export { WorkspaceEntity } from './workspace';
 export { ScreenEntity } from './screen';

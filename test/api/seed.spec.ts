@@ -1,8 +1,7 @@
-import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD, seedDemo } from '@gapwise/db';
 import type { Pair, PairListItem } from '@gapwise/contracts';
-import { signIn, startTestApp, type TestApp } from './support/test-app';
+import { registerUser, signIn, startTestApp, type TestApp } from './support/test-app';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -61,10 +60,9 @@ describe('demo seed', () => {
     const res = await viewer.patch(`/api/pairs/${item.id}`, { version: before.version, name: 'renamed by viewer' }).expect(403);
     expect(res.body.error.code).toBe('forbidden');
     expect((await viewer.get(`/api/pairs/${item.id}`).expect(200)).body).toEqual(before);
-    const reg = await request(t.app).post('/api/auth/register').send({ email: 'elsewhere@example.test', password: 'long enough pass', displayName: 'E' }).expect(201);
-    const cookie = (reg.headers['set-cookie'] as unknown as string[]).map((c) => c.split(';')[0]).join('; ');
-    await request(t.app).post('/api/workspaces').set('Cookie', cookie).set('X-CSRF-Token', reg.body.csrfToken).send({ name: 'Other lab' }).expect(201);
-    await request(t.app).patch(`/api/pairs/${item.id}`).set('Cookie', cookie).set('X-CSRF-Token', reg.body.csrfToken).send({ version: before.version, name: 'x' }).expect(404);
-    await request(t.app).get(`/api/pairs/${item.id}`).set('Cookie', cookie).expect(404);
+    const other = await registerUser(t.app, 'elsewhere');
+    await other.post('/api/workspaces', { name: 'Other lab' }).expect(201);
+    await other.patch(`/api/pairs/${item.id}`, { version: before.version, name: 'x' }).expect(404);
+    await other.get(`/api/pairs/${item.id}`).expect(404);
   });
 });

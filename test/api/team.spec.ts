@@ -17,7 +17,7 @@ afterAll(async () => t?.close());
 
 async function invite(email: string, role: string): Promise<string> {
   await owner.post(`/api/workspaces/${wid}/invitations`, { email, role }).expect(201);
-  const message = await t.mail.waitFor((m) => m.to.includes(email.toLowerCase()), 20_000);
+  const message = await t.mail.waitFor((m) => m.to.includes(email.toLowerCase()) && m.text.includes('/invitations/'), 20_000);
   const link = message.text.match(/http:\/\/127\.0\.0\.1:4280\/invitations\/([\w-]+)/);
   if (!link) throw new Error(`no accept link in: ${message.text}`);
   return link[1]!;
@@ -34,13 +34,19 @@ describe('invitations end to end', () => {
   it('invite → e-mail with a link → preview → accept → member with the invited role', async () => {
     const invitee = await registerUser(t.app, 'invitee');
     await owner.post(`/api/workspaces/${wid}/invitations`, { email: invitee.email.toUpperCase(), role: 'reviewer' }).expect(201);
-    const message = await t.mail.waitFor((m) => m.to.includes(invitee.email), 20_000);
+    const message = await t.mail.waitFor((m) => m.to.includes(invitee.email) && m.text.includes('/invitations/'), 20_000);
     expect(message.subject).toContain('Team Lab');
     const token = message.text.match(/http:\/\/127\.0\.0\.1:4280\/invitations\/([\w-]+)/)![1]!;
     const stored = await t.db.query('SELECT token_hash FROM invitations WHERE email = $1', [invitee.email]);
     expect(stored[0].token_hash).not.toBe(token);
-    const outbox = await t.db.query(`SELECT status, text_body FROM mail_outbox WHERE to_address = $1`, [invitee.email]);
-    expect(outbox[0]).toMatchObject({ status: 'sent', text_body: null });
+    // The send is marked (and the body cleared) right after SMTP accepted the message.
+    let outbox: Array<{ status: string; text_body: string | null }> = [];
+    for (let i = 0; i < 50; i++) {
+      outbox = await t.db.query(`SELECT status, text_body FROM mail_outbox WHERE to_address = $1 AND kind = 'invitation'`, [invitee.email]);
+      if (outbox[0]?.status === 'sent') break;
+      await new Promise((r) => setTimeout(r, 100));
+    }
+    expect(outbox).toEqual([{ status: 'sent', text_body: null }]);
 
     const preview = await request(t.app).get(`/api/invitations/${token}`).expect(200);
     expect(preview.body).toEqual({ workspaceName: 'Team Lab', role: 'reviewer', email: invitee.email, status: 'pending' });
@@ -61,7 +67,7 @@ describe('invitations end to end', () => {
   it('a revoked invitation cannot be accepted', async () => {
     const s = await registerUser(t.app, 'revoked');
     const created = await owner.post(`/api/workspaces/${wid}/invitations`, { email: s.email, role: 'viewer' }).expect(201);
-    const message = await t.mail.waitFor((m) => m.to.includes(s.email), 20_000);
+    const message = await t.mail.waitFor((m) => m.to.includes(s.email) && m.text.includes('/invitations/'), 20_000);
     const token = message.text.match(/invitations\/([\w-]+)/)![1]!;
     await owner.delete(`/api/workspaces/${wid}/invitations/${created.body.id}`).expect(204);
     const res = await s.post(`/api/invitations/${token}/accept`).expect(410);
@@ -69,6 +75,8 @@ describe('invitations end to end', () => {
   });
 
   it('keeps the invitation when the mail server is down, and sends it once it is back', async () => {
+    // Registered (and confirmed by e-mail) while the mail server still works.
+    const s = await registerUser(t.app, 'later');
     // Point the mailer at a closed port: the send fails, the invitation and outbox row stay.
     const { startMailCapture } = await import('../../docker-free-scripts/mail/mail-capture-server');
     const { createSmtpMailer } = await import('../../apps/api/src/mail/mailer');
@@ -81,12 +89,11 @@ describe('invitations end to end', () => {
       retryDelay: 1,
     });
     await t.runtime.queue.stop();
-    const s = await registerUser(t.app, 'later');
     const { createInvitation } = await import('../../apps/api/src/invitations/invitation-use-case');
     await createInvitation(t.db, t.config, broken, owner.userId, wid, s.email, 'viewer');
     let row: { status: string; attempts: number } | undefined;
     for (let i = 0; i < 100; i++) {
-      [row] = await t.db.query('SELECT status, attempts FROM mail_outbox WHERE to_address = $1', [s.email]);
+      [row] = await t.db.query(`SELECT status, attempts FROM mail_outbox WHERE to_address = $1 AND kind = 'invitation'`, [s.email]);
       if (row && row.attempts > 0) break;
       await new Promise((r) => setTimeout(r, 200));
     }

@@ -16,6 +16,7 @@ import { request as httpRequest } from 'node:http';
 import { cpus, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pipeline } from 'node:stream/promises';
+import pg from 'pg';
 import { startObjectStore } from '../../../docker-free-scripts/s3/object-store';
 import { createTestDatabase } from '../../../test/api/support/test-database';
 import { marcusGapMoments, writeSyntheticTrace } from '../src/traces/synthetic-trace';
@@ -127,7 +128,7 @@ try {
   const pid = server.pid!;
   const idle = status(pid);
 
-  // 3. A user and a workspace.
+  // 3. A user (registered, then confirmed with the token of the queued e-mail) and a workspace.
   const register = await fetch(`${base}/api/auth/register`, {
     method: 'POST',
     headers: { 'Content-Type': 'application/json' },
@@ -137,13 +138,28 @@ try {
       displayName: 'Bench',
     }),
   });
-  if (register.status !== 201)
+  if (register.status !== 202)
     throw new Error(`register: ${register.status} ${await register.text()}`);
-  const cookie = register.headers
+  const outbox = new pg.Client({ connectionString: database.url });
+  await outbox.connect();
+  const mailed = await outbox.query<{ text_body: string }>(
+    `SELECT text_body FROM mail_outbox WHERE kind = 'registration-confirm' AND to_address = 'bench@example.test'`,
+  );
+  await outbox.end();
+  const token = /\/confirm\/([\w-]+)/.exec(mailed.rows[0]?.text_body ?? '')?.[1];
+  if (!token) throw new Error('register: no confirmation link in the outbox');
+  const confirmed = await fetch(`${base}/api/auth/confirm`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ token }),
+  });
+  if (confirmed.status !== 200)
+    throw new Error(`confirm: ${confirmed.status} ${await confirmed.text()}`);
+  const cookie = confirmed.headers
     .getSetCookie()
     .map((c) => c.split(';')[0])
     .join('; ');
-  const csrf = ((await register.json()) as { csrfToken: string }).csrfToken;
+  const csrf = ((await confirmed.json()) as { csrfToken: string }).csrfToken;
   const headers = { Cookie: cookie, 'X-CSRF-Token': csrf };
   const ws = (await (
     await fetch(`${base}/api/workspaces`, {

@@ -4,6 +4,22 @@ export interface RegisterRequest {
   readonly email: string;
   readonly password: string;
   readonly displayName: string;
+  /** Same-site path to open after the confirmation (e.g. an invitation page), carried in the e-mailed link. */
+  readonly returnUrl?: string;
+}
+
+/**
+ * Answer of `POST /api/auth/register` (202), identical whether or not the address already has an
+ * account: the next step is always in the mailbox (a confirmation link, or a notice to sign in).
+ */
+export interface RegistrationAnswer {
+  readonly status: 'confirmation-sent';
+  readonly message: string;
+}
+
+/** Body of `POST /api/auth/confirm`: the token of the e-mailed `/confirm/<token>` link. */
+export interface ConfirmRegistrationRequest {
+  readonly token: string;
 }
 
 export interface SignInRequest {

@@ -15,6 +15,8 @@ export interface CaseContext {
   /** Helpers that create more fresh records directly in the database. */
   invitation(email: string): Promise<{ id: string; token: string }>;
   apiToken(userId: string): Promise<string>;
+  /** A pending registration of this address; resolves with its confirmation token. */
+  pendingRegistration(email: string): Promise<string>;
   unique(prefix: string): string;
 }
 

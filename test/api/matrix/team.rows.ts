@@ -8,7 +8,9 @@ export const rows: MatrixRow[] = [
   { method: 'get', route: '/docs/openapi.json', request: () => ({ path: '/docs/openapi.json' }), expect: everyone(200) },
   { method: 'get', route: '/docs/swagger-init.js', request: () => ({ path: '/docs/swagger-init.js' }), expect: everyone(200) },
 
-  { method: 'post', route: '/auth/register', request: (c) => ({ path: '/auth/register', body: { email: `${c.unique('reg')}@example.test`, password: 'long enough pass', displayName: 'New' } }), expect: everyone(201) },
+  { method: 'post', route: '/auth/register', request: (c) => ({ path: '/auth/register', body: { email: `${c.unique('reg')}@example.test`, password: 'long enough pass', displayName: 'New' } }), expect: everyone(202) },
+  // Each caller uses a fresh confirmation token (signed-in callers are signed in as the new account).
+  { method: 'post', route: '/auth/confirm', request: async (c) => ({ path: '/auth/confirm', body: { token: await c.pendingRegistration(`${c.unique('conf')}@example.test`) } }), expect: everyone(200) },
   { method: 'post', route: '/auth/sign-in', request: (c) => ({ path: '/auth/sign-in', body: { email: c.users[c.caller === 'anonymous' ? 'owner' : c.caller].email, password: 'correct horse battery' } }), expect: everyone(200) },
   { method: 'post', route: '/auth/sign-out', request: () => ({ path: '/auth/sign-out' }), expect: everyone(204) },
   { method: 'post', route: '/auth/refresh', request: () => ({ path: '/auth/refresh' }), expect: signedIn(200) },

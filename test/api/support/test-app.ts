@@ -1,7 +1,7 @@
 import type { Express } from 'express';
 import request from 'supertest';
 import type { DataSource } from 'typeorm';
-import { startMailCapture, type MailCapture } from '../../../docker-free-scripts/mail/mail-capture-server';
+import { startMailCapture, type CapturedMessage, type MailCapture } from '../../../docker-free-scripts/mail/mail-capture-server';
 import { createApp } from '../../../apps/api/src/app';
 import { loadConfig, type Config } from '../../../apps/api/src/config';
 import { startRuntime, type Runtime } from '../../../apps/api/src/runtime';
@@ -16,6 +16,9 @@ export interface TestApp {
   readonly database: TestDatabase;
   close(): Promise<void>;
 }
+
+/** The test app of each Express app, so `registerUser(t.app)` can read its captured e-mail. */
+const running = new WeakMap<Express, TestApp>();
 
 /**
  * A fresh database (migrated), a real SMTP capture on a free port, the pg-boss mail queue and the
@@ -43,7 +46,7 @@ export async function startTestApp(overrides: Partial<Config> = {}, env: Record<
     runtime = await startRuntime(config, { migrate: true, log: () => undefined, mailRetryDelaySeconds: 1 });
     const app = createApp(runtime);
     const rt = runtime;
-    return {
+    const testApp: TestApp = {
       app,
       config,
       db: runtime.dataSource,
@@ -56,6 +59,8 @@ export async function startTestApp(overrides: Partial<Config> = {}, env: Record<
         await database.drop();
       },
     };
+    running.set(app, testApp);
+    return testApp;
   } catch (error) {
     await runtime?.close().catch(() => undefined);
     await mail.stop();
@@ -103,16 +108,35 @@ export function sessionFrom(app: Express, res: request.Response): Session {
   };
 }
 
+/** The token of the newest confirmation link e-mailed to `email` (waits for the real SMTP capture). */
+export async function confirmationToken(mail: MailCapture, email: string, timeoutMs = 30_000): Promise<string> {
+  const address = email.toLowerCase();
+  const isConfirmation = (m: CapturedMessage) => m.to.includes(address) && CONFIRM_LINK.test(m.text);
+  await mail.waitFor(isConfirmation, timeoutMs);
+  const newest = mail.messages().filter(isConfirmation).at(-1)!;
+  return CONFIRM_LINK.exec(newest.text)![1]!;
+}
+const CONFIRM_LINK = /http:\/\/127\.0\.0\.1:4280\/confirm\/([\w-]+)/;
+
 let counter = 0;
-/** Registers a new user and returns their session. */
+/**
+ * Registers a new user the way a person does: `POST /api/auth/register` (202), the confirmation
+ * e-mail through the SMTP capture, then `POST /api/auth/confirm` with its token. Returns the
+ * signed-in session of the confirmation.
+ */
 export async function registerUser(app: Express, name = 'user'): Promise<Session> {
+  const t = running.get(app);
+  if (!t) throw new Error('registerUser needs an app from startTestApp()');
   counter++;
   const email = `${name}-${counter}-${Date.now()}@example.test`;
   const res = await request(app)
     .post('/api/auth/register')
     .send({ email, password: 'correct horse battery', displayName: `${name} ${counter}` });
-  if (res.status !== 201) throw new Error(`register failed: ${res.status} ${JSON.stringify(res.body)}`);
-  return sessionFrom(app, res);
+  if (res.status !== 202) throw new Error(`register failed: ${res.status} ${JSON.stringify(res.body)}`);
+  const token = await confirmationToken(t.mail, email);
+  const confirmed = await request(app).post('/api/auth/confirm').send({ token });
+  if (confirmed.status !== 200) throw new Error(`confirm failed: ${confirmed.status} ${JSON.stringify(confirmed.body)}`);
+  return sessionFrom(app, confirmed);
 }
 
 export async function signIn(app: Express, email: string, password: string): Promise<Session> {

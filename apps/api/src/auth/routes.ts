@@ -4,8 +4,8 @@ import type { AppDeps } from '../http/context';
 import { AppError, unauthenticated } from '../http/app-error';
 import { checkCsrf, requireAuth, userIdOf } from '../http/authenticate';
 import { parseBody } from '../http/validate';
-import { RegisterDto, SignInDto } from './auth-dto';
-import { register, sessionInfo, signIn } from './auth-use-case';
+import { ConfirmRegistrationDto, RegisterDto, SignInDto } from './auth-dto';
+import { confirmRegistration, register, sessionInfo, signIn } from './auth-use-case';
 import {
   REFRESH_COOKIE,
   clearSessionCookies,
@@ -25,12 +25,19 @@ export function registerAuthRoutes(router: Router, deps: AppDeps): void {
       next(new AppError(429, 'too-many-attempts', 'Too many attempts; try again in a few minutes.')),
   });
 
+  /** Always 202 with the same body for valid input: whether the address has an account stays in its mailbox. */
   router.post('/auth/register', throttle, async (req, res) => {
     const input = parseBody(RegisterDto, req.body);
-    const user = await register(db, config, input);
+    res.status(202).json(await register(db, config, deps.queue, input));
+  });
+
+  /** The e-mailed link: creates the account, signs in like sign-in does. */
+  router.post('/auth/confirm', throttle, async (req, res) => {
+    const { token } = parseBody(ConfirmRegistrationDto, req.body);
+    const user = await confirmRegistration(db, token);
     const sid = newSessionId();
     setSessionCookies(res, config, user.id, sid);
-    res.status(201).json(await sessionInfo(db, config, user.id, sid));
+    res.json(await sessionInfo(db, config, user.id, sid));
   });
 
   router.post('/auth/sign-in', throttle, async (req, res) => {

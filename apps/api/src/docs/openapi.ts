@@ -68,7 +68,12 @@ const SCHEMAS: Record<string, Schema> = {
     ),
   }),
   HealthInfo: obj({ status: str, version: str, database: obj({ reachable: { type: 'boolean' } }), migrations: nullable(obj({ applied: num, pending: { type: 'array', items: str } })) }),
-  RegisterRequest: obj({ email: str, password: { ...str, minLength: 10 }, displayName: str }),
+  RegisterRequest: obj(
+    { email: str, password: { ...str, minLength: 10 }, displayName: str, returnUrl: { ...str, description: 'same-site path opened after the confirmation' } },
+    ['email', 'password', 'displayName'],
+  ),
+  RegistrationAnswer: obj({ status: { type: 'string', enum: ['confirmation-sent'] }, message: str }),
+  ConfirmRegistrationRequest: obj({ token: str }),
   SignInRequest: obj({ email: str, password: str }),
   UserSummary: obj({ id: str, email: str, displayName: str }),
   MembershipSummary: obj({ workspaceId: str, workspaceName: str, role }),

@@ -28,7 +28,8 @@ export const ROUTE_DOCS: readonly RouteDoc[] = [
   { method: 'get', path: '/docs/openapi.json', tag: 'system', summary: 'This description (OpenAPI 3.1)', access: 'anyone', auth: false, status: 200 },
   { method: 'get', path: '/docs/swagger-init.js', tag: 'system', summary: 'Start-up script of the readable page', access: 'anyone', auth: false, status: 200 },
 
-  { method: 'post', path: '/auth/register', tag: 'auth', summary: 'Create an account and sign in (sets cookies)', access: 'anyone (throttled)', auth: false, body: 'RegisterRequest', status: 201, response: 'SessionInfo', errors: [400, 409, 429] },
+  { method: 'post', path: '/auth/register', tag: 'auth', summary: 'Ask for an account: the same 202 answer whether or not the address has one; a confirmation link (or, for a registered address, a sign-in notice) is e-mailed', access: 'anyone (throttled)', auth: false, body: 'RegisterRequest', status: 202, response: 'RegistrationAnswer', errors: [400, 429] },
+  { method: 'post', path: '/auth/confirm', tag: 'auth', summary: 'Use the e-mailed confirmation token: creates the account and signs in (sets cookies); invalid, used or expired: 400 confirmation-invalid', access: 'anyone with the link (throttled)', auth: false, body: 'ConfirmRegistrationRequest', status: 200, response: 'SessionInfo', errors: [400, 429] },
   { method: 'post', path: '/auth/sign-in', tag: 'auth', summary: 'Sign in (sets the httpOnly access and refresh cookies)', access: 'anyone (throttled)', auth: false, body: 'SignInRequest', status: 200, response: 'SessionInfo', errors: [400, 401, 429] },
   { method: 'post', path: '/auth/sign-out', tag: 'auth', summary: 'Sign out (clears the cookies)', access: 'anyone', auth: false, status: 204, errors: [403] },
   { method: 'post', path: '/auth/refresh', tag: 'auth', summary: 'New access cookie from the refresh cookie', access: 'holder of a refresh cookie', auth: false, status: 200, response: 'SessionInfo', errors: [401] },

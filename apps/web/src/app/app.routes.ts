@@ -16,6 +16,11 @@ export const routes: Routes = [
     loadComponent: () => import('./session/register/register').then((m) => m.Register),
   },
   {
+    path: 'confirm/:token',
+    title: 'Confirm your account · Gapwise',
+    loadComponent: () => import('./session/confirm/confirm').then((m) => m.Confirm),
+  },
+  {
     path: 'invitations/:token',
     title: 'Invitation · Gapwise',
     loadComponent: () =>

@@ -21,7 +21,7 @@ export const apiInterceptor: HttpInterceptorFn = (req, next) => {
   const session = inject(Session);
   const router = inject(Router);
   const snackBar = inject(MatSnackBar);
-  const isAuthCall = /\/api\/auth\/(sign-in|register|refresh|sign-out)$/.test(req.url);
+  const isAuthCall = /\/api\/auth\/(sign-in|register|confirm|refresh|sign-out)$/.test(req.url);
 
   return next(withCsrf(req, session.csrfToken())).pipe(
     catchError((err: unknown) => {

@@ -1,6 +1,11 @@
 import { HttpClient, HttpContext } from '@angular/common/http';
 import { Injectable, computed, inject, signal } from '@angular/core';
-import type { RegisterRequest, SessionInfo, SignInRequest } from '@gapwise/contracts';
+import type {
+  RegisterRequest,
+  RegistrationAnswer,
+  SessionInfo,
+  SignInRequest,
+} from '@gapwise/contracts';
 import { Observable, catchError, finalize, map, of, shareReplay, tap } from 'rxjs';
 import { NO_SIGN_IN_REDIRECT, QUIET_ERRORS } from './api-errors';
 
@@ -49,9 +54,15 @@ export class Session {
       .pipe(tap((info) => this.accept(info)));
   }
 
-  register(body: RegisterRequest): Observable<SessionInfo> {
+  /** Asks for an account; nothing is signed in until the e-mailed link is confirmed. */
+  register(body: RegisterRequest): Observable<RegistrationAnswer> {
+    return this.http.post<RegistrationAnswer>('/api/auth/register', body, { context: quiet() });
+  }
+
+  /** Uses the token of the e-mailed link: creates the account and signs in. */
+  confirm(token: string): Observable<SessionInfo> {
     return this.http
-      .post<SessionInfo>('/api/auth/register', body, { context: quiet() })
+      .post<SessionInfo>('/api/auth/confirm', { token }, { context: quiet() })
       .pipe(tap((info) => this.accept(info)));
   }
 

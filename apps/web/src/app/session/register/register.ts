@@ -4,10 +4,10 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { Router, RouterLink } from '@angular/router';
+import { RouterLink } from '@angular/router';
 import { PASSWORD_MIN_LENGTH } from '@gapwise/contracts';
 import { apiErrorOf, applyFieldErrors } from '../api-errors';
-import { safeReturnUrl } from '../return-url';
+import { registrationReturnUrl } from '../return-url';
 import { Session } from '../session';
 
 @Component({
@@ -26,7 +26,6 @@ import { Session } from '../session';
 })
 export class Register {
   private readonly session = inject(Session);
-  private readonly router = inject(Router);
 
   readonly returnUrl = input<string | undefined>();
 
@@ -44,6 +43,13 @@ export class Register {
   });
   protected readonly busy = signal(false);
   protected readonly failure = signal<string | null>(null);
+  /** Set once the request is accepted: the page then says to check the mailbox. */
+  protected readonly sent = signal<{ email: string; message: string } | null>(null);
+
+  /** Back to the form (a typo in the address, or the message did not come). */
+  protected again(): void {
+    this.sent.set(null);
+  }
 
   protected register(): void {
     if (this.form.invalid) {
@@ -52,8 +58,13 @@ export class Register {
     }
     this.busy.set(true);
     this.failure.set(null);
-    this.session.register(this.form.getRawValue()).subscribe({
-      next: () => void this.router.navigateByUrl(safeReturnUrl(this.returnUrl())),
+    const returnUrl = registrationReturnUrl(this.returnUrl());
+    const body = { ...this.form.getRawValue(), ...(returnUrl ? { returnUrl } : {}) };
+    this.session.register(body).subscribe({
+      next: (answer) => {
+        this.busy.set(false);
+        this.sent.set({ email: body.email.trim(), message: answer.message });
+      },
       error: (err: unknown) => {
         this.busy.set(false);
         const error = apiErrorOf(err);
