@@ -39,7 +39,17 @@ export async function createTestDatabase(): Promise<TestDatabase> {
       const c = new pg.Client({ connectionString: base });
       await c.connect();
       try {
-        await c.query(`DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`);
+        // A busy autovacuum worker can refuse FORCE briefly on a cluster without
+        // pg_signal_backend for our role: retry a few times before giving up.
+        for (let attempt = 1; ; attempt++) {
+          try {
+            await c.query(`DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`);
+            break;
+          } catch (error) {
+            if (attempt >= 10) throw error;
+            await new Promise((resolve) => setTimeout(resolve, 500));
+          }
+        }
       } finally {
         await c.end();
       }
