@@ -182,7 +182,7 @@ export async function startMailCapture(options: MailCaptureOptions): Promise<Mai
     clear: () => {
       received.length = 0;
     },
-    waitFor(predicate, timeoutMs = 10_000) {
+    waitFor(predicate, timeoutMs = 30_000) {
       const already = received.find(predicate);
       if (already) return Promise.resolve(already);
       return new Promise((resolve, reject) => {

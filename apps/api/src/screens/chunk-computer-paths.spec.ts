@@ -88,7 +88,8 @@ describe('screen chunk computer: fast path equals the calculate path', () => {
         expect(close(out[3], ref.coupling)).toBe(true);
         expect(warningCodes(out[4])).toEqual(warningCodes(ref.mask));
       }),
-      { numRuns: 600 },
+      // Fixed seed: how many generated rows take the fast path must not vary between runs.
+      { numRuns: 600, seed: 20261202 },
     );
     expect(fast).toBeGreaterThan(100);
   });
