@@ -3,12 +3,43 @@ import js from '@eslint/js';
 import tseslint from 'typescript-eslint';
 
 const nodeBuiltins = [
-  'node:*', 'fs', 'fs/*', 'path', 'os', 'child_process', 'crypto', 'http', 'https', 'net', 'stream',
-  'stream/*', 'url', 'util', 'zlib', 'readline', 'worker_threads', 'events', 'buffer', 'process',
+  'node:*',
+  'fs',
+  'fs/*',
+  'path',
+  'os',
+  'child_process',
+  'crypto',
+  'http',
+  'https',
+  'net',
+  'stream',
+  'stream/*',
+  'url',
+  'util',
+  'zlib',
+  'readline',
+  'worker_threads',
+  'events',
+  'buffer',
+  'process',
 ];
 const frameworks = [
-  '@angular/*', 'rxjs', 'rxjs/*', 'express', 'express-*', 'typeorm', 'pg', 'pg-boss', 'passport*',
-  'nodemailer', 'pdfkit', 'multer', '@aws-sdk/*', 'd3', 'd3-*',
+  '@angular/*',
+  'rxjs',
+  'rxjs/*',
+  'express',
+  'express-*',
+  'typeorm',
+  'pg',
+  'pg-boss',
+  'passport*',
+  'nodemailer',
+  'pdfkit',
+  'multer',
+  '@aws-sdk/*',
+  'd3',
+  'd3-*',
 ];
 /** No library reaches into another library's files: only `@gapwise/<lib>` (its index). */
 const deepLibraryImports = {
@@ -19,12 +50,21 @@ const appImports = {
   group: ['**/apps/**', '@gapwise/api*', '@gapwise/web*', '@gapwise/cli*'],
   message: 'Libraries never import apps.',
 };
-const dbImports = { group: ['**/db/**', '@gapwise/db'], message: 'Libraries never import the database layer.' };
+const dbImports = {
+  group: ['**/db/**', '@gapwise/db'],
+  message: 'Libraries never import the database layer.',
+};
 
 export default tseslint.config(
   {
     ignores: [
-      'node_modules/', 'dist/', '.data/', '.angular/', '.cache/', 'test-output/', '**/*.d.ts',
+      'node_modules/',
+      'dist/',
+      '.data/',
+      '.angular/',
+      '.cache/',
+      'test-output/',
+      '**/*.d.ts',
     ],
   },
   js.configs.recommended,
@@ -32,11 +72,24 @@ export default tseslint.config(
   {
     languageOptions: {
       globals: {
-        console: 'readonly', process: 'readonly', setTimeout: 'readonly', clearTimeout: 'readonly',
-        setInterval: 'readonly', clearInterval: 'readonly', URL: 'readonly', Buffer: 'readonly',
-        performance: 'readonly', document: 'readonly', window: 'readonly', fetch: 'readonly',
-        TextEncoder: 'readonly', TextDecoder: 'readonly', structuredClone: 'readonly',
-        setImmediate: 'readonly', queueMicrotask: 'readonly', AbortController: 'readonly',
+        console: 'readonly',
+        process: 'readonly',
+        setTimeout: 'readonly',
+        clearTimeout: 'readonly',
+        setInterval: 'readonly',
+        clearInterval: 'readonly',
+        URL: 'readonly',
+        Buffer: 'readonly',
+        performance: 'readonly',
+        document: 'readonly',
+        window: 'readonly',
+        fetch: 'readonly',
+        TextEncoder: 'readonly',
+        TextDecoder: 'readonly',
+        structuredClone: 'readonly',
+        setImmediate: 'readonly',
+        queueMicrotask: 'readonly',
+        AbortController: 'readonly',
       },
     },
     rules: {
@@ -61,8 +114,13 @@ export default tseslint.config(
           patterns: [
             { group: nodeBuiltins, message: 'libs/calc imports no Node built-in.' },
             { group: frameworks, message: 'libs/calc imports no framework.' },
-            { group: ['**/contracts/**', '@gapwise/contracts', '@gapwise/plots'], message: 'libs/calc depends on no other library.' },
-            deepLibraryImports, appImports, dbImports,
+            {
+              group: ['**/contracts/**', '@gapwise/contracts', '@gapwise/plots'],
+              message: 'libs/calc depends on no other library.',
+            },
+            deepLibraryImports,
+            appImports,
+            dbImports,
           ],
         },
       ],
@@ -76,9 +134,14 @@ export default tseslint.config(
         'error',
         {
           patterns: [
-            { group: nodeBuiltins, message: 'Shared libraries run in the browser: no Node built-in.' },
+            {
+              group: nodeBuiltins,
+              message: 'Shared libraries run in the browser: no Node built-in.',
+            },
             { group: frameworks, message: 'Shared libraries import no framework.' },
-            deepLibraryImports, appImports, dbImports,
+            deepLibraryImports,
+            appImports,
+            dbImports,
           ],
         },
       ],
@@ -91,7 +154,20 @@ export default tseslint.config(
         'error',
         {
           patterns: [
-            { group: ['**/apps/api/**', '**/apps/cli/**', '**/api/src/**', '**/cli/src/**', 'express', 'typeorm', 'pg', '@gapwise/db', '**/db/**'], message: 'The web app never imports the API, the CLI or the database.' },
+            {
+              group: [
+                '**/apps/api/**',
+                '**/apps/cli/**',
+                '**/api/src/**',
+                '**/cli/src/**',
+                'express',
+                'typeorm',
+                'pg',
+                '@gapwise/db',
+                '**/db/**',
+              ],
+              message: 'The web app never imports the API, the CLI or the database.',
+            },
             deepLibraryImports,
           ],
         },
@@ -105,7 +181,10 @@ export default tseslint.config(
         'error',
         {
           patterns: [
-            { group: ['**/apps/web/**', '**/web/src/**', '@angular/*'], message: 'Server code never imports the web app.' },
+            {
+              group: ['**/apps/web/**', '**/web/src/**', '@angular/*'],
+              message: 'Server code never imports the web app.',
+            },
             deepLibraryImports,
           ],
         },

@@ -29,7 +29,12 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: 'api',
-          include: ['apps/api/**/*.spec.ts', 'db/**/*.spec.ts', 'test/api/**/*.spec.ts', 'docker-free-scripts/**/*.spec.ts'],
+          include: [
+            'apps/api/**/*.spec.ts',
+            'db/**/*.spec.ts',
+            'test/api/**/*.spec.ts',
+            'docker-free-scripts/**/*.spec.ts',
+          ],
           environment: 'node',
           testTimeout: 60_000,
           hookTimeout: 120_000,

@@ -18,7 +18,9 @@ function find(dir: string, out: string[] = []): string[] {
 
 const env = { ...process.env };
 if (!env['GAPWISE_TEST_DATABASE_URL']) {
-  const out = execFileSync('bash', ['docker-free-scripts/postgres-start.sh', '--test'], { encoding: 'utf8' });
+  const out = execFileSync('bash', ['docker-free-scripts/postgres-start.sh', '--test'], {
+    encoding: 'utf8',
+  });
   const line = out.split('\n').find((l) => l.startsWith('GAPWISE_TEST_DATABASE_URL='));
   if (line) env['GAPWISE_TEST_DATABASE_URL'] = line.slice('GAPWISE_TEST_DATABASE_URL='.length);
 }
@@ -26,7 +28,10 @@ const files = [...find('apps'), ...find('libs')].sort();
 let failed = 0;
 for (const file of files) {
   console.log(`\n# ${file}`);
-  const r = spawnSync(process.execPath, ['--import', 'tsx', file, ...process.argv.slice(2)], { stdio: 'inherit', env });
+  const r = spawnSync(process.execPath, ['--import', 'tsx', file, ...process.argv.slice(2)], {
+    stdio: 'inherit',
+    env,
+  });
   if (r.status !== 0) failed++;
 }
 console.log(`\n${files.length - failed} bench file(s) ran, ${failed} failed`);

@@ -13,7 +13,9 @@ try {
     console.log('reverted the last migration');
   } else {
     const done = await dataSource.runMigrations({ transaction: 'each' });
-    console.log(done.length ? `applied: ${done.map((m) => m.name).join(', ')}` : 'no pending migrations');
+    console.log(
+      done.length ? `applied: ${done.map((m) => m.name).join(', ')}` : 'no pending migrations',
+    );
   }
 } catch (error) {
   console.error(`migration failed: ${(error as Error).message}`);

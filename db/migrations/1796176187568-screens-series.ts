@@ -35,7 +35,9 @@ export class ScreensSeries1796176187568 implements MigrationInterface {
       CONSTRAINT "PK_screens" PRIMARY KEY ("id"),
       CONSTRAINT "FK_screens_workspace" FOREIGN KEY ("workspace_id") REFERENCES "workspaces"("id") ON DELETE CASCADE
     )`);
-    await q.query(`CREATE INDEX "idx_screens_workspace" ON "screens" ("workspace_id", "created_at")`);
+    await q.query(
+      `CREATE INDEX "idx_screens_workspace" ON "screens" ("workspace_id", "created_at")`,
+    );
     await q.query(
       `CREATE INDEX "idx_screens_reuse" ON "screens" ("workspace_id", "input_hash", "software_version")`,
     );
@@ -90,7 +92,9 @@ export class ScreensSeries1796176187568 implements MigrationInterface {
       ['k_cs', 'log10k_cs_marcus'],
       ['k_cr', 'log10k_cr_marcus'],
     ]) {
-      await q.query(`CREATE INDEX "idx_screen_results_${name}" ON "screen_results" ("screen_id", "${column}")`);
+      await q.query(
+        `CREATE INDEX "idx_screen_results_${name}" ON "screen_results" ("screen_id", "${column}")`,
+      );
     }
     await q.query(`CREATE TABLE "series" (
       "id" uuid NOT NULL DEFAULT gen_random_uuid(),
@@ -123,7 +127,9 @@ export class ScreensSeries1796176187568 implements MigrationInterface {
       CONSTRAINT "PK_series_points" PRIMARY KEY ("id"),
       CONSTRAINT "FK_series_points_series" FOREIGN KEY ("series_id") REFERENCES "series"("id") ON DELETE CASCADE
     )`);
-    await q.query(`CREATE INDEX "idx_series_points_series" ON "series_points" ("series_id", "position")`);
+    await q.query(
+      `CREATE INDEX "idx_series_points_series" ON "series_points" ("series_id", "position")`,
+    );
   }
 
   public async down(q: QueryRunner): Promise<void> {

@@ -5,4 +5,10 @@ import { Reports1796300000000 } from './1796300000000-reports';
 import { PendingRegistrations1796400000000 } from './1796400000000-pending-registrations';
 
 /** Every migration, in order (listed explicitly; see STACK.md). */
-export const migrations = [Initial1764640000000, ScreensSeries1796176187568, Traces1796200000000, Reports1796300000000, PendingRegistrations1796400000000];
+export const migrations = [
+  Initial1764640000000,
+  ScreensSeries1796176187568,
+  Traces1796200000000,
+  Reports1796300000000,
+  PendingRegistrations1796400000000,
+];

@@ -29,17 +29,32 @@ const CM1_PER_EV = 8065.543937; // CODATA 2018, e/(hc) in cm⁻¹ per eV
 const cm1 = (v: number) => v / CM1_PER_EV;
 
 const measured = (note: string): Provenance => ({ kind: 'measured', note });
-const literature = (citation: string, note?: string): Provenance => ({ kind: 'literature', citation, note: note ?? null });
+const literature = (citation: string, note?: string): Provenance => ({
+  kind: 'literature',
+  citation,
+  note: note ?? null,
+});
 const computed = (note: string): Provenance => ({ kind: 'computed', note });
 const assumed = (note: string): Provenance => ({ kind: 'assumed', note });
-const derived = (methodId: string, methodInputs: Record<string, unknown>, sources: string[], note?: string): Provenance => ({
+const derived = (
+  methodId: string,
+  methodInputs: Record<string, unknown>,
+  sources: string[],
+  note?: string,
+): Provenance => ({
   kind: 'derived',
   methodId,
   methodInputs,
   sources: sources.map((id) => ({ type: 'parameter', id })),
   note: note ?? null,
 });
-const p = (kind: PairParameter['kind'], value: number, unit: string, uncertainty: number | null, provenance: Provenance): PairParameter => ({
+const p = (
+  kind: PairParameter['kind'],
+  value: number,
+  unit: string,
+  uncertainty: number | null,
+  provenance: Provenance,
+): PairParameter => ({
   kind,
   value,
   unit,
@@ -49,9 +64,23 @@ const p = (kind: PairParameter['kind'], value: number, unit: string, uncertainty
 
 /** Shared parameters of the dyads: acetonitrile, centre-to-centre geometry from models. */
 function dyad(o: {
-  name: string; donor: string; acceptor: string; eox: number; ered: number; e00: number; r: number;
-  lambdaInner: number; lambdaInnerProv: Provenance; lambdaOuter: number; couplingCm1: number; couplingProv: Provenance;
-  tags: string[]; model?: PairInput['model']; extra?: PairParameter[]; notes: string; status?: PairInput['status'];
+  name: string;
+  donor: string;
+  acceptor: string;
+  eox: number;
+  ered: number;
+  e00: number;
+  r: number;
+  lambdaInner: number;
+  lambdaInnerProv: Provenance;
+  lambdaOuter: number;
+  couplingCm1: number;
+  couplingProv: Provenance;
+  tags: string[];
+  model?: PairInput['model'];
+  extra?: PairParameter[];
+  notes: string;
+  status?: PairInput['status'];
 }): Required<PairInput> {
   // ΔG°(CS) by Rehm–Weller with a −0.06 eV Coulomb term in MeCN (values rounded for the demo).
   const deltaG0 = Math.round((o.eox - o.ered - o.e00 - 0.06) * 1000) / 1000;
@@ -68,62 +97,252 @@ function dyad(o: {
     tags: o.tags,
     model: o.model ?? 'marcus',
     parameters: [
-      p('donorOxidation', o.eox, 'V', 0.01, measured('Cyclic voltammetry, 0.1 M Bu4NPF6 in MeCN, vs Fc+/Fc, 100 mV/s')),
-      p('acceptorReduction', o.ered, 'V', 0.01, measured('Cyclic voltammetry, 0.1 M Bu4NPF6 in MeCN, vs Fc+/Fc')),
-      p('excitationEnergy', o.e00, 'eV', 0.02, measured('Crossing of normalised absorption and emission spectra')),
-      p('distance', o.r, 'A', 0.3, computed('Centre-to-centre distance of the optimised ground-state geometry')),
-      p('deltaG0', deltaG0, 'eV', 0.05, derived('drivingForce.rehmWeller',
-        { donorOxidation: o.eox, acceptorReduction: o.ered, excitationEnergy: o.e00, distance: o.r, epsilon: 35.9 },
-        ['donorOxidation', 'acceptorReduction', 'excitationEnergy', 'distance', 'epsilonStatic'])),
-      p('deltaG0Recombination', deltaG0CR, 'eV', 0.05, derived('drivingForce.rehmWeller',
-        { donorOxidation: o.eox, acceptorReduction: o.ered, excitationEnergy: o.e00, distance: o.r, epsilon: 35.9 },
-        ['donorOxidation', 'acceptorReduction', 'distance'], 'Charge recombination to the ground state')),
+      p(
+        'donorOxidation',
+        o.eox,
+        'V',
+        0.01,
+        measured('Cyclic voltammetry, 0.1 M Bu4NPF6 in MeCN, vs Fc+/Fc, 100 mV/s'),
+      ),
+      p(
+        'acceptorReduction',
+        o.ered,
+        'V',
+        0.01,
+        measured('Cyclic voltammetry, 0.1 M Bu4NPF6 in MeCN, vs Fc+/Fc'),
+      ),
+      p(
+        'excitationEnergy',
+        o.e00,
+        'eV',
+        0.02,
+        measured('Crossing of normalised absorption and emission spectra'),
+      ),
+      p(
+        'distance',
+        o.r,
+        'A',
+        0.3,
+        computed('Centre-to-centre distance of the optimised ground-state geometry'),
+      ),
+      p(
+        'deltaG0',
+        deltaG0,
+        'eV',
+        0.05,
+        derived(
+          'drivingForce.rehmWeller',
+          {
+            donorOxidation: o.eox,
+            acceptorReduction: o.ered,
+            excitationEnergy: o.e00,
+            distance: o.r,
+            epsilon: 35.9,
+          },
+          ['donorOxidation', 'acceptorReduction', 'excitationEnergy', 'distance', 'epsilonStatic'],
+        ),
+      ),
+      p(
+        'deltaG0Recombination',
+        deltaG0CR,
+        'eV',
+        0.05,
+        derived(
+          'drivingForce.rehmWeller',
+          {
+            donorOxidation: o.eox,
+            acceptorReduction: o.ered,
+            excitationEnergy: o.e00,
+            distance: o.r,
+            epsilon: 35.9,
+          },
+          ['donorOxidation', 'acceptorReduction', 'distance'],
+          'Charge recombination to the ground state',
+        ),
+      ),
       p('lambdaInner', o.lambdaInner, 'eV', 0.05, o.lambdaInnerProv),
-      p('lambdaOuter', o.lambdaOuter, 'eV', 0.1, derived('reorg.twoSphere',
-        { radiusDonor: 5.5, radiusAcceptor: 4.5, distance: o.r, epsilon: 35.9, refractiveIndex: 1.344 },
-        ['radiusDonor', 'radiusAcceptor', 'distance', 'epsilonStatic', 'refractiveIndex'])),
+      p(
+        'lambdaOuter',
+        o.lambdaOuter,
+        'eV',
+        0.1,
+        derived(
+          'reorg.twoSphere',
+          {
+            radiusDonor: 5.5,
+            radiusAcceptor: 4.5,
+            distance: o.r,
+            epsilon: 35.9,
+            refractiveIndex: 1.344,
+          },
+          ['radiusDonor', 'radiusAcceptor', 'distance', 'epsilonStatic', 'refractiveIndex'],
+        ),
+      ),
       p('coupling', cm1(o.couplingCm1), 'cm-1', cm1(o.couplingCm1 * 0.3), o.couplingProv),
-      p('radiusDonor', 5.5, 'A', null, computed('Solvent-excluded volume of the dye, sphere-equivalent radius')),
-      p('radiusAcceptor', 4.5, 'A', null, computed('Solvent-excluded volume of the acceptor, sphere-equivalent radius')),
-      p('epsilonStatic', 35.9, '', null, literature('Group notebook 2026-03, solvent table (p. 2)')),
-      p('refractiveIndex', 1.344, '', null, literature('Group notebook 2026-03, solvent table (p. 2)')),
+      p(
+        'radiusDonor',
+        5.5,
+        'A',
+        null,
+        computed('Solvent-excluded volume of the dye, sphere-equivalent radius'),
+      ),
+      p(
+        'radiusAcceptor',
+        4.5,
+        'A',
+        null,
+        computed('Solvent-excluded volume of the acceptor, sphere-equivalent radius'),
+      ),
+      p(
+        'epsilonStatic',
+        35.9,
+        '',
+        null,
+        literature('Group notebook 2026-03, solvent table (p. 2)'),
+      ),
+      p(
+        'refractiveIndex',
+        1.344,
+        '',
+        null,
+        literature('Group notebook 2026-03, solvent table (p. 2)'),
+      ),
       ...(o.extra ?? []),
     ],
   };
 }
 
 export const LAB_PAIRS: ReadonlyArray<Required<PairInput>> = [
-  dyad({ name: 'DA-1', donor: 'Dye P-12 (porphyrin-like)', acceptor: 'Acc N-4 (diimide)', eox: 0.35, ered: -1.05, e00: 2.05, r: 12.5,
-    lambdaInner: 0.22, lambdaInnerProv: computed('Four-point energies, in-house DFT run gw-calc-031'), lambdaOuter: 0.78,
-    couplingCm1: 45, couplingProv: computed('Fragment-orbital coupling, in-house DFT run gw-calc-032'),
-    tags: ['dyad', 'charge-separation'], notes: 'Reference dyad of the series; charge separation in the normal region.' }),
-  dyad({ name: 'DA-2', donor: 'Dye P-12 (porphyrin-like)', acceptor: 'Acc N-6 (cyano-diimide)', eox: 0.35, ered: -0.72, e00: 2.05, r: 12.7,
-    lambdaInner: 0.24, lambdaInnerProv: assumed('Taken equal to DA-1 plus 0.02 eV; not yet computed'), lambdaOuter: 0.79,
-    couplingCm1: 40, couplingProv: literature('Group notebook 2026-03, p. 41 (transient absorption fit)'),
-    tags: ['dyad', 'charge-separation'], notes: 'Stronger acceptor: near the activationless point.' }),
-  dyad({ name: 'DA-3', donor: 'Dye Q-7 (quinacridone-like)', acceptor: 'Acc N-6 (cyano-diimide)', eox: 0.62, ered: -0.72, e00: 2.9, r: 10.8,
-    lambdaInner: 0.18, lambdaInnerProv: computed('Four-point energies, in-house DFT run gw-calc-040'), lambdaOuter: 0.72,
-    couplingCm1: 120, couplingProv: derived('coupling.gmh', { transitionDipole: 1.1, dipoleDifference: 19.5, transitionEnergy: 1.9 }, [], 'From the CT band of the dyad'),
-    tags: ['dyad', 'inverted', 'mlj'], model: 'mlj',
+  dyad({
+    name: 'DA-1',
+    donor: 'Dye P-12 (porphyrin-like)',
+    acceptor: 'Acc N-4 (diimide)',
+    eox: 0.35,
+    ered: -1.05,
+    e00: 2.05,
+    r: 12.5,
+    lambdaInner: 0.22,
+    lambdaInnerProv: computed('Four-point energies, in-house DFT run gw-calc-031'),
+    lambdaOuter: 0.78,
+    couplingCm1: 45,
+    couplingProv: computed('Fragment-orbital coupling, in-house DFT run gw-calc-032'),
+    tags: ['dyad', 'charge-separation'],
+    notes: 'Reference dyad of the series; charge separation in the normal region.',
+  }),
+  dyad({
+    name: 'DA-2',
+    donor: 'Dye P-12 (porphyrin-like)',
+    acceptor: 'Acc N-6 (cyano-diimide)',
+    eox: 0.35,
+    ered: -0.72,
+    e00: 2.05,
+    r: 12.7,
+    lambdaInner: 0.24,
+    lambdaInnerProv: assumed('Taken equal to DA-1 plus 0.02 eV; not yet computed'),
+    lambdaOuter: 0.79,
+    couplingCm1: 40,
+    couplingProv: literature('Group notebook 2026-03, p. 41 (transient absorption fit)'),
+    tags: ['dyad', 'charge-separation'],
+    notes: 'Stronger acceptor: near the activationless point.',
+  }),
+  dyad({
+    name: 'DA-3',
+    donor: 'Dye Q-7 (quinacridone-like)',
+    acceptor: 'Acc N-6 (cyano-diimide)',
+    eox: 0.62,
+    ered: -0.72,
+    e00: 2.9,
+    r: 10.8,
+    lambdaInner: 0.18,
+    lambdaInnerProv: computed('Four-point energies, in-house DFT run gw-calc-040'),
+    lambdaOuter: 0.72,
+    couplingCm1: 120,
+    couplingProv: derived(
+      'coupling.gmh',
+      { transitionDipole: 1.1, dipoleDifference: 19.5, transitionEnergy: 1.9 },
+      [],
+      'From the CT band of the dyad',
+    ),
+    tags: ['dyad', 'inverted', 'mlj'],
+    model: 'mlj',
     extra: [p('hbarOmega', 0.18, 'eV', 0.02, assumed('Typical C=C/C=O skeletal mode, 1450 cm-1'))],
-    notes: 'High-energy excited state: charge separation in the inverted region; quantum mode matters.' }),
-  dyad({ name: 'DA-4', donor: 'Dye C-3 (coumarin-like)', acceptor: 'Acc N-4 (diimide)', eox: 0.82, ered: -1.05, e00: 2.6, r: 14.2,
-    lambdaInner: 0.25, lambdaInnerProv: assumed('Generic value for rigid aromatics'), lambdaOuter: 0.85,
-    couplingCm1: 15, couplingProv: derived('coupling.distanceDecay', { coupling0: 0.05, distance0: 3.5, beta: 0.45, distance: 14.2 }, ['distance']),
-    tags: ['dyad', 'weak-coupling'], status: 'draft', notes: 'Longer bridge; slow, weakly driven.' }),
-  dyad({ name: 'DA-5', donor: 'Dye Q-7 (quinacridone-like)', acceptor: 'Acc F-2 (fullerene-like)', eox: 0.62, ered: -1.1, e00: 2.9, r: 11.5,
-    lambdaInner: 0.12, lambdaInnerProv: literature('Group notebook 2026-02, p. 17 (fullerene-like acceptors)'), lambdaOuter: 0.55,
-    couplingCm1: 80, couplingProv: computed('Fragment-orbital coupling, in-house DFT run gw-calc-052'),
-    tags: ['dyad', 'recombination'], notes: 'Small λ acceptor: recombination pushed deep into the inverted region.' }),
-  dyad({ name: 'DA-6', donor: 'Dye P-12 (porphyrin-like)', acceptor: 'Acc Q-1 (quinone-like)', eox: 0.35, ered: -0.95, e00: 2.05, r: 7.2,
-    lambdaInner: 0.3, lambdaInnerProv: computed('Four-point energies, in-house DFT run gw-calc-060'), lambdaOuter: 0.6,
-    couplingCm1: 600, couplingProv: measured('Hush analysis of the intervalence band, film sample 2026-04-11'),
-    tags: ['dyad', 'adiabatic'], model: 'crossover',
-    extra: [p('tauL', 0.26e-12, 'ps', 0.03e-12, literature('Group notebook 2026-03, solvent table (p. 2)'))],
-    notes: 'Short, strongly coupled contact: solvent-controlled crossover model.' }),
+    notes:
+      'High-energy excited state: charge separation in the inverted region; quantum mode matters.',
+  }),
+  dyad({
+    name: 'DA-4',
+    donor: 'Dye C-3 (coumarin-like)',
+    acceptor: 'Acc N-4 (diimide)',
+    eox: 0.82,
+    ered: -1.05,
+    e00: 2.6,
+    r: 14.2,
+    lambdaInner: 0.25,
+    lambdaInnerProv: assumed('Generic value for rigid aromatics'),
+    lambdaOuter: 0.85,
+    couplingCm1: 15,
+    couplingProv: derived(
+      'coupling.distanceDecay',
+      { coupling0: 0.05, distance0: 3.5, beta: 0.45, distance: 14.2 },
+      ['distance'],
+    ),
+    tags: ['dyad', 'weak-coupling'],
+    status: 'draft',
+    notes: 'Longer bridge; slow, weakly driven.',
+  }),
+  dyad({
+    name: 'DA-5',
+    donor: 'Dye Q-7 (quinacridone-like)',
+    acceptor: 'Acc F-2 (fullerene-like)',
+    eox: 0.62,
+    ered: -1.1,
+    e00: 2.9,
+    r: 11.5,
+    lambdaInner: 0.12,
+    lambdaInnerProv: literature('Group notebook 2026-02, p. 17 (fullerene-like acceptors)'),
+    lambdaOuter: 0.55,
+    couplingCm1: 80,
+    couplingProv: computed('Fragment-orbital coupling, in-house DFT run gw-calc-052'),
+    tags: ['dyad', 'recombination'],
+    notes: 'Small λ acceptor: recombination pushed deep into the inverted region.',
+  }),
+  dyad({
+    name: 'DA-6',
+    donor: 'Dye P-12 (porphyrin-like)',
+    acceptor: 'Acc Q-1 (quinone-like)',
+    eox: 0.35,
+    ered: -0.95,
+    e00: 2.05,
+    r: 7.2,
+    lambdaInner: 0.3,
+    lambdaInnerProv: computed('Four-point energies, in-house DFT run gw-calc-060'),
+    lambdaOuter: 0.6,
+    couplingCm1: 600,
+    couplingProv: measured('Hush analysis of the intervalence band, film sample 2026-04-11'),
+    tags: ['dyad', 'adiabatic'],
+    model: 'crossover',
+    extra: [
+      p(
+        'tauL',
+        0.26e-12,
+        'ps',
+        0.03e-12,
+        literature('Group notebook 2026-03, solvent table (p. 2)'),
+      ),
+    ],
+    notes: 'Short, strongly coupled contact: solvent-controlled crossover model.',
+  }),
 ];
 
-function mediator(name: string, donor: string, acceptor: string, deltaG0: number, lambda: number, couplingCm1: number, tags: string[]): Required<PairInput> {
+function mediator(
+  name: string,
+  donor: string,
+  acceptor: string,
+  deltaG0: number,
+  lambda: number,
+  couplingCm1: number,
+  tags: string[],
+): Required<PairInput> {
   return {
     name,
     donor,
@@ -136,18 +355,53 @@ function mediator(name: string, donor: string, acceptor: string, deltaG0: number
     tags,
     model: 'marcus',
     parameters: [
-      p('deltaG0', deltaG0, 'eV', 0.02, measured('Difference of the two formal potentials, CV in 1 M KCl vs Ag/AgCl')),
-      p('lambdaOuter', lambda * 0.7, 'kJ/mol', 0.1, derived('reorg.twoSphere', { radiusDonor: 3.8, radiusAcceptor: 3.6, distance: 7.4, epsilon: 78.4, refractiveIndex: 1.333 }, [])),
-      p('lambdaInner', lambda * 0.3, 'eV', 0.05, assumed('30 % of the total, as for similar small organics')),
+      p(
+        'deltaG0',
+        deltaG0,
+        'eV',
+        0.02,
+        measured('Difference of the two formal potentials, CV in 1 M KCl vs Ag/AgCl'),
+      ),
+      p(
+        'lambdaOuter',
+        lambda * 0.7,
+        'kJ/mol',
+        0.1,
+        derived(
+          'reorg.twoSphere',
+          {
+            radiusDonor: 3.8,
+            radiusAcceptor: 3.6,
+            distance: 7.4,
+            epsilon: 78.4,
+            refractiveIndex: 1.333,
+          },
+          [],
+        ),
+      ),
+      p(
+        'lambdaInner',
+        lambda * 0.3,
+        'eV',
+        0.05,
+        assumed('30 % of the total, as for similar small organics'),
+      ),
       p('coupling', cm1(couplingCm1), 'cm-1', null, assumed('Contact pair estimate')),
     ],
   };
 }
 
 export const MEDIATOR_PAIRS: ReadonlyArray<Required<PairInput>> = [
-  mediator('Med-12 / Med-7', 'Med-12 (reduced)', 'Med-7 (oxidised)', -0.18, 0.95, 150, ['negolyte']),
-  mediator('Med-12 / Med-9', 'Med-12 (reduced)', 'Med-9 (oxidised)', -0.31, 1.05, 120, ['negolyte']),
-  mediator('Med-3 / Med-7', 'Med-3 (reduced)', 'Med-7 (oxidised)', -0.06, 0.9, 180, ['negolyte', 'slow']),
+  mediator('Med-12 / Med-7', 'Med-12 (reduced)', 'Med-7 (oxidised)', -0.18, 0.95, 150, [
+    'negolyte',
+  ]),
+  mediator('Med-12 / Med-9', 'Med-12 (reduced)', 'Med-9 (oxidised)', -0.31, 1.05, 120, [
+    'negolyte',
+  ]),
+  mediator('Med-3 / Med-7', 'Med-3 (reduced)', 'Med-7 (oxidised)', -0.06, 0.9, 180, [
+    'negolyte',
+    'slow',
+  ]),
 ];
 
 export interface SeedReport {
@@ -156,14 +410,26 @@ export interface SeedReport {
   readonly pairs: number;
 }
 
-async function ensureUser(tx: EntityManager, email: string, displayName: string, hash: string): Promise<{ id: string; created: boolean }> {
+async function ensureUser(
+  tx: EntityManager,
+  email: string,
+  displayName: string,
+  hash: string,
+): Promise<{ id: string; created: boolean }> {
   const found = await tx.query('SELECT id FROM users WHERE email = $1', [email]);
   if (found[0]) return { id: found[0].id, created: false };
-  const rows = await tx.query('INSERT INTO users (email, display_name, password_hash) VALUES ($1,$2,$3) RETURNING id', [email, displayName, hash]);
+  const rows = await tx.query(
+    'INSERT INTO users (email, display_name, password_hash) VALUES ($1,$2,$3) RETURNING id',
+    [email, displayName, hash],
+  );
   return { id: rows[0].id, created: true };
 }
 
-async function ensureWorkspace(tx: EntityManager, name: string, ownerId: string): Promise<{ id: string; created: boolean }> {
+async function ensureWorkspace(
+  tx: EntityManager,
+  name: string,
+  ownerId: string,
+): Promise<{ id: string; created: boolean }> {
   const found = await tx.query(
     `SELECT w.id FROM workspaces w JOIN memberships m ON m.workspace_id = w.id AND m.user_id = $2 AND m.role = 'owner'
       WHERE w.name = $1 ORDER BY w.created_at LIMIT 1`,
@@ -171,7 +437,10 @@ async function ensureWorkspace(tx: EntityManager, name: string, ownerId: string)
   );
   if (found[0]) return { id: found[0].id, created: false };
   const rows = await tx.query('INSERT INTO workspaces (name) VALUES ($1) RETURNING id', [name]);
-  await tx.query(`INSERT INTO memberships (workspace_id, user_id, role) VALUES ($1,$2,'owner')`, [rows[0].id, ownerId]);
+  await tx.query(`INSERT INTO memberships (workspace_id, user_id, role) VALUES ($1,$2,'owner')`, [
+    rows[0].id,
+    ownerId,
+  ]);
   await tx.query(
     `INSERT INTO audit_events (workspace_id, actor_id, action, entity_type, entity_id, summary) VALUES ($1,$2,'workspace.created','workspace',$3,$4)`,
     [rows[0].id, ownerId, rows[0].id, `created workspace "${name}" (demo seed)`],
@@ -179,10 +448,22 @@ async function ensureWorkspace(tx: EntityManager, name: string, ownerId: string)
   return { id: rows[0].id, created: true };
 }
 
-async function ensurePair(tx: EntityManager, workspaceId: string, input: Required<PairInput>, userId: string): Promise<boolean> {
-  const found = await tx.query('SELECT 1 FROM pairs WHERE workspace_id = $1 AND name = $2', [workspaceId, input.name]);
+async function ensurePair(
+  tx: EntityManager,
+  workspaceId: string,
+  input: Required<PairInput>,
+  userId: string,
+): Promise<boolean> {
+  const found = await tx.query('SELECT 1 FROM pairs WHERE workspace_id = $1 AND name = $2', [
+    workspaceId,
+    input.name,
+  ]);
   if (found[0]) return false;
-  const results = computePairResults({ temperature: input.temperature, model: input.model, parameters: input.parameters });
+  const results = computePairResults({
+    temperature: input.temperature,
+    model: input.model,
+    parameters: input.parameters,
+  });
   const value = (k: string) => input.parameters.find((x) => x.kind === k)?.value;
   const inner = value('lambdaInner');
   const outer = value('lambdaOuter');
@@ -191,19 +472,46 @@ async function ensurePair(tx: EntityManager, workspaceId: string, input: Require
     `INSERT INTO pairs (workspace_id, name, donor, acceptor, medium, temperature_k, temperature_unit, notes, status, tags,
        model, version, results, delta_g0, lambda_total, coupling_abs, log10k, regime, created_by, updated_by)
      VALUES ($1,$2,$3,$4,$5,$6,$7,$8,$9,$10,$11,1,$12,$13,$14,$15,$16,$17,$18,$18) RETURNING id, created_at, updated_at`,
-    [workspaceId, input.name, input.donor, input.acceptor, input.medium, input.temperature, input.temperatureUnit, input.notes,
-      input.status, input.tags, input.model, JSON.stringify(results), value('deltaG0') ?? null,
+    [
+      workspaceId,
+      input.name,
+      input.donor,
+      input.acceptor,
+      input.medium,
+      input.temperature,
+      input.temperatureUnit,
+      input.notes,
+      input.status,
+      input.tags,
+      input.model,
+      JSON.stringify(results),
+      value('deltaG0') ?? null,
       inner === undefined && outer === undefined ? null : (inner ?? 0) + (outer ?? 0),
-      coupling === undefined ? null : Math.abs(coupling), results.log10k, results.regime, userId],
+      coupling === undefined ? null : Math.abs(coupling),
+      results.log10k,
+      results.regime,
+      userId,
+    ],
   );
   const { id, created_at: createdAt, updated_at: updatedAt } = rows[0];
   for (const [i, x] of input.parameters.entries()) {
     await tx.query(
       `INSERT INTO pair_parameters (pair_id, position, kind, value, unit, uncertainty, provenance_kind, citation, method_id,
          method_inputs, sources, note) VALUES ($1,$2,$3,$4,$5,$6,$7,$8,$9,$10,$11,$12)`,
-      [id, i, x.kind, x.value, x.unit, x.uncertainty, x.provenance.kind, x.provenance.citation ?? null, x.provenance.methodId ?? null,
+      [
+        id,
+        i,
+        x.kind,
+        x.value,
+        x.unit,
+        x.uncertainty,
+        x.provenance.kind,
+        x.provenance.citation ?? null,
+        x.provenance.methodId ?? null,
         x.provenance.methodInputs ? JSON.stringify(x.provenance.methodInputs) : null,
-        x.provenance.sources ? JSON.stringify(x.provenance.sources) : null, x.provenance.note ?? null],
+        x.provenance.sources ? JSON.stringify(x.provenance.sources) : null,
+        x.provenance.note ?? null,
+      ],
     );
   }
   const [user] = await tx.query('SELECT display_name FROM users WHERE id = $1', [userId]);
@@ -228,8 +536,10 @@ async function ensurePair(tx: EntityManager, workspaceId: string, input: Require
     updatedAt: new Date(updatedAt).toISOString(),
     updatedBy: { id: userId, displayName: user.display_name },
   };
-  await tx.query(`INSERT INTO pair_versions (pair_id, version, snapshot, summary, created_by) VALUES ($1, 1, $2, 'created (demo seed)', $3)`,
-    [id, JSON.stringify(snapshot), userId]);
+  await tx.query(
+    `INSERT INTO pair_versions (pair_id, version, snapshot, summary, created_by) VALUES ($1, 1, $2, 'created (demo seed)', $3)`,
+    [id, JSON.stringify(snapshot), userId],
+  );
   await tx.query(
     `INSERT INTO audit_events (workspace_id, actor_id, action, entity_type, entity_id, summary) VALUES ($1,$2,'pair.created','pair',$3,$4)`,
     [workspaceId, userId, id, `${input.name} v1: created (demo seed)`],
@@ -241,7 +551,10 @@ async function ensurePair(tx: EntityManager, workspaceId: string, input: Require
  * Seeds the demo accounts, workspaces and pairs. Idempotent: what exists (matched by e-mail,
  * workspace name + owner, pair name) is left as it is, including changed passwords and roles.
  */
-export async function seedDemo(dataSource: DataSource, options: { bcryptCost?: number } = {}): Promise<SeedReport> {
+export async function seedDemo(
+  dataSource: DataSource,
+  options: { bcryptCost?: number } = {},
+): Promise<SeedReport> {
   const hash = await bcrypt.hash(DEMO_PASSWORD, options.bcryptCost ?? 10);
   return dataSource.transaction(async (tx) => {
     // One seed at a time (two `npm start`s at once must not duplicate the demo).
@@ -260,13 +573,18 @@ export async function seedDemo(dataSource: DataSource, options: { bcryptCost?: n
     if (lab.created) {
       workspaces++;
       for (const account of DEMO_ACCOUNTS.filter((a) => a.role !== 'owner')) {
-        await tx.query(`INSERT INTO memberships (workspace_id, user_id, role) VALUES ($1,$2,$3) ON CONFLICT DO NOTHING`, [lab.id, ids[account.role], account.role]);
+        await tx.query(
+          `INSERT INTO memberships (workspace_id, user_id, role) VALUES ($1,$2,$3) ON CONFLICT DO NOTHING`,
+          [lab.id, ids[account.role], account.role],
+        );
       }
     }
     const mediators = await ensureWorkspace(tx, DEMO_MEDIATORS, ownerId);
     if (mediators.created) workspaces++;
-    for (const pair of LAB_PAIRS) if (await ensurePair(tx, lab.id, pair, ids['editor'] ?? ownerId)) pairs++;
-    for (const pair of MEDIATOR_PAIRS) if (await ensurePair(tx, mediators.id, pair, ownerId)) pairs++;
+    for (const pair of LAB_PAIRS)
+      if (await ensurePair(tx, lab.id, pair, ids['editor'] ?? ownerId)) pairs++;
+    for (const pair of MEDIATOR_PAIRS)
+      if (await ensurePair(tx, mediators.id, pair, ownerId)) pairs++;
     return { users, workspaces, pairs };
   });
 }

@@ -11,32 +11,61 @@ import { seedDemoTraces } from '../../apps/api/src/traces/demo-trace-seed';
 import { TraceObjectStore } from '../../apps/api/src/traces/trace-object-store';
 import { traceStoreConfigFromEnv } from '../../apps/api/src/traces/trace-services';
 
-const dataSource = createDataSource({ url: process.env['DATABASE_URL'] || DEFAULT_DATABASE_URL, poolSize: 2 });
+const dataSource = createDataSource({
+  url: process.env['DATABASE_URL'] || DEFAULT_DATABASE_URL,
+  poolSize: 2,
+});
 try {
   await dataSource.initialize();
   await dataSource.runMigrations({ transaction: 'each' });
   const report = await seedDemo(dataSource);
-  console.log(`demo seed: ${report.users} user(s), ${report.workspaces} workspace(s), ${report.pairs} pair(s) added`);
+  console.log(
+    `demo seed: ${report.users} user(s), ${report.workspaces} workspace(s), ${report.pairs} pair(s) added`,
+  );
   // A submitted report in the demo lab for the demo reviewer (apps/api/src/reports/demo-report-seed.ts).
-  if (await seedDemoReport(dataSource, { labName: DEMO_LAB, editorEmail: 'editor@gapwise.test', publicUrl: process.env['PUBLIC_URL'] })) {
+  if (
+    await seedDemoReport(dataSource, {
+      labName: DEMO_LAB,
+      editorEmail: 'editor@gapwise.test',
+      publicUrl: process.env['PUBLIC_URL'],
+    })
+  ) {
     console.log('demo seed: 1 submitted report added');
   }
   // A finished demo screen (flow-cell workspace) and a fitted demo series (lab).
-  const added = await seedDemoScreensAndSeries(dataSource, { mediatorsName: DEMO_MEDIATORS, labName: DEMO_LAB, ownerEmail: 'owner@gapwise.test', editorEmail: 'editor@gapwise.test' });
-  if (added.screen || added.series) console.log(`demo seed: ${added.screen ? '1 screen' : ''}${added.screen && added.series ? ' and ' : ''}${added.series ? '1 series' : ''} added`);
+  const added = await seedDemoScreensAndSeries(dataSource, {
+    mediatorsName: DEMO_MEDIATORS,
+    labName: DEMO_LAB,
+    ownerEmail: 'owner@gapwise.test',
+    editorEmail: 'editor@gapwise.test',
+  });
+  if (added.screen || added.series)
+    console.log(
+      `demo seed: ${added.screen ? '1 screen' : ''}${added.screen && added.series ? ' and ' : ''}${added.series ? '1 series' : ''} added`,
+    );
   // Demo energy-gap traces (lab) in object storage with a finished analysis: needs the S3 store.
   if (process.env['S3_ENDPOINT']) {
     const store = new TraceObjectStore(traceStoreConfigFromEnv());
     try {
-      const t = await seedDemoTraces(dataSource, store, { labName: DEMO_LAB, editorEmail: 'editor@gapwise.test' });
-      if (t.traces || t.analysis) console.log(`demo seed: ${t.traces} trace(s)${t.analysis ? ' and 1 finished trace analysis' : ''} added`);
+      const t = await seedDemoTraces(dataSource, store, {
+        labName: DEMO_LAB,
+        editorEmail: 'editor@gapwise.test',
+      });
+      if (t.traces || t.analysis)
+        console.log(
+          `demo seed: ${t.traces} trace(s)${t.analysis ? ' and 1 finished trace analysis' : ''} added`,
+        );
     } finally {
       store.destroy();
     }
   } else {
-    console.log('demo seed: demo traces skipped (S3_ENDPOINT is not set; npm start starts the S3 store and sets it)');
+    console.log(
+      'demo seed: demo traces skipped (S3_ENDPOINT is not set; npm start starts the S3 store and sets it)',
+    );
   }
-  console.log(`demo sign-ins (password ${DEMO_PASSWORD}): ${DEMO_ACCOUNTS.map((a) => a.email).join(', ')}`);
+  console.log(
+    `demo sign-ins (password ${DEMO_PASSWORD}): ${DEMO_ACCOUNTS.map((a) => a.email).join(', ')}`,
+  );
 } catch (error) {
   console.error(`demo seed failed: ${(error as Error).message}`);
   process.exitCode = 1;

@@ -20,14 +20,32 @@ afterAll(async () => t?.close());
 const nasty = fc.oneof(
   fc.string(),
   fc.string({ unit: 'binary' }),
-  fc.constantFrom('\u0000', '\ud800', 'x\udc00', '', ' ', 'eV', 'kcal/mol', 'cm-1', 'degC', 'K', 'A', '__proto__', 'constructor'),
+  fc.constantFrom(
+    '\u0000',
+    '\ud800',
+    'x\udc00',
+    '',
+    ' ',
+    'eV',
+    'kcal/mol',
+    'cm-1',
+    'degC',
+    'K',
+    'A',
+    '__proto__',
+    'constructor',
+  ),
   fc.double(),
   fc.integer(),
   fc.constantFrom(1e308, -1e308, 2 ** 31, 2 ** 53, -0, 0.5),
   fc.boolean(),
   fc.constant(null),
 );
-const anyJson = fc.oneof(nasty, fc.array(nasty, { maxLength: 4 }), fc.dictionary(fc.string({ maxLength: 8 }), nasty, { maxKeys: 4 }));
+const anyJson = fc.oneof(
+  nasty,
+  fc.array(nasty, { maxLength: 4 }),
+  fc.dictionary(fc.string({ maxLength: 8 }), nasty, { maxKeys: 4 }),
+);
 
 /** Parameters that are sometimes right and sometimes subtly wrong. */
 const parameter = fc.record(
@@ -35,7 +53,11 @@ const parameter = fc.record(
     kind: fc.oneof(fc.constantFrom(...Object.keys(PARAMETER_KINDS)), nasty),
     value: fc.oneof(fc.double({ noNaN: true, noDefaultInfinity: true }), nasty),
     unit: fc.oneof(fc.constantFrom('eV', 'kcal/mol', 'cm-1', 'A', 'nm', 'V', 'ps', ''), nasty),
-    uncertainty: fc.oneof(fc.constant(null), fc.double({ noNaN: true, noDefaultInfinity: true }), nasty),
+    uncertainty: fc.oneof(
+      fc.constant(null),
+      fc.double({ noNaN: true, noDefaultInfinity: true }),
+      nasty,
+    ),
     provenance: fc.oneof(
       fc.record(
         {
@@ -43,7 +65,10 @@ const parameter = fc.record(
           citation: nasty,
           methodId: nasty,
           methodInputs: anyJson,
-          sources: fc.oneof(fc.array(fc.record({ type: nasty, id: nasty }), { maxLength: 3 }), nasty),
+          sources: fc.oneof(
+            fc.array(fc.record({ type: nasty, id: nasty }), { maxLength: 3 }),
+            nasty,
+          ),
           note: nasty,
         },
         { requiredKeys: ['kind'] },
@@ -75,10 +100,12 @@ const pairLike = fc.record(
 );
 
 /** Mutates a valid body in one place, so deep validation paths are reached too. */
-const mutatedValid = fc.tuple(fc.constantFrom('name', 'temperature', 'parameters', 'tags', 'model', 'status'), anyJson).map(([field, value]) => ({
-  ...pairBody(),
-  [field]: value,
-}));
+const mutatedValid = fc
+  .tuple(fc.constantFrom('name', 'temperature', 'parameters', 'tags', 'model', 'status'), anyJson)
+  .map(([field, value]) => ({
+    ...pairBody(),
+    [field]: value,
+  }));
 
 const body = fc.oneof(anyJson, pairLike, mutatedValid);
 
@@ -105,7 +132,10 @@ async function consistent(): Promise<void> {
 
 /** Sends any JSON value as the body (numbers, strings and null included). */
 const send = (method: string, path: string, b: unknown) =>
-  s.call(method, path).set('Content-Type', 'application/json').send(JSON.stringify(b) ?? 'null');
+  s
+    .call(method, path)
+    .set('Content-Type', 'application/json')
+    .send(JSON.stringify(b) ?? 'null');
 
 describe('fuzz: random and malformed bodies against the write routes', () => {
   const targets: Array<{ name: string; run: (b: unknown) => Promise<{ status: number }> }> = [
@@ -137,7 +167,10 @@ describe('fuzz: random and malformed bodies against the write routes', () => {
   it('raw, non-JSON and oversized payloads never give a 5xx', async () => {
     await fc.assert(
       fc.asyncProperty(fc.string({ maxLength: 200 }), async (raw) => {
-        const res = await s.post(`/api/workspaces/${wid}/pairs`).set('Content-Type', 'application/json').send(raw);
+        const res = await s
+          .post(`/api/workspaces/${wid}/pairs`)
+          .set('Content-Type', 'application/json')
+          .send(raw);
         expect(res.status).toBeLessThan(500);
       }),
       { numRuns: 200, seed: 7 },

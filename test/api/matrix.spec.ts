@@ -41,8 +41,13 @@ async function fingerprint(): Promise<Record<string, string>> {
   for (const { table_name } of tables) {
     // The mail sender marks earlier messages sent in the background: an outbox row counts by what
     // was queued (recipient, subject, cause), not by its delivery state.
-    const source = table_name === 'mail_outbox' ? `(SELECT id, kind, to_address, subject, related_id, created_at FROM mail_outbox)` : `"${table_name}"`;
-    const [row] = await t.db.query(`SELECT count(*)::text || ':' || coalesce(md5(string_agg(x::text, '|' ORDER BY x::text)), '') AS f FROM ${source} x`);
+    const source =
+      table_name === 'mail_outbox'
+        ? `(SELECT id, kind, to_address, subject, related_id, created_at FROM mail_outbox)`
+        : `"${table_name}"`;
+    const [row] = await t.db.query(
+      `SELECT count(*)::text || ':' || coalesce(md5(string_agg(x::text, '|' ORDER BY x::text)), '') AS f FROM ${source} x`,
+    );
     out[table_name] = row.f;
   }
   return out;
@@ -53,12 +58,27 @@ async function makeContext(caller: Caller): Promise<CaseContext> {
   const [ws] = await t.db.query(`INSERT INTO workspaces (name) VALUES ('Matrix lab') RETURNING id`);
   const wid = ws.id as string;
   for (const role of ['owner', 'editor', 'reviewer', 'viewer'] as const) {
-    await t.db.query('INSERT INTO memberships (workspace_id, user_id, role) VALUES ($1, $2, $3)', [wid, sessions[role]!.userId, role]);
+    await t.db.query('INSERT INTO memberships (workspace_id, user_id, role) VALUES ($1, $2, $3)', [
+      wid,
+      sessions[role]!.userId,
+      role,
+    ]);
   }
-  await t.db.query(`INSERT INTO memberships (workspace_id, user_id, role) VALUES ($1, $2, 'editor')`, [wid, extraUserId]);
-  const pair = await createPair(t.db, owner.userId, wid, normalisePairInput(pairBody({ name: 'Matrix pair' }) as never));
+  await t.db.query(
+    `INSERT INTO memberships (workspace_id, user_id, role) VALUES ($1, $2, 'editor')`,
+    [wid, extraUserId],
+  );
+  const pair = await createPair(
+    t.db,
+    owner.userId,
+    wid,
+    normalisePairInput(pairBody({ name: 'Matrix pair' }) as never),
+  );
   const users = Object.fromEntries(
-    (['owner', 'editor', 'reviewer', 'viewer', 'outsider'] as const).map((c) => [c, { id: sessions[c]!.userId, email: sessions[c]!.email }]),
+    (['owner', 'editor', 'reviewer', 'viewer', 'outsider'] as const).map((c) => [
+      c,
+      { id: sessions[c]!.userId, email: sessions[c]!.email },
+    ]),
   ) as CaseContext['users'];
   return {
     t,
@@ -98,7 +118,9 @@ async function makeContext(caller: Caller): Promise<CaseContext> {
 
 describe('authorization matrix', () => {
   it('has exactly one row for every mounted route', () => {
-    const mounted = mountedRoutes(t.app.locals['apiRouter'] as Router).map((r) => key(r.method, r.path));
+    const mounted = mountedRoutes(t.app.locals['apiRouter'] as Router).map((r) =>
+      key(r.method, r.path),
+    );
     const covered = ROWS.map((r) => key(r.method, r.route));
     const missing = mounted.filter((m) => !covered.includes(m));
     const stale = covered.filter((c) => !mounted.includes(c));
@@ -114,16 +136,20 @@ describe('authorization matrix', () => {
         const { path, body } = await row.request(ctx);
         const before = row.method === 'get' ? null : await fingerprint();
         const session = sessions[caller as Exclude<Caller, 'anonymous'>];
+        const anonymous = request(t.app);
         const res = session
           ? await session.call(row.method, `/api${path}`, body)
-          : await request(t.app)[row.method](`/api${path}`).send(body as object);
+          : await anonymous[row.method](`/api${path}`).send(body as object);
         if (res.status !== row.expect[caller]) {
-          failures.push(`${caller}: expected ${row.expect[caller]}, got ${res.status} ${JSON.stringify(res.body?.error ?? '')}`);
+          failures.push(
+            `${caller}: expected ${row.expect[caller]}, got ${res.status} ${JSON.stringify(res.body?.error ?? '')}`,
+          );
         }
         if (before && res.status >= 400) {
           const after = await fingerprint();
           const changed = Object.keys(after).filter((k) => after[k] !== before[k]);
-          if (changed.length) failures.push(`${caller}: denied (${res.status}) but changed ${changed.join(', ')}`);
+          if (changed.length)
+            failures.push(`${caller}: denied (${res.status}) but changed ${changed.join(', ')}`);
         }
       }
       expect(failures).toEqual([]);

@@ -28,7 +28,9 @@ describe('pairs', () => {
     const versions = await owner.get(`/api/pairs/${pair.id}/versions`).expect(200);
     expect(versions.body).toHaveLength(1);
     const audit = await owner.get(`/api/workspaces/${wid}/audit`).expect(200);
-    expect(audit.body.items.some((e: { action: string }) => e.action === 'pair.created')).toBe(true);
+    expect(audit.body.items.some((e: { action: string }) => e.action === 'pair.created')).toBe(
+      true,
+    );
   });
 
   it('lists every bad field in one 400 and saves nothing', async () => {
@@ -50,17 +52,27 @@ describe('pairs', () => {
     (bad.parameters[1] as { provenance: unknown }).provenance = { kind: 'literature' };
     const res = await owner.post(`/api/workspaces/${wid}/pairs`, bad).expect(400);
     const fields = res.body.error.fields.map((f: { field: string }) => f.field);
-    expect(fields).toEqual(expect.arrayContaining(['parameters.0.unit', 'parameters.1.provenance.citation']));
+    expect(fields).toEqual(
+      expect.arrayContaining(['parameters.0.unit', 'parameters.1.provenance.citation']),
+    );
   });
 
   it('updates with the version, answers 409 with the current pair on a stale version', async () => {
-    const created = (await owner.post(`/api/workspaces/${wid}/pairs`, pairBody({ name: 'T-upd' })).expect(201)).body as Pair;
-    const v2 = await owner.put(`/api/pairs/${created.id}`, { ...pairBody({ name: 'T-upd2' }), version: 1 }).expect(200);
+    const created = (
+      await owner.post(`/api/workspaces/${wid}/pairs`, pairBody({ name: 'T-upd' })).expect(201)
+    ).body as Pair;
+    const v2 = await owner
+      .put(`/api/pairs/${created.id}`, { ...pairBody({ name: 'T-upd2' }), version: 1 })
+      .expect(200);
     expect(v2.body.version).toBe(2);
-    const stale = await owner.patch(`/api/pairs/${created.id}`, { version: 1, notes: 'late' }).expect(409);
+    const stale = await owner
+      .patch(`/api/pairs/${created.id}`, { version: 1, notes: 'late' })
+      .expect(409);
     expect(stale.body.error.code).toBe('version-conflict');
     expect(stale.body.error.current.version).toBe(2);
-    const patched = await owner.patch(`/api/pairs/${created.id}`, { version: 2, notes: 'on time' }).expect(200);
+    const patched = await owner
+      .patch(`/api/pairs/${created.id}`, { version: 2, notes: 'on time' })
+      .expect(200);
     expect(patched.body).toMatchObject({ version: 3, notes: 'on time', name: 'T-upd2' });
     const cmp = await owner.get(`/api/pairs/${created.id}/compare?from=1&to=3`).expect(200);
     const fields = cmp.body.differences.map((d: { field: string }) => d.field);
@@ -70,20 +82,31 @@ describe('pairs', () => {
   });
 
   it('sorts, filters and pages the list', async () => {
-    for (const [name, dg] of [['S-a', -0.2], ['S-b', -0.9], ['S-c', -0.5]] as const) {
+    for (const [name, dg] of [
+      ['S-a', -0.2],
+      ['S-b', -0.9],
+      ['S-c', -0.5],
+    ] as const) {
       const body = pairBody({ name, tags: ['sorted'] });
       (body.parameters[0] as { value: number }).value = dg;
       await owner.post(`/api/workspaces/${wid}/pairs`, body).expect(201);
     }
-    const res = await owner.get(`/api/workspaces/${wid}/pairs?tag=sorted&sort=-deltaG0&limit=2`).expect(200);
+    const res = await owner
+      .get(`/api/workspaces/${wid}/pairs?tag=sorted&sort=-deltaG0&limit=2`)
+      .expect(200);
     expect(res.body.total).toBe(3);
     expect(res.body.items.map((i: { name: string }) => i.name)).toEqual(['S-a', 'S-c']);
     const bad = await owner.get(`/api/workspaces/${wid}/pairs?sort=colour&limit=0`).expect(400);
-    expect(bad.body.error.fields.map((f: { field: string }) => f.field).sort()).toEqual(['limit', 'sort']);
+    expect(bad.body.error.fields.map((f: { field: string }) => f.field).sort()).toEqual([
+      'limit',
+      'sort',
+    ]);
   });
 
   it('archives, duplicates, computes and deletes', async () => {
-    const created = (await owner.post(`/api/workspaces/${wid}/pairs`, pairBody({ name: 'T-life' })).expect(201)).body as Pair;
+    const created = (
+      await owner.post(`/api/workspaces/${wid}/pairs`, pairBody({ name: 'T-life' })).expect(201)
+    ).body as Pair;
     const archived = await owner.post(`/api/pairs/${created.id}/archive`).expect(200);
     expect(archived.body.status).toBe('archived');
     const dup = await owner.post(`/api/pairs/${created.id}/duplicate`).expect(201);

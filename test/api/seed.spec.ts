@@ -19,19 +19,31 @@ describe('demo seed', () => {
     for (const account of DEMO_ACCOUNTS) {
       const s = await signIn(t.app, account.email, DEMO_PASSWORD);
       const me = await s.get('/api/auth/me').expect(200);
-      const lab = me.body.memberships.find((m: { workspaceName: string }) => m.workspaceName === 'Halden Photoredox Lab');
+      const lab = me.body.memberships.find(
+        (m: { workspaceName: string }) => m.workspaceName === 'Halden Photoredox Lab',
+      );
       expect(lab?.role).toBe(account.role);
     }
     const owner = await signIn(t.app, 'owner@gapwise.test', DEMO_PASSWORD);
-    const spaces = (await owner.get('/api/workspaces').expect(200)).body.map((w: { name: string }) => w.name);
+    const spaces = (await owner.get('/api/workspaces').expect(200)).body.map(
+      (w: { name: string }) => w.name,
+    );
     expect(spaces).toHaveLength(2);
   });
 
   it('has DA-1…DA-6 with computed results and every kind of provenance; the mediator screen has Med- pairs', async () => {
     const viewer = await signIn(t.app, 'viewer@gapwise.test', DEMO_PASSWORD);
     const lab = (await viewer.get('/api/workspaces').expect(200)).body[0];
-    const list = (await viewer.get(`/api/workspaces/${lab.id}/pairs?limit=100`).expect(200)).body.items as PairListItem[];
-    expect(list.map((p) => p.name).sort()).toEqual(['DA-1', 'DA-2', 'DA-3', 'DA-4', 'DA-5', 'DA-6']);
+    const list = (await viewer.get(`/api/workspaces/${lab.id}/pairs?limit=100`).expect(200)).body
+      .items as PairListItem[];
+    expect(list.map((p) => p.name).sort()).toEqual([
+      'DA-1',
+      'DA-2',
+      'DA-3',
+      'DA-4',
+      'DA-5',
+      'DA-6',
+    ]);
     const kinds = new Set<string>();
     for (const item of list) {
       const pair = (await viewer.get(`/api/pairs/${item.id}`).expect(200)).body as Pair;
@@ -40,14 +52,20 @@ describe('demo seed', () => {
       for (const p of pair.parameters) {
         kinds.add(p.provenance.kind);
         if (p.provenance.kind === 'literature') expect(p.provenance.citation).toMatch(/notebook/i);
-        if (p.provenance.kind === 'derived') expect(p.provenance.methodId).toMatch(/^[a-zA-Z]+\.[a-zA-Z]+$/);
+        if (p.provenance.kind === 'derived')
+          expect(p.provenance.methodId).toMatch(/^[a-zA-Z]+\.[a-zA-Z]+$/);
       }
     }
     expect([...kinds].sort()).toEqual(['assumed', 'computed', 'derived', 'literature', 'measured']);
-    expect(new Set(list.map((p) => p.regime))).toEqual(new Set(['normal', 'activationless', 'inverted']));
+    expect(new Set(list.map((p) => p.regime))).toEqual(
+      new Set(['normal', 'activationless', 'inverted']),
+    );
     const owner = await signIn(t.app, 'owner@gapwise.test', DEMO_PASSWORD);
-    const screen = (await owner.get('/api/workspaces').expect(200)).body.find((w: { name: string }) => w.name !== lab.name);
-    const meds = (await owner.get(`/api/workspaces/${screen.id}/pairs`).expect(200)).body.items as PairListItem[];
+    const screen = (await owner.get('/api/workspaces').expect(200)).body.find(
+      (w: { name: string }) => w.name !== lab.name,
+    );
+    const meds = (await owner.get(`/api/workspaces/${screen.id}/pairs`).expect(200)).body
+      .items as PairListItem[];
     expect(meds.length).toBeGreaterThanOrEqual(3);
     expect(meds.every((p) => p.name.startsWith('Med-'))).toBe(true);
   });
@@ -55,9 +73,12 @@ describe('demo seed', () => {
   it('signed in as viewer@gapwise.test, PATCH of a pair is 403 and it is unchanged; another workspace’s user gets 404', async () => {
     const viewer = await signIn(t.app, 'viewer@gapwise.test', DEMO_PASSWORD);
     const lab = (await viewer.get('/api/workspaces').expect(200)).body[0];
-    const item = (await viewer.get(`/api/workspaces/${lab.id}/pairs?q=DA-1`).expect(200)).body.items[0] as PairListItem;
+    const item = (await viewer.get(`/api/workspaces/${lab.id}/pairs?q=DA-1`).expect(200)).body
+      .items[0] as PairListItem;
     const before = (await viewer.get(`/api/pairs/${item.id}`).expect(200)).body;
-    const res = await viewer.patch(`/api/pairs/${item.id}`, { version: before.version, name: 'renamed by viewer' }).expect(403);
+    const res = await viewer
+      .patch(`/api/pairs/${item.id}`, { version: before.version, name: 'renamed by viewer' })
+      .expect(403);
     expect(res.body.error.code).toBe('forbidden');
     expect((await viewer.get(`/api/pairs/${item.id}`).expect(200)).body).toEqual(before);
     const other = await registerUser(t.app, 'elsewhere');

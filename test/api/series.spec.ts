@@ -16,7 +16,12 @@ const HBAR = 6.582119569e-16;
 /** log10 of the classical Marcus rate, SCIENCE.md §1, written out independently of the core. */
 function marcusLog10k(dg: number, lambda: number, h: number, t: number): number {
   const kt = KB * t;
-  const k = ((2 * Math.PI) / HBAR) * h * h * (4 * Math.PI * lambda * kt) ** -0.5 * Math.exp(-((dg + lambda) ** 2) / (4 * lambda * kt));
+  const k =
+    ((2 * Math.PI) / HBAR) *
+    h *
+    h *
+    (4 * Math.PI * lambda * kt) ** -0.5 *
+    Math.exp(-((dg + lambda) ** 2) / (4 * lambda * kt));
   return Math.log10(k);
 }
 
@@ -37,8 +42,16 @@ describe('series API', () => {
   it('recovers λ and |H_AB| exactly from noise-free data, in kJ/mol typed units', async () => {
     const lambda = 0.9;
     const h = 0.004;
-    const points = GRID.map((dg) => ({ deltaG0: dg * 96.48533212, log10k: marcusLog10k(dg, lambda, h, 298.15) }));
-    const created = await editor.post(`/api/workspaces/${wid}/series`, { name: 'exact', temperature: 298.15, energyUnit: 'kJ/mol', points });
+    const points = GRID.map((dg) => ({
+      deltaG0: dg * 96.48533212,
+      log10k: marcusLog10k(dg, lambda, h, 298.15),
+    }));
+    const created = await editor.post(`/api/workspaces/${wid}/series`, {
+      name: 'exact',
+      temperature: 298.15,
+      energyUnit: 'kJ/mol',
+      points,
+    });
     expect(created.status).toBe(201);
     expect(created.body.points[0].deltaG0).toBeCloseTo(-0.1, 10);
     const fit = await editor.post(`/api/series/${created.body.id}/fit`, { model: 'marcus' });
@@ -57,16 +70,33 @@ describe('series API', () => {
     const gauss = () => Math.sqrt(-2 * Math.log(rng())) * Math.cos(2 * Math.PI * rng());
     const lambda = 1.1;
     const h = 0.002;
-    const points = GRID.map((dg) => ({ deltaG0: dg, log10k: marcusLog10k(dg, lambda, h, 298.15) + 0.15 * gauss(), sigmaLog10k: 0.15 }));
-    const created = await editor.post(`/api/workspaces/${wid}/series`, { name: 'noisy', temperature: 298.15, points });
-    const m = (await editor.post(`/api/series/${created.body.id}/fit`, { model: 'marcus' })).body.fit.fits.marcus;
+    const points = GRID.map((dg) => ({
+      deltaG0: dg,
+      log10k: marcusLog10k(dg, lambda, h, 298.15) + 0.15 * gauss(),
+      sigmaLog10k: 0.15,
+    }));
+    const created = await editor.post(`/api/workspaces/${wid}/series`, {
+      name: 'noisy',
+      temperature: 298.15,
+      points,
+    });
+    const m = (await editor.post(`/api/series/${created.body.id}/fit`, { model: 'marcus' })).body
+      .fit.fits.marcus;
     expect(Math.abs(m.lambda - lambda)).toBeLessThan(3 * m.standardErrors.lambda);
     expect(Math.abs(m.coupling - h)).toBeLessThan(3 * m.standardErrors.coupling);
     expect(Math.abs(m.correlation)).toBeLessThanOrEqual(1);
 
-    const normalOnly = GRID.slice(0, 4).map((dg) => ({ deltaG0: dg, log10k: marcusLog10k(dg, lambda, h, 298.15) }));
-    const s2 = await editor.post(`/api/workspaces/${wid}/series`, { name: 'normal only', temperature: 298.15, points: normalOnly });
-    const w = (await editor.post(`/api/series/${s2.body.id}/fit`, { model: 'marcus' })).body.fit.fits.marcus.warnings;
+    const normalOnly = GRID.slice(0, 4).map((dg) => ({
+      deltaG0: dg,
+      log10k: marcusLog10k(dg, lambda, h, 298.15),
+    }));
+    const s2 = await editor.post(`/api/workspaces/${wid}/series`, {
+      name: 'normal only',
+      temperature: 298.15,
+      points: normalOnly,
+    });
+    const w = (await editor.post(`/api/series/${s2.body.id}/fit`, { model: 'marcus' })).body.fit
+      .fits.marcus.warnings;
     expect(w.map((x: { code: string }) => x.code)).toContain('fit-poorly-separated');
   });
 
@@ -77,11 +107,26 @@ describe('series API', () => {
     // Published single-mode fit (from memory): λ_s = 0.75 eV, λ_v = 0.45 eV, ħω = 1500 cm⁻¹;
     // total λ ≈ 1.2 eV. We accept λ_s within ±0.15 eV of 0.75 eV for the MLJ fit with that mode.
     const published: Array<[number, number]> = [
-      [0.05, 6.2], [0.16, 7.2], [0.52, 8.2], [1.23, 9.3], [1.53, 9.2], [1.93, 9.0], [2.08, 8.7], [2.4, 8.0],
+      [0.05, 6.2],
+      [0.16, 7.2],
+      [0.52, 8.2],
+      [1.23, 9.3],
+      [1.53, 9.2],
+      [1.93, 9.0],
+      [2.08, 8.7],
+      [2.4, 8.0],
     ];
     const points = published.map(([neg, lk]) => ({ deltaG0: -neg, log10k: lk }));
-    const created = await editor.post(`/api/workspaces/${wid}/series`, { name: 'Closs–Miller 1984', temperature: 296, points });
-    const res = await editor.post(`/api/series/${created.body.id}/fit`, { model: 'mlj', hbarOmega: 1500 / 8065.543937, lambdaVib: 0.45 });
+    const created = await editor.post(`/api/workspaces/${wid}/series`, {
+      name: 'Closs–Miller 1984',
+      temperature: 296,
+      points,
+    });
+    const res = await editor.post(`/api/series/${created.body.id}/fit`, {
+      model: 'mlj',
+      hbarOmega: 1500 / 8065.543937,
+      lambdaVib: 0.45,
+    });
     expect(res.status).toBe(200);
     const mlj = res.body.fit.fits.mlj;
     expect(Math.abs(mlj.lambda - 0.75)).toBeLessThan(0.15);
@@ -93,10 +138,21 @@ describe('series API', () => {
   it('applies the fitted λ and |H_AB| to a pair as derived parameters pointing to the series', async () => {
     const pair = await editor.post(`/api/workspaces/${wid}/pairs`, pairBody());
     expect(pair.status).toBe(201);
-    const points = GRID.map((dg) => ({ deltaG0: dg, log10k: marcusLog10k(dg, 0.9, 0.004, 298.15), pairId: pair.body.id }));
-    const s = await editor.post(`/api/workspaces/${wid}/series`, { name: 'to apply', temperature: 298.15, points, pairIds: [pair.body.id] });
+    const points = GRID.map((dg) => ({
+      deltaG0: dg,
+      log10k: marcusLog10k(dg, 0.9, 0.004, 298.15),
+      pairId: pair.body.id,
+    }));
+    const s = await editor.post(`/api/workspaces/${wid}/series`, {
+      name: 'to apply',
+      temperature: 298.15,
+      points,
+      pairIds: [pair.body.id],
+    });
     await editor.post(`/api/series/${s.body.id}/fit`, { model: 'marcus' });
-    const applied = await editor.post(`/api/series/${s.body.id}/apply`, { pairIds: [pair.body.id] });
+    const applied = await editor.post(`/api/series/${s.body.id}/apply`, {
+      pairIds: [pair.body.id],
+    });
     expect(applied.status).toBe(200);
     const p = applied.body.pairs[0];
     expect(p.version).toBe(pair.body.version + 1);
@@ -111,11 +167,20 @@ describe('series API', () => {
   });
 
   it('refuses fewer than 3 points and hides series from non-members', async () => {
-    const s = await editor.post(`/api/workspaces/${wid}/series`, { name: 'two', temperature: 298.15, points: [{ deltaG0: -0.1, k: 1e6 }, { deltaG0: -0.2, k: 1e7 }] });
+    const s = await editor.post(`/api/workspaces/${wid}/series`, {
+      name: 'two',
+      temperature: 298.15,
+      points: [
+        { deltaG0: -0.1, k: 1e6 },
+        { deltaG0: -0.2, k: 1e7 },
+      ],
+    });
     const fit = await editor.post(`/api/series/${s.body.id}/fit`, { model: 'marcus' });
     expect(fit.status).toBe(400);
     const stranger = await registerUser(t.app, 'stranger');
     expect((await stranger.get(`/api/series/${s.body.id}`)).status).toBe(404);
-    expect((await stranger.post(`/api/series/${s.body.id}/fit`, { model: 'marcus' })).status).toBe(404);
+    expect((await stranger.post(`/api/series/${s.body.id}/fit`, { model: 'marcus' })).status).toBe(
+      404,
+    );
   });
 });

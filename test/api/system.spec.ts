@@ -16,7 +16,11 @@ afterAll(async () => t?.close());
 describe('system', () => {
   it('health reports version, database and migrations', async () => {
     const res = await request(t.app).get('/api/health').expect(200);
-    expect(res.body).toMatchObject({ status: 'ok', database: { reachable: true }, migrations: { pending: [] } });
+    expect(res.body).toMatchObject({
+      status: 'ok',
+      database: { reachable: true },
+      migrations: { pending: [] },
+    });
     expect(res.body.version).toMatch(/^\d+\.\d+\.\d+/);
     expect(res.body.migrations.applied).toBeGreaterThan(0);
   });
@@ -26,7 +30,11 @@ describe('system', () => {
     expect(res.headers['content-type']).toMatch(/json/);
     expect(res.body.error.code).toBe('not-found');
     const s = await registerUser(t.app);
-    const bad = await s.post('/api/workspaces').set('Content-Type', 'application/json').send('{"name": ').expect(400);
+    const bad = await s
+      .post('/api/workspaces')
+      .set('Content-Type', 'application/json')
+      .send('{"name": ')
+      .expect(400);
     expect(bad.body.error.code).toBe('invalid-json');
     expect(JSON.stringify(bad.body)).not.toMatch(/at .*\.ts:\d+/);
   });
@@ -66,12 +74,16 @@ describe('system', () => {
   });
 
   it('the OpenAPI description lists exactly the mounted routes', async () => {
-    const mounted = mountedRoutes(t.app.locals['apiRouter'] as Router).map((r) => `${r.method} ${r.path}`).sort();
+    const mounted = mountedRoutes(t.app.locals['apiRouter'] as Router)
+      .map((r) => `${r.method} ${r.path}`)
+      .sort();
     const documented = ROUTE_DOCS.map((r) => `${r.method} ${r.path}`).sort();
     expect(documented).toEqual(mounted);
     const spec = (await request(t.app).get('/api/docs/openapi.json')).body;
     const inSpec = Object.entries(spec.paths as Record<string, Record<string, unknown>>)
-      .flatMap(([p, ops]) => Object.keys(ops).map((m) => `${m} ${p.replace(/^\/api/, '').replace(/\{(\w+)\}/g, ':$1')}`))
+      .flatMap(([p, ops]) =>
+        Object.keys(ops).map((m) => `${m} ${p.replace(/^\/api/, '').replace(/\{(\w+)\}/g, ':$1')}`),
+      )
       .sort();
     expect(inSpec).toEqual(mounted);
   });
@@ -80,7 +92,11 @@ describe('system', () => {
 describe('POST /api/calc', () => {
   const cli = resolve(__dirname, '../../apps/cli/bin/gapwise.js');
   const runCli = (input: string, batch = false) =>
-    spawnSync(process.execPath, [cli, 'calc', ...(batch ? ['--batch'] : [])], { input, encoding: 'utf8', timeout: 60_000 });
+    spawnSync(process.execPath, [cli, 'calc', ...(batch ? ['--batch'] : [])], {
+      input,
+      encoding: 'utf8',
+      timeout: 60_000,
+    });
 
   it('needs a signed-in user or an API token', async () => {
     await request(t.app).post('/api/calc').send({ method: 'rate.marcus', inputs: {} }).expect(401);
@@ -90,18 +106,36 @@ describe('POST /api/calc', () => {
     const s = await registerUser(t.app, 'calc');
     const token = (await s.post('/api/tokens', { name: 'calc' }).expect(201)).body.token as string;
     const requests = [
-      { method: 'rate.marcus', inputs: { deltaG0: -0.35, lambda: { value: 8.5, unit: 'kcal/mol' }, coupling: { value: 50, unit: 'cm-1' }, temperature: 298.15 } },
-      { method: 'rate.marcus', inputs: { deltaG0: -0.35, lambda: -1, coupling: 0.01, temperature: 298.15 } },
+      {
+        method: 'rate.marcus',
+        inputs: {
+          deltaG0: -0.35,
+          lambda: { value: 8.5, unit: 'kcal/mol' },
+          coupling: { value: 50, unit: 'cm-1' },
+          temperature: 298.15,
+        },
+      },
+      {
+        method: 'rate.marcus',
+        inputs: { deltaG0: -0.35, lambda: -1, coupling: 0.01, temperature: 298.15 },
+      },
       { method: 'no.such.method', inputs: {} },
     ];
     // One `gapwise calc` run for the single request (exit code too), one --batch run for all.
     const single = runCli(JSON.stringify(requests[0]));
     expect(single.status).toBe(0);
-    const lines = runCli(requests.map((r) => JSON.stringify(r)).join('\n') + '\n', true).stdout.split('\n');
+    const lines = runCli(
+      requests.map((r) => JSON.stringify(r)).join('\n') + '\n',
+      true,
+    ).stdout.split('\n');
     expect(lines[0] + '\n').toBe(single.stdout);
     for (const [i, body] of requests.entries()) {
       const text = JSON.stringify(body);
-      const api = await request(t.app).post('/api/calc').set('Authorization', `Bearer ${token}`).set('Content-Type', 'application/json').send(text);
+      const api = await request(t.app)
+        .post('/api/calc')
+        .set('Authorization', `Bearer ${token}`)
+        .set('Content-Type', 'application/json')
+        .send(text);
       expect(api.status).toBe(JSON.parse(lines[i]!).ok ? 200 : 400);
       expect(api.text).toBe(lines[i]);
     }

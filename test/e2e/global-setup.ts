@@ -121,11 +121,21 @@ export default async function setup(project: TestProject) {
       await dataSource.runMigrations({ transaction: 'each' });
       await seedDemo(dataSource);
       await seedDemoReport(dataSource, { labName: DEMO_LAB, editorEmail: 'editor@gapwise.test' });
-      await seedDemoScreensAndSeries(dataSource, { mediatorsName: DEMO_MEDIATORS, labName: DEMO_LAB, ownerEmail: 'owner@gapwise.test', editorEmail: 'editor@gapwise.test' });
+      await seedDemoScreensAndSeries(dataSource, {
+        mediatorsName: DEMO_MEDIATORS,
+        labName: DEMO_LAB,
+        ownerEmail: 'owner@gapwise.test',
+        editorEmail: 'editor@gapwise.test',
+      });
       // The demo traces go into this run's S3 store (started above), as npm start's seed does.
-      const traceStore = new TraceObjectStore(traceStoreConfigFromEnv({ S3_ENDPOINT: store.endpoint, S3_BUCKET: store.bucket }));
+      const traceStore = new TraceObjectStore(
+        traceStoreConfigFromEnv({ S3_ENDPOINT: store.endpoint, S3_BUCKET: store.bucket }),
+      );
       try {
-        await seedDemoTraces(dataSource, traceStore, { labName: DEMO_LAB, editorEmail: 'editor@gapwise.test' });
+        await seedDemoTraces(dataSource, traceStore, {
+          labName: DEMO_LAB,
+          editorEmail: 'editor@gapwise.test',
+        });
       } finally {
         traceStore.destroy();
       }

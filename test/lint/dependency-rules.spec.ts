@@ -11,27 +11,77 @@ async function ruleHits(code: string, filePath: string): Promise<string[]> {
 
 describe('dependency rules', { timeout: 120_000 }, () => {
   it('refuse a framework import in libs/calc', async () => {
-    expect(await ruleHits("import { Component } from '@angular/core';\nexport const x = Component;\n", 'libs/calc/src/rates/bad.ts')).toHaveLength(1);
-    expect(await ruleHits("import express from 'express';\nexport const x = express;\n", 'libs/calc/src/rates/bad.ts')).toHaveLength(1);
+    expect(
+      await ruleHits(
+        "import { Component } from '@angular/core';\nexport const x = Component;\n",
+        'libs/calc/src/rates/bad.ts',
+      ),
+    ).toHaveLength(1);
+    expect(
+      await ruleHits(
+        "import express from 'express';\nexport const x = express;\n",
+        'libs/calc/src/rates/bad.ts',
+      ),
+    ).toHaveLength(1);
   });
 
   it('refuse a Node built-in and the database in libs/calc', async () => {
-    expect(await ruleHits("import { readFileSync } from 'node:fs';\nexport const x = readFileSync;\n", 'libs/calc/src/bad.ts')).toHaveLength(1);
-    expect(await ruleHits("import { x } from '@gapwise/db';\nexport const y = x;\n", 'libs/calc/src/bad.ts')).toHaveLength(1);
+    expect(
+      await ruleHits(
+        "import { readFileSync } from 'node:fs';\nexport const x = readFileSync;\n",
+        'libs/calc/src/bad.ts',
+      ),
+    ).toHaveLength(1);
+    expect(
+      await ruleHits(
+        "import { x } from '@gapwise/db';\nexport const y = x;\n",
+        'libs/calc/src/bad.ts',
+      ),
+    ).toHaveLength(1);
   });
 
   it('refuse libraries importing apps and deep library imports', async () => {
-    expect(await ruleHits("import { x } from '../../../apps/api/src/app';\nexport const y = x;\n", 'libs/contracts/src/bad.ts')).toHaveLength(1);
-    expect(await ruleHits("import { x } from '@gapwise/calc/src/core/units';\nexport const y = x;\n", 'apps/api/src/bad.ts')).toHaveLength(1);
+    expect(
+      await ruleHits(
+        "import { x } from '../../../apps/api/src/app';\nexport const y = x;\n",
+        'libs/contracts/src/bad.ts',
+      ),
+    ).toHaveLength(1);
+    expect(
+      await ruleHits(
+        "import { x } from '@gapwise/calc/src/core/units';\nexport const y = x;\n",
+        'apps/api/src/bad.ts',
+      ),
+    ).toHaveLength(1);
   });
 
   it('refuse the web app importing the API and the API importing the web app', async () => {
-    expect(await ruleHits("import { x } from '../../../api/src/app';\nexport const y = x;\n", 'apps/web/src/app/bad.ts')).toHaveLength(1);
-    expect(await ruleHits("import { x } from '../../web/src/main';\nexport const y = x;\n", 'apps/api/src/bad.ts')).toHaveLength(1);
+    expect(
+      await ruleHits(
+        "import { x } from '../../../api/src/app';\nexport const y = x;\n",
+        'apps/web/src/app/bad.ts',
+      ),
+    ).toHaveLength(1);
+    expect(
+      await ruleHits(
+        "import { x } from '../../web/src/main';\nexport const y = x;\n",
+        'apps/api/src/bad.ts',
+      ),
+    ).toHaveLength(1);
   });
 
   it('allow what the rules allow', async () => {
-    expect(await ruleHits("import { calculate } from '@gapwise/calc';\nexport const y = calculate;\n", 'apps/api/src/ok.ts')).toEqual([]);
-    expect(await ruleHits("import { x } from '../core/units';\nexport const y = x;\n", 'libs/calc/src/rates/ok.ts')).toEqual([]);
+    expect(
+      await ruleHits(
+        "import { calculate } from '@gapwise/calc';\nexport const y = calculate;\n",
+        'apps/api/src/ok.ts',
+      ),
+    ).toEqual([]);
+    expect(
+      await ruleHits(
+        "import { x } from '../core/units';\nexport const y = x;\n",
+        'libs/calc/src/rates/ok.ts',
+      ),
+    ).toEqual([]);
   });
 });

@@ -21,9 +21,16 @@ const database = await createTestDatabase();
 const db = createDataSource({ url: database.url });
 await db.initialize();
 await db.runMigrations({ transaction: 'each' });
-const user = (await db.query(`INSERT INTO users (email, display_name, password_hash) VALUES ('bench@example.test', 'Bench', 'x') RETURNING id`))[0].id;
+const user = (
+  await db.query(
+    `INSERT INTO users (email, display_name, password_hash) VALUES ('bench@example.test', 'Bench', 'x') RETURNING id`,
+  )
+)[0].id;
 const ws = (await db.query(`INSERT INTO workspaces (name) VALUES ('bench') RETURNING id`))[0].id;
-await db.query(`INSERT INTO memberships (workspace_id, user_id, role) VALUES ($1, $2, 'owner')`, [ws, user]);
+await db.query(`INSERT INTO memberships (workspace_id, user_id, role) VALUES ($1, $2, 'owner')`, [
+  ws,
+  user,
+]);
 const service = await startScreenService(db, { connectionString: database.url, runWorker: false });
 
 function peakKb(pid: number): number {
@@ -69,18 +76,31 @@ async function run(workerCount: number, seed: number) {
   });
   const uploadedMs = performance.now() - started;
   for (;;) {
-    for (const w of workers) workerPeaks.set(w.pid!, Math.max(workerPeaks.get(w.pid!) ?? 0, peakKb(w.pid!)));
-    const s = (await db.query('SELECT status, rows_done FROM screens WHERE id = $1', [screen.id]))[0];
+    for (const w of workers)
+      workerPeaks.set(w.pid!, Math.max(workerPeaks.get(w.pid!) ?? 0, peakKb(w.pid!)));
+    const s = (
+      await db.query('SELECT status, rows_done FROM screens WHERE id = $1', [screen.id])
+    )[0];
     if (s.status === 'done') break;
     await new Promise((r) => setTimeout(r, 100));
   }
   const wallMs = performance.now() - started;
   clearInterval(sampler);
-  const count = (await db.query('SELECT count(*)::int AS n FROM screen_results WHERE screen_id = $1', [screen.id]))[0].n;
-  await Promise.all(
-    workers.map((w) => new Promise((r) => (w.once('exit', r), w.kill('SIGTERM')))),
-  );
-  return { workerCount, wallMs, uploadedMs, count, rowsPerSecond: rows / (wallMs / 1000), peakRssMb: peakRss / 2 ** 20, workerPeakMb: [...workerPeaks.values()].map((kb) => kb / 1024) };
+  const count = (
+    await db.query('SELECT count(*)::int AS n FROM screen_results WHERE screen_id = $1', [
+      screen.id,
+    ])
+  )[0].n;
+  await Promise.all(workers.map((w) => new Promise((r) => (w.once('exit', r), w.kill('SIGTERM')))));
+  return {
+    workerCount,
+    wallMs,
+    uploadedMs,
+    count,
+    rowsPerSecond: rows / (wallMs / 1000),
+    peakRssMb: peakRss / 2 ** 20,
+    workerPeakMb: [...workerPeaks.values()].map((kb) => kb / 1024),
+  };
 }
 
 try {

@@ -93,7 +93,9 @@ export function createApp(deps: AppDeps): Express {
     // Method, path and status only: never bodies, cookies or headers (passwords, tokens).
     app.use((req, res, next) => {
       const started = Date.now();
-      res.on('finish', () => log(`${req.method} ${req.path} ${res.statusCode} ${Date.now() - started}ms`));
+      res.on('finish', () =>
+        log(`${req.method} ${req.path} ${res.statusCode} ${Date.now() - started}ms`),
+      );
       next();
     });
   }

@@ -87,10 +87,12 @@ export function loadConfig(env: Env = process.env, overrides: Partial<Config> = 
     .map((s) => s.trim())
     .filter(Boolean);
   for (const origin of corsOrigins) {
-    if (!/^https?:\/\/[^/]+$/.test(origin)) problems.push(`CORS_ORIGINS: "${origin}" is not an origin`);
+    if (!/^https?:\/\/[^/]+$/.test(origin))
+      problems.push(`CORS_ORIGINS: "${origin}" is not an origin`);
   }
   let jwtSecret = env['JWT_SECRET'] ?? '';
-  if (jwtSecret && jwtSecret.length < 32) problems.push('JWT_SECRET must be at least 32 characters');
+  if (jwtSecret && jwtSecret.length < 32)
+    problems.push('JWT_SECRET must be at least 32 characters');
   const config: Config = {
     port,
     host,

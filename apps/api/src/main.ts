@@ -16,13 +16,13 @@ try {
   process.exit(1);
 }
 
-const runtime = await startRuntime(config, { migrate: process.env['MIGRATE_ON_START'] !== 'false' }).catch(
-  (error: Error) => {
-    console.error(`cannot start: ${error.message}`);
-    console.error(`(is PostgreSQL running? DATABASE_URL host ${new URL(config.databaseUrl).host})`);
-    process.exit(1);
-  },
-);
+const runtime = await startRuntime(config, {
+  migrate: process.env['MIGRATE_ON_START'] !== 'false',
+}).catch((error: Error) => {
+  console.error(`cannot start: ${error.message}`);
+  console.error(`(is PostgreSQL running? DATABASE_URL host ${new URL(config.databaseUrl).host})`);
+  process.exit(1);
+});
 const app = createApp(runtime);
 const server: Server = app.listen(config.port, config.host, () => {
   const address = server.address();

@@ -23,7 +23,11 @@ export interface Runtime extends AppDeps {
  */
 export async function startRuntime(
   config: Config,
-  options: { migrate?: boolean; log?: (message: string) => void; mailRetryDelaySeconds?: number } = {},
+  options: {
+    migrate?: boolean;
+    log?: (message: string) => void;
+    mailRetryDelaySeconds?: number;
+  } = {},
 ): Promise<Runtime> {
   const log = options.log ?? ((m: string) => console.error(m));
   const dataSource = createDataSource({ url: config.databaseUrl });
@@ -43,10 +47,16 @@ export async function startRuntime(
     if (resent) log(`re-queued ${resent} unsent e-mail(s)`);
     // Screens: pg-boss queue `screen-chunk`, with one worker in this process unless
     // GAPWISE_SCREEN_WORKER=false (apps/api/src/screens/README.md).
-    const screens = await startScreenService(dataSource, { ...screenServiceOptionsFromEnv(process.env, config.databaseUrl), log });
+    const screens = await startScreenService(dataSource, {
+      ...screenServiceOptionsFromEnv(process.env, config.databaseUrl),
+      log,
+    });
     // Traces: object store (S3_*) and pg-boss queue `trace-analysis`, with one worker in this
     // process unless GAPWISE_TRACE_WORKER=false (apps/api/src/traces/README.md).
-    const traces = await startTraceServices(dataSource, { ...traceServicesOptionsFromEnv(process.env, config.databaseUrl), log });
+    const traces = await startTraceServices(dataSource, {
+      ...traceServicesOptionsFromEnv(process.env, config.databaseUrl),
+      log,
+    });
     const runtime: Runtime = {
       config,
       dataSource,

@@ -11,13 +11,15 @@ const url = process.env['DATABASE_URL'] || DEFAULT_DATABASE_URL;
 const log = (m: string) => console.error(m);
 const dataSource = createDataSource({ url, poolSize: 4 });
 await dataSource.initialize();
-const service = await startScreenService(dataSource, { ...screenServiceOptionsFromEnv(process.env, url, true), runWorker: true, log }).catch(
-  async (error: Error) => {
-    console.error(`cannot start the screen worker: ${error.message}`);
-    await dataSource.destroy();
-    process.exit(1);
-  },
-);
+const service = await startScreenService(dataSource, {
+  ...screenServiceOptionsFromEnv(process.env, url, true),
+  runWorker: true,
+  log,
+}).catch(async (error: Error) => {
+  console.error(`cannot start the screen worker: ${error.message}`);
+  await dataSource.destroy();
+  process.exit(1);
+});
 console.log(`screen worker ${service.worker!.id} started (database ${new URL(url).host})`);
 
 let stopping = false;

@@ -48,7 +48,24 @@ export function demoScreenCsv(rows = DEMO_SCREEN_ROWS, seed = 20261): string {
     const beta = direct ? '' : (0.9 + 0.4 * rand()).toFixed(2);
     const mode = i % 3 === 0 ? (0.15 + 0.05 * rand()).toFixed(3) : '';
     lines.push(
-      [donor, acceptor, eox, ered, e00, r, ra.toFixed(2), rb.toFixed(2), solvent, li, h, h0, r0, beta, mode, '298.15'].join(','),
+      [
+        donor,
+        acceptor,
+        eox,
+        ered,
+        e00,
+        r,
+        ra.toFixed(2),
+        rb.toFixed(2),
+        solvent,
+        li,
+        h,
+        h0,
+        r0,
+        beta,
+        mode,
+        '298.15',
+      ].join(','),
     );
   }
   return `${lines.join('\n')}\n`;

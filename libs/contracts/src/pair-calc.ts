@@ -53,7 +53,13 @@ export function pairRateRequest(source: PairRateSource): CalcRequest | { missing
 /** Computes a pair's results with the shared dispatcher. Never throws. */
 export function computePairResults(source: PairRateSource): PairResults {
   const request = pairRateRequest(source);
-  const empty = { model: source.model, k: null, log10k: null, activationFreeEnergy: null, regime: null };
+  const empty = {
+    model: source.model,
+    k: null,
+    log10k: null,
+    activationFreeEnergy: null,
+    regime: null,
+  };
   if ('missing' in request) {
     return {
       ...empty,
@@ -69,14 +75,18 @@ export function computePairResults(source: PairRateSource): PairResults {
   const lambda = (valueOf(source, 'lambdaInner') ?? 0) + (valueOf(source, 'lambdaOuter') ?? 0);
   // Classical activation free energy (ΔG° + λ)²/(4λ) (Marcus 1956) for models that do not report it.
   const activation =
-    num(out['activationFreeEnergy']) ?? (lambda > 0 ? (deltaG0 + lambda) ** 2 / (4 * lambda) : null);
-  const log10k = num(out['log10k']) ?? (num(out['k']) && (out['k'] as number) > 0 ? Math.log10(out['k'] as number) : null);
+    num(out['activationFreeEnergy']) ??
+    (lambda > 0 ? (deltaG0 + lambda) ** 2 / (4 * lambda) : null);
+  const log10k =
+    num(out['log10k']) ??
+    (num(out['k']) && (out['k'] as number) > 0 ? Math.log10(out['k'] as number) : null);
   return {
     model: source.model,
     k: num(out['k']),
     log10k,
     activationFreeEnergy: activation,
-    regime: typeof out['regime'] === 'string' ? (out['regime'] as string) : regimeOf(deltaG0, lambda),
+    regime:
+      typeof out['regime'] === 'string' ? (out['regime'] as string) : regimeOf(deltaG0, lambda),
     warnings: answer.warnings,
     errors: [],
   };

@@ -26,7 +26,13 @@ export const PARAMETER_KINDS = {
 
 export type ParameterKind = keyof typeof PARAMETER_KINDS;
 
-export const PROVENANCE_KINDS = ['measured', 'computed', 'literature', 'derived', 'assumed'] as const;
+export const PROVENANCE_KINDS = [
+  'measured',
+  'computed',
+  'literature',
+  'derived',
+  'assumed',
+] as const;
 export type ProvenanceKind = (typeof PROVENANCE_KINDS)[number];
 
 export interface Provenance {

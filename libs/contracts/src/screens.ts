@@ -128,7 +128,12 @@ export interface SeriesModelFit {
   readonly residuals: number[];
   readonly aic: number;
   readonly bic: number;
-  readonly band: { readonly deltaG0: number[]; readonly log10k: number[]; readonly lower: number[]; readonly upper: number[] };
+  readonly band: {
+    readonly deltaG0: number[];
+    readonly log10k: number[];
+    readonly lower: number[];
+    readonly upper: number[];
+  };
   readonly warnings: ReadonlyArray<{ readonly code: string; readonly message: string }>;
 }
 

@@ -25,17 +25,41 @@ export interface MatrixRow {
   /** The Express path as mounted (`/pairs/:id`), without /api. */
   readonly route: string;
   /** The concrete request for this case. */
-  request(ctx: CaseContext): Promise<{ path: string; body?: unknown }> | { path: string; body?: unknown };
+  request(
+    ctx: CaseContext,
+  ): Promise<{ path: string; body?: unknown }> | { path: string; body?: unknown };
   /** Exact status for each caller. */
   readonly expect: Record<Caller, number>;
 }
 
 /** Status shorthands. */
 export const everyone = (status: number): Record<Caller, number> => ({
-  owner: status, editor: status, reviewer: status, viewer: status, outsider: status, anonymous: status,
+  owner: status,
+  editor: status,
+  reviewer: status,
+  viewer: status,
+  outsider: status,
+  anonymous: status,
 });
-export const signedIn = (status: number): Record<Caller, number> => ({ ...everyone(status), anonymous: 401 });
-export const members = (status: number): Record<Caller, number> => ({ ...signedIn(status), outsider: 404 });
-export const editors = (status: number): Record<Caller, number> => ({ ...members(status), reviewer: 403, viewer: 403 });
-export const owners = (status: number): Record<Caller, number> => ({ ...editors(status), editor: 403 });
-export const auditors = (status: number): Record<Caller, number> => ({ ...members(status), editor: 403, viewer: 403 });
+export const signedIn = (status: number): Record<Caller, number> => ({
+  ...everyone(status),
+  anonymous: 401,
+});
+export const members = (status: number): Record<Caller, number> => ({
+  ...signedIn(status),
+  outsider: 404,
+});
+export const editors = (status: number): Record<Caller, number> => ({
+  ...members(status),
+  reviewer: 403,
+  viewer: 403,
+});
+export const owners = (status: number): Record<Caller, number> => ({
+  ...editors(status),
+  editor: 403,
+});
+export const auditors = (status: number): Record<Caller, number> => ({
+  ...members(status),
+  editor: 403,
+  viewer: 403,
+});

@@ -17,7 +17,9 @@ export function screenCsv(rows: number, seed = 1): string {
     const r = (7.2 + 4 * rand()).toFixed(2);
     const h = (10 + 150 * rand()).toFixed(1);
     const mode = i % 3 === 0 ? '0.18' : '';
-    lines.push(`Med-${i + 1},Med-${i + 2},${eox},${ered},2.45,${r},3.5,3.6,acetonitrile,0.15,${h},${mode},298.15`);
+    lines.push(
+      `Med-${i + 1},Med-${i + 2},${eox},${ered},2.45,${r},3.5,3.6,acetonitrile,0.15,${h},${mode},298.15`,
+    );
   }
   return `${lines.join('\n')}\n`;
 }

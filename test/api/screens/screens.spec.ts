@@ -25,12 +25,18 @@ let survivor: ChildProcess;
 /** Spawns `apps/api/src/worker.ts` and resolves once it reports that it started. */
 async function startWorker(extraEnv: Record<string, string> = {}): Promise<ChildProcess> {
   const child = spawn(process.execPath, ['--import', 'tsx', 'apps/api/src/worker.ts'], {
-    env: { ...process.env, DATABASE_URL: t.config.databaseUrl, GAPWISE_SCREEN_MAINTENANCE_SECONDS: '1', ...extraEnv },
+    env: {
+      ...process.env,
+      DATABASE_URL: t.config.databaseUrl,
+      GAPWISE_SCREEN_MAINTENANCE_SECONDS: '1',
+      ...extraEnv,
+    },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   child.stderr!.on('data', (d: Buffer) => {
     const text = d.toString();
-    if (!text.includes('unexpected operator')) process.stderr.write(`[worker ${child.pid}] ${text}`);
+    if (!text.includes('unexpected operator'))
+      process.stderr.write(`[worker ${child.pid}] ${text}`);
   });
   workers.push(child);
   await new Promise<void>((resolve, reject) => {
@@ -51,19 +57,28 @@ async function stopWorker(child: ChildProcess): Promise<void> {
   await exited;
 }
 
-async function waitFor<T>(read: () => Promise<T>, done: (v: T) => boolean, timeoutMs = 45_000): Promise<T> {
+async function waitFor<T>(
+  read: () => Promise<T>,
+  done: (v: T) => boolean,
+  timeoutMs = 45_000,
+): Promise<T> {
   const end = Date.now() + timeoutMs;
   for (;;) {
     const v = await read();
     if (done(v)) return v;
-    if (Date.now() > end) throw new Error(`timed out; last value ${JSON.stringify(v).slice(0, 400)}`);
+    if (Date.now() > end)
+      throw new Error(`timed out; last value ${JSON.stringify(v).slice(0, 400)}`);
     await new Promise((r) => setTimeout(r, 200));
   }
 }
 
 const screenOf = async (id: string) => (await owner.get(`/api/screens/${id}`)).body;
 const resultCount = async (id: string) =>
-  Number((await t.db.query('SELECT count(*)::int AS n FROM screen_results WHERE screen_id = $1', [id]))[0].n);
+  Number(
+    (
+      await t.db.query('SELECT count(*)::int AS n FROM screen_results WHERE screen_id = $1', [id])
+    )[0].n,
+  );
 
 async function upload(csv: string, query: string) {
   return owner
@@ -107,8 +122,13 @@ describe('screens API', () => {
     const bad = await upload(csv, 'name=bad');
     expect(bad.status).toBe(400);
     expect(bad.body.error.code).toBe('screen-bad-rows');
-    expect(bad.body.error.fields.map((f: { field: string }) => f.field)).toEqual(['line 3', 'line 5']);
-    expect(bad.body.error.fields[1].message).toMatch(/^Line 5: 'temperature': 'abc' is not a number/);
+    expect(bad.body.error.fields.map((f: { field: string }) => f.field)).toEqual([
+      'line 3',
+      'line 5',
+    ]);
+    expect(bad.body.error.fields[1].message).toMatch(
+      /^Line 5: 'temperature': 'abc' is not a number/,
+    );
     const list = await owner.get(`/api/workspaces/${wid}/screens`);
     expect(list.body).toHaveLength(0);
 
@@ -127,7 +147,10 @@ describe('screens API', () => {
     expect(res.status).toBe(201);
     expect(res.body.rowCount).toBe(10_000);
     expect(res.body.progress.chunkCount).toBe(40);
-    const done = await waitFor(() => screenOf(res.body.id), (s) => s.status === 'done');
+    const done = await waitFor(
+      () => screenOf(res.body.id),
+      (s) => s.status === 'done',
+    );
     expect(done.progress.rowsDone).toBe(10_000);
     expect(done.progress.rowsPerSecond).toBeGreaterThan(0);
     expect(await resultCount(res.body.id)).toBe(10_000);
@@ -142,7 +165,10 @@ describe('screens API', () => {
   it('still ends with exactly 10,000 rows when a worker is killed mid-chunk', async () => {
     const res = await upload(screenCsv(10_000, 8), 'name=kill-test&chunkSize=250');
     expect(res.status).toBe(201);
-    await waitFor(() => screenOf(res.body.id), (s) => s.progress.chunksDone >= 6);
+    await waitFor(
+      () => screenOf(res.body.id),
+      (s) => s.progress.chunksDone >= 6,
+    );
     // Kill the victim while it holds an unfinished chunk (worker ids carry the process id).
     const heldByVictim = async () =>
       (
@@ -154,8 +180,14 @@ describe('screens API', () => {
       )[0].n as number;
     const held = await waitFor(heldByVictim, (n) => n > 0, 20_000).catch(() => 0);
     victim.kill('SIGKILL');
-    await new Promise((r) => (victim.exitCode !== null || victim.signalCode !== null ? r(null) : victim.once('exit', r)));
-    const done = await waitFor(() => screenOf(res.body.id), (s) => s.status === 'done', 60_000);
+    await new Promise((r) =>
+      victim.exitCode !== null || victim.signalCode !== null ? r(null) : victim.once('exit', r),
+    );
+    const done = await waitFor(
+      () => screenOf(res.body.id),
+      (s) => s.status === 'done',
+      60_000,
+    );
     expect(done.progress.rowsDone).toBe(10_000);
     expect(await resultCount(res.body.id)).toBe(10_000);
     const distinctRows = await t.db.query(
@@ -174,7 +206,10 @@ describe('screens API', () => {
   it('cancellation stops work and keeps the finished chunks', async () => {
     // Only the survivor is left: one chunk at a time, 100 ms each at least.
     const res = await upload(screenCsv(4_000, 9), 'name=cancel-me&chunkSize=200');
-    await waitFor(() => screenOf(res.body.id), (s) => s.progress.chunksDone >= 2);
+    await waitFor(
+      () => screenOf(res.body.id),
+      (s) => s.progress.chunksDone >= 2,
+    );
     const cancelled = await owner.post(`/api/screens/${res.body.id}/cancel`);
     expect(cancelled.status).toBe(200);
     expect(cancelled.body.status).toBe('cancelled');
@@ -219,7 +254,9 @@ describe('screens API', () => {
     );
     expect(page.body.total).toBe(sql[0].n);
 
-    const csv = await owner.get(`/api/screens/${doneId}/results.csv?deltaGCsMax=-0.3&regimeCr=inverted&sort=rowNumber`);
+    const csv = await owner.get(
+      `/api/screens/${doneId}/results.csv?deltaGCsMax=-0.3&regimeCr=inverted&sort=rowNumber`,
+    );
     expect(csv.status).toBe(200);
     const lines = csv.text.trim().split('\n');
     expect(lines).toHaveLength(sql[0].n + 1);
@@ -237,19 +274,26 @@ describe('screens API', () => {
     expect(dg.provenance.kind).toBe('derived');
     expect(dg.provenance.methodId).toBe('drivingForce.rehmWeller');
     expect(dg.provenance.sources).toEqual([{ type: 'screen', id: doneId }]);
-    const row = (await owner.get(`/api/screens/${doneId}/results?rowNumberMin=2&rowNumberMax=2`)).body.items[0];
+    const row = (await owner.get(`/api/screens/${doneId}/results?rowNumberMin=2&rowNumberMax=2`))
+      .body.items[0];
     expect(dg.value).toBeCloseTo(row.deltaGCs, 12);
   });
 
   it('lets viewers read but not write, and hides screens from non-members', async () => {
     const viewer = await registerUser(t.app, 'viewer');
     const stranger = await registerUser(t.app, 'stranger');
-    await t.db.query(`INSERT INTO memberships (workspace_id, user_id, role) VALUES ($1, $2, 'viewer')`, [wid, viewer.userId]);
+    await t.db.query(
+      `INSERT INTO memberships (workspace_id, user_id, role) VALUES ($1, $2, 'viewer')`,
+      [wid, viewer.userId],
+    );
     expect((await viewer.get(`/api/screens/${doneId}`)).status).toBe(200);
     expect((await viewer.get(`/api/screens/${doneId}/results`)).status).toBe(200);
     expect((await viewer.post(`/api/screens/${doneId}/cancel`)).status).toBe(403);
     expect((await viewer.post(`/api/screens/${doneId}/results/2/open-as-pair`)).status).toBe(403);
-    expect((await viewer.call('post', `/api/workspaces/${wid}/screens`).send({ csv: screenCsv(2) })).status).toBe(403);
+    expect(
+      (await viewer.call('post', `/api/workspaces/${wid}/screens`).send({ csv: screenCsv(2) }))
+        .status,
+    ).toBe(403);
     expect((await stranger.get(`/api/screens/${doneId}`)).status).toBe(404);
     expect((await stranger.get(`/api/screens/${doneId}/results.csv`)).status).toBe(404);
   });

@@ -1,7 +1,11 @@
 import type { Express } from 'express';
 import request from 'supertest';
 import type { DataSource } from 'typeorm';
-import { startMailCapture, type CapturedMessage, type MailCapture } from '../../../docker-free-scripts/mail/mail-capture-server';
+import {
+  startMailCapture,
+  type CapturedMessage,
+  type MailCapture,
+} from '../../../docker-free-scripts/mail/mail-capture-server';
 import { createApp } from '../../../apps/api/src/app';
 import { loadConfig, type Config } from '../../../apps/api/src/config';
 import { startRuntime, type Runtime } from '../../../apps/api/src/runtime';
@@ -24,7 +28,10 @@ const running = new WeakMap<Express, TestApp>();
  * A fresh database (migrated), a real SMTP capture on a free port, the pg-boss mail queue and the
  * Express app, configured for tests (bcrypt cost 4, no sign-in throttling unless asked).
  */
-export async function startTestApp(overrides: Partial<Config> = {}, env: Record<string, string> = {}): Promise<TestApp> {
+export async function startTestApp(
+  overrides: Partial<Config> = {},
+  env: Record<string, string> = {},
+): Promise<TestApp> {
   const database = await createTestDatabase();
   const mail = await startMailCapture({ smtpPort: 0 });
   let runtime: Runtime | null = null;
@@ -43,7 +50,11 @@ export async function startTestApp(overrides: Partial<Config> = {}, env: Record<
       },
       overrides,
     );
-    runtime = await startRuntime(config, { migrate: true, log: () => undefined, mailRetryDelaySeconds: 1 });
+    runtime = await startRuntime(config, {
+      migrate: true,
+      log: () => undefined,
+      mailRetryDelaySeconds: 1,
+    });
     const app = createApp(runtime);
     const rt = runtime;
     const testApp: TestApp = {
@@ -109,9 +120,14 @@ export function sessionFrom(app: Express, res: request.Response): Session {
 }
 
 /** The token of the newest confirmation link e-mailed to `email` (waits for the real SMTP capture). */
-export async function confirmationToken(mail: MailCapture, email: string, timeoutMs = 30_000): Promise<string> {
+export async function confirmationToken(
+  mail: MailCapture,
+  email: string,
+  timeoutMs = 30_000,
+): Promise<string> {
   const address = email.toLowerCase();
-  const isConfirmation = (m: CapturedMessage) => m.to.includes(address) && CONFIRM_LINK.test(m.text);
+  const isConfirmation = (m: CapturedMessage) =>
+    m.to.includes(address) && CONFIRM_LINK.test(m.text);
   await mail.waitFor(isConfirmation, timeoutMs);
   const newest = mail.messages().filter(isConfirmation).at(-1)!;
   return CONFIRM_LINK.exec(newest.text)![1]!;
@@ -132,15 +148,18 @@ export async function registerUser(app: Express, name = 'user'): Promise<Session
   const res = await request(app)
     .post('/api/auth/register')
     .send({ email, password: 'correct horse battery', displayName: `${name} ${counter}` });
-  if (res.status !== 202) throw new Error(`register failed: ${res.status} ${JSON.stringify(res.body)}`);
+  if (res.status !== 202)
+    throw new Error(`register failed: ${res.status} ${JSON.stringify(res.body)}`);
   const token = await confirmationToken(t.mail, email);
   const confirmed = await request(app).post('/api/auth/confirm').send({ token });
-  if (confirmed.status !== 200) throw new Error(`confirm failed: ${confirmed.status} ${JSON.stringify(confirmed.body)}`);
+  if (confirmed.status !== 200)
+    throw new Error(`confirm failed: ${confirmed.status} ${JSON.stringify(confirmed.body)}`);
   return sessionFrom(app, confirmed);
 }
 
 export async function signIn(app: Express, email: string, password: string): Promise<Session> {
   const res = await request(app).post('/api/auth/sign-in').send({ email, password });
-  if (res.status !== 200) throw new Error(`sign-in failed: ${res.status} ${JSON.stringify(res.body)}`);
+  if (res.status !== 200)
+    throw new Error(`sign-in failed: ${res.status} ${JSON.stringify(res.body)}`);
   return sessionFrom(app, res);
 }

@@ -49,7 +49,10 @@ export async function listAudit(
   if (q.entityType) where.push(`a.entity_type = $${params.push(q.entityType)}`);
   if (q.entityId) where.push(`a.entity_id = $${params.push(q.entityId)}`);
   const sqlWhere = where.join(' AND ');
-  const [{ total }] = await db.query(`SELECT count(*)::int AS total FROM audit_events a WHERE ${sqlWhere}`, params);
+  const [{ total }] = await db.query(
+    `SELECT count(*)::int AS total FROM audit_events a WHERE ${sqlWhere}`,
+    params,
+  );
   const rows: Array<Record<string, unknown>> = await db.query(
     `SELECT a.id, a.at, a.action, a.entity_type, a.entity_id, a.summary, a.before, a.after,
             u.display_name AS actor

@@ -11,7 +11,9 @@ export class RegisterDto {
   email: string;
 
   @IsString()
-  @MinLength(PASSWORD_MIN_LENGTH, { message: `must have at least ${PASSWORD_MIN_LENGTH} characters` })
+  @MinLength(PASSWORD_MIN_LENGTH, {
+    message: `must have at least ${PASSWORD_MIN_LENGTH} characters`,
+  })
   @MaxLength(200)
   password: string;
 

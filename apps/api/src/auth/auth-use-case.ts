@@ -18,14 +18,24 @@ import type { RegisterDto, SignInDto } from './auth-dto';
 export function passwordProblems(password: string, email: string): string[] {
   const problems: string[] = [];
   if (new Set(password).size < 4) problems.push('must use at least 4 different characters');
-  if (password.trim().toLowerCase() === email.trim().toLowerCase()) problems.push('must not be your e-mail address');
+  if (password.trim().toLowerCase() === email.trim().toLowerCase())
+    problems.push('must not be your e-mail address');
   return problems;
 }
 
-export async function sessionInfo(db: DataSource, config: Config, userId: string, sid: string): Promise<SessionInfo> {
+export async function sessionInfo(
+  db: DataSource,
+  config: Config,
+  userId: string,
+  sid: string,
+): Promise<SessionInfo> {
   const user = await findUserById(db.manager, userId);
   if (!user) throw unauthenticated();
-  return { user, memberships: await membershipsOf(db.manager, userId), csrfToken: csrfTokenFor(config, sid) };
+  return {
+    user,
+    memberships: await membershipsOf(db.manager, userId),
+    csrfToken: csrfTokenFor(config, sid),
+  };
 }
 
 /** How long an e-mailed confirmation link works. */
@@ -85,7 +95,8 @@ export async function register(
   input: RegisterDto,
 ): Promise<RegistrationAnswer> {
   const problems = passwordProblems(input.password, input.email);
-  if (problems.length) throw validationFailed(problems.map((message) => ({ field: 'password', message })));
+  if (problems.length)
+    throw validationFailed(problems.map((message) => ({ field: 'password', message })));
   const email = input.email.trim().toLowerCase();
   const displayName = input.displayName.trim() || email;
   const passwordHash = await bcrypt.hash(input.password, config.bcryptCost);
@@ -95,7 +106,12 @@ export async function register(
     let outboxId: string;
     if (existing) {
       const mail = alreadyRegisteredMail(config, input.returnUrl);
-      outboxId = await insertOutbox(tx, 'registration-existing', { to: email, subject: mail.subject, text: mail.text }, existing.id);
+      outboxId = await insertOutbox(
+        tx,
+        'registration-existing',
+        { to: email, subject: mail.subject, text: mail.text },
+        existing.id,
+      );
     } else {
       const token = randomToken();
       const pendingId = await upsertPendingRegistration(tx, {
@@ -106,14 +122,20 @@ export async function register(
         expiresAt: new Date(Date.now() + REGISTRATION_LINK_HOURS * 3600 * 1000),
       });
       const mail = confirmationMail(config, token, input.returnUrl);
-      outboxId = await insertOutbox(tx, 'registration-confirm', { to: email, subject: mail.subject, text: mail.text }, pendingId);
+      outboxId = await insertOutbox(
+        tx,
+        'registration-confirm',
+        { to: email, subject: mail.subject, text: mail.text },
+        pendingId,
+      );
     }
     if (queue) await queue.enqueue(tx, outboxId);
   });
   return REGISTRATION_ANSWER;
 }
 
-const tokenOk = (token: string) => token.length >= 20 && token.length <= 100 && /^[A-Za-z0-9_-]+$/.test(token);
+const tokenOk = (token: string) =>
+  token.length >= 20 && token.length <= 100 && /^[A-Za-z0-9_-]+$/.test(token);
 
 /**
  * Uses a confirmation token (once: the pending registration is removed whatever happens) and
@@ -124,7 +146,11 @@ export async function confirmRegistration(db: DataSource, token: string): Promis
   const user = await db.transaction(async (tx) => {
     const pending = tokenOk(token) ? await takePendingRegistration(tx, hashToken(token)) : null;
     if (!pending || pending.expiresAt.getTime() <= Date.now()) return null;
-    return insertUser(tx, { email: pending.email, displayName: pending.displayName, passwordHash: pending.passwordHash });
+    return insertUser(tx, {
+      email: pending.email,
+      displayName: pending.displayName,
+      passwordHash: pending.passwordHash,
+    });
   });
   if (!user) {
     throw new AppError(
@@ -139,7 +165,11 @@ export async function confirmRegistration(db: DataSource, token: string): Promis
 /** A hash to compare against when the e-mail is unknown, so timing does not reveal accounts. */
 let dummyHash: string | null = null;
 
-export async function signIn(db: DataSource, config: Config, input: SignInDto): Promise<UserSummary> {
+export async function signIn(
+  db: DataSource,
+  config: Config,
+  input: SignInDto,
+): Promise<UserSummary> {
   const user = await findUserByEmail(db.manager, input.email.trim());
   dummyHash ??= await bcrypt.hash('not-a-password-at-all', config.bcryptCost);
   const ok = await bcrypt.compare(input.password, user?.passwordHash ?? dummyHash);

@@ -22,7 +22,9 @@ export function registerAuthRoutes(router: Router, deps: AppDeps): void {
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     handler: (_req, _res, next) =>
-      next(new AppError(429, 'too-many-attempts', 'Too many attempts; try again in a few minutes.')),
+      next(
+        new AppError(429, 'too-many-attempts', 'Too many attempts; try again in a few minutes.'),
+      ),
   });
 
   /** Always 202 with the same body for valid input: whether the address has an account stays in its mailbox. */
@@ -69,6 +71,8 @@ export function registerAuthRoutes(router: Router, deps: AppDeps): void {
 
   router.get('/auth/me', requireAuth, async (req, res) => {
     // Bearer and API-token callers get a CSRF token too; they do not need it.
-    res.json(await sessionInfo(db, config, userIdOf(req), req.principal?.sid ?? `token:${userIdOf(req)}`));
+    res.json(
+      await sessionInfo(db, config, userIdOf(req), req.principal?.sid ?? `token:${userIdOf(req)}`),
+    );
   });
 }

@@ -29,7 +29,11 @@ export function signToken(config: Config, claims: SessionClaims): string {
 }
 
 /** Verifies a token of the given type; `null` when invalid, expired or of the other type. */
-export function verifyToken(config: Config, token: string, typ: SessionClaims['typ']): SessionClaims | null {
+export function verifyToken(
+  config: Config,
+  token: string,
+  typ: SessionClaims['typ'],
+): SessionClaims | null {
   try {
     const payload = jwt.verify(token, config.jwtSecret, { algorithms: ['HS256'], issuer: ISSUER });
     if (typeof payload !== 'object' || payload['typ'] !== typ) return null;
@@ -55,7 +59,12 @@ export function csrfMatches(config: Config, sid: string, given: unknown): boolea
 }
 
 /** Sets the access and refresh cookies (httpOnly, SameSite=Strict). */
-export function setSessionCookies(res: Response, config: Config, userId: string, sid: string): void {
+export function setSessionCookies(
+  res: Response,
+  config: Config,
+  userId: string,
+  sid: string,
+): void {
   const base = { httpOnly: true, sameSite: 'strict' as const, secure: config.cookieSecure };
   res.cookie(ACCESS_COOKIE, signToken(config, { sub: userId, sid, typ: 'access' }), {
     ...base,

@@ -7,7 +7,11 @@ export interface UserWithHash extends UserSummary {
   readonly passwordHash: string;
 }
 
-const toSummary = (u: UserEntity): UserSummary => ({ id: u.id, email: u.email, displayName: u.displayName });
+const toSummary = (u: UserEntity): UserSummary => ({
+  id: u.id,
+  email: u.email,
+  displayName: u.displayName,
+});
 
 export async function userExists(db: EntityManager, id: string): Promise<boolean> {
   if (!isUuid(id)) return false;
@@ -20,8 +24,13 @@ export async function findUserById(db: EntityManager, id: string): Promise<UserS
   return user ? toSummary(user) : null;
 }
 
-export async function findUserByEmail(db: EntityManager, email: string): Promise<UserWithHash | null> {
-  const user = await db.getRepository(UserEntity).findOne({ where: { email: email.toLowerCase() } });
+export async function findUserByEmail(
+  db: EntityManager,
+  email: string,
+): Promise<UserWithHash | null> {
+  const user = await db
+    .getRepository(UserEntity)
+    .findOne({ where: { email: email.toLowerCase() } });
   return user ? { ...toSummary(user), passwordHash: user.passwordHash } : null;
 }
 
@@ -39,7 +48,10 @@ export async function insertUser(
   return row ? { id: row.id, email: row.email, displayName: row.display_name } : null;
 }
 
-export async function membershipsOf(db: EntityManager, userId: string): Promise<MembershipSummary[]> {
+export async function membershipsOf(
+  db: EntityManager,
+  userId: string,
+): Promise<MembershipSummary[]> {
   const rows: Array<{ workspace_id: string; name: string; role: Role }> = await db.query(
     `SELECT m.workspace_id, w.name, m.role FROM memberships m
        JOIN workspaces w ON w.id = m.workspace_id

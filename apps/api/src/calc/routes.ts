@@ -10,6 +10,9 @@ export function registerCalcRoutes(router: Router, _deps: AppDeps): void {
    */
   router.post('/calc', requireAuth, (req, res) => {
     const answer = calculate(req.body);
-    res.status(answer.ok ? 200 : 400).type('application/json').send(serializeAnswer(answer));
+    res
+      .status(answer.ok ? 200 : 400)
+      .type('application/json')
+      .send(serializeAnswer(answer));
   });
 }

@@ -1,4 +1,10 @@
-import { PAIR_STATUSES, PARAMETER_KINDS, PROVENANCE_KINDS, RATE_MODELS, ROLES } from '@gapwise/contracts';
+import {
+  PAIR_STATUSES,
+  PARAMETER_KINDS,
+  PROVENANCE_KINDS,
+  RATE_MODELS,
+  ROLES,
+} from '@gapwise/contracts';
 import { ROUTE_DOCS } from './route-docs';
 import { REPORT_SCHEMAS } from '../reports/report-route-docs';
 import { TRACE_SCHEMAS } from '../traces/trace-route-docs';
@@ -9,31 +15,39 @@ const str = { type: 'string' };
 const num = { type: 'number' };
 const nullable = (s: Schema) => ({ anyOf: [s, { type: 'null' }] });
 const ref = (name: string): Schema =>
-  name.endsWith('[]') ? { type: 'array', items: ref(name.slice(0, -2)) } : { $ref: `#/components/schemas/${name}` };
-const obj = (properties: Record<string, Schema>, required: string[] = Object.keys(properties)): Schema => ({
+  name.endsWith('[]')
+    ? { type: 'array', items: ref(name.slice(0, -2)) }
+    : { $ref: `#/components/schemas/${name}` };
+const obj = (
+  properties: Record<string, Schema>,
+  required: string[] = Object.keys(properties),
+): Schema => ({
   type: 'object',
   properties,
   required,
 });
 const role = { type: 'string', enum: [...ROLES] };
 
-const parameter = obj({
-  kind: { type: 'string', enum: Object.keys(PARAMETER_KINDS) },
-  value: { ...num, description: 'canonical unit (eV, Å, V, s; dimensionless)' },
-  unit: { ...str, description: "unit the user typed (CALC-API.md names, '' for dimensionless)" },
-  uncertainty: nullable({ ...num, minimum: 0 }),
-  provenance: obj(
-    {
-      kind: { type: 'string', enum: [...PROVENANCE_KINDS] },
-      citation: nullable({ ...str, description: 'required for literature' }),
-      methodId: nullable({ ...str, description: 'required for derived: the Gapwise method id' }),
-      methodInputs: nullable({ type: 'object' }),
-      sources: nullable({ type: 'array', items: obj({ type: str, id: str }) }),
-      note: nullable(str),
-    },
-    ['kind'],
-  ),
-}, ['kind', 'value', 'unit', 'provenance']);
+const parameter = obj(
+  {
+    kind: { type: 'string', enum: Object.keys(PARAMETER_KINDS) },
+    value: { ...num, description: 'canonical unit (eV, Å, V, s; dimensionless)' },
+    unit: { ...str, description: "unit the user typed (CALC-API.md names, '' for dimensionless)" },
+    uncertainty: nullable({ ...num, minimum: 0 }),
+    provenance: obj(
+      {
+        kind: { type: 'string', enum: [...PROVENANCE_KINDS] },
+        citation: nullable({ ...str, description: 'required for literature' }),
+        methodId: nullable({ ...str, description: 'required for derived: the Gapwise method id' }),
+        methodInputs: nullable({ type: 'object' }),
+        sources: nullable({ type: 'array', items: obj({ type: str, id: str }) }),
+        note: nullable(str),
+      },
+      ['kind'],
+    ),
+  },
+  ['kind', 'value', 'unit', 'provenance'],
+);
 
 const pairFields = {
   name: str,
@@ -58,64 +72,164 @@ const results = obj({
   warnings: { type: 'array', items: obj({ code: str, message: str }) },
   errors: { type: 'array', items: obj({ field: str, message: str }) },
 });
-const page = (item: string) => obj({ items: ref(`${item}[]`), total: num, offset: num, limit: num });
+const page = (item: string) =>
+  obj({ items: ref(`${item}[]`), total: num, offset: num, limit: num });
 
 const SCHEMAS: Record<string, Schema> = {
   ApiErrorBody: obj({
     error: obj(
-      { code: str, message: str, fields: { type: 'array', items: obj({ field: str, message: str }) }, current: {} },
+      {
+        code: str,
+        message: str,
+        fields: { type: 'array', items: obj({ field: str, message: str }) },
+        current: {},
+      },
       ['code', 'message'],
     ),
   }),
-  HealthInfo: obj({ status: str, version: str, database: obj({ reachable: { type: 'boolean' } }), migrations: nullable(obj({ applied: num, pending: { type: 'array', items: str } })) }),
+  HealthInfo: obj({
+    status: str,
+    version: str,
+    database: obj({ reachable: { type: 'boolean' } }),
+    migrations: nullable(obj({ applied: num, pending: { type: 'array', items: str } })),
+  }),
   RegisterRequest: obj(
-    { email: str, password: { ...str, minLength: 10 }, displayName: str, returnUrl: { ...str, description: 'same-site path opened after the confirmation' } },
+    {
+      email: str,
+      password: { ...str, minLength: 10 },
+      displayName: str,
+      returnUrl: { ...str, description: 'same-site path opened after the confirmation' },
+    },
     ['email', 'password', 'displayName'],
   ),
-  RegistrationAnswer: obj({ status: { type: 'string', enum: ['confirmation-sent'] }, message: str }),
+  RegistrationAnswer: obj({
+    status: { type: 'string', enum: ['confirmation-sent'] },
+    message: str,
+  }),
   ConfirmRegistrationRequest: obj({ token: str }),
   SignInRequest: obj({ email: str, password: str }),
   UserSummary: obj({ id: str, email: str, displayName: str }),
   MembershipSummary: obj({ workspaceId: str, workspaceName: str, role }),
-  SessionInfo: obj({ user: ref('UserSummary'), memberships: ref('MembershipSummary[]'), csrfToken: str }),
+  SessionInfo: obj({
+    user: ref('UserSummary'),
+    memberships: ref('MembershipSummary[]'),
+    csrfToken: str,
+  }),
   WorkspaceName: obj({ name: str }),
   WorkspaceSummary: obj({ id: str, name: str, role }),
   Member: obj({ userId: str, email: str, displayName: str, role }),
   RoleChange: obj({ role }),
   InvitationRequest: obj({ email: str, role }),
-  Invitation: obj({ id: str, email: str, role, status: { type: 'string', enum: ['pending', 'accepted', 'revoked', 'expired'] }, expiresAt: str, createdAt: str }),
+  Invitation: obj({
+    id: str,
+    email: str,
+    role,
+    status: { type: 'string', enum: ['pending', 'accepted', 'revoked', 'expired'] },
+    expiresAt: str,
+    createdAt: str,
+  }),
   InvitationPreview: obj({ workspaceName: str, role, email: str, status: str }),
   PairParameter: parameter,
   PairInput: obj(pairFields, pairRequired),
-  PairUpdate: obj({ ...pairFields, version: { type: 'integer', minimum: 1 } }, [...pairRequired, 'version']),
+  PairUpdate: obj({ ...pairFields, version: { type: 'integer', minimum: 1 } }, [
+    ...pairRequired,
+    'version',
+  ]),
   PairPatch: obj({ ...pairFields, version: { type: 'integer', minimum: 1 } }, ['version']),
   PairResults: results,
   Pair: obj(
     {
-      id: str, workspaceId: str, version: { type: 'integer' }, ...pairFields,
-      results: nullable(ref('PairResults')), createdAt: str, updatedAt: str,
+      id: str,
+      workspaceId: str,
+      version: { type: 'integer' },
+      ...pairFields,
+      results: nullable(ref('PairResults')),
+      createdAt: str,
+      updatedAt: str,
       updatedBy: nullable(obj({ id: str, displayName: str })),
     },
-    [...pairRequired, 'id', 'workspaceId', 'version', 'status', 'tags', 'model', 'results', 'createdAt', 'updatedAt', 'updatedBy'],
+    [
+      ...pairRequired,
+      'id',
+      'workspaceId',
+      'version',
+      'status',
+      'tags',
+      'model',
+      'results',
+      'createdAt',
+      'updatedAt',
+      'updatedBy',
+    ],
   ),
   PairListItem: obj({
-    id: str, name: str, donor: str, acceptor: str, status: str, tags: { type: 'array', items: str },
-    deltaG0: nullable(num), lambda: nullable(num), coupling: nullable(num), log10k: nullable(num),
-    regime: nullable(str), version: num, updatedAt: str, updatedBy: nullable(str),
+    id: str,
+    name: str,
+    donor: str,
+    acceptor: str,
+    status: str,
+    tags: { type: 'array', items: str },
+    deltaG0: nullable(num),
+    lambda: nullable(num),
+    coupling: nullable(num),
+    log10k: nullable(num),
+    regime: nullable(str),
+    version: num,
+    updatedAt: str,
+    updatedBy: nullable(str),
   }),
   PairPage: page('PairListItem'),
   PairVersionSummary: obj({ version: num, createdAt: str, createdBy: nullable(str), summary: str }),
-  PairComparison: obj({ from: num, to: num, differences: { type: 'array', items: obj({ field: str, from: {}, to: {} }) } }),
+  PairComparison: obj({
+    from: num,
+    to: num,
+    differences: { type: 'array', items: obj({ field: str, from: {}, to: {} }) },
+  }),
   CalcRequest: obj({ method: str, inputs: { type: 'object' } }),
-  CalcAnswer: { oneOf: [
-    obj({ ok: { const: true }, method: str, outputs: { type: 'object' }, warnings: { type: 'array', items: obj({ code: str, message: str }) } }),
-    obj({ ok: { const: false }, errors: { type: 'array', items: obj({ field: str, message: str }) } }),
-  ] },
-  AuditEvent: obj({ id: str, at: str, actor: nullable(str), action: str, entityType: str, entityId: nullable(str), summary: str, before: {}, after: {} }),
+  CalcAnswer: {
+    oneOf: [
+      obj({
+        ok: { const: true },
+        method: str,
+        outputs: { type: 'object' },
+        warnings: { type: 'array', items: obj({ code: str, message: str }) },
+      }),
+      obj({
+        ok: { const: false },
+        errors: { type: 'array', items: obj({ field: str, message: str }) },
+      }),
+    ],
+  },
+  AuditEvent: obj({
+    id: str,
+    at: str,
+    actor: nullable(str),
+    action: str,
+    entityType: str,
+    entityId: nullable(str),
+    summary: str,
+    before: {},
+    after: {},
+  }),
   AuditPage: page('AuditEvent'),
   TokenName: obj({ name: str }),
-  ApiToken: obj({ id: str, name: str, prefix: str, createdAt: str, lastUsedAt: nullable(str), revokedAt: nullable(str) }),
-  CreatedApiToken: obj({ id: str, name: str, prefix: str, createdAt: str, lastUsedAt: nullable(str), revokedAt: nullable(str), token: str }),
+  ApiToken: obj({
+    id: str,
+    name: str,
+    prefix: str,
+    createdAt: str,
+    lastUsedAt: nullable(str),
+    revokedAt: nullable(str),
+  }),
+  CreatedApiToken: obj({
+    id: str,
+    name: str,
+    prefix: str,
+    createdAt: str,
+    lastUsedAt: nullable(str),
+    revokedAt: nullable(str),
+    token: str,
+  }),
   ...REPORT_SCHEMAS,
   ...TRACE_SCHEMAS,
   ...SCREEN_SCHEMAS,
@@ -139,17 +253,36 @@ export function buildOpenApi(version: string): Record<string, unknown> {
   const paths: Record<string, Record<string, unknown>> = {};
   for (const r of ROUTE_DOCS) {
     const p = toOpenApiPath(r.path);
-    const params = [...r.path.matchAll(/:(\w+)/g)].map((m) => ({ name: m[1], in: 'path', required: true, schema: str }));
-    const query = (r.query ?? []).map((q) => ({ name: q.name, in: 'query', required: false, description: q.description, schema: str }));
+    const params = [...r.path.matchAll(/:(\w+)/g)].map((m) => ({
+      name: m[1],
+      in: 'path',
+      required: true,
+      schema: str,
+    }));
+    const query = (r.query ?? []).map((q) => ({
+      name: q.name,
+      in: 'query',
+      required: false,
+      description: q.description,
+      schema: str,
+    }));
     const responses: Record<string, unknown> = {
       [String(r.status)]: r.response
         ? { description: 'success', content: { 'application/json': { schema: ref(r.response) } } }
         : { description: 'success' },
     };
-    const errorCodes = new Set<number>([...(r.body ? [400] : []), ...(r.auth ? [401] : []), ...(r.path.includes(':') ? [404] : []), ...(r.errors ?? [])]);
+    const errorCodes = new Set<number>([
+      ...(r.body ? [400] : []),
+      ...(r.auth ? [401] : []),
+      ...(r.path.includes(':') ? [404] : []),
+      ...(r.errors ?? []),
+    ]);
     if (r.access.includes('403')) errorCodes.add(403);
     for (const code of [...errorCodes].sort()) {
-      responses[String(code)] = { description: ERROR_TEXT[code] ?? 'error', content: { 'application/json': { schema: ref('ApiErrorBody') } } };
+      responses[String(code)] = {
+        description: ERROR_TEXT[code] ?? 'error',
+        content: { 'application/json': { schema: ref('ApiErrorBody') } },
+      };
     }
     paths[p] ??= {};
     paths[p][r.method] = {
@@ -158,7 +291,14 @@ export function buildOpenApi(version: string): Record<string, unknown> {
       description: `Who may call: ${r.access}.`,
       operationId: `${r.method}${r.path.replace(/[:/.-](\w)/g, (_m, c: string) => c.toUpperCase())}`,
       parameters: [...params, ...query],
-      ...(r.body ? { requestBody: { required: true, content: { 'application/json': { schema: ref(r.body) } } } } : {}),
+      ...(r.body
+        ? {
+            requestBody: {
+              required: true,
+              content: { 'application/json': { schema: ref(r.body) } },
+            },
+          }
+        : {}),
       responses,
       security: r.auth ? [{ cookie: [] }, { bearer: [] }] : [],
     };

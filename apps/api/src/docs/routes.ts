@@ -4,7 +4,9 @@ import type { AppDeps } from '../http/context';
 import { APP_VERSION } from '../health/routes';
 import { buildOpenApi } from './openapi';
 
-const SWAGGER_DIR: string = (createRequire(import.meta.url)('swagger-ui-dist') as { getAbsoluteFSPath(): string }).getAbsoluteFSPath();
+const SWAGGER_DIR: string = (
+  createRequire(import.meta.url)('swagger-ui-dist') as { getAbsoluteFSPath(): string }
+).getAbsoluteFSPath();
 
 const PAGE = `<!doctype html>
 <html lang="en"><head><meta charset="utf-8"><title>Gapwise API</title>

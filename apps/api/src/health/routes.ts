@@ -6,7 +6,9 @@ import { migrationState } from '@gapwise/db';
 import type { AppDeps } from '../http/context';
 import { REPO_ROOT } from '../config';
 
-export const APP_VERSION: string = JSON.parse(readFileSync(resolve(REPO_ROOT, 'package.json'), 'utf8')).version;
+export const APP_VERSION: string = JSON.parse(
+  readFileSync(resolve(REPO_ROOT, 'package.json'), 'utf8'),
+).version;
 
 export function registerHealthRoutes(router: Router, deps: AppDeps): void {
   /** Version, database reachability and migration state; 503 when the database is down. */
@@ -22,7 +24,12 @@ export function registerHealthRoutes(router: Router, deps: AppDeps): void {
       // reported below; details stay out of the answer
     }
     const ok = reachable && migrations !== null && migrations.pending.length === 0;
-    const body: HealthInfo = { status: ok ? 'ok' : 'degraded', version: APP_VERSION, database: { reachable }, migrations };
+    const body: HealthInfo = {
+      status: ok ? 'ok' : 'degraded',
+      version: APP_VERSION,
+      database: { reachable },
+      migrations,
+    };
     res.status(reachable ? 200 : 503).json(body);
   });
 }

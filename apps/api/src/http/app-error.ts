@@ -20,7 +20,6 @@ export class AppError extends Error {
 export const notFound = (what = 'record') => new AppError(404, 'not-found', `No such ${what}.`);
 export const forbidden = (message = 'Your role does not allow this.') =>
   new AppError(403, 'forbidden', message);
-export const unauthenticated = () =>
-  new AppError(401, 'unauthenticated', 'Sign in to continue.');
+export const unauthenticated = () => new AppError(401, 'unauthenticated', 'Sign in to continue.');
 export const validationFailed = (fields: ReadonlyArray<{ field: string; message: string }>) =>
   new AppError(400, 'validation-failed', 'Some fields are not valid.', { fields });

@@ -17,21 +17,36 @@ const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
  */
 export function identify(deps: AppDeps): RequestHandler {
   const passport = new Passport();
-  const verify = (via: Principal['via']) =>
-    (payload: { sub?: unknown; sid?: unknown; typ?: unknown }, done: (e: unknown, u?: unknown) => void) => {
-      if (payload.typ !== 'access' || typeof payload.sub !== 'string' || typeof payload.sid !== 'string') {
+  const verify =
+    (via: Principal['via']) =>
+    (
+      payload: { sub?: unknown; sid?: unknown; typ?: unknown },
+      done: (e: unknown, u?: unknown) => void,
+    ) => {
+      if (
+        payload.typ !== 'access' ||
+        typeof payload.sub !== 'string' ||
+        typeof payload.sid !== 'string'
+      ) {
         done(null, false);
         return;
       }
       userExists(deps.dataSource.manager, payload.sub).then(
-        (exists) => done(null, exists ? ({ userId: payload.sub, via, sid: payload.sid } as Principal) : false),
+        (exists) =>
+          done(
+            null,
+            exists ? ({ userId: payload.sub, via, sid: payload.sid } as Principal) : false,
+          ),
         (error) => done(error),
       );
     };
   const common = { secretOrKey: deps.config.jwtSecret, ...JWT_OPTIONS };
   passport.use(
     'jwt-bearer',
-    new JwtStrategy({ ...common, jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken() }, verify('bearer')),
+    new JwtStrategy(
+      { ...common, jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken() },
+      verify('bearer'),
+    ),
   );
   passport.use(
     'jwt-cookie',

@@ -26,11 +26,15 @@ export function errorMiddleware(log: (message: string) => void): ErrorRequestHan
     }
     const type = (err as { type?: string } | null)?.type;
     if (type === 'entity.parse.failed') {
-      send(400, { error: { code: 'invalid-json', message: 'The request body is not valid JSON.' } });
+      send(400, {
+        error: { code: 'invalid-json', message: 'The request body is not valid JSON.' },
+      });
       return;
     }
     if (type === 'entity.too.large') {
-      send(413, { error: { code: 'payload-too-large', message: 'The request body is too large.' } });
+      send(413, {
+        error: { code: 'payload-too-large', message: 'The request body is too large.' },
+      });
       return;
     }
     const status = (err as { status?: number } | null)?.status;

@@ -11,7 +11,12 @@ const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[
  * Finds strings PostgreSQL cannot store (NUL characters, lone UTF-16 surrogates) anywhere in a
  * JSON value, keys included, so they become a 400 instead of a database error.
  */
-export function unstorableStrings(value: unknown, path = '', out: FieldError[] = [], depth = 0): FieldError[] {
+export function unstorableStrings(
+  value: unknown,
+  path = '',
+  out: FieldError[] = [],
+  depth = 0,
+): FieldError[] {
   if (out.length >= 20) return out;
   if (depth > 20) {
     out.push({ field: path || '(body)', message: 'is nested too deeply' });
@@ -19,9 +24,12 @@ export function unstorableStrings(value: unknown, path = '', out: FieldError[] =
   }
   const bad = (s: string) => s.includes('\u0000') || LONE_SURROGATE.test(s);
   if (typeof value === 'string') {
-    if (bad(value)) out.push({ field: path || '(body)', message: 'contains characters that cannot be stored' });
+    if (bad(value))
+      out.push({ field: path || '(body)', message: 'contains characters that cannot be stored' });
   } else if (Array.isArray(value)) {
-    value.forEach((v, i) => unstorableStrings(v, path ? `${path}.${i}` : String(i), out, depth + 1));
+    value.forEach((v, i) =>
+      unstorableStrings(v, path ? `${path}.${i}` : String(i), out, depth + 1),
+    );
   } else if (value && typeof value === 'object') {
     for (const [k, v] of Object.entries(value)) {
       const p = path ? `${path}.${k}` : k;
@@ -89,7 +97,12 @@ export function queryInt(
 }
 
 /** Reads an optional string query parameter (a repeated parameter is refused). */
-export function queryString(value: unknown, field: string, errors: FieldError[], maxLength = 200): string | undefined {
+export function queryString(
+  value: unknown,
+  field: string,
+  errors: FieldError[],
+  maxLength = 200,
+): string | undefined {
   if (value === undefined || value === '') return undefined;
   if (typeof value !== 'string' || value.length > maxLength || unstorableStrings(value).length) {
     errors.push({ field, message: `must be one text value of at most ${maxLength} characters` });

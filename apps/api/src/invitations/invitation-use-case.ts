@@ -25,7 +25,10 @@ import {
   revokePendingFor,
 } from './invitation-repository';
 
-export function invitationMail(config: Config, v: { workspace: string; role: Role; inviter: string; token: string; days: number }) {
+export function invitationMail(
+  config: Config,
+  v: { workspace: string; role: Role; inviter: string; token: string; days: number },
+) {
   const link = `${config.publicUrl}/invitations/${v.token}`;
   return {
     subject: `You are invited to ${v.workspace} on Gapwise`,
@@ -57,7 +60,11 @@ export async function createInvitation(
     await requireRole(tx, workspaceId, userId, canManageMembers);
     const address = email.trim().toLowerCase();
     if (await isMemberByEmail(tx, workspaceId, address)) {
-      throw new AppError(409, 'already-member', 'This address already belongs to a member of the workspace.');
+      throw new AppError(
+        409,
+        'already-member',
+        'This address already belongs to a member of the workspace.',
+      );
     }
     await revokePendingFor(tx, workspaceId, address);
     const token = randomToken();
@@ -78,7 +85,12 @@ export async function createInvitation(
       token,
       days: config.invitationDays,
     });
-    const outboxId = await insertOutbox(tx, 'invitation', { to: address, subject: mail.subject, text: mail.text }, invitation.id);
+    const outboxId = await insertOutbox(
+      tx,
+      'invitation',
+      { to: address, subject: mail.subject, text: mail.text },
+      invitation.id,
+    );
     if (queue) await queue.enqueue(tx, outboxId);
     await recordAudit(tx, {
       workspaceId,
@@ -94,12 +106,18 @@ export async function createInvitation(
   });
 }
 
-export async function revokeInvitationUseCase(db: DataSource, userId: string, workspaceId: string, id: string): Promise<void> {
+export async function revokeInvitationUseCase(
+  db: DataSource,
+  userId: string,
+  workspaceId: string,
+  id: string,
+): Promise<void> {
   await db.transaction(async (tx) => {
     await requireRole(tx, workspaceId, userId, canManageMembers);
     const invitation = await findInvitationById(tx, id);
     if (!invitation || invitation.workspaceId !== workspaceId) throw notFound('invitation');
-    if (invitation.status === 'accepted') throw new AppError(409, 'invitation-used', 'This invitation was already accepted.');
+    if (invitation.status === 'accepted')
+      throw new AppError(409, 'invitation-used', 'This invitation was already accepted.');
     await revokeInvitation(tx, id);
     await recordAudit(tx, {
       workspaceId,
@@ -112,26 +130,51 @@ export async function revokeInvitationUseCase(db: DataSource, userId: string, wo
   });
 }
 
-const tokenOk = (token: string) => token.length >= 20 && token.length <= 100 && /^[A-Za-z0-9_-]+$/.test(token);
+const tokenOk = (token: string) =>
+  token.length >= 20 && token.length <= 100 && /^[A-Za-z0-9_-]+$/.test(token);
 
 export async function previewInvitation(db: DataSource, token: string): Promise<InvitationPreview> {
-  const invitation = tokenOk(token) ? await findInvitationByTokenHash(db.manager, hashToken(token)) : null;
+  const invitation = tokenOk(token)
+    ? await findInvitationByTokenHash(db.manager, hashToken(token))
+    : null;
   if (!invitation) throw notFound('invitation');
-  return { workspaceName: invitation.workspaceName, role: invitation.role, email: invitation.email, status: invitation.status };
+  return {
+    workspaceName: invitation.workspaceName,
+    role: invitation.role,
+    email: invitation.email,
+    status: invitation.status,
+  };
 }
 
-export async function acceptInvitation(db: DataSource, userId: string, token: string): Promise<MembershipSummary> {
+export async function acceptInvitation(
+  db: DataSource,
+  userId: string,
+  token: string,
+): Promise<MembershipSummary> {
   return db.transaction(async (tx) => {
-    const invitation = tokenOk(token) ? await findInvitationByTokenHash(tx, hashToken(token), true) : null;
+    const invitation = tokenOk(token)
+      ? await findInvitationByTokenHash(tx, hashToken(token), true)
+      : null;
     if (!invitation) throw notFound('invitation');
     const user = await findUserById(tx, userId);
     if (!user) throw notFound('invitation');
     if (user.email.toLowerCase() !== invitation.email.toLowerCase()) {
-      throw new AppError(403, 'invitation-email-mismatch', 'This invitation was sent to another e-mail address; sign in with that address.');
+      throw new AppError(
+        403,
+        'invitation-email-mismatch',
+        'This invitation was sent to another e-mail address; sign in with that address.',
+      );
     }
-    if (invitation.status === 'revoked') throw new AppError(410, 'invitation-revoked', 'This invitation was revoked.');
-    if (invitation.status === 'expired') throw new AppError(410, 'invitation-expired', 'This invitation has expired; ask for a new one.');
-    if (invitation.status === 'accepted') throw new AppError(409, 'invitation-used', 'This invitation was already accepted.');
+    if (invitation.status === 'revoked')
+      throw new AppError(410, 'invitation-revoked', 'This invitation was revoked.');
+    if (invitation.status === 'expired')
+      throw new AppError(
+        410,
+        'invitation-expired',
+        'This invitation has expired; ask for a new one.',
+      );
+    if (invitation.status === 'accepted')
+      throw new AppError(409, 'invitation-used', 'This invitation was already accepted.');
     const existing = await roleIn(tx, invitation.workspaceId, userId);
     const role = existing ?? invitation.role;
     if (!existing) await upsertMembership(tx, invitation.workspaceId, userId, role);

@@ -6,7 +6,12 @@ import { requireAuth, userIdOf } from '../http/authenticate';
 import { parseBody } from '../http/validate';
 import { requireRole } from '../workspaces/workspace-access';
 import { listInvitations } from './invitation-repository';
-import { acceptInvitation, createInvitation, previewInvitation, revokeInvitationUseCase } from './invitation-use-case';
+import {
+  acceptInvitation,
+  createInvitation,
+  previewInvitation,
+  revokeInvitationUseCase,
+} from './invitation-use-case';
 
 export class InvitationDto {
   @IsString()
@@ -29,7 +34,9 @@ export function registerInvitationRoutes(router: Router, deps: AppDeps): void {
   router.post('/workspaces/:wid/invitations', requireAuth, async (req, res) => {
     await requireRole(db.manager, wid(req.params), userIdOf(req), canManageMembers);
     const { email, role } = parseBody(InvitationDto, req.body);
-    res.status(201).json(await createInvitation(db, config, queue, userIdOf(req), wid(req.params), email, role));
+    res
+      .status(201)
+      .json(await createInvitation(db, config, queue, userIdOf(req), wid(req.params), email, role));
   });
   router.delete('/workspaces/:wid/invitations/:id', requireAuth, async (req, res) => {
     await revokeInvitationUseCase(db, userIdOf(req), wid(req.params), String(req.params['id']));

@@ -27,7 +27,11 @@ export interface MailQueueOptions {
  * retries with exponential backoff, and the row stays `pending` (with its attempts and last
  * error) until it is sent; `resendPending` puts pending rows back in the queue on start.
  */
-export async function startMailQueue(dataSource: DataSource, mailer: Mailer, options: MailQueueOptions): Promise<MailQueue> {
+export async function startMailQueue(
+  dataSource: DataSource,
+  mailer: Mailer,
+  options: MailQueueOptions,
+): Promise<MailQueue> {
   const retryLimit = options.retryLimit ?? 8;
   const boss = new PgBoss({
     connectionString: options.connectionString,
@@ -47,7 +51,11 @@ export async function startMailQueue(dataSource: DataSource, mailer: Mailer, opt
 
   await boss.work<{ outboxId: string }>(
     MAIL_QUEUE,
-    { pollingIntervalSeconds: options.pollingIntervalSeconds ?? 1, batchSize: 1, includeMetadata: true },
+    {
+      pollingIntervalSeconds: options.pollingIntervalSeconds ?? 1,
+      batchSize: 1,
+      includeMetadata: true,
+    },
     async (jobs) => {
       for (const job of jobs) {
         let failure: unknown = null;
@@ -70,14 +78,20 @@ export async function startMailQueue(dataSource: DataSource, mailer: Mailer, opt
 
   const queue: MailQueue = {
     async enqueue(tx, outboxId) {
-      await boss.send(MAIL_QUEUE, { outboxId }, {
-        retryLimit,
-        retryDelay: options.retryDelay ?? 5,
-        retryBackoff: true,
-        db: {
-          executeSql: async (text: string, values: unknown[]) => ({ rows: await tx.query(text, values) }),
+      await boss.send(
+        MAIL_QUEUE,
+        { outboxId },
+        {
+          retryLimit,
+          retryDelay: options.retryDelay ?? 5,
+          retryBackoff: true,
+          db: {
+            executeSql: async (text: string, values: unknown[]) => ({
+              rows: await tx.query(text, values),
+            }),
+          },
         },
-      });
+      );
     },
     async stop() {
       await boss.stop({ graceful: true, wait: true, timeout: 5000 });

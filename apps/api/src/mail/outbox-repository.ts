@@ -50,7 +50,11 @@ export async function markSent(db: EntityManager, id: string): Promise<void> {
 }
 
 /** Records a failed attempt; the row stays pending so it is retried, never lost. */
-export async function markAttemptFailed(db: EntityManager, id: string, error: string): Promise<void> {
+export async function markAttemptFailed(
+  db: EntityManager,
+  id: string,
+  error: string,
+): Promise<void> {
   await db.query('UPDATE mail_outbox SET attempts = attempts + 1, last_error = $2 WHERE id = $1', [
     id,
     error.slice(0, 500),

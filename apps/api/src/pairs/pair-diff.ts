@@ -1,6 +1,16 @@
 import type { Pair, PairFieldDifference } from '@gapwise/contracts';
 
-const SCALAR_FIELDS = ['name', 'donor', 'acceptor', 'medium', 'temperature', 'temperatureUnit', 'notes', 'status', 'model'] as const;
+const SCALAR_FIELDS = [
+  'name',
+  'donor',
+  'acceptor',
+  'medium',
+  'temperature',
+  'temperatureUnit',
+  'notes',
+  'status',
+  'model',
+] as const;
 const PARAMETER_FIELDS = ['value', 'unit', 'uncertainty', 'provenance'] as const;
 const RESULT_FIELDS = ['k', 'log10k', 'activationFreeEnergy', 'regime'] as const;
 
@@ -18,7 +28,9 @@ export function diffPairs(from: Pair, to: Pair): PairFieldDifference[] {
   const tagsFrom = [...(from.tags ?? [])].sort();
   const tagsTo = [...(to.tags ?? [])].sort();
   if (!same(tagsFrom, tagsTo)) out.push({ field: 'tags', from: from.tags, to: to.tags });
-  const kinds = [...new Set([...from.parameters.map((p) => p.kind), ...to.parameters.map((p) => p.kind)])];
+  const kinds = [
+    ...new Set([...from.parameters.map((p) => p.kind), ...to.parameters.map((p) => p.kind)]),
+  ];
   for (const kind of kinds) {
     const a = from.parameters.find((p) => p.kind === kind);
     const b = to.parameters.find((p) => p.kind === kind);
@@ -27,7 +39,8 @@ export function diffPairs(from: Pair, to: Pair): PairFieldDifference[] {
       continue;
     }
     for (const f of PARAMETER_FIELDS) {
-      if (!same(a[f], b[f])) out.push({ field: `parameters.${kind}.${f}`, from: a[f] ?? null, to: b[f] ?? null });
+      if (!same(a[f], b[f]))
+        out.push({ field: `parameters.${kind}.${f}`, from: a[f] ?? null, to: b[f] ?? null });
     }
   }
   for (const f of RESULT_FIELDS) {
@@ -45,7 +58,11 @@ export function summariseChange(before: Pair | null, after: Pair, action?: strin
   if (action) return action;
   if (diffs.length === 0) return 'saved without changes';
   const plain = diffs.filter((d) => !d.field.startsWith('parameters.')).map((d) => d.field);
-  const params = [...new Set(diffs.filter((d) => d.field.startsWith('parameters.')).map((d) => d.field.split('.')[1]))];
+  const params = [
+    ...new Set(
+      diffs.filter((d) => d.field.startsWith('parameters.')).map((d) => d.field.split('.')[1]),
+    ),
+  ];
   const parts: string[] = [];
   if (plain.length) parts.push(`changed ${plain.join(', ')}`);
   if (params.length) parts.push(`parameters: ${params.join(', ')}`);

@@ -69,7 +69,11 @@ export async function pairWorkspace(db: EntityManager, pairId: string): Promise<
   return rows[0]?.workspace_id ?? null;
 }
 
-export async function findPair(db: EntityManager, pairId: string, lock = false): Promise<Pair | null> {
+export async function findPair(
+  db: EntityManager,
+  pairId: string,
+  lock = false,
+): Promise<Pair | null> {
   if (!isUuid(pairId)) return null;
   const rows: Row[] = await db.query(
     `SELECT ${PAIR_COLUMNS} FROM pairs p LEFT JOIN users u ON u.id = p.updated_by WHERE p.id = $1
@@ -113,9 +117,24 @@ export async function insertPair(
        regime, created_by, updated_by)
      VALUES ($1,$2,$3,$4,$5,$6,$7,$8,$9,$10,$11,1,$12,$13,$14,$15,$16,$17,$18,$18) RETURNING id`,
     [
-      workspaceId, input.name, input.donor, input.acceptor, input.medium, input.temperature,
-      input.temperatureUnit, input.notes, input.status, input.tags, input.model,
-      JSON.stringify(results), c.deltaG0, c.lambda, c.coupling, c.log10k, c.regime, userId,
+      workspaceId,
+      input.name,
+      input.donor,
+      input.acceptor,
+      input.medium,
+      input.temperature,
+      input.temperatureUnit,
+      input.notes,
+      input.status,
+      input.tags,
+      input.model,
+      JSON.stringify(results),
+      c.deltaG0,
+      c.lambda,
+      c.coupling,
+      c.log10k,
+      c.regime,
+      userId,
     ],
   );
   const id = rows[0].id as string;
@@ -138,15 +157,34 @@ export async function updatePair(
        coupling_abs=$15, log10k=$16, regime=$17, updated_by=$18, version = version + 1, updated_at = now()
      WHERE id = $1`,
     [
-      pairId, input.name, input.donor, input.acceptor, input.medium, input.temperature,
-      input.temperatureUnit, input.notes, input.status, input.tags, input.model,
-      JSON.stringify(results), c.deltaG0, c.lambda, c.coupling, c.log10k, c.regime, userId,
+      pairId,
+      input.name,
+      input.donor,
+      input.acceptor,
+      input.medium,
+      input.temperature,
+      input.temperatureUnit,
+      input.notes,
+      input.status,
+      input.tags,
+      input.model,
+      JSON.stringify(results),
+      c.deltaG0,
+      c.lambda,
+      c.coupling,
+      c.log10k,
+      c.regime,
+      userId,
     ],
   );
   await replaceParameters(db, pairId, input.parameters);
 }
 
-async function replaceParameters(db: EntityManager, pairId: string, parameters: readonly PairParameter[]) {
+async function replaceParameters(
+  db: EntityManager,
+  pairId: string,
+  parameters: readonly PairParameter[],
+) {
   await db.query('DELETE FROM pair_parameters WHERE pair_id = $1', [pairId]);
   for (const [i, p] of parameters.entries()) {
     await db.query(
@@ -154,8 +192,15 @@ async function replaceParameters(db: EntityManager, pairId: string, parameters: 
          citation, method_id, method_inputs, sources, note)
        VALUES ($1,$2,$3,$4,$5,$6,$7,$8,$9,$10,$11,$12)`,
       [
-        pairId, i, p.kind, p.value, p.unit, p.uncertainty, p.provenance.kind,
-        p.provenance.citation ?? null, p.provenance.methodId ?? null,
+        pairId,
+        i,
+        p.kind,
+        p.value,
+        p.unit,
+        p.uncertainty,
+        p.provenance.kind,
+        p.provenance.citation ?? null,
+        p.provenance.methodId ?? null,
         p.provenance.methodInputs == null ? null : JSON.stringify(p.provenance.methodInputs),
         p.provenance.sources == null ? null : JSON.stringify(p.provenance.sources),
         p.provenance.note ?? null,
@@ -180,7 +225,10 @@ export async function insertVersion(
   );
 }
 
-export async function listVersions(db: EntityManager, pairId: string): Promise<PairVersionSummary[]> {
+export async function listVersions(
+  db: EntityManager,
+  pairId: string,
+): Promise<PairVersionSummary[]> {
   const rows: Row[] = await db.query(
     `SELECT v.version, v.created_at, v.summary, u.display_name FROM pair_versions v
        LEFT JOIN users u ON u.id = v.created_by WHERE v.pair_id = $1 ORDER BY v.version DESC`,
@@ -194,7 +242,11 @@ export async function listVersions(db: EntityManager, pairId: string): Promise<P
   }));
 }
 
-export async function findVersion(db: EntityManager, pairId: string, version: number): Promise<Pair | null> {
+export async function findVersion(
+  db: EntityManager,
+  pairId: string,
+  version: number,
+): Promise<Pair | null> {
   const rows: Row[] = await db.query(
     'SELECT snapshot FROM pair_versions WHERE pair_id = $1 AND version = $2',
     [pairId, version],
@@ -226,7 +278,11 @@ export interface PairListQuery {
   readonly status?: PairStatus | 'all';
 }
 
-export async function listPairs(db: EntityManager, workspaceId: string, q: PairListQuery): Promise<Page<PairListItem>> {
+export async function listPairs(
+  db: EntityManager,
+  workspaceId: string,
+  q: PairListQuery,
+): Promise<Page<PairListItem>> {
   const where = ['p.workspace_id = $1'];
   const params: unknown[] = [workspaceId];
   if (q.q) {
@@ -241,7 +297,10 @@ export async function listPairs(db: EntityManager, workspaceId: string, q: PairL
   if (q.status === undefined) where.push(`p.status <> 'archived'`);
   else if (q.status !== 'all') where.push(`p.status = $${params.push(q.status)}`);
   const sqlWhere = where.join(' AND ');
-  const [{ total }] = await db.query(`SELECT count(*)::int AS total FROM pairs p WHERE ${sqlWhere}`, params);
+  const [{ total }] = await db.query(
+    `SELECT count(*)::int AS total FROM pairs p WHERE ${sqlWhere}`,
+    params,
+  );
   const order = `${SORT_COLUMNS[q.sort]} ${q.descending ? 'DESC' : 'ASC'} NULLS LAST, p.id`;
   const rows: Row[] = await db.query(
     `SELECT p.id, p.name, p.donor, p.acceptor, p.status, p.tags, p.delta_g0, p.lambda_total,

@@ -1,11 +1,18 @@
 import { allowedUnits, canonicalUnit, isUnitFor, type Quantity } from '@gapwise/calc';
-import { PARAMETER_KINDS, type PairInput, type PairParameter, type Provenance } from '@gapwise/contracts';
+import {
+  PARAMETER_KINDS,
+  type PairInput,
+  type PairParameter,
+  type Provenance,
+} from '@gapwise/contracts';
 import type { ParameterDto, PairInputDto } from './pair-dto';
 
 type FieldError = { field: string; message: string };
 
 /** Physical lower bounds of parameter values (canonical units); anything else is only warned about. */
-const LOWER_BOUNDS: Partial<Record<keyof typeof PARAMETER_KINDS, { min: number; strict: boolean }>> = {
+const LOWER_BOUNDS: Partial<
+  Record<keyof typeof PARAMETER_KINDS, { min: number; strict: boolean }>
+> = {
   lambdaInner: { min: 0, strict: false },
   lambdaOuter: { min: 0, strict: false },
   hbarOmega: { min: 0, strict: true },
@@ -33,7 +40,9 @@ function checkParameter(p: ParameterDto, i: number, errors: FieldError[]): void 
   if (!unitOk) {
     errors.push({
       field: at('unit'),
-      message: `must be one of ${unitsForKind(p.kind).map((u) => `'${u}'`).join(', ')} for ${p.kind}`,
+      message: `must be one of ${unitsForKind(p.kind)
+        .map((u) => `'${u}'`)
+        .join(', ')} for ${p.kind}`,
     });
   }
   const bound = LOWER_BOUNDS[p.kind];
@@ -62,7 +71,10 @@ export function pairInputProblems(input: PairInputDto): FieldError[] {
   const seen = new Map<string, number>();
   input.parameters.forEach((p, i) => {
     if (seen.has(p.kind)) {
-      errors.push({ field: `parameters.${i}.kind`, message: `${p.kind} is given twice (also parameters.${seen.get(p.kind)})` });
+      errors.push({
+        field: `parameters.${i}.kind`,
+        message: `${p.kind} is given twice (also parameters.${seen.get(p.kind)})`,
+      });
     } else seen.set(p.kind, i);
     checkParameter(p, i, errors);
   });

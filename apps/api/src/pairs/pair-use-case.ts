@@ -33,8 +33,14 @@ export function acceptPairInput(dto: PairInputDto): FullInput {
   return normalisePairInput(dto);
 }
 
-export function resultsFor(input: Pick<PairInput, 'temperature' | 'parameters'> & { model?: PairInput['model'] }): PairResults {
-  return computePairResults({ temperature: input.temperature, model: input.model ?? 'marcus', parameters: input.parameters });
+export function resultsFor(
+  input: Pick<PairInput, 'temperature' | 'parameters'> & { model?: PairInput['model'] },
+): PairResults {
+  return computePairResults({
+    temperature: input.temperature,
+    model: input.model ?? 'marcus',
+    parameters: input.parameters,
+  });
 }
 
 /** Loads a pair the caller may see (404 for non-members), checking the role rule (403). */
@@ -54,11 +60,20 @@ const auditSummary = (p: Pair) => ({
   name: p.name,
   version: p.version,
   status: p.status,
-  parameters: Object.fromEntries(p.parameters.map((x) => [x.kind, `${x.value} (${x.provenance.kind})`])),
+  parameters: Object.fromEntries(
+    p.parameters.map((x) => [x.kind, `${x.value} (${x.provenance.kind})`]),
+  ),
   log10k: p.results?.log10k ?? null,
 });
 
-async function saveSnapshot(tx: EntityManager, pair: Pair, before: Pair | null, userId: string, action: string, summary: string) {
+async function saveSnapshot(
+  tx: EntityManager,
+  pair: Pair,
+  before: Pair | null,
+  userId: string,
+  action: string,
+  summary: string,
+) {
   await insertVersion(tx, pair, summary, userId);
   await recordAudit(tx, {
     workspaceId: pair.workspaceId,
@@ -72,7 +87,12 @@ async function saveSnapshot(tx: EntityManager, pair: Pair, before: Pair | null, 
   });
 }
 
-export async function createPair(db: DataSource, userId: string, workspaceId: string, input: FullInput): Promise<Pair> {
+export async function createPair(
+  db: DataSource,
+  userId: string,
+  workspaceId: string,
+  input: FullInput,
+): Promise<Pair> {
   return db.transaction(async (tx) => {
     await requireRole(tx, workspaceId, userId, canEdit);
     const id = await insertPair(tx, workspaceId, input, resultsFor(input), userId);
@@ -110,7 +130,14 @@ export async function savePair(
     const input = build(current);
     await updatePair(tx, pairId, input, resultsFor(input), userId);
     const pair = (await findPair(tx, pairId))!;
-    await saveSnapshot(tx, pair, current, userId, action, fixedSummary ?? summariseChange(current, pair));
+    await saveSnapshot(
+      tx,
+      pair,
+      current,
+      userId,
+      action,
+      fixedSummary ?? summariseChange(current, pair),
+    );
     return pair;
   });
 }
@@ -137,10 +164,22 @@ export async function archivePair(db: DataSource, userId: string, pairId: string
   });
   if (!current) throw notFound('pair');
   if (current.status === 'archived') return current;
-  return savePair(db, userId, pairId, current.version, (p) => ({ ...inputOf(p), status: 'archived' }), 'pair.archived', 'archived');
+  return savePair(
+    db,
+    userId,
+    pairId,
+    current.version,
+    (p) => ({ ...inputOf(p), status: 'archived' }),
+    'pair.archived',
+    'archived',
+  );
 }
 
-export async function deletePairUseCase(db: DataSource, userId: string, pairId: string): Promise<void> {
+export async function deletePairUseCase(
+  db: DataSource,
+  userId: string,
+  pairId: string,
+): Promise<void> {
   await db.transaction(async (tx) => {
     const { workspaceId } = await pairForCaller(tx, pairId, userId, canEdit);
     const current = await findPair(tx, pairId, true);
@@ -170,7 +209,14 @@ export async function duplicatePair(db: DataSource, userId: string, pairId: stri
     };
     const id = await insertPair(tx, workspaceId, input, resultsFor(input), userId);
     const pair = (await findPair(tx, id))!;
-    await saveSnapshot(tx, pair, null, userId, 'pair.created', `duplicated from ${source.name} v${source.version}`);
+    await saveSnapshot(
+      tx,
+      pair,
+      null,
+      userId,
+      'pair.created',
+      `duplicated from ${source.name} v${source.version}`,
+    );
     return pair;
   });
 }
@@ -182,7 +228,12 @@ export async function readPair(db: DataSource, userId: string, pairId: string): 
   return pair;
 }
 
-export async function readVersion(db: DataSource, userId: string, pairId: string, version: number): Promise<Pair> {
+export async function readVersion(
+  db: DataSource,
+  userId: string,
+  pairId: string,
+  version: number,
+): Promise<Pair> {
   await pairForCaller(db.manager, pairId, userId);
   const pair = await findVersion(db.manager, pairId, version);
   if (!pair) throw notFound('version');
@@ -198,13 +249,20 @@ export async function comparePairVersions(
 ): Promise<PairComparison> {
   await pairForCaller(db.manager, pairId, userId);
   const a = await findVersion(db.manager, pairId, from);
-  const b = to === undefined ? await findPair(db.manager, pairId) : await findVersion(db.manager, pairId, to);
+  const b =
+    to === undefined
+      ? await findPair(db.manager, pairId)
+      : await findVersion(db.manager, pairId, to);
   if (!a || !b) throw notFound('version');
   return { from, to: b.version, differences: diffPairs(a, b) };
 }
 
 /** Recomputes a pair's results with the shared dispatcher (nothing is saved). */
-export async function computePair(db: DataSource, userId: string, pairId: string): Promise<PairResults> {
+export async function computePair(
+  db: DataSource,
+  userId: string,
+  pairId: string,
+): Promise<PairResults> {
   const pair = await readPair(db, userId, pairId);
   return resultsFor(pair);
 }

@@ -6,7 +6,13 @@ import { validationFailed } from '../http/app-error';
 import { parseBody, queryInt, queryString } from '../http/validate';
 import { requireRole } from '../workspaces/workspace-access';
 import { MAX_VERSION, PairInputDto, PairPatchDto, PairUpdateDto } from './pair-dto';
-import { listPairs, listVersions, SORT_COLUMNS, type PairListQuery, type SortKey } from './pair-repository';
+import {
+  listPairs,
+  listVersions,
+  SORT_COLUMNS,
+  type PairListQuery,
+  type SortKey,
+} from './pair-repository';
 import {
   acceptPairInput,
   archivePair,
@@ -31,7 +37,11 @@ function listQuery(req: Request): PairListQuery {
   const sortRaw = queryString(req.query['sort'], 'sort', errors) ?? 'name';
   const descending = sortRaw.startsWith('-');
   const sort = sortRaw.replace(/^-/, '');
-  if (!(sort in SORT_COLUMNS)) errors.push({ field: 'sort', message: `must be one of ${Object.keys(SORT_COLUMNS).join(', ')} (prefix - for descending)` });
+  if (!(sort in SORT_COLUMNS))
+    errors.push({
+      field: 'sort',
+      message: `must be one of ${Object.keys(SORT_COLUMNS).join(', ')} (prefix - for descending)`,
+    });
   const q = queryString(req.query['q'], 'q', errors);
   const regime = queryString(req.query['regime'], 'regime', errors);
   const tag = queryString(req.query['tag'], 'tag', errors);
@@ -40,10 +50,24 @@ function listQuery(req: Request): PairListQuery {
     errors.push({ field: 'status', message: `must be one of ${PAIR_STATUSES.join(', ')}, all` });
   }
   if (errors.length) throw validationFailed(errors);
-  return { offset, limit, sort: sort as SortKey, descending, q, regime, tag, status: status as PairStatus | 'all' | undefined };
+  return {
+    offset,
+    limit,
+    sort: sort as SortKey,
+    descending,
+    q,
+    regime,
+    tag,
+    status: status as PairStatus | 'all' | undefined,
+  };
 }
 
-function versionParam(value: unknown, field: string, errors: FieldError[], optional = false): number | undefined {
+function versionParam(
+  value: unknown,
+  field: string,
+  errors: FieldError[],
+  optional = false,
+): number | undefined {
   if (optional && (value === undefined || value === '')) return undefined;
   const n = queryInt(value ?? 'x', field, 0, 1, MAX_VERSION, errors);
   return n;

@@ -65,15 +65,13 @@ export function registerReportRoutes(
       ]);
     }
     const kind = dto.pairId ? 'pair' : 'comparison';
-    res
-      .status(201)
-      .json(
-        await createReport(deps, userIdOf(req), String(req.params['wid']), {
-          pairIds,
-          kind,
-          title: dto.title,
-        }),
-      );
+    res.status(201).json(
+      await createReport(deps, userIdOf(req), String(req.params['wid']), {
+        pairIds,
+        kind,
+        title: dto.title,
+      }),
+    );
   });
 
   router.get('/reviews/waiting', requireAuth, async (req, res) => {

@@ -20,7 +20,9 @@ describe('screen chunk computer', () => {
     // w = −14.39965/(35.94 × 7) = −0.057237 eV (SCIENCE.md §4 quotes −0.057 eV);
     // ΔG_CS = 2.0 − 2.5 − 0.057237 = −0.557237 eV; ΔG_CR = −2.0 + 0.057237; sum = −E00.
     // λ_outer for a = 3.5 Å, R = 7 Å, n = 1.344, ε = 35.94 is 1.082 eV (SCIENCE.md §5).
-    const chunk = await chunkOf(`${HEADER}\nD,A,1.0,-1.0,2.5,7,3.5,3.5,35.94,1.344,0.1,,0.01,,298.15\n`);
+    const chunk = await chunkOf(
+      `${HEADER}\nD,A,1.0,-1.0,2.5,7,3.5,3.5,35.94,1.344,0.1,,0.01,,298.15\n`,
+    );
     const r = computeChunk(chunk, { kind: 'cs-fast-cr-inverted' });
     expect(r.deltaGCs[0]).toBeCloseTo(-0.557237, 5);
     expect(r.deltaGCr[0]).toBeCloseTo(-1.942763, 5);
@@ -33,7 +35,9 @@ describe('screen chunk computer', () => {
   it('gives the SCIENCE.md §1 worked rate: H = 0.010 eV, λ = 0.80, ΔG° = −0.30 eV → k = 8.978e10 s⁻¹', async () => {
     // Choose potentials so that ΔG_CS = −0.30 eV exactly: with ε huge the Coulomb term vanishes.
     // E_ox − E_red − E00 = −0.30 with E00 = 2.0 → E_ox − E_red = 1.70 V.
-    const chunk = await chunkOf(`${HEADER}\nD,A,0.7,-1.0,2.0,7,3.5,3.5,1e12,1.0,0.3,0.5,0.010,,298.15\n`);
+    const chunk = await chunkOf(
+      `${HEADER}\nD,A,0.7,-1.0,2.0,7,3.5,3.5,1e12,1.0,0.3,0.5,0.010,,298.15\n`,
+    );
     const r = computeChunk(chunk, { kind: 'fastest-forward-above-floor', floorEv: 0.1 });
     expect(r.deltaGCs[0]).toBeCloseTo(-0.3, 9);
     expect(r.log10kCsMarcus[0]).toBeCloseTo(Math.log10(8.978e10), 3);
@@ -44,7 +48,9 @@ describe('screen chunk computer', () => {
   });
 
   it('scores cs-fast-cr-inverted as log10 k_CS − log10 k_CR + 1 when CR is inverted', async () => {
-    const chunk = await chunkOf(`${HEADER}\nD,A,0.7,-1.0,2.0,7,3.5,3.5,1e12,1.0,0.3,0.5,0.010,,298.15\n`);
+    const chunk = await chunkOf(
+      `${HEADER}\nD,A,0.7,-1.0,2.0,7,3.5,3.5,1e12,1.0,0.3,0.5,0.010,,298.15\n`,
+    );
     const r = computeChunk(chunk, { kind: 'cs-fast-cr-inverted' });
     expect(r.score[0]).toBeCloseTo(r.log10kCsMarcus[0] - r.log10kCrMarcus[0] + 1, 12);
     // Same prefactor for both, so the difference is the barrier difference over k_BT:
@@ -55,7 +61,9 @@ describe('screen chunk computer', () => {
 
   it('uses MLJ where ħω is given (λ_inner as λ_v, λ_outer as λ_s) and flags inverted CS', async () => {
     // Deep inverted CS: ΔG_CS = −1.6 eV, λ = 0.7 eV; MLJ exceeds classical Marcus by orders.
-    const chunk = await chunkOf(`${HEADER}\nD,A,0.4,-1.0,3.0,7,3.5,3.5,1e12,1.0,0.3,0.4,0.005,0.18,298.15\n`);
+    const chunk = await chunkOf(
+      `${HEADER}\nD,A,0.4,-1.0,3.0,7,3.5,3.5,1e12,1.0,0.3,0.4,0.005,0.18,298.15\n`,
+    );
     const r = computeChunk(chunk, { kind: 'cs-fast-cr-inverted' });
     expect(r.regimeCs[0]).toBe(2);
     // SCIENCE.md §2: deep in the inverted region MLJ exceeds classical Marcus by decades.
@@ -64,7 +72,9 @@ describe('screen chunk computer', () => {
   });
 
   it('leaves rates empty and warns when 2|H_AB| ≥ λ (VALIDATION.md A5)', async () => {
-    const chunk = await chunkOf(`${HEADER}\nD,A,0.7,-1.0,2.0,7,3.5,3.5,1e12,1.0,0.3,0.1,0.3,,298.15\n`);
+    const chunk = await chunkOf(
+      `${HEADER}\nD,A,0.7,-1.0,2.0,7,3.5,3.5,1e12,1.0,0.3,0.1,0.3,,298.15\n`,
+    );
     const r = computeChunk(chunk, { kind: 'cs-fast-cr-inverted' });
     expect(Number.isNaN(r.log10kCsMarcus[0])).toBe(true);
     expect(warningCodes(r.warningMask[0])).toContain('coupling-delocalized');

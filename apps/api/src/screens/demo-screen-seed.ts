@@ -44,7 +44,10 @@ const noQueue: ScreenService = {
 };
 
 async function workspaceId(db: DataSource, name: string): Promise<string | null> {
-  const [w] = await db.query('SELECT id FROM workspaces WHERE name = $1 ORDER BY created_at LIMIT 1', [name]);
+  const [w] = await db.query(
+    'SELECT id FROM workspaces WHERE name = $1 ORDER BY created_at LIMIT 1',
+    [name],
+  );
   return w?.id ?? null;
 }
 
@@ -62,34 +65,54 @@ export async function seedDemoScreensAndSeries(
   const mediators = await workspaceId(db, options.mediatorsName);
   const owner = await userId(db, options.ownerEmail);
   if (mediators && owner) {
-    const [existing] = await db.query('SELECT id FROM screens WHERE workspace_id = $1 AND name = $2', [
-      mediators,
-      DEMO_SCREEN_NAME,
-    ]);
+    const [existing] = await db.query(
+      'SELECT id FROM screens WHERE workspace_id = $1 AND name = $2',
+      [mediators, DEMO_SCREEN_NAME],
+    );
     if (!existing) {
-      const screen = await uploadScreen(db, noQueue, owner, mediators, readFileSync(DEMO_SCREEN_CSV, 'utf8'), {
-        name: DEMO_SCREEN_NAME,
-        runGoodRows: false,
-        score: { kind: 'cs-fast-cr-inverted' },
-        chunkSize: 50,
-      });
-      for (let i = 0; i < screen.progress.chunkCount; i++) await processChunk(db, screen.id, i, 'demo-seed');
+      const screen = await uploadScreen(
+        db,
+        noQueue,
+        owner,
+        mediators,
+        readFileSync(DEMO_SCREEN_CSV, 'utf8'),
+        {
+          name: DEMO_SCREEN_NAME,
+          runGoodRows: false,
+          score: { kind: 'cs-fast-cr-inverted' },
+          chunkSize: 50,
+        },
+      );
+      for (let i = 0; i < screen.progress.chunkCount; i++)
+        await processChunk(db, screen.id, i, 'demo-seed');
       added.screen = true;
     }
   }
   const lab = await workspaceId(db, options.labName);
   const editor = await userId(db, options.editorEmail);
   if (lab && editor) {
-    const [existing] = await db.query('SELECT id FROM series WHERE workspace_id = $1 AND name = $2', [lab, DEMO_SERIES_NAME]);
+    const [existing] = await db.query(
+      'SELECT id FROM series WHERE workspace_id = $1 AND name = $2',
+      [lab, DEMO_SERIES_NAME],
+    );
     if (!existing) {
       const series = await createSeries(db, editor, lab, {
         name: DEMO_SERIES_NAME,
         temperature: 298.15,
         energyUnit: 'kJ/mol',
         notes: 'Invented demo data: transient-absorption decay rates of the radical-ion pairs.',
-        points: DEMO_SERIES_POINTS.map(([label, deltaG0, log10k, sigmaLog10k]) => ({ label, deltaG0, log10k, sigmaLog10k })),
+        points: DEMO_SERIES_POINTS.map(([label, deltaG0, log10k, sigmaLog10k]) => ({
+          label,
+          deltaG0,
+          log10k,
+          sigmaLog10k,
+        })),
       } as never);
-      await fitSeriesUseCase(db, editor, series.id, { model: 'marcus', hbarOmega: 0.18, lambdaVib: 0.25 });
+      await fitSeriesUseCase(db, editor, series.id, {
+        model: 'marcus',
+        hbarOmega: 0.18,
+        lambdaVib: 0.25,
+      });
       added.series = true;
     }
   }

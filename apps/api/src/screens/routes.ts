@@ -6,7 +6,12 @@
 import type { Readable } from 'node:stream';
 import type { Request, Response, Router } from 'express';
 import multer from 'multer';
-import { canEdit, SCREEN_NUMERIC_COLUMNS, type ScreenNumericColumn, type ScreenResultRow } from '@gapwise/contracts';
+import {
+  canEdit,
+  SCREEN_NUMERIC_COLUMNS,
+  type ScreenNumericColumn,
+  type ScreenResultRow,
+} from '@gapwise/contracts';
 import type { AppDeps } from '../http/context';
 import { requireAuth, userIdOf } from '../http/authenticate';
 import { notFound, validationFailed } from '../http/app-error';
@@ -15,7 +20,13 @@ import { requireRole } from '../workspaces/workspace-access';
 import { SCREEN_WARNINGS, warningBit } from './chunk-computer';
 import { templateCsv } from './screen-columns';
 import { startScreenService, type ScreenService } from './screen-queue';
-import { findScreen, listScreens, queryResults, streamResults, type ResultQuery } from './screen-repository';
+import {
+  findScreen,
+  listScreens,
+  queryResults,
+  streamResults,
+  type ResultQuery,
+} from './screen-repository';
 import { parseScoreChoice, SCORE_DESCRIPTIONS } from './screen-score';
 import {
   cancelScreen,
@@ -42,7 +53,11 @@ function serviceFor(deps: AppDeps): Promise<ScreenService> {
   let service = services.get(deps);
   if (!service) {
     // No worker here: only the queue for sending jobs (a worker runs elsewhere).
-    service = startScreenService(deps.dataSource, { connectionString: deps.config.databaseUrl, runWorker: false, log: deps.log });
+    service = startScreenService(deps.dataSource, {
+      connectionString: deps.config.databaseUrl,
+      runWorker: false,
+      log: deps.log,
+    });
     services.set(deps, service);
   }
   return service;
@@ -52,12 +67,22 @@ const truthy = (v: unknown) => v === 'true' || v === '1' || v === 'yes';
 
 function uploadOptions(req: Request): UploadOptions {
   const errors: FieldError[] = [];
-  const name = queryString(req.query['name'], 'name', errors) ?? `Screen ${new Date().toISOString().slice(0, 16).replace('T', ' ')}`;
+  const name =
+    queryString(req.query['name'], 'name', errors) ??
+    `Screen ${new Date().toISOString().slice(0, 16).replace('T', ' ')}`;
   const score = parseScoreChoice(req.query['score'], req.query['floorEv']);
   if (typeof score === 'string') errors.push({ field: 'score', message: score });
   const choice = queryString(req.query['badRowChoice'], 'badRowChoice', errors);
-  if (choice && choice !== 'fixed' && choice !== 'none') errors.push({ field: 'badRowChoice', message: 'must be fixed or none' });
-  const chunkSize = queryInt(req.query['chunkSize'], 'chunkSize', DEFAULT_CHUNK_SIZE, 50, 20_000, errors);
+  if (choice && choice !== 'fixed' && choice !== 'none')
+    errors.push({ field: 'badRowChoice', message: 'must be fixed or none' });
+  const chunkSize = queryInt(
+    req.query['chunkSize'],
+    'chunkSize',
+    DEFAULT_CHUNK_SIZE,
+    50,
+    20_000,
+    errors,
+  );
   if (errors.length) throw validationFailed(errors);
   return {
     name,
@@ -97,14 +122,19 @@ function resultQuery(req: Request): ResultQuery {
   const descending = sortRaw.startsWith('-');
   const sort = sortRaw.replace(/^-/, '');
   const sortable = [...SCREEN_NUMERIC_COLUMNS, 'donor', 'acceptor'] as string[];
-  if (!sortable.includes(sort)) errors.push({ field: 'sort', message: `must be one of ${sortable.join(', ')} (prefix - for descending)` });
+  if (!sortable.includes(sort))
+    errors.push({
+      field: 'sort',
+      message: `must be one of ${sortable.join(', ')} (prefix - for descending)`,
+    });
   const ranges: Array<{ column: ScreenNumericColumn; min?: number; max?: number }> = [];
   for (const column of SCREEN_NUMERIC_COLUMNS) {
     const read = (suffix: 'Min' | 'Max') => {
       const raw = req.query[`${column}${suffix}`];
       if (raw === undefined || raw === '') return undefined;
       const n = typeof raw === 'string' ? Number(raw) : NaN;
-      if (!Number.isFinite(n)) errors.push({ field: `${column}${suffix}`, message: 'must be a finite number' });
+      if (!Number.isFinite(n))
+        errors.push({ field: `${column}${suffix}`, message: 'must be a finite number' });
       return n;
     };
     const min = read('Min');
@@ -113,7 +143,8 @@ function resultQuery(req: Request): ResultQuery {
   }
   const regime = (field: string) => {
     const value = queryString(req.query[field], field, errors);
-    if (value && !['normal', 'activationless', 'inverted'].includes(value)) errors.push({ field, message: 'must be normal, activationless or inverted' });
+    if (value && !['normal', 'activationless', 'inverted'].includes(value))
+      errors.push({ field, message: 'must be normal, activationless or inverted' });
     return value;
   };
   const regimeCs = regime('regimeCs');
@@ -122,7 +153,11 @@ function resultQuery(req: Request): ResultQuery {
   const warning = queryString(req.query['warning'], 'warning', errors, 2000);
   for (const code of warning ? warning.split(',') : []) {
     const bit = warningBit(code.trim());
-    if (bit === undefined) errors.push({ field: 'warning', message: `unknown warning '${code}'; use ${SCREEN_WARNINGS.join(', ')}` });
+    if (bit === undefined)
+      errors.push({
+        field: 'warning',
+        message: `unknown warning '${code}'; use ${SCREEN_WARNINGS.join(', ')}`,
+      });
     else warningMask |= bit;
   }
   const q = queryString(req.query['q'], 'q', errors);
@@ -168,7 +203,9 @@ function csvCell(value: unknown): string {
   const text = Array.isArray(value) ? value.join(' ') : String(value);
   // Quote separators, and text cells a spreadsheet would read as a formula.
   const formula = typeof value === 'string' && /^[=+\-@]/.test(text);
-  return /[",\n\r]/.test(text) || formula ? `"${formula ? "'" : ''}${text.replace(/"/g, '""')}"` : text;
+  return /[",\n\r]/.test(text) || formula
+    ? `"${formula ? "'" : ''}${text.replace(/"/g, '""')}"`
+    : text;
 }
 
 export function registerScreenRoutes(router: Router, deps: AppDeps): void {
@@ -194,13 +231,22 @@ export function registerScreenRoutes(router: Router, deps: AppDeps): void {
     await requireRole(db.manager, wid, userIdOf(req), canEdit);
     const options = uploadOptions(req);
     const service = await serviceFor(deps);
-    const run = (source: Readable | string) => uploadScreen(db, service, userIdOf(req), wid, source, options);
+    const run = (source: Readable | string) =>
+      uploadScreen(db, service, userIdOf(req), wid, source, options);
     const type = req.headers['content-type'] ?? '';
     if (type.startsWith('multipart/form-data')) {
-      const upload = multer({ storage: streamingStorage(run), limits: { files: 1, fileSize: 512 * 1024 * 1024 } }).single('file');
-      await new Promise<void>((resolve, reject) => upload(req, res, (err: unknown) => (err ? reject(err) : resolve())));
+      const upload = multer({
+        storage: streamingStorage(run),
+        limits: { files: 1, fileSize: 512 * 1024 * 1024 },
+      }).single('file');
+      await new Promise<void>((resolve, reject) =>
+        upload(req, res, (err: unknown) => (err ? reject(err) : resolve())),
+      );
       const result = (req as Request & { screenUpload?: unknown }).screenUpload;
-      if (!result) throw validationFailed([{ field: 'file', message: 'attach the CSV as the multipart field "file"' }]);
+      if (!result)
+        throw validationFailed([
+          { field: 'file', message: 'attach the CSV as the multipart field "file"' },
+        ]);
       res.status(201).json(result);
       return;
     }
@@ -210,7 +256,9 @@ export function registerScreenRoutes(router: Router, deps: AppDeps): void {
     }
     const csv = (req.body as { csv?: unknown } | undefined)?.csv;
     if (typeof csv !== 'string' || csv.trim() === '') {
-      throw validationFailed([{ field: 'csv', message: 'paste the CSV text as "csv", or upload a file' }]);
+      throw validationFailed([
+        { field: 'csv', message: 'paste the CSV text as "csv", or upload a file' },
+      ]);
     }
     res.status(201).json(await run(csv));
   });
@@ -248,10 +296,15 @@ export function registerScreenRoutes(router: Router, deps: AppDeps): void {
     await screenForCaller(db.manager, id, userIdOf(req));
     const query = resultQuery(req);
     res.setHeader('Content-Type', 'text/csv; charset=utf-8');
-    res.setHeader('Content-Disposition', `attachment; filename="screen-${id.slice(0, 8)}-results.csv"`);
+    res.setHeader(
+      'Content-Disposition',
+      `attachment; filename="screen-${id.slice(0, 8)}-results.csv"`,
+    );
     res.write(`${CSV_COLUMNS.map(([, label]) => label).join(',')}\n`);
     for await (const batch of streamResults(db.manager, id, query)) {
-      const text = batch.map((row) => CSV_COLUMNS.map(([key]) => csvCell(row[key])).join(',')).join('\n');
+      const text = batch
+        .map((row) => CSV_COLUMNS.map(([key]) => csvCell(row[key])).join(','))
+        .join('\n');
       if (!res.write(`${text}\n`)) await new Promise((resolve) => res.once('drain', resolve));
     }
     res.end();
@@ -265,4 +318,3 @@ export function registerScreenRoutes(router: Router, deps: AppDeps): void {
     res.status(201).json(await openRowAsPair(db, userIdOf(req), id, row));
   });
 }
-

@@ -7,7 +7,13 @@ import { allowedUnits, canonicalUnit, isUnitFor, toCanonical, type Quantity } fr
 
 export type ColumnQuantity = Extract<
   Quantity,
-  'energy' | 'potential' | 'distance' | 'temperature' | 'inverseDistance' | 'dimensionless' | 'string'
+  | 'energy'
+  | 'potential'
+  | 'distance'
+  | 'temperature'
+  | 'inverseDistance'
+  | 'dimensionless'
+  | 'string'
 >;
 
 export interface ColumnSpec {
@@ -45,33 +51,176 @@ export type ScreenColumnKey = 'donor' | 'acceptor' | 'solvent' | NumericKey;
 
 /** Every column, in template order. Optional columns may be left out of the header. */
 export const SCREEN_COLUMNS: readonly ColumnSpec[] = [
-  { key: 'donor', quantity: 'string', required: true, templateUnit: '', example: 'Med-1', description: 'Donor code' },
-  { key: 'acceptor', quantity: 'string', required: true, templateUnit: '', example: 'Med-2', description: 'Acceptor code' },
-  { key: 'donorOxidation', quantity: 'potential', required: true, templateUnit: 'V', example: '0.95', description: 'E_ox(D⁺/D), same reference electrode and solvent as the acceptor' },
-  { key: 'acceptorReduction', quantity: 'potential', required: true, templateUnit: 'V', example: '-1.10', description: 'E_red(A/A⁻)' },
-  { key: 'excitationEnergy', quantity: 'energy', required: true, templateUnit: 'eV', example: '2.45', description: '0–0 excitation energy E₀₀ of the excited partner' },
-  { key: 'distance', quantity: 'distance', required: true, templateUnit: 'A', example: '7.0', description: 'Centre-to-centre distance R' },
-  { key: 'radiusDonor', quantity: 'distance', required: false, templateUnit: 'A', example: '3.5', description: 'Donor radius (two-sphere λ_outer, Weller correction)' },
-  { key: 'radiusAcceptor', quantity: 'distance', required: false, templateUnit: 'A', example: '3.5', description: 'Acceptor radius' },
-  { key: 'solvent', quantity: 'string', required: false, templateUnit: '', example: 'acetonitrile', description: 'A solvent of the built-in table, or empty and give epsilon and refractiveIndex' },
-  { key: 'epsilon', quantity: 'dimensionless', required: false, templateUnit: '', example: '', description: 'Static dielectric constant ε_s (overrides the table)' },
-  { key: 'refractiveIndex', quantity: 'dimensionless', required: false, templateUnit: '', example: '', description: 'Refractive index n (overrides the table)' },
-  { key: 'epsilonReference', quantity: 'dimensionless', required: false, templateUnit: '', example: '', description: 'ε of the solvent the potentials were measured in (Weller correction; needs radii)' },
-  { key: 'lambdaInner', quantity: 'energy', required: true, templateUnit: 'eV', example: '0.15', description: 'Inner-sphere reorganization energy (the quantum mode part for MLJ)' },
-  { key: 'lambdaOuter', quantity: 'energy', required: false, templateUnit: 'eV', example: '', description: 'Outer-sphere λ; empty = two-sphere estimate from radii, R, ε_s, n' },
-  { key: 'coupling', quantity: 'energy', required: false, templateUnit: 'cm-1', example: '80', description: '|H_AB|; empty = distance decay from coupling0, distance0, beta' },
-  { key: 'coupling0', quantity: 'energy', required: false, templateUnit: 'cm-1', example: '', description: 'Coupling at contact distance0 (distance decay)' },
-  { key: 'distance0', quantity: 'distance', required: false, templateUnit: 'A', example: '', description: 'Contact distance of coupling0' },
-  { key: 'beta', quantity: 'inverseDistance', required: false, templateUnit: 'A-1', example: '', description: 'Decay constant β of the rate (coupling decays with β/2)' },
-  { key: 'hbarOmega', quantity: 'energy', required: false, templateUnit: 'eV', example: '0.18', description: 'Effective quantum mode ħω; given = MLJ rates as well' },
-  { key: 'temperature', quantity: 'temperature', required: true, templateUnit: 'K', example: '298.15', description: 'Temperature' },
+  {
+    key: 'donor',
+    quantity: 'string',
+    required: true,
+    templateUnit: '',
+    example: 'Med-1',
+    description: 'Donor code',
+  },
+  {
+    key: 'acceptor',
+    quantity: 'string',
+    required: true,
+    templateUnit: '',
+    example: 'Med-2',
+    description: 'Acceptor code',
+  },
+  {
+    key: 'donorOxidation',
+    quantity: 'potential',
+    required: true,
+    templateUnit: 'V',
+    example: '0.95',
+    description: 'E_ox(D⁺/D), same reference electrode and solvent as the acceptor',
+  },
+  {
+    key: 'acceptorReduction',
+    quantity: 'potential',
+    required: true,
+    templateUnit: 'V',
+    example: '-1.10',
+    description: 'E_red(A/A⁻)',
+  },
+  {
+    key: 'excitationEnergy',
+    quantity: 'energy',
+    required: true,
+    templateUnit: 'eV',
+    example: '2.45',
+    description: '0–0 excitation energy E₀₀ of the excited partner',
+  },
+  {
+    key: 'distance',
+    quantity: 'distance',
+    required: true,
+    templateUnit: 'A',
+    example: '7.0',
+    description: 'Centre-to-centre distance R',
+  },
+  {
+    key: 'radiusDonor',
+    quantity: 'distance',
+    required: false,
+    templateUnit: 'A',
+    example: '3.5',
+    description: 'Donor radius (two-sphere λ_outer, Weller correction)',
+  },
+  {
+    key: 'radiusAcceptor',
+    quantity: 'distance',
+    required: false,
+    templateUnit: 'A',
+    example: '3.5',
+    description: 'Acceptor radius',
+  },
+  {
+    key: 'solvent',
+    quantity: 'string',
+    required: false,
+    templateUnit: '',
+    example: 'acetonitrile',
+    description: 'A solvent of the built-in table, or empty and give epsilon and refractiveIndex',
+  },
+  {
+    key: 'epsilon',
+    quantity: 'dimensionless',
+    required: false,
+    templateUnit: '',
+    example: '',
+    description: 'Static dielectric constant ε_s (overrides the table)',
+  },
+  {
+    key: 'refractiveIndex',
+    quantity: 'dimensionless',
+    required: false,
+    templateUnit: '',
+    example: '',
+    description: 'Refractive index n (overrides the table)',
+  },
+  {
+    key: 'epsilonReference',
+    quantity: 'dimensionless',
+    required: false,
+    templateUnit: '',
+    example: '',
+    description:
+      'ε of the solvent the potentials were measured in (Weller correction; needs radii)',
+  },
+  {
+    key: 'lambdaInner',
+    quantity: 'energy',
+    required: true,
+    templateUnit: 'eV',
+    example: '0.15',
+    description: 'Inner-sphere reorganization energy (the quantum mode part for MLJ)',
+  },
+  {
+    key: 'lambdaOuter',
+    quantity: 'energy',
+    required: false,
+    templateUnit: 'eV',
+    example: '',
+    description: 'Outer-sphere λ; empty = two-sphere estimate from radii, R, ε_s, n',
+  },
+  {
+    key: 'coupling',
+    quantity: 'energy',
+    required: false,
+    templateUnit: 'cm-1',
+    example: '80',
+    description: '|H_AB|; empty = distance decay from coupling0, distance0, beta',
+  },
+  {
+    key: 'coupling0',
+    quantity: 'energy',
+    required: false,
+    templateUnit: 'cm-1',
+    example: '',
+    description: 'Coupling at contact distance0 (distance decay)',
+  },
+  {
+    key: 'distance0',
+    quantity: 'distance',
+    required: false,
+    templateUnit: 'A',
+    example: '',
+    description: 'Contact distance of coupling0',
+  },
+  {
+    key: 'beta',
+    quantity: 'inverseDistance',
+    required: false,
+    templateUnit: 'A-1',
+    example: '',
+    description: 'Decay constant β of the rate (coupling decays with β/2)',
+  },
+  {
+    key: 'hbarOmega',
+    quantity: 'energy',
+    required: false,
+    templateUnit: 'eV',
+    example: '0.18',
+    description: 'Effective quantum mode ħω; given = MLJ rates as well',
+  },
+  {
+    key: 'temperature',
+    quantity: 'temperature',
+    required: true,
+    templateUnit: 'K',
+    example: '298.15',
+    description: 'Temperature',
+  },
 ];
 
 const BY_LOWER_KEY = new Map(SCREEN_COLUMNS.map((c) => [c.key.toLowerCase(), c]));
 
 /** The downloadable template: header with units and one example row. */
 export function templateCsv(): string {
-  const header = SCREEN_COLUMNS.map((c) => (c.templateUnit ? `${c.key} [${c.templateUnit}]` : c.key));
+  const header = SCREEN_COLUMNS.map((c) =>
+    c.templateUnit ? `${c.key} [${c.templateUnit}]` : c.key,
+  );
   const example = SCREEN_COLUMNS.map((c) => c.example);
   return `${header.join(',')}\n${example.join(',')}\n`;
 }
@@ -96,7 +245,9 @@ export interface HeaderProblem {
  * Resolves the header row: `name` or `name [unit]`, names case-insensitive. Unknown or
  * duplicate names, refused units and missing required columns are all reported.
  */
-export function resolveHeader(cells: readonly string[]):
+export function resolveHeader(
+  cells: readonly string[],
+):
   | { ok: true; columns: ResolvedColumn[]; width: number }
   | { ok: false; problems: HeaderProblem[] } {
   const problems: string[] = [];
@@ -138,8 +289,10 @@ export function resolveHeader(cells: readonly string[]):
     columns.push({ spec, index, unit: typed, scale, offset });
   });
   for (const spec of SCREEN_COLUMNS) {
-    if (spec.required && !seen.has(spec.key)) problems.push(`missing required column '${spec.key}'`);
+    if (spec.required && !seen.has(spec.key))
+      problems.push(`missing required column '${spec.key}'`);
   }
-  if (problems.length > 0) return { ok: false, problems: problems.map((message) => ({ line: 1, message })) };
+  if (problems.length > 0)
+    return { ok: false, problems: problems.map((message) => ({ line: 1, message })) };
   return { ok: true, columns, width: cells.length };
 }

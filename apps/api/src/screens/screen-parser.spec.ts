@@ -1,6 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { Readable } from 'node:stream';
-import { decodeInputChunk, encodeInputChunk, parseScreenCsv, type InputChunk } from './screen-parser';
+import {
+  decodeInputChunk,
+  encodeInputChunk,
+  parseScreenCsv,
+  type InputChunk,
+} from './screen-parser';
 import { templateCsv } from './screen-columns';
 
 const HEADER =
@@ -80,7 +85,10 @@ describe('screen CSV parser', () => {
   });
 
   it('lists only the first 20 bad rows but counts all', async () => {
-    const bad = Array.from({ length: 30 }, () => 'D,A,x,-1000,2.5,0.7,3.5,3.5,acetonitrile,2.3,80,25');
+    const bad = Array.from(
+      { length: 30 },
+      () => 'D,A,x,-1000,2.5,0.7,3.5,3.5,acetonitrile,2.3,80,25',
+    );
     const { summary } = await parseAll(`${HEADER}\n${bad.join('\n')}\n`);
     expect(summary.badRowCount).toBe(30);
     expect(summary.badRows).toHaveLength(20);

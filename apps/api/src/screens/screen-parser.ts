@@ -7,7 +7,12 @@
 import { createHash } from 'node:crypto';
 import type { Readable } from 'node:stream';
 import { parse } from 'csv-parse';
-import { NUMERIC_KEYS, resolveHeader, type NumericKey, type ResolvedColumn } from './screen-columns';
+import {
+  NUMERIC_KEYS,
+  resolveHeader,
+  type NumericKey,
+  type ResolvedColumn,
+} from './screen-columns';
 import { findSolvent } from './solvents';
 
 /** One chunk of good rows, canonical units, NaN where a cell was empty. */
@@ -97,27 +102,33 @@ function readRow(
 
   if (text.solvent !== '') {
     const solvent = findSolvent(text.solvent);
-    if (!solvent) problems.push(`unknown solvent '${text.solvent}'; give epsilon and refractiveIndex instead`);
+    if (!solvent)
+      problems.push(`unknown solvent '${text.solvent}'; give epsilon and refractiveIndex instead`);
     else {
       if (Number.isNaN(out.epsilon)) out.epsilon = solvent.epsilon;
       if (Number.isNaN(out.refractiveIndex)) out.refractiveIndex = solvent.refractiveIndex;
     }
   }
   const has = (key: NumericKey) => !Number.isNaN(out[key]);
-  if (!(out.temperature > 0)) problems.push('Temperature must be > 0 K (absolute). Did you enter °C?');
+  if (!(out.temperature > 0))
+    problems.push('Temperature must be > 0 K (absolute). Did you enter °C?');
   if (!(out.distance > 0)) problems.push('Radii and distances must be > 0 (distance).');
   for (const key of ['radiusDonor', 'radiusAcceptor', 'distance0'] as const) {
     if (has(key) && !(out[key] > 0)) problems.push(`Radii and distances must be > 0 (${key}).`);
   }
   if (!has('epsilon')) problems.push('give a solvent from the table or epsilon');
-  else if (out.epsilon < 1) problems.push('Dielectric constant and refractive index must be ≥ 1 (epsilon).');
+  else if (out.epsilon < 1)
+    problems.push('Dielectric constant and refractive index must be ≥ 1 (epsilon).');
   if (has('refractiveIndex') && out.refractiveIndex < 1) {
     problems.push('Dielectric constant and refractive index must be ≥ 1 (refractiveIndex).');
   }
   if (has('epsilonReference')) {
-    if (out.epsilonReference < 1) problems.push('Dielectric constant must be ≥ 1 (epsilonReference).');
+    if (out.epsilonReference < 1)
+      problems.push('Dielectric constant must be ≥ 1 (epsilonReference).');
     if (!has('radiusDonor') || !has('radiusAcceptor')) {
-      problems.push('the Weller correction (epsilonReference) needs radiusDonor and radiusAcceptor');
+      problems.push(
+        'the Weller correction (epsilonReference) needs radiusDonor and radiusAcceptor',
+      );
     }
   }
   if (out.lambdaInner < 0) problems.push('lambdaInner must be ≥ 0.');
@@ -125,20 +136,25 @@ function readRow(
     if (out.lambdaOuter < 0) problems.push('lambdaOuter must be ≥ 0.');
   } else {
     if (!has('radiusDonor') || !has('radiusAcceptor') || !has('refractiveIndex')) {
-      problems.push('lambdaOuter is empty: give radiusDonor, radiusAcceptor and refractiveIndex (or a solvent) to derive it');
+      problems.push(
+        'lambdaOuter is empty: give radiusDonor, radiusAcceptor and refractiveIndex (or a solvent) to derive it',
+      );
     } else {
       if (out.distance < out.radiusDonor + out.radiusAcceptor) {
         problems.push('Centre-to-centre distance must be ≥ a_D + a_A.');
       }
       if (has('epsilon') && out.refractiveIndex ** 2 > out.epsilon) {
-        problems.push('Optical dielectric constant exceeds static one; for a non-polar solvent set lambdaOuter = 0 explicitly.');
+        problems.push(
+          'Optical dielectric constant exceeds static one; for a non-polar solvent set lambdaOuter = 0 explicitly.',
+        );
       }
     }
   }
   const lambdaOuterZero = has('lambdaOuter')
     ? out.lambdaOuter === 0
     : has('epsilon') && out.refractiveIndex ** 2 === out.epsilon;
-  if (out.lambdaInner === 0 && lambdaOuterZero) problems.push('Reorganization energy must be a positive number.');
+  if (out.lambdaInner === 0 && lambdaOuterZero)
+    problems.push('Reorganization energy must be a positive number.');
   if (!has('coupling')) {
     if (!has('coupling0') || !has('distance0') || !has('beta')) {
       problems.push('coupling is empty: give coupling0, distance0 and beta for distance decay');
@@ -152,10 +168,19 @@ function readRow(
  * Parses a CSV stream. Header problems are fatal (reported on line 1); row problems are
  * collected and the good rows go on to `onChunk`.
  */
-export async function parseScreenCsv(source: Readable | string, options: ParseOptions): Promise<ParseSummary> {
+export async function parseScreenCsv(
+  source: Readable | string,
+  options: ParseOptions,
+): Promise<ParseSummary> {
   const maxListed = options.maxListed ?? 20;
   const chunkSize = options.chunkSize;
-  const parser = parse({ relax_column_count: true, skip_empty_lines: true, bom: true, info: true, relax_quotes: true });
+  const parser = parse({
+    relax_column_count: true,
+    skip_empty_lines: true,
+    bom: true,
+    info: true,
+    relax_quotes: true,
+  });
   const hash = createHash('sha256');
   const badRows: BadRow[] = [];
   let badRowCount = 0;
@@ -173,7 +198,14 @@ export async function parseScreenCsv(source: Readable | string, options: ParseOp
   const text = { donor: '', acceptor: '', solvent: '' };
 
   function newChunk(index: number): InputChunk {
-    return { index, lines: [], donor: [], acceptor: [], solvent: [], values: emptyValues(chunkSize) };
+    return {
+      index,
+      lines: [],
+      donor: [],
+      acceptor: [],
+      solvent: [],
+      values: emptyValues(chunkSize),
+    };
   }
   const bad = (line: number, message: string) => {
     badRowCount += 1;
@@ -212,7 +244,10 @@ export async function parseScreenCsv(source: Readable | string, options: ParseOp
       headerFirst = cells[0]?.trim().toLowerCase() ?? '';
       continue;
     }
-    if (cells[0]?.trim().toLowerCase() === headerFirst && cells.map((c) => c.trim().toLowerCase()).join(',') === headerKey) {
+    if (
+      cells[0]?.trim().toLowerCase() === headerFirst &&
+      cells.map((c) => c.trim().toLowerCase()).join(',') === headerKey
+    ) {
       bad(line, 'a second header in the middle of the file');
       continue;
     }
@@ -257,7 +292,11 @@ export function encodeInputChunk(chunk: InputChunk): string {
   for (const key of NUMERIC_KEYS) {
     const column = chunk.values[key];
     let any = false;
-    for (let i = 0; i < column.length; i++) if (!Number.isNaN(column[i])) { any = true; break; }
+    for (let i = 0; i < column.length; i++)
+      if (!Number.isNaN(column[i])) {
+        any = true;
+        break;
+      }
     if (any) values[key] = Array.from(column, (v) => (Number.isNaN(v) ? null : v));
   }
   return JSON.stringify({
@@ -285,5 +324,12 @@ export function decodeInputChunk(index: number, text: string): InputChunk {
     const target = values[key];
     for (let i = 0; i < size; i++) target[i] = column[i] ?? Number.NaN;
   }
-  return { index, lines: raw.lines, donor: raw.donor, acceptor: raw.acceptor, solvent: raw.solvent, values };
+  return {
+    index,
+    lines: raw.lines,
+    donor: raw.donor,
+    acceptor: raw.acceptor,
+    solvent: raw.solvent,
+    values,
+  };
 }

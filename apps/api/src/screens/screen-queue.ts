@@ -23,10 +23,16 @@ export interface ScreenQueueOptions {
   readonly retryLimit: number;
 }
 
-export const DEFAULT_SCREEN_QUEUE_OPTIONS: ScreenQueueOptions = { expireInSeconds: 120, retryLimit: 8 };
+export const DEFAULT_SCREEN_QUEUE_OPTIONS: ScreenQueueOptions = {
+  expireInSeconds: 120,
+  retryLimit: 8,
+};
 
 /** Creates the queue (idempotent; pg-boss needs it before `send`). */
-export async function ensureScreenQueue(boss: PgBoss, options = DEFAULT_SCREEN_QUEUE_OPTIONS): Promise<void> {
+export async function ensureScreenQueue(
+  boss: PgBoss,
+  options = DEFAULT_SCREEN_QUEUE_OPTIONS,
+): Promise<void> {
   await boss.createQueue(SCREEN_QUEUE, {
     name: SCREEN_QUEUE,
     retryLimit: options.retryLimit,
@@ -47,7 +53,9 @@ export async function enqueueChunks(
   options = DEFAULT_SCREEN_QUEUE_OPTIONS,
 ): Promise<void> {
   if (chunkIndexes.length === 0) return;
-  const db = { executeSql: async (text: string, values: unknown[]) => ({ rows: await tx.query(text, values) }) };
+  const db = {
+    executeSql: async (text: string, values: unknown[]) => ({ rows: await tx.query(text, values) }),
+  };
   const jobs = chunkIndexes.map((chunkIndex) => ({
     name: SCREEN_QUEUE,
     data: { screenId, chunkIndex } satisfies ScreenJobData,
@@ -77,7 +85,11 @@ export interface ScreenWorkerOptions {
  * Starts the worker loop: fetch one job, compute and store its chunk, complete the job, and
  * fetch again at once while there is work (no polling delay between busy jobs).
  */
-export function startScreenWorker(boss: PgBoss, db: DataSource, options: ScreenWorkerOptions = {}): ScreenWorker {
+export function startScreenWorker(
+  boss: PgBoss,
+  db: DataSource,
+  options: ScreenWorkerOptions = {},
+): ScreenWorker {
   const id = `${hostname()}:${process.pid}:${Math.random().toString(36).slice(2, 8)}`;
   const idleMs = options.idleMs ?? 250;
   let stopping = false;
@@ -107,14 +119,20 @@ export function startScreenWorker(boss: PgBoss, db: DataSource, options: ScreenW
       for (const job of jobs) {
         try {
           const delay = options.chunkDelayMs;
-          const hooks = delay ? { beforeCommit: () => new Promise<void>((r) => setTimeout(r, delay)) } : {};
+          const hooks = delay
+            ? { beforeCommit: () => new Promise<void>((r) => setTimeout(r, delay)) }
+            : {};
           const outcome = await processChunk(db, job.data.screenId, job.data.chunkIndex, id, hooks);
           if (outcome === 'done') processed += 1;
           await boss.complete(SCREEN_QUEUE, job.id, { outcome });
         } catch (err) {
-          options.log?.(`screen worker ${id}: chunk ${job.data.chunkIndex} failed: ${(err as Error).message}`);
+          options.log?.(
+            `screen worker ${id}: chunk ${job.data.chunkIndex} failed: ${(err as Error).message}`,
+          );
           await recordChunkError(db, job.data.screenId, err as Error);
-          await boss.fail(SCREEN_QUEUE, job.id, { message: (err as Error).message }).catch(() => undefined);
+          await boss
+            .fail(SCREEN_QUEUE, job.id, { message: (err as Error).message })
+            .catch(() => undefined);
         }
       }
     }
@@ -158,7 +176,10 @@ export interface ScreenServiceOptions {
 }
 
 /** Starts pg-boss for screens (its own small connection pool) and the worker when asked. */
-export async function startScreenService(db: DataSource, options: ScreenServiceOptions): Promise<ScreenService> {
+export async function startScreenService(
+  db: DataSource,
+  options: ScreenServiceOptions,
+): Promise<ScreenService> {
   const queueOptions = options.queueOptions ?? DEFAULT_SCREEN_QUEUE_OPTIONS;
   const boss = new PgBoss({
     connectionString: options.connectionString,
@@ -178,7 +199,8 @@ export async function startScreenService(db: DataSource, options: ScreenServiceO
     boss,
     queueOptions,
     worker,
-    enqueue: (tx, screenId, chunkIndexes) => enqueueChunks(boss, tx, screenId, chunkIndexes, queueOptions),
+    enqueue: (tx, screenId, chunkIndexes) =>
+      enqueueChunks(boss, tx, screenId, chunkIndexes, queueOptions),
     async stop() {
       await worker?.stop();
       await boss.stop({ graceful: true, wait: true, timeout: 5000 });
@@ -201,7 +223,8 @@ export function screenServiceOptionsFromEnv(
     const raw = env[name];
     if (raw === undefined || raw === '') return fallback;
     const n = Number(raw);
-    if (!Number.isInteger(n) || n < 1 || n > 86_400) problems.push(`${name} must be an integer from 1 to 86400`);
+    if (!Number.isInteger(n) || n < 1 || n > 86_400)
+      problems.push(`${name} must be an integer from 1 to 86400`);
     return n;
   };
   const flag = env['GAPWISE_SCREEN_WORKER'];
@@ -211,7 +234,10 @@ export function screenServiceOptionsFromEnv(
     else if (['0', 'false', 'no'].includes(flag.toLowerCase())) runWorker = false;
     else problems.push('GAPWISE_SCREEN_WORKER must be true or false');
   }
-  const expireInSeconds = int('GAPWISE_SCREEN_JOB_EXPIRE_SECONDS', DEFAULT_SCREEN_QUEUE_OPTIONS.expireInSeconds);
+  const expireInSeconds = int(
+    'GAPWISE_SCREEN_JOB_EXPIRE_SECONDS',
+    DEFAULT_SCREEN_QUEUE_OPTIONS.expireInSeconds,
+  );
   const maintenanceIntervalSeconds = int('GAPWISE_SCREEN_MAINTENANCE_SECONDS', 60);
   const delayRaw = env['GAPWISE_SCREEN_TEST_CHUNK_DELAY_MS'];
   const chunkDelayMs = delayRaw ? Number(delayRaw) : undefined;

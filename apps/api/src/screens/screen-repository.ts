@@ -95,12 +95,17 @@ const SCREEN_COLUMNS = `id, workspace_id, name, status, input_hash, software_ver
   error, upload_ms, created_at, started_at, finished_at, now() AS now`;
 
 export async function findScreen(db: EntityManager, id: string): Promise<Screen | null> {
-  const rows: ScreenRow[] = await db.query(`SELECT ${SCREEN_COLUMNS} FROM screens WHERE id = $1`, [id]);
+  const rows: ScreenRow[] = await db.query(`SELECT ${SCREEN_COLUMNS} FROM screens WHERE id = $1`, [
+    id,
+  ]);
   return rows[0] ? toScreen(rows[0]) : null;
 }
 
 export async function screenWorkspace(db: EntityManager, id: string): Promise<string | null> {
-  const rows: Array<{ workspace_id: string }> = await db.query('SELECT workspace_id FROM screens WHERE id = $1', [id]);
+  const rows: Array<{ workspace_id: string }> = await db.query(
+    'SELECT workspace_id FROM screens WHERE id = $1',
+    [id],
+  );
   return rows[0]?.workspace_id ?? null;
 }
 
@@ -217,7 +222,11 @@ function orderOf(query: ResultQuery): string {
   return `ORDER BY ${COLUMN_SQL[query.sort]} ${dir} NULLS LAST, row_number ${dir}`;
 }
 
-export async function queryResults(db: EntityManager, screenId: string, query: ResultQuery): Promise<ScreenResultPage> {
+export async function queryResults(
+  db: EntityManager,
+  screenId: string,
+  query: ResultQuery,
+): Promise<ScreenResultPage> {
   const where = whereOf(screenId, query);
   const n = where.params.length;
   const [rows, count] = await Promise.all([
@@ -225,11 +234,17 @@ export async function queryResults(db: EntityManager, screenId: string, query: R
       `SELECT ${RESULT_COLUMNS} FROM screen_results WHERE ${where.sql} ${orderOf(query)} LIMIT $${n + 1} OFFSET $${n + 2}`,
       [...where.params, query.limit, query.offset],
     ) as Promise<ResultRow[]>,
-    db.query(`SELECT count(*)::int AS n FROM screen_results WHERE ${where.sql}`, where.params) as Promise<
-      Array<{ n: number }>
-    >,
+    db.query(
+      `SELECT count(*)::int AS n FROM screen_results WHERE ${where.sql}`,
+      where.params,
+    ) as Promise<Array<{ n: number }>>,
   ]);
-  return { items: rows.map(toResultRow), total: count[0].n, offset: query.offset, limit: query.limit };
+  return {
+    items: rows.map(toResultRow),
+    total: count[0].n,
+    offset: query.offset,
+    limit: query.limit,
+  };
 }
 
 /** Every filtered row in order, in batches (for the streamed CSV export). */
@@ -252,7 +267,11 @@ export async function* streamResults(
   }
 }
 
-export async function findResult(db: EntityManager, screenId: string, row: number): Promise<ScreenResultRow | null> {
+export async function findResult(
+  db: EntityManager,
+  screenId: string,
+  row: number,
+): Promise<ScreenResultRow | null> {
   const rows: ResultRow[] = await db.query(
     `SELECT ${RESULT_COLUMNS} FROM screen_results WHERE screen_id = $1 AND row_number = $2`,
     [screenId, row],

@@ -10,10 +10,15 @@ import { computeChunk, REGIMES, type ChunkResult } from './chunk-computer';
 import { decodeInputChunk } from './screen-parser';
 import type { ScoreChoice, ScoreKind } from './screen-score';
 
-const num = (a: Float64Array): Array<number | null> => Array.from(a, (x) => (Number.isFinite(x) ? x : null));
+const num = (a: Float64Array): Array<number | null> =>
+  Array.from(a, (x) => (Number.isFinite(x) ? x : null));
 
 /** Inserts the rows of a chunk result (ignoring rows already there). */
-export async function insertResults(tx: EntityManager, screenId: string, r: ChunkResult): Promise<void> {
+export async function insertResults(
+  tx: EntityManager,
+  screenId: string,
+  r: ChunkResult,
+): Promise<void> {
   const regime = (codes: Uint8Array, valid: Float64Array) =>
     Array.from(codes, (c, i) => (Number.isFinite(valid[i]) ? REGIMES[c] : null));
   await tx.query(
@@ -70,14 +75,18 @@ export async function processChunk(
     [screenId, chunkIndex, worker],
   );
   return db.transaction(async (tx) => {
-    const rows: Array<{ status: string; screen_status: string; score_kind: string; score_floor_ev: number | null }> =
-      await tx.query(
-        `SELECT c.status, s.status AS screen_status, s.score_kind, s.score_floor_ev
+    const rows: Array<{
+      status: string;
+      screen_status: string;
+      score_kind: string;
+      score_floor_ev: number | null;
+    }> = await tx.query(
+      `SELECT c.status, s.status AS screen_status, s.score_kind, s.score_floor_ev
            FROM screen_chunks c JOIN screens s ON s.id = c.screen_id
           WHERE c.screen_id = $1 AND c.chunk_index = $2
           FOR UPDATE OF c`,
-        [screenId, chunkIndex],
-      );
+      [screenId, chunkIndex],
+    );
     const chunk = rows[0];
     if (!chunk) return 'missing';
     if (chunk.status === 'done') return 'already-done';

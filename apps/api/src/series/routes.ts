@@ -27,7 +27,9 @@ export function registerSeriesRoutes(router: Router, deps: AppDeps): void {
   router.post('/workspaces/:wid/series', requireAuth, async (req, res) => {
     const wid = String(req.params['wid']);
     await requireRole(db.manager, wid, userIdOf(req), canEdit);
-    res.status(201).json(await createSeries(db, userIdOf(req), wid, parseBody(SeriesInputDto, req.body)));
+    res
+      .status(201)
+      .json(await createSeries(db, userIdOf(req), wid, parseBody(SeriesInputDto, req.body)));
   });
 
   router.get('/workspaces/:wid/series', requireAuth, async (req, res) => {
@@ -47,11 +49,15 @@ export function registerSeriesRoutes(router: Router, deps: AppDeps): void {
 
   router.post('/series/:id/fit', requireAuth, async (req, res) => {
     const seriesId = id(req);
-    res.json(await fitSeriesUseCase(db, userIdOf(req), seriesId, parseBody(SeriesFitDto, req.body)));
+    res.json(
+      await fitSeriesUseCase(db, userIdOf(req), seriesId, parseBody(SeriesFitDto, req.body)),
+    );
   });
 
   router.post('/series/:id/apply', requireAuth, async (req, res) => {
     const seriesId = id(req);
-    res.json({ pairs: await applySeries(db, userIdOf(req), seriesId, parseBody(SeriesApplyDto, req.body)) });
+    res.json({
+      pairs: await applySeries(db, userIdOf(req), seriesId, parseBody(SeriesApplyDto, req.body)),
+    });
   });
 }

@@ -25,16 +25,24 @@ function grid(points: readonly SeriesPoint[], lambda: number): number[] {
   return Array.from({ length: 121 }, (_, i) => lo + ((hi - lo) * i) / 120);
 }
 
-function fitOne(points: readonly SeriesPoint[], temperatureK: number, request: FitRequest): SeriesModelFit {
+function fitOne(
+  points: readonly SeriesPoint[],
+  temperatureK: number,
+  request: FitRequest,
+): SeriesModelFit {
   const inputs = {
     points: points.map((p) => ({ deltaG0: p.deltaG0, k: 10 ** p.log10k })),
     temperature: temperatureK,
     model: request.model,
-    ...(request.model === 'mlj' ? { hbarOmega: request.hbarOmega, lambdaVib: request.lambdaVib } : {}),
+    ...(request.model === 'mlj'
+      ? { hbarOmega: request.hbarOmega, lambdaVib: request.lambdaVib }
+      : {}),
   };
   const answer = calculate({ method: 'fit.drivingForceSeries', inputs });
   if (!answer.ok) {
-    throw validationFailed(answer.errors.map((e) => ({ field: `${request.model}.${e.field}`, message: e.message })));
+    throw validationFailed(
+      answer.errors.map((e) => ({ field: `${request.model}.${e.field}`, message: e.message })),
+    );
   }
   const o = answer.outputs as {
     lambda: number;
@@ -73,7 +81,11 @@ function fitOne(points: readonly SeriesPoint[], temperatureK: number, request: F
 }
 
 /** Fits the asked model, and the other one too when it can be fitted, for the comparison. */
-export function fitSeries(points: readonly SeriesPoint[], temperatureK: number, request: FitRequest): SeriesFit {
+export function fitSeries(
+  points: readonly SeriesPoint[],
+  temperatureK: number,
+  request: FitRequest,
+): SeriesFit {
   const fits: Partial<Record<SeriesModel, SeriesModelFit>> = {};
   fits[request.model] = fitOne(points, temperatureK, request);
   const mljPossible = request.hbarOmega !== undefined && request.lambdaVib !== undefined;

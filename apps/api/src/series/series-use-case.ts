@@ -38,7 +38,11 @@ export function normaliseSeries(dto: SeriesInputDto): Normalised {
   const energyUnit = dto.energyUnit ?? 'eV';
   const temperatureUnit = dto.temperatureUnit ?? 'K';
   const temperatureK = toCanonical(dto.temperature, temperatureUnit, 'temperature');
-  if (!(temperatureK > 0)) errors.push({ field: 'temperature', message: 'Temperature must be > 0 K (absolute). Did you enter °C?' });
+  if (!(temperatureK > 0))
+    errors.push({
+      field: 'temperature',
+      message: 'Temperature must be > 0 K (absolute). Did you enter °C?',
+    });
   if (!dto.name.trim()) errors.push({ field: 'name', message: 'must not be blank' });
   const points: SeriesPoint[] = dto.points.map((p, i) => {
     let log10k = p.log10k;
@@ -56,8 +60,10 @@ export function normaliseSeries(dto: SeriesInputDto): Normalised {
     };
   });
   const mo = dto.modelOptions ?? {};
-  if (mo.hbarOmega !== undefined && !(mo.hbarOmega > 0)) errors.push({ field: 'modelOptions.hbarOmega', message: 'Mode energy must be > 0.' });
-  if (mo.lambdaVib !== undefined && !(mo.lambdaVib >= 0)) errors.push({ field: 'modelOptions.lambdaVib', message: 'Huang–Rhys factor must be ≥ 0.' });
+  if (mo.hbarOmega !== undefined && !(mo.hbarOmega > 0))
+    errors.push({ field: 'modelOptions.hbarOmega', message: 'Mode energy must be > 0.' });
+  if (mo.lambdaVib !== undefined && !(mo.lambdaVib >= 0))
+    errors.push({ field: 'modelOptions.lambdaVib', message: 'Huang–Rhys factor must be ≥ 0.' });
   if (errors.length) throw validationFailed(errors);
   return {
     name: dto.name.trim(),
@@ -88,11 +94,22 @@ interface SeriesRow {
 }
 
 async function loadSeries(db: EntityManager, id: string, lock = false): Promise<Series | null> {
-  const rows: SeriesRow[] = await db.query(`SELECT * FROM series WHERE id = $1${lock ? ' FOR UPDATE' : ''}`, [id]);
+  const rows: SeriesRow[] = await db.query(
+    `SELECT * FROM series WHERE id = $1${lock ? ' FOR UPDATE' : ''}`,
+    [id],
+  );
   const r = rows[0];
   if (!r) return null;
-  const points: Array<{ label: string; delta_g0: number; log10k: number; sigma_log10k: number | null; pair_id: string | null }> =
-    await db.query('SELECT label, delta_g0, log10k, sigma_log10k, pair_id FROM series_points WHERE series_id = $1 ORDER BY position', [id]);
+  const points: Array<{
+    label: string;
+    delta_g0: number;
+    log10k: number;
+    sigma_log10k: number | null;
+    pair_id: string | null;
+  }> = await db.query(
+    'SELECT label, delta_g0, log10k, sigma_log10k, pair_id FROM series_points WHERE series_id = $1 ORDER BY position',
+    [id],
+  );
   return {
     id: r.id,
     workspaceId: r.workspace_id,
@@ -106,11 +123,21 @@ async function loadSeries(db: EntityManager, id: string, lock = false): Promise<
     version: r.version,
     createdAt: r.created_at.toISOString(),
     updatedAt: r.updated_at.toISOString(),
-    points: points.map((p) => ({ label: p.label, deltaG0: p.delta_g0, log10k: p.log10k, sigmaLog10k: p.sigma_log10k, pairId: p.pair_id })),
+    points: points.map((p) => ({
+      label: p.label,
+      deltaG0: p.delta_g0,
+      log10k: p.log10k,
+      sigmaLog10k: p.sigma_log10k,
+      pairId: p.pair_id,
+    })),
   };
 }
 
-async function writePoints(tx: EntityManager, seriesId: string, points: readonly SeriesPoint[]): Promise<void> {
+async function writePoints(
+  tx: EntityManager,
+  seriesId: string,
+  points: readonly SeriesPoint[],
+): Promise<void> {
   await tx.query('DELETE FROM series_points WHERE series_id = $1', [seriesId]);
   if (!points.length) return;
   await tx.query(
@@ -135,36 +162,78 @@ export async function seriesForCaller(
   userId: string,
   allowed: Parameters<typeof requireRole>[3] = () => true,
 ): Promise<string> {
-  const rows: Array<{ workspace_id: string }> = await db.query('SELECT workspace_id FROM series WHERE id = $1', [id]);
+  const rows: Array<{ workspace_id: string }> = await db.query(
+    'SELECT workspace_id FROM series WHERE id = $1',
+    [id],
+  );
   if (!rows[0]) throw notFound('series');
   await requireRole(db, rows[0].workspace_id, userId, allowed, 'series');
   return rows[0].workspace_id;
 }
 
-export async function createSeries(db: DataSource, userId: string, workspaceId: string, dto: SeriesInputDto): Promise<Series> {
+export async function createSeries(
+  db: DataSource,
+  userId: string,
+  workspaceId: string,
+  dto: SeriesInputDto,
+): Promise<Series> {
   const n = normaliseSeries(dto);
   const id = await db.transaction(async (tx) => {
     await requireRole(tx, workspaceId, userId, canEdit);
     const rows: Array<{ id: string }> = await tx.query(
       `INSERT INTO series (workspace_id, name, temperature_k, temperature_unit, energy_unit, model_options, pair_ids, notes, created_by)
        VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9) RETURNING id`,
-      [workspaceId, n.name, n.temperatureK, n.temperatureUnit, n.energyUnit, JSON.stringify(n.modelOptions), n.pairIds, n.notes, userId],
+      [
+        workspaceId,
+        n.name,
+        n.temperatureK,
+        n.temperatureUnit,
+        n.energyUnit,
+        JSON.stringify(n.modelOptions),
+        n.pairIds,
+        n.notes,
+        userId,
+      ],
     );
     await writePoints(tx, rows[0].id, n.points);
-    await recordAudit(tx, { workspaceId, actorId: userId, action: 'series.created', entityType: 'series', entityId: rows[0].id, summary: `series ${n.name}: ${n.points.length} point(s)` });
+    await recordAudit(tx, {
+      workspaceId,
+      actorId: userId,
+      action: 'series.created',
+      entityType: 'series',
+      entityId: rows[0].id,
+      summary: `series ${n.name}: ${n.points.length} point(s)`,
+    });
     return rows[0].id;
   });
   return (await loadSeries(db.manager, id))!;
 }
 
-export async function listSeries(db: EntityManager, workspaceId: string): Promise<SeriesListItem[]> {
-  const rows: Array<{ id: string; name: string; temperature_k: number; n: number; fitted: boolean; updated_at: Date }> = await db.query(
+export async function listSeries(
+  db: EntityManager,
+  workspaceId: string,
+): Promise<SeriesListItem[]> {
+  const rows: Array<{
+    id: string;
+    name: string;
+    temperature_k: number;
+    n: number;
+    fitted: boolean;
+    updated_at: Date;
+  }> = await db.query(
     `SELECT s.id, s.name, s.temperature_k, (SELECT count(*)::int FROM series_points p WHERE p.series_id = s.id) AS n,
             s.fit IS NOT NULL AS fitted, s.updated_at
        FROM series s WHERE s.workspace_id = $1 ORDER BY s.updated_at DESC`,
     [workspaceId],
   );
-  return rows.map((r) => ({ id: r.id, name: r.name, temperature: r.temperature_k, pointCount: r.n, fitted: r.fitted, updatedAt: r.updated_at.toISOString() }));
+  return rows.map((r) => ({
+    id: r.id,
+    name: r.name,
+    temperature: r.temperature_k,
+    pointCount: r.n,
+    fitted: r.fitted,
+    updatedAt: r.updated_at.toISOString(),
+  }));
 }
 
 export async function readSeries(db: DataSource, userId: string, id: string): Promise<Series> {
@@ -173,39 +242,83 @@ export async function readSeries(db: DataSource, userId: string, id: string): Pr
 }
 
 /** Saves a new state from `version`; a stale version answers 409. The old fit is dropped. */
-export async function updateSeries(db: DataSource, userId: string, id: string, dto: SeriesInputDto & { version: number }): Promise<Series> {
+export async function updateSeries(
+  db: DataSource,
+  userId: string,
+  id: string,
+  dto: SeriesInputDto & { version: number },
+): Promise<Series> {
   const n = normaliseSeries(dto);
   await db.transaction(async (tx) => {
     const workspaceId = await seriesForCaller(tx, id, userId, canEdit);
     const current = (await loadSeries(tx, id, true))!;
     if (current.version !== dto.version) {
-      throw new AppError(409, 'version-conflict', `This series was changed by someone else (now version ${current.version}).`, { current });
+      throw new AppError(
+        409,
+        'version-conflict',
+        `This series was changed by someone else (now version ${current.version}).`,
+        { current },
+      );
     }
     await tx.query(
       `UPDATE series SET name = $2, temperature_k = $3, temperature_unit = $4, energy_unit = $5, model_options = $6,
          pair_ids = $7, notes = $8, fit = NULL, version = version + 1, updated_at = now() WHERE id = $1`,
-      [id, n.name, n.temperatureK, n.temperatureUnit, n.energyUnit, JSON.stringify(n.modelOptions), n.pairIds, n.notes],
+      [
+        id,
+        n.name,
+        n.temperatureK,
+        n.temperatureUnit,
+        n.energyUnit,
+        JSON.stringify(n.modelOptions),
+        n.pairIds,
+        n.notes,
+      ],
     );
     await writePoints(tx, id, n.points);
-    await recordAudit(tx, { workspaceId, actorId: userId, action: 'series.updated', entityType: 'series', entityId: id, summary: `series ${n.name} v${current.version + 1}` });
+    await recordAudit(tx, {
+      workspaceId,
+      actorId: userId,
+      action: 'series.updated',
+      entityType: 'series',
+      entityId: id,
+      summary: `series ${n.name} v${current.version + 1}`,
+    });
   });
   return (await loadSeries(db.manager, id))!;
 }
 
-export async function fitSeriesUseCase(db: DataSource, userId: string, id: string, dto: SeriesFitDto): Promise<Series> {
+export async function fitSeriesUseCase(
+  db: DataSource,
+  userId: string,
+  id: string,
+  dto: SeriesFitDto,
+): Promise<Series> {
   await db.transaction(async (tx) => {
     const workspaceId = await seriesForCaller(tx, id, userId, canEdit);
     const series = (await loadSeries(tx, id, true))!;
     if (dto.model === 'mlj' && (dto.hbarOmega === undefined || dto.lambdaVib === undefined)) {
-      throw validationFailed([{ field: 'hbarOmega', message: 'MLJ needs hbarOmega and lambdaVib (eV).' }]);
+      throw validationFailed([
+        { field: 'hbarOmega', message: 'MLJ needs hbarOmega and lambdaVib (eV).' },
+      ]);
     }
     const fit = fitSeries(series.points, series.temperature, dto);
     await tx.query(
       `UPDATE series SET fit = $2, model_options = $3, updated_at = now() WHERE id = $1`,
-      [id, JSON.stringify(fit), JSON.stringify({ model: dto.model, hbarOmega: dto.hbarOmega, lambdaVib: dto.lambdaVib })],
+      [
+        id,
+        JSON.stringify(fit),
+        JSON.stringify({ model: dto.model, hbarOmega: dto.hbarOmega, lambdaVib: dto.lambdaVib }),
+      ],
     );
     const main = fit.fits[dto.model]!;
-    await recordAudit(tx, { workspaceId, actorId: userId, action: 'series.fitted', entityType: 'series', entityId: id, summary: `series ${series.name}: ${dto.model} λ = ${main.lambda.toFixed(3)} eV, |H| = ${main.coupling.toExponential(2)} eV` });
+    await recordAudit(tx, {
+      workspaceId,
+      actorId: userId,
+      action: 'series.fitted',
+      entityType: 'series',
+      entityId: id,
+      summary: `series ${series.name}: ${dto.model} λ = ${main.lambda.toFixed(3)} eV, |H| = ${main.coupling.toExponential(2)} eV`,
+    });
   });
   return (await loadSeries(db.manager, id))!;
 }
@@ -217,39 +330,104 @@ export async function fitSeriesUseCase(db: DataSource, userId: string, id: strin
  * 0 when larger than the fitted λ). MLJ fits λ_s, stored as λ_outer, with the fixed mode (ħω,
  * λ_vib as λ_inner).
  */
-export async function applySeries(db: DataSource, userId: string, id: string, dto: SeriesApplyDto): Promise<Pair[]> {
+export async function applySeries(
+  db: DataSource,
+  userId: string,
+  id: string,
+  dto: SeriesApplyDto,
+): Promise<Pair[]> {
   const workspaceId = await seriesForCaller(db.manager, id, userId, canEdit);
   const series = (await loadSeries(db.manager, id))!;
   const model: SeriesModel = dto.model ?? series.fit?.model ?? 'marcus';
   const fit = series.fit?.fits[model];
-  if (!fit) throw new AppError(409, 'series-not-fitted', `Fit the series with the ${model} model first.`);
+  if (!fit)
+    throw new AppError(409, 'series-not-fitted', `Fit the series with the ${model} model first.`);
   const out: Pair[] = [];
   for (const pairId of dto.pairIds) {
     const current = await readPair(db, userId, pairId);
     if (current.workspaceId !== workspaceId) throw notFound('pair');
     const sources = [{ type: 'series', id }];
-    const methodInputs = { seriesId: id, seriesVersion: series.version, model, points: series.points.length, temperature: series.temperature };
+    const methodInputs = {
+      seriesId: id,
+      seriesVersion: series.version,
+      model,
+      points: series.points.length,
+      temperature: series.temperature,
+    };
     const note = `Fitted to series "${series.name}" (${model}, ${series.points.length} points).`;
-    const derived: Provenance = { kind: 'derived', methodId: 'fit.drivingForceSeries', methodInputs, sources, note };
-    const saved = await savePair(db, userId, pairId, current.version, (p) => {
-      const input = inputOf(p);
-      const keep = input.parameters.filter((x) => !['lambdaOuter', 'coupling', ...(model === 'mlj' ? ['lambdaInner', 'hbarOmega'] : [])].includes(x.kind));
-      const params: PairParameter[] = [...keep];
-      const inner = params.find((x) => x.kind === 'lambdaInner');
-      let outer = fit.lambda;
-      let outerSe = fit.standardErrors.lambda;
-      if (model === 'marcus' && inner) {
-        if (inner.value < fit.lambda) outer = fit.lambda - inner.value;
-        else params.splice(params.indexOf(inner), 1, { ...inner, value: 0, provenance: { ...derived, note: `${note} λ_inner set to 0: the fitted total λ is smaller.` } });
-      }
-      if (model === 'mlj') {
-        params.push({ kind: 'lambdaInner', value: series.fit!.lambdaVib!, unit: 'eV', uncertainty: null, provenance: { ...derived, note: `${note} Fixed λ_vib of the fit.` } });
-        params.push({ kind: 'hbarOmega', value: series.fit!.hbarOmega!, unit: 'eV', uncertainty: null, provenance: { ...derived, note: `${note} Fixed ħω of the fit.` } });
-      } else outerSe = fit.standardErrors.lambda;
-      params.push({ kind: 'lambdaOuter', value: outer, unit: 'eV', uncertainty: outerSe, provenance: derived });
-      params.push({ kind: 'coupling', value: fit.coupling, unit: 'eV', uncertainty: fit.standardErrors.coupling, provenance: derived });
-      return { ...input, model: model === 'mlj' ? 'mlj' : input.model, parameters: params };
-    }, 'pair.series-applied', `λ and |H_AB| from series ${series.name}`);
+    const derived: Provenance = {
+      kind: 'derived',
+      methodId: 'fit.drivingForceSeries',
+      methodInputs,
+      sources,
+      note,
+    };
+    const saved = await savePair(
+      db,
+      userId,
+      pairId,
+      current.version,
+      (p) => {
+        const input = inputOf(p);
+        const keep = input.parameters.filter(
+          (x) =>
+            ![
+              'lambdaOuter',
+              'coupling',
+              ...(model === 'mlj' ? ['lambdaInner', 'hbarOmega'] : []),
+            ].includes(x.kind),
+        );
+        const params: PairParameter[] = [...keep];
+        const inner = params.find((x) => x.kind === 'lambdaInner');
+        let outer = fit.lambda;
+        let outerSe = fit.standardErrors.lambda;
+        if (model === 'marcus' && inner) {
+          if (inner.value < fit.lambda) outer = fit.lambda - inner.value;
+          else
+            params.splice(params.indexOf(inner), 1, {
+              ...inner,
+              value: 0,
+              provenance: {
+                ...derived,
+                note: `${note} λ_inner set to 0: the fitted total λ is smaller.`,
+              },
+            });
+        }
+        if (model === 'mlj') {
+          params.push({
+            kind: 'lambdaInner',
+            value: series.fit!.lambdaVib!,
+            unit: 'eV',
+            uncertainty: null,
+            provenance: { ...derived, note: `${note} Fixed λ_vib of the fit.` },
+          });
+          params.push({
+            kind: 'hbarOmega',
+            value: series.fit!.hbarOmega!,
+            unit: 'eV',
+            uncertainty: null,
+            provenance: { ...derived, note: `${note} Fixed ħω of the fit.` },
+          });
+        } else outerSe = fit.standardErrors.lambda;
+        params.push({
+          kind: 'lambdaOuter',
+          value: outer,
+          unit: 'eV',
+          uncertainty: outerSe,
+          provenance: derived,
+        });
+        params.push({
+          kind: 'coupling',
+          value: fit.coupling,
+          unit: 'eV',
+          uncertainty: fit.standardErrors.coupling,
+          provenance: derived,
+        });
+        return { ...input, model: model === 'mlj' ? 'mlj' : input.model, parameters: params };
+      },
+      'pair.series-applied',
+      `λ and |H_AB| from series ${series.name}`,
+    );
     out.push(saved);
   }
   return out;

@@ -30,7 +30,8 @@ export function registerTokenRoutes(router: Router, deps: AppDeps): void {
     res.status(201).json(body);
   });
   router.delete('/tokens/:id', requireAuth, async (req, res) => {
-    if (!(await revokeToken(db.manager, userIdOf(req), String(req.params['id'])))) throw notFound('token');
+    if (!(await revokeToken(db.manager, userIdOf(req), String(req.params['id']))))
+      throw notFound('token');
     res.status(204).end();
   });
 }

@@ -14,7 +14,10 @@ const toToken = (r: Row): ApiToken => ({
 });
 
 /** The user a live (not revoked) API token belongs to; marks it used. */
-export async function findUserIdByApiToken(db: EntityManager, token: string): Promise<string | null> {
+export async function findUserIdByApiToken(
+  db: EntityManager,
+  token: string,
+): Promise<string | null> {
   if (token.length > 200) return null;
   const rows: Row[] = await db.query(
     'SELECT id, user_id FROM api_tokens WHERE token_hash = $1 AND revoked_at IS NULL',
@@ -50,8 +53,13 @@ export async function insertToken(
 /** Revokes one of the user's tokens; false when the user has no such token. */
 export async function revokeToken(db: EntityManager, userId: string, id: string): Promise<boolean> {
   if (!isUuid(id)) return false;
-  const rows: Row[] = await db.query('SELECT id FROM api_tokens WHERE id = $1 AND user_id = $2', [id, userId]);
+  const rows: Row[] = await db.query('SELECT id FROM api_tokens WHERE id = $1 AND user_id = $2', [
+    id,
+    userId,
+  ]);
   if (!rows[0]) return false;
-  await db.query('UPDATE api_tokens SET revoked_at = coalesce(revoked_at, now()) WHERE id = $1', [id]);
+  await db.query('UPDATE api_tokens SET revoked_at = coalesce(revoked_at, now()) WHERE id = $1', [
+    id,
+  ]);
   return true;
 }

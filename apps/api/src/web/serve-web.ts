@@ -17,7 +17,11 @@ but there is no built web app in <code>dist/web/browser</code>.</p>
 export function serveWeb(app: Express, webDist: string): void {
   app.use(express.static(webDist, { index: false, maxAge: '1h', fallthrough: true }));
   app.use((req, res, next) => {
-    if ((req.method !== 'GET' && req.method !== 'HEAD') || req.path === '/api' || req.path.startsWith('/api/')) {
+    if (
+      (req.method !== 'GET' && req.method !== 'HEAD') ||
+      req.path === '/api' ||
+      req.path.startsWith('/api/')
+    ) {
       next();
       return;
     }

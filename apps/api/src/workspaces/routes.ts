@@ -43,7 +43,9 @@ export function registerWorkspaceRoutes(router: Router, deps: AppDeps): void {
   router.patch('/workspaces/:wid/members/:userId', requireAuth, async (req, res) => {
     await requireRole(db.manager, wid(req.params), userIdOf(req), canManageMembers);
     const { role } = parseBody(RoleDto, req.body);
-    res.json(await changeRole(db, userIdOf(req), wid(req.params), String(req.params['userId']), role));
+    res.json(
+      await changeRole(db, userIdOf(req), wid(req.params), String(req.params['userId']), role),
+    );
   });
   router.delete('/workspaces/:wid/members/:userId', requireAuth, async (req, res) => {
     await removeMember(db, userIdOf(req), wid(req.params), String(req.params['userId']));

@@ -4,7 +4,11 @@ import { forbidden, notFound } from '../http/app-error';
 import { isUuid } from '../http/validate';
 
 /** The caller's role in a workspace, or null when not a member (or no such workspace). */
-export async function roleIn(db: EntityManager, workspaceId: string, userId: string): Promise<Role | null> {
+export async function roleIn(
+  db: EntityManager,
+  workspaceId: string,
+  userId: string,
+): Promise<Role | null> {
   if (!isUuid(workspaceId)) return null;
   const rows: Array<{ role: Role }> = await db.query(
     'SELECT role FROM memberships WHERE workspace_id = $1 AND user_id = $2',

@@ -1,4 +1,11 @@
-import { IsIn, IsString, MaxLength, Validate, ValidatorConstraint, type ValidatorConstraintInterface } from 'class-validator';
+import {
+  IsIn,
+  IsString,
+  MaxLength,
+  Validate,
+  ValidatorConstraint,
+  type ValidatorConstraintInterface,
+} from 'class-validator';
 import { ROLES, type Role } from '@gapwise/contracts';
 
 @ValidatorConstraint({ name: 'notBlank' })

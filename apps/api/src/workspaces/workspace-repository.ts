@@ -1,7 +1,10 @@
 import type { EntityManager } from 'typeorm';
 import type { Member, Role, WorkspaceSummary } from '@gapwise/contracts';
 
-export async function listWorkspacesOf(db: EntityManager, userId: string): Promise<WorkspaceSummary[]> {
+export async function listWorkspacesOf(
+  db: EntityManager,
+  userId: string,
+): Promise<WorkspaceSummary[]> {
   const rows: Array<{ id: string; name: string; role: Role }> = await db.query(
     `SELECT w.id, w.name, m.role FROM workspaces w JOIN memberships m ON m.workspace_id = w.id
       WHERE m.user_id = $1 ORDER BY lower(w.name), w.id`,
@@ -10,8 +13,13 @@ export async function listWorkspacesOf(db: EntityManager, userId: string): Promi
   return rows.map((r) => ({ id: r.id, name: r.name, role: r.role }));
 }
 
-export async function insertWorkspace(db: EntityManager, name: string): Promise<{ id: string; name: string }> {
-  const rows = await db.query('INSERT INTO workspaces (name) VALUES ($1) RETURNING id, name', [name]);
+export async function insertWorkspace(
+  db: EntityManager,
+  name: string,
+): Promise<{ id: string; name: string }> {
+  const rows = await db.query('INSERT INTO workspaces (name) VALUES ($1) RETURNING id, name', [
+    name,
+  ]);
   return rows[0];
 }
 
@@ -28,7 +36,12 @@ export async function deleteWorkspace(db: EntityManager, id: string): Promise<vo
   await db.query('DELETE FROM workspaces WHERE id = $1', [id]);
 }
 
-export async function upsertMembership(db: EntityManager, workspaceId: string, userId: string, role: Role): Promise<void> {
+export async function upsertMembership(
+  db: EntityManager,
+  workspaceId: string,
+  userId: string,
+  role: Role,
+): Promise<void> {
   await db.query(
     `INSERT INTO memberships (workspace_id, user_id, role) VALUES ($1, $2, $3)
      ON CONFLICT (workspace_id, user_id) DO UPDATE SET role = EXCLUDED.role`,
@@ -37,13 +50,19 @@ export async function upsertMembership(db: EntityManager, workspaceId: string, u
 }
 
 export async function listMembers(db: EntityManager, workspaceId: string): Promise<Member[]> {
-  const rows: Array<{ user_id: string; email: string; display_name: string; role: Role }> = await db.query(
-    `SELECT m.user_id, u.email, u.display_name, m.role FROM memberships m JOIN users u ON u.id = m.user_id
+  const rows: Array<{ user_id: string; email: string; display_name: string; role: Role }> =
+    await db.query(
+      `SELECT m.user_id, u.email, u.display_name, m.role FROM memberships m JOIN users u ON u.id = m.user_id
       WHERE m.workspace_id = $1
       ORDER BY array_position(ARRAY['owner','editor','reviewer','viewer'], m.role), lower(u.display_name), u.id`,
-    [workspaceId],
-  );
-  return rows.map((r) => ({ userId: r.user_id, email: r.email, displayName: r.display_name, role: r.role }));
+      [workspaceId],
+    );
+  return rows.map((r) => ({
+    userId: r.user_id,
+    email: r.email,
+    displayName: r.display_name,
+    role: r.role,
+  }));
 }
 
 /** Locks the workspace's memberships (for last-owner checks) and returns them. */
@@ -58,10 +77,26 @@ export async function lockMemberships(
   return rows.map((r) => ({ userId: r.user_id, role: r.role }));
 }
 
-export async function setRole(db: EntityManager, workspaceId: string, userId: string, role: Role): Promise<void> {
-  await db.query('UPDATE memberships SET role = $3 WHERE workspace_id = $1 AND user_id = $2', [workspaceId, userId, role]);
+export async function setRole(
+  db: EntityManager,
+  workspaceId: string,
+  userId: string,
+  role: Role,
+): Promise<void> {
+  await db.query('UPDATE memberships SET role = $3 WHERE workspace_id = $1 AND user_id = $2', [
+    workspaceId,
+    userId,
+    role,
+  ]);
 }
 
-export async function removeMembership(db: EntityManager, workspaceId: string, userId: string): Promise<void> {
-  await db.query('DELETE FROM memberships WHERE workspace_id = $1 AND user_id = $2', [workspaceId, userId]);
+export async function removeMembership(
+  db: EntityManager,
+  workspaceId: string,
+  userId: string,
+): Promise<void> {
+  await db.query('DELETE FROM memberships WHERE workspace_id = $1 AND user_id = $2', [
+    workspaceId,
+    userId,
+  ]);
 }

@@ -1,5 +1,10 @@
 import type { DataSource } from 'typeorm';
-import { canManageMembers, type Member, type Role, type WorkspaceSummary } from '@gapwise/contracts';
+import {
+  canManageMembers,
+  type Member,
+  type Role,
+  type WorkspaceSummary,
+} from '@gapwise/contracts';
 import { AppError, forbidden, notFound } from '../http/app-error';
 import { isUuid } from '../http/validate';
 import { recordAudit } from '../audit/audit-repository';
@@ -16,7 +21,11 @@ import {
   workspaceName,
 } from './workspace-repository';
 
-export async function createWorkspace(db: DataSource, userId: string, name: string): Promise<WorkspaceSummary> {
+export async function createWorkspace(
+  db: DataSource,
+  userId: string,
+  name: string,
+): Promise<WorkspaceSummary> {
   return db.transaction(async (tx) => {
     const ws = await insertWorkspace(tx, name.trim());
     await upsertMembership(tx, ws.id, userId, 'owner');
@@ -57,20 +66,32 @@ export async function renameWorkspaceUseCase(
   });
 }
 
-export async function deleteWorkspaceUseCase(db: DataSource, userId: string, workspaceId: string): Promise<void> {
+export async function deleteWorkspaceUseCase(
+  db: DataSource,
+  userId: string,
+  workspaceId: string,
+): Promise<void> {
   await db.transaction(async (tx) => {
     await requireRole(tx, workspaceId, userId, canManageMembers);
     await deleteWorkspace(tx, workspaceId);
   });
 }
 
-export async function membersOf(db: DataSource, userId: string, workspaceId: string): Promise<Member[]> {
+export async function membersOf(
+  db: DataSource,
+  userId: string,
+  workspaceId: string,
+): Promise<Member[]> {
   await requireRole(db.manager, workspaceId, userId);
   return listMembers(db.manager, workspaceId);
 }
 
 const lastOwner = () =>
-  new AppError(409, 'last-owner', 'A workspace needs at least one owner; make someone else owner first.');
+  new AppError(
+    409,
+    'last-owner',
+    'A workspace needs at least one owner; make someone else owner first.',
+  );
 
 export async function changeRole(
   db: DataSource,
@@ -106,14 +127,20 @@ export async function changeRole(
 }
 
 /** Owners remove anyone; any member may remove themselves (leave). The last owner cannot go. */
-export async function removeMember(db: DataSource, userId: string, workspaceId: string, targetId: string): Promise<void> {
+export async function removeMember(
+  db: DataSource,
+  userId: string,
+  workspaceId: string,
+  targetId: string,
+): Promise<void> {
   await db.transaction(async (tx) => {
     const role = await requireRole(tx, workspaceId, userId);
     if (targetId !== userId && !canManageMembers(role)) throw forbidden();
     const members = await lockMemberships(tx, workspaceId);
     const target = isUuid(targetId) ? members.find((m) => m.userId === targetId) : undefined;
     if (!target) throw notFound('member');
-    if (target.role === 'owner' && members.filter((m) => m.role === 'owner').length === 1) throw lastOwner();
+    if (target.role === 'owner' && members.filter((m) => m.role === 'owner').length === 1)
+      throw lastOwner();
     await removeMembership(tx, workspaceId, targetId);
     await recordAudit(tx, {
       workspaceId,
@@ -121,7 +148,10 @@ export async function removeMember(db: DataSource, userId: string, workspaceId: 
       action: targetId === userId ? 'member.left' : 'member.removed',
       entityType: 'membership',
       entityId: targetId,
-      summary: targetId === userId ? `left the workspace (${target.role})` : `removed a member (${target.role})`,
+      summary:
+        targetId === userId
+          ? `left the workspace (${target.role})`
+          : `removed a member (${target.role})`,
       before: { role: target.role },
     });
   });

@@ -2,9 +2,27 @@ import { monteCarloLog10k } from './monte-carlo';
 
 describe('monteCarloLog10k', () => {
   const parameters = [
-    { kind: 'deltaG0', value: -0.3, unit: 'eV', uncertainty: null, provenance: { kind: 'assumed' } },
-    { kind: 'lambdaOuter', value: 0.8, unit: 'eV', uncertainty: 0.05, provenance: { kind: 'assumed' } },
-    { kind: 'coupling', value: 0.01, unit: 'eV', uncertainty: null, provenance: { kind: 'assumed' } },
+    {
+      kind: 'deltaG0',
+      value: -0.3,
+      unit: 'eV',
+      uncertainty: null,
+      provenance: { kind: 'assumed' },
+    },
+    {
+      kind: 'lambdaOuter',
+      value: 0.8,
+      unit: 'eV',
+      uncertainty: 0.05,
+      provenance: { kind: 'assumed' },
+    },
+    {
+      kind: 'coupling',
+      value: 0.01,
+      unit: 'eV',
+      uncertainty: null,
+      provenance: { kind: 'assumed' },
+    },
   ] as const;
   const source = { temperature: 298.15, model: 'marcus' as const, parameters };
 
