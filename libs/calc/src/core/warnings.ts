@@ -144,7 +144,7 @@ export function warnCouplingLarge(
     sink.warn(
       WARNING_CODES.couplingLarge,
       'Nonadiabatic (golden-rule) formula overestimates; adiabatic/solvent-controlled correction ' +
-        'needed (SCIENCE.md §3).',
+        'needed (try the crossover model with the solvent relaxation time τ_L).',
     );
   }
 }
