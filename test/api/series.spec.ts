@@ -5,6 +5,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import seedrandom from 'seedrandom';
+import request from 'supertest';
 import { pairBody } from './support/fixtures';
 import { registerUser, startTestApp, type Session, type TestApp } from './support/test-app';
 
@@ -164,6 +165,56 @@ describe('series API', () => {
     expect(coupling.provenance.kind).toBe('derived');
     expect(coupling.provenance.methodId).toBe('fit.drivingForceSeries');
     expect(coupling.provenance.sources).toEqual([{ type: 'series', id: s.body.id }]);
+  });
+
+  it('lists the points of the series that link a pair, in eV, for members only', async () => {
+    const pair = (await editor.post(`/api/workspaces/${wid}/pairs`, pairBody({ name: 'SP-1' })))
+      .body.id as string;
+    const other = (await editor.post(`/api/workspaces/${wid}/pairs`, pairBody({ name: 'SP-2' })))
+      .body.id as string;
+    const byList = await editor.post(`/api/workspaces/${wid}/series`, {
+      name: 'linked by list',
+      temperature: 298.15,
+      energyUnit: 'kJ/mol',
+      pairIds: [pair],
+      points: [
+        { deltaG0: -0.2 * 96.48533212, log10k: 8.1, sigmaLog10k: 0.2, label: 'a' },
+        { deltaG0: -0.6 * 96.48533212, k: 1e9 },
+      ],
+    });
+    const byPoint = await editor.post(`/api/workspaces/${wid}/series`, {
+      name: 'linked by a point',
+      temperature: 298.15,
+      points: [
+        { deltaG0: -0.4, log10k: 9, pairId: pair },
+        { deltaG0: -0.9, log10k: 9.5, pairId: other },
+      ],
+    });
+    await editor.post(`/api/workspaces/${wid}/series`, {
+      name: 'unrelated',
+      temperature: 298.15,
+      pairIds: [other],
+      points: [{ deltaG0: -0.3, log10k: 7 }],
+    });
+    const res = await editor.get(`/api/pairs/${pair}/series-points`);
+    expect(res.status).toBe(200);
+    const got = res.body as Array<Record<string, unknown>>;
+    expect(got.map((p) => p['seriesName'])).toEqual([
+      'linked by a point',
+      'linked by a point',
+      'linked by list',
+      'linked by list',
+    ]);
+    expect(got[2]).toMatchObject({ seriesId: byList.body.id, label: 'a', sigmaLog10k: 0.2 });
+    expect(got[2]['deltaG0']).toBeCloseTo(-0.2, 10);
+    expect(got[3]['log10k']).toBeCloseTo(9, 10);
+    expect(got[3]['sigmaLog10k']).toBeNull();
+    expect(got[0]).toMatchObject({ seriesId: byPoint.body.id, deltaG0: -0.4, log10k: 9 });
+
+    const stranger = await registerUser(t.app, 'outsider');
+    expect((await stranger.get(`/api/pairs/${pair}/series-points`)).status).toBe(404);
+    expect((await request(t.app).get(`/api/pairs/${pair}/series-points`)).status).toBe(401);
+    expect((await editor.get('/api/pairs/not-a-uuid/series-points')).status).toBe(404);
   });
 
   it('refuses fewer than 3 points and hides series from non-members', async () => {

@@ -96,6 +96,15 @@ export interface SeriesPoint {
   readonly pairId: string | null;
 }
 
+/**
+ * A measured point of a series that links a pair (by `pairIds` or by a point's `pairId`), as
+ * `GET /pairs/:id/series-points` sends it: ΔG° in eV, log10 k with k in s⁻¹, σ of log10 k.
+ */
+export interface PairSeriesPoint extends SeriesPoint {
+  readonly seriesId: string;
+  readonly seriesName: string;
+}
+
 export type SeriesModel = 'marcus' | 'mlj';
 
 export interface SeriesModelOptions {

@@ -14,6 +14,24 @@ function log10kOf(request: CalcRequest): number | null {
   return typeof k === 'number' && k > 0 ? Math.log10(k) : null;
 }
 
+export interface MeasuredPointInput {
+  /** eV. */
+  readonly deltaG0: number;
+  readonly log10k: number;
+  readonly sigmaLog10k?: number | null;
+  readonly seriesId?: string;
+  readonly seriesName?: string;
+}
+
+/** A measured point on the plot's axes: x = −ΔG° (eV), y = log10 k, σ of y when known. */
+export interface MeasuredPoint {
+  readonly x: number;
+  readonly y: number;
+  readonly sigma: number | null;
+  readonly seriesId: string;
+  readonly seriesName: string;
+}
+
 export interface DrivingForceInputs {
   /** Total λ (classical curve), eV. */
   readonly lambda: number;
@@ -25,8 +43,8 @@ export interface DrivingForceInputs {
   readonly hbarOmega?: number | null;
   /** The pair's own ΔG° and log10 k (drawn as a marked point). */
   readonly pair?: { readonly deltaG0: number; readonly log10k: number } | null;
-  /** Measured points of the pair's series, if any. */
-  readonly measured?: ReadonlyArray<{ readonly deltaG0: number; readonly log10k: number }>;
+  /** Measured points of the pair's series, if any (σ of log10 k and the series optional). */
+  readonly measured?: ReadonlyArray<MeasuredPointInput>;
   readonly samples?: number;
 }
 
@@ -45,14 +63,22 @@ export interface DrivingForceGeometry {
   readonly invertedFrom: number;
   readonly hasMlj: boolean;
   readonly pair: { readonly x: number; readonly y: number } | null;
-  readonly measured: ReadonlyArray<{ readonly x: number; readonly y: number }>;
+  readonly measured: ReadonlyArray<MeasuredPoint>;
 }
 
 export function drivingForceCurves(inputs: DrivingForceInputs): DrivingForceGeometry {
   const { lambda, coupling, temperature } = inputs;
   const samples = Math.max(11, inputs.samples ?? 121);
   const pairX = inputs.pair ? -inputs.pair.deltaG0 : null;
-  const measured = (inputs.measured ?? []).map((m) => ({ x: -m.deltaG0, y: m.log10k }));
+  const measured: MeasuredPoint[] = (inputs.measured ?? [])
+    .filter((m) => Number.isFinite(m.deltaG0) && Number.isFinite(m.log10k))
+    .map((m) => ({
+      x: -m.deltaG0,
+      y: m.log10k,
+      sigma: m.sigmaLog10k != null && m.sigmaLog10k > 0 ? m.sigmaLog10k : null,
+      seriesId: m.seriesId ?? '',
+      seriesName: m.seriesName ?? '',
+    }));
   const xs = [pairX ?? 0, ...measured.map((m) => m.x)];
   const lo = Math.min(-0.3 * lambda, ...xs.map((x) => x - 0.1 * lambda));
   const hi = Math.max(2.6 * lambda, ...xs.map((x) => x + 0.15 * lambda));
@@ -83,7 +109,7 @@ export function drivingForceCurves(inputs: DrivingForceInputs): DrivingForceGeom
   const ys = [
     ...points.flatMap((p) => [p.marcus, p.mlj]),
     inputs.pair?.log10k ?? null,
-    ...measured.map((m) => m.y),
+    ...measured.flatMap((m) => [m.y - (m.sigma ?? 0), m.y + (m.sigma ?? 0)]),
   ].filter((v): v is number => v !== null && Number.isFinite(v));
   const top = ys.length ? Math.max(...ys) : 10;
   // Show about fourteen decades below the maximum: deeper tails say nothing a reader can use.

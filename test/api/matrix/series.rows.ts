@@ -50,6 +50,18 @@ export const rows: MatrixRow[] = [
     expect: members(200),
   },
   {
+    method: 'get',
+    route: '/pairs/:id/series-points',
+    request: async (c) => {
+      await createSeries(c.t.db, c.users.owner.id, c.workspaceId, {
+        ...seriesBody(c.unique('linked')),
+        pairIds: [c.pairId],
+      } as never);
+      return { path: `/pairs/${c.pairId}/series-points` };
+    },
+    expect: members(200),
+  },
+  {
     method: 'put',
     route: '/series/:id',
     request: async (c) => ({

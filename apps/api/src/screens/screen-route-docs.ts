@@ -191,6 +191,17 @@ export const SCREEN_ROUTE_DOCS: readonly RouteDoc[] = [
     response: 'Series',
   },
   {
+    method: 'get',
+    path: '/pairs/:id/series-points',
+    tag: 'series',
+    summary:
+      "Measured points (ΔG° in eV, log10 k, σ of log10 k, series id and name) of the workspace's series that link this pair, in pairIds or through a point",
+    access: member,
+    auth: true,
+    status: 200,
+    response: 'PairSeriesPoint[]',
+  },
+  {
     method: 'put',
     path: '/series/:id',
     tag: 'series',
@@ -399,6 +410,15 @@ export const SCREEN_SCHEMAS: Record<string, Schema> = {
     ),
     createdAt: str,
     updatedAt: str,
+  }),
+  PairSeriesPoint: obj({
+    seriesId: str,
+    seriesName: str,
+    label: str,
+    deltaG0: { ...num, description: 'eV' },
+    log10k: { ...num, description: 'log10 of k in s⁻¹' },
+    sigmaLog10k: nullable({ ...num, minimum: 0 }),
+    pairId: nullable(str),
   }),
   SeriesListItem: obj({
     id: str,

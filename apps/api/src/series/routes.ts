@@ -13,6 +13,7 @@ import {
   fitSeriesUseCase,
   listSeries,
   readSeries,
+  seriesPointsOfPair,
   updateSeries,
 } from './series-use-case';
 
@@ -40,6 +41,12 @@ export function registerSeriesRoutes(router: Router, deps: AppDeps): void {
 
   router.get('/series/:id', requireAuth, async (req, res) => {
     res.json(await readSeries(db, userIdOf(req), id(req)));
+  });
+
+  router.get('/pairs/:id/series-points', requireAuth, async (req, res) => {
+    const pairId = String(req.params['id']);
+    if (!isUuid(pairId)) throw notFound('pair');
+    res.json(await seriesPointsOfPair(db, userIdOf(req), pairId));
   });
 
   router.put('/series/:id', requireAuth, async (req, res) => {

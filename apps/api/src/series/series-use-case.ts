@@ -5,6 +5,7 @@ import {
   canEdit,
   type Pair,
   type PairParameter,
+  type PairSeriesPoint,
   type Provenance,
   type Series,
   type SeriesFit,
@@ -14,7 +15,7 @@ import {
 } from '@gapwise/contracts';
 import { recordAudit } from '../audit/audit-repository';
 import { AppError, notFound, validationFailed } from '../http/app-error';
-import { inputOf, readPair, savePair } from '../pairs/pair-use-case';
+import { inputOf, pairForCaller, readPair, savePair } from '../pairs/pair-use-case';
 import { requireRole } from '../workspaces/workspace-access';
 import type { SeriesApplyDto, SeriesFitDto, SeriesInputDto } from './series-dto';
 import { fitSeries } from './series-fit';
@@ -239,6 +240,44 @@ export async function listSeries(
 export async function readSeries(db: DataSource, userId: string, id: string): Promise<Series> {
   await seriesForCaller(db.manager, id, userId);
   return (await loadSeries(db.manager, id))!;
+}
+
+/**
+ * Every point of the pair's workspace's series that link the pair, in `pair_ids` or through one
+ * of their points (same access as reading the pair: members only, non-members 404).
+ */
+export async function seriesPointsOfPair(
+  db: DataSource,
+  userId: string,
+  pairId: string,
+): Promise<PairSeriesPoint[]> {
+  const { workspaceId } = await pairForCaller(db.manager, pairId, userId);
+  const rows: Array<{
+    series_id: string;
+    series_name: string;
+    label: string;
+    delta_g0: number;
+    log10k: number;
+    sigma_log10k: number | null;
+    pair_id: string | null;
+  }> = await db.manager.query(
+    `SELECT s.id AS series_id, s.name AS series_name, p.label, p.delta_g0, p.log10k, p.sigma_log10k, p.pair_id
+       FROM series s JOIN series_points p ON p.series_id = s.id
+      WHERE s.workspace_id = $1
+        AND ($2 = ANY(s.pair_ids)
+             OR EXISTS (SELECT 1 FROM series_points q WHERE q.series_id = s.id AND q.pair_id = $2))
+      ORDER BY s.name, s.id, p.position`,
+    [workspaceId, pairId],
+  );
+  return rows.map((r) => ({
+    seriesId: r.series_id,
+    seriesName: r.series_name,
+    label: r.label,
+    deltaG0: r.delta_g0,
+    log10k: r.log10k,
+    sigmaLog10k: r.sigma_log10k,
+    pairId: r.pair_id,
+  }));
 }
 
 /** Saves a new state from `version`; a stale version answers 409. The old fit is dropped. */

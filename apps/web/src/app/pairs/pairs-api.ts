@@ -5,11 +5,12 @@ import type {
   Pair,
   PairInput,
   PairListItem,
+  PairSeriesPoint,
   PairStatus,
   PairUpdate,
   PairVersionSummary,
 } from '@gapwise/contracts';
-import { Observable, map } from 'rxjs';
+import { Observable, catchError, map, of } from 'rxjs';
 import { QUIET_ERRORS } from '../session/api-errors';
 
 export interface PairQuery {
@@ -63,6 +64,13 @@ export class PairsApi {
 
   duplicate(id: string): Observable<Pair> {
     return this.http.post<Pair>(`/api/pairs/${id}/duplicate`, {});
+  }
+
+  /** Measured points of the series that link the pair; none when they cannot be read (quiet). */
+  seriesPoints(id: string): Observable<PairSeriesPoint[]> {
+    return this.http
+      .get<PairSeriesPoint[]>(`/api/pairs/${id}/series-points`, { context: quiet() })
+      .pipe(catchError(() => of([])));
   }
 
   versions(id: string): Observable<PairVersionSummary[]> {

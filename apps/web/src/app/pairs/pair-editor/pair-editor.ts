@@ -30,10 +30,11 @@ import {
   type Pair,
   type PairInput,
   type PairResults,
+  type PairSeriesPoint,
   type ParameterKind,
 } from '@gapwise/contracts';
 import type { DrivingForceInputs } from '@gapwise/plots';
-import { asapScheduler, debounceTime, map, startWith, switchMap } from 'rxjs';
+import { asapScheduler, debounceTime, map, of, startWith, switchMap } from 'rxjs';
 import { apiErrorOf } from '../../session/api-errors';
 import { WorkspaceContext } from '../../workspaces/workspace-context';
 import { DrivingForcePlot } from '../../plots/driving-force-plot/driving-force-plot';
@@ -234,6 +235,13 @@ export class PairEditor implements HoldsUnsavedChanges {
     return inner === null && outer === null ? null : (inner ?? 0) + (outer ?? 0);
   });
   protected readonly plotCoupling = computed(() => this.value('coupling'));
+  /** Measured points of the series that link this pair (none for a new pair). */
+  protected readonly seriesPoints = toSignal(
+    toObservable(this.pairId).pipe(
+      switchMap((id) => (id ? this.api.seriesPoints(id) : of([] as PairSeriesPoint[]))),
+    ),
+    { initialValue: [] as PairSeriesPoint[] },
+  );
   protected readonly drivingInputs = computed<DrivingForceInputs | null>(() => {
     const lambda = this.plotLambda();
     const coupling = this.plotCoupling();
@@ -249,6 +257,7 @@ export class PairEditor implements HoldsUnsavedChanges {
       lambdaVib: this.value('lambdaInner') ?? 0,
       hbarOmega: this.value('hbarOmega'),
       pair: dg !== null && r.log10k !== null ? { deltaG0: dg, log10k: r.log10k } : null,
+      measured: this.seriesPoints(),
     };
   });
   protected readonly rateRequest = computed(() => {

@@ -45,6 +45,11 @@ const MARGIN = { top: 16, right: 24, bottom: 48, left: 62 };
             <span class="key mlj">- - - Marcus–Levich–Jortner</span>
           }
           <span class="key">◆ this pair</span>
+          @for (series of measuredSeries(); track series.id) {
+            <span class="key measured" [attr.data-series]="series.id"
+              >{{ series.symbol }} measured ({{ series.name }})</span
+            >
+          }
           <span class="key">shaded: inverted region (−ΔG° &gt; λ)</span>
         </p>
         @if (!g.hasMlj) {
@@ -71,6 +76,8 @@ export class DrivingForcePlot {
     const i = this.inputs();
     return i ? drivingForceCurves(i) : null;
   });
+  /** One legend entry and marker shape per series of the measured points, in order of appearance. */
+  protected readonly measuredSeries = computed(() => seriesOf(this.geometry()?.measured ?? []));
 
   constructor() {
     effect(() => {
@@ -149,14 +156,39 @@ export class DrivingForcePlot {
         .attr('stroke-width', 2)
         .attr('stroke-dasharray', '6 4');
     }
+    const shapeOf = new Map(seriesOf(g.measured).map((sr) => [sr.id, sr]));
     for (const m of g.measured) {
-      plot
-        .append('circle')
-        .attr('cx', x(m.x))
-        .attr('cy', y(m.y))
-        .attr('r', 4)
-        .attr('fill', 'none')
-        .attr('stroke', '#1f2b2b');
+      const sr = shapeOf.get(m.seriesId)!;
+      const mx = x(m.x);
+      const my = y(m.y);
+      const group = plot
+        .append('g')
+        .attr('class', 'measured-point')
+        .attr('data-series', sr.id)
+        .attr('stroke', sr.colour)
+        .attr('stroke-width', 1.4)
+        .attr('fill', 'none');
+      group
+        .append('title')
+        .text(
+          `measured (${sr.name}): −ΔG° = ${formatSignificant(m.x, 3)} eV, log₁₀ k = ${formatFixed(m.y, 2)}` +
+            (m.sigma !== null ? ` ± ${formatFixed(m.sigma, 2)}` : ''),
+        );
+      if (m.sigma !== null) {
+        const top = y(m.y + m.sigma);
+        const bottom = y(m.y - m.sigma);
+        group
+          .append('path')
+          .attr('class', 'error-bar')
+          .attr(
+            'd',
+            `M${mx},${top}V${bottom}M${mx - 3},${top}H${mx + 3}M${mx - 3},${bottom}H${mx + 3}`,
+          );
+      }
+      group
+        .append('path')
+        .attr('class', `marker ${sr.shape}`)
+        .attr('d', markerPath(sr.shape, mx, my));
     }
     if (g.pair) {
       const px = x(g.pair.x);
@@ -187,5 +219,44 @@ export class DrivingForcePlot {
       if (g.hasMlj) lines.push(`MLJ: log₁₀ k = ${formatFixed(best.mlj, 2)}`);
       return { x: best.minusDeltaG0, lines };
     });
+  }
+}
+
+type MarkerShape = 'circle' | 'square' | 'triangle' | 'cross';
+const SHAPES: ReadonlyArray<{ shape: MarkerShape; symbol: string; colour: string }> = [
+  { shape: 'circle', symbol: '○', colour: '#1f2b2b' },
+  { shape: 'square', symbol: '□', colour: '#5b3f9e' },
+  { shape: 'triangle', symbol: '△', colour: '#a33a2f' },
+  { shape: 'cross', symbol: '✕', colour: '#2f5fa3' },
+];
+
+/** The series of the measured points, each with its own marker shape (and colour). */
+function seriesOf(measured: DrivingForceGeometry['measured']): Array<{
+  id: string;
+  name: string;
+  shape: MarkerShape;
+  symbol: string;
+  colour: string;
+}> {
+  const out = new Map<string, { id: string; name: string }>();
+  for (const m of measured) {
+    if (!out.has(m.seriesId))
+      out.set(m.seriesId, { id: m.seriesId, name: m.seriesName || 'series' });
+  }
+  return [...out.values()].map((sr, i) => ({ ...sr, ...SHAPES[i % SHAPES.length] }));
+}
+
+/** An open marker of radius about 4.5 px centred at (x, y). */
+function markerPath(shape: MarkerShape, x: number, y: number): string {
+  const r = 4.5;
+  switch (shape) {
+    case 'square':
+      return `M${x - r},${y - r}H${x + r}V${y + r}H${x - r}Z`;
+    case 'triangle':
+      return `M${x},${y - r - 1}L${x + r + 0.5},${y + r - 1}H${x - r - 0.5}Z`;
+    case 'cross':
+      return `M${x - r},${y - r}L${x + r},${y + r}M${x - r},${y + r}L${x + r},${y - r}`;
+    default:
+      return `M${x - r},${y}A${r},${r} 0 1,0 ${x + r},${y}A${r},${r} 0 1,0 ${x - r},${y}Z`;
   }
 }
