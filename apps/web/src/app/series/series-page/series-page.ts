@@ -112,6 +112,9 @@ export class SeriesPage {
       .pipe(
         map((p) => p.get('id')),
         filter((id): id is string => !!id && id !== 'new'),
+        // After "save" of a new series the page navigates to its id with the series already
+        // loaded: fetching it again could land after a fit and wipe the fit from the page.
+        filter((id) => id !== this.series()?.id),
         switchMap((id) => this.api.get(id)),
         takeUntilDestroyed(),
       )
