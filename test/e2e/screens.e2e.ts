@@ -203,7 +203,12 @@ describe('screens and series in chromium', () => {
     await page.waitForURL(/\/series\/[0-9a-f-]{36}$/);
     await expect
       .poll(() => page.locator('gw-fit-table tbody tr').count(), { timeout: 30_000 })
-      .toBe(2);
+      .toBe(2)
+      .catch(async (error: Error) => {
+        // Say what the page showed instead of the fit table.
+        const text = (await page.locator('main').innerText()).slice(0, 1500);
+        throw new Error(`${error.message}\npage: ${text}`);
+      });
     const marcus = await page.locator('gw-fit-table tbody tr').first().innerText();
     const lambda = num(/([−\d.]+) ±/.exec(marcus)![1]);
     expect(lambda).toBeGreaterThan(0.8);

@@ -156,7 +156,7 @@ export class SeriesPage {
     this.form.controls.paste.setValue('');
   }
 
-  protected save(then?: (s: Series) => void): void {
+  protected save(then?: (s: Series, done: () => void) => void): void {
     this.form.markAllAsTouched();
     if (this.form.invalid) {
       this.error.set('Some cells are not numbers: they are marked in the table.');
@@ -181,9 +181,14 @@ export class SeriesPage {
       next: (s) => {
         this.busy.set(false);
         this.load(s);
-        if (!current)
-          void this.router.navigate(['/w', this.wid(), 'series', s.id], { replaceUrl: true });
-        then?.(s);
+        // A new series moves to its own address only after any follow-up (the fit) is done:
+        // the page at the new address may be a new component that loads the series afresh.
+        const goToSaved = () => {
+          if (!current)
+            void this.router.navigate(['/w', this.wid(), 'series', s.id], { replaceUrl: true });
+        };
+        if (then) then(s, goToSaved);
+        else goToSaved();
       },
       error: (err: unknown) => this.fail(err),
     });
@@ -193,12 +198,13 @@ export class SeriesPage {
   protected fitNow(): void {
     // The mode as typed now (saving reloads the form from the stored series).
     const v = this.form.getRawValue();
-    const run = (s: Series) => {
+    const run = (s: Series, done: () => void = () => undefined) => {
       const hbarOmega = parseStrictNumber(v.hbarOmega);
       const lambdaVib = parseStrictNumber(v.lambdaVib);
       const mode = hbarOmega !== null && lambdaVib !== null ? { hbarOmega, lambdaVib } : {};
       if (v.model === 'mlj' && !('hbarOmega' in mode)) {
         this.error.set('MLJ needs the fixed mode: give ħω and λ_v in eV.');
+        done();
         return;
       }
       this.busy.set(true);
@@ -207,8 +213,12 @@ export class SeriesPage {
         next: (fitted) => {
           this.busy.set(false);
           this.series.set(fitted);
+          done();
         },
-        error: (err: unknown) => this.fail(err),
+        error: (err: unknown) => {
+          this.fail(err);
+          done();
+        },
       });
     };
     const s = this.series();
