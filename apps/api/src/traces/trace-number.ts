@@ -27,6 +27,10 @@ const NINE = 0x39;
 const LOWER_E = 0x65;
 const UPPER_E = 0x45;
 
+/** Status codes of `parseStrictInto`. */
+export const PARSED = 0;
+export const NOT_NUMBER = 1;
+
 /**
  * Reads bytes [start, end) of `buf` as a number. Returns the value (possibly ±Infinity when the
  * text overflows a double) or `NOT_A_NUMBER` when the text breaks the grammar.
@@ -36,84 +40,14 @@ export function readStrictNumber(
   start: number,
   end: number,
 ): number | typeof NOT_A_NUMBER {
-  let i = start;
-  if (i >= end) return NOT_A_NUMBER;
-  let negative = false;
-  let c = buf[i];
-  if (c === PLUS || c === MINUS) {
-    negative = c === MINUS;
-    i++;
-  }
-  let significand = 0;
-  let significantDigits = 0;
-  let decimalExponent = 0;
-  let digits = 0;
-  // Integer part.
-  while (i < end) {
-    c = buf[i];
-    if (c < ZERO || c > NINE) break;
-    if (significand !== 0 || c !== ZERO) {
-      significand = significand * 10 + (c - ZERO);
-      significantDigits++;
-    }
-    digits++;
-    i++;
-  }
-  // Fraction.
-  if (i < end && buf[i] === DOT) {
-    i++;
-    while (i < end) {
-      c = buf[i];
-      if (c < ZERO || c > NINE) break;
-      if (significand !== 0 || c !== ZERO) {
-        significand = significand * 10 + (c - ZERO);
-        significantDigits++;
-      }
-      decimalExponent--;
-      digits++;
-      i++;
-    }
-  }
-  if (digits === 0) return NOT_A_NUMBER;
-  // Exponent.
-  if (i < end && (buf[i] === LOWER_E || buf[i] === UPPER_E)) {
-    i++;
-    let exponentNegative = false;
-    if (i < end && (buf[i] === PLUS || buf[i] === MINUS)) {
-      exponentNegative = buf[i] === MINUS;
-      i++;
-    }
-    let exponent = 0;
-    let exponentDigits = 0;
-    while (i < end) {
-      c = buf[i];
-      if (c < ZERO || c > NINE) break;
-      // Saturate: beyond 10^6 the value is 0 or ∞ either way and Number() decides.
-      if (exponent < 1e6) exponent = exponent * 10 + (c - ZERO);
-      exponentDigits++;
-      i++;
-    }
-    if (exponentDigits === 0) return NOT_A_NUMBER;
-    decimalExponent += exponentNegative ? -exponent : exponent;
-  }
-  if (i !== end) return NOT_A_NUMBER;
-  if (significand === 0) return negative ? -0 : 0;
-  if (significantDigits <= 15 && decimalExponent >= -22 && decimalExponent <= 22) {
-    const magnitude =
-      decimalExponent >= 0
-        ? significand * EXACT_POWERS_OF_TEN[decimalExponent]
-        : significand / EXACT_POWERS_OF_TEN[-decimalExponent];
-    return negative ? -magnitude : magnitude;
-  }
-  return Number(latin1(buf, start, end));
+  return parseStrictInto(buf, start, end, scratch) === PARSED ? scratch[0] : NOT_A_NUMBER;
 }
 
-/** Status codes of `parseStrictInto`. */
-export const PARSED = 0;
-export const NOT_NUMBER = 1;
+/** One reusable slot for `readStrictNumber` (the parse is synchronous). */
+const scratch = new Float64Array(1);
 
 /**
- * Same as `readStrictNumber`, for hot loops: writes the value to `out[0]` and returns `PARSED`
+ * The strict reader for hot loops: writes the value to `out[0]` and returns `PARSED`
  * or `NOT_NUMBER` — a small integer, so no number object is allocated per call.
  */
 export function parseStrictInto(
