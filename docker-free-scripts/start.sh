@@ -17,7 +17,7 @@ export DATABASE_URL
 export SMTP_PORT=${SMTP_PORT:-2525} MAIL_UI_PORT=${MAIL_UI_PORT:-2526} S3_PORT=${S3_PORT:-4568}
 export S3_ENDPOINT=${S3_ENDPOINT:-http://127.0.0.1:${S3_PORT}}
 say "starting mail capture (SMTP ${SMTP_PORT}) and the S3-compatible store (${S3_PORT})…"
-npx tsx docker-free-scripts/services.ts &
+node docker-free-scripts/run-bundled.mjs docker-free-scripts/services.ts &
 services_pid=$!
 cleanup() {
   kill "$services_pid" 2>/dev/null || true
@@ -59,4 +59,4 @@ cat <<MSG
   Change or drop the demo accounts before real use (see README.md).
 
 MSG
-npx tsx apps/api/src/main.ts
+node docker-free-scripts/run-bundled.mjs apps/api/src/main.ts

@@ -146,25 +146,29 @@ export default async function setup(project: TestProject) {
     const port = await freePort();
     const baseUrl = `http://127.0.0.1:${port}`;
     let output = '';
-    server = spawn(join(root, 'node_modules/.bin/tsx'), ['apps/api/src/main.ts'], {
-      cwd: root,
-      stdio: ['ignore', 'pipe', 'pipe'],
-      env: {
-        ...process.env,
-        DATABASE_URL: database.url,
-        HOST: '127.0.0.1',
-        PORT: String(port),
-        PUBLIC_URL: baseUrl,
-        JWT_SECRET: 'e2e-secret-e2e-secret-e2e-secret-0123456789',
-        SMTP_HOST: '127.0.0.1',
-        SMTP_PORT: String(mail.smtpPort),
-        S3_ENDPOINT: store.endpoint,
-        S3_BUCKET: store.bucket,
-        WEB_DIST: webDist,
-        BCRYPT_COST: '4',
-        SIGN_IN_RATE_LIMIT: '100000',
+    server = spawn(
+      process.execPath,
+      ['docker-free-scripts/run-bundled.mjs', 'apps/api/src/main.ts'],
+      {
+        cwd: root,
+        stdio: ['ignore', 'pipe', 'pipe'],
+        env: {
+          ...process.env,
+          DATABASE_URL: database.url,
+          HOST: '127.0.0.1',
+          PORT: String(port),
+          PUBLIC_URL: baseUrl,
+          JWT_SECRET: 'e2e-secret-e2e-secret-e2e-secret-0123456789',
+          SMTP_HOST: '127.0.0.1',
+          SMTP_PORT: String(mail.smtpPort),
+          S3_ENDPOINT: store.endpoint,
+          S3_BUCKET: store.bucket,
+          WEB_DIST: webDist,
+          BCRYPT_COST: '4',
+          SIGN_IN_RATE_LIMIT: '100000',
+        },
       },
-    });
+    );
     const keep = (chunk: Buffer) => (output = (output + chunk.toString()).slice(-20_000));
     server.stdout?.on('data', keep);
     server.stderr?.on('data', keep);

@@ -43,10 +43,14 @@ function peakKb(pid: number): number {
 }
 
 async function startWorker(): Promise<ChildProcess> {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'apps/api/src/worker.ts'], {
-    env: { ...process.env, DATABASE_URL: database.url, GAPWISE_SCREEN_MAINTENANCE_SECONDS: '5' },
-    stdio: ['ignore', 'pipe', 'inherit'],
-  });
+  const child = spawn(
+    process.execPath,
+    ['docker-free-scripts/run-bundled.mjs', 'apps/api/src/worker.ts'],
+    {
+      env: { ...process.env, DATABASE_URL: database.url, GAPWISE_SCREEN_MAINTENANCE_SECONDS: '5' },
+      stdio: ['ignore', 'pipe', 'inherit'],
+    },
+  );
   await new Promise<void>((resolve, reject) => {
     let out = '';
     child.stdout!.on('data', (d: Buffer) => {

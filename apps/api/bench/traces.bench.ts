@@ -88,8 +88,7 @@ try {
     process.execPath,
     [
       ...(profile ? ['--cpu-prof', `--cpu-prof-dir=${profile}`] : []),
-      '--import',
-      'tsx',
+      'docker-free-scripts/run-bundled.mjs',
       'apps/api/src/main.ts',
     ],
     {

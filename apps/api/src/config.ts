@@ -4,8 +4,24 @@ import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { DEFAULT_DATABASE_URL } from '@gapwise/db';
 
-/** Repository root (apps/api/src → ../../..). */
-export const REPO_ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..', '..', '..');
+/**
+ * Repository root: the nearest folder above this module whose package.json is Gapwise's. Found by
+ * walking up rather than by a fixed `../../..`, because the server also runs from a bundle in
+ * .cache/bundles (docker-free-scripts/run-bundled.mjs).
+ */
+export const REPO_ROOT = findRepoRoot(dirname(fileURLToPath(import.meta.url)));
+
+function findRepoRoot(start: string): string {
+  for (let dir = start; ; dir = dirname(dir)) {
+    const manifest = resolve(dir, 'package.json');
+    if (
+      existsSync(manifest) &&
+      (JSON.parse(readFileSync(manifest, 'utf8')) as { name?: string }).name === 'gapwise'
+    )
+      return dir;
+    if (dirname(dir) === dir) throw new Error(`no Gapwise package.json above ${start}`);
+  }
+}
 
 /** The whole configuration of the API process, validated once at start-up. */
 export interface Config {

@@ -24,15 +24,19 @@ let survivor: ChildProcess;
 
 /** Spawns `apps/api/src/worker.ts` and resolves once it reports that it started. */
 async function startWorker(extraEnv: Record<string, string> = {}): Promise<ChildProcess> {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'apps/api/src/worker.ts'], {
-    env: {
-      ...process.env,
-      DATABASE_URL: t.config.databaseUrl,
-      GAPWISE_SCREEN_MAINTENANCE_SECONDS: '1',
-      ...extraEnv,
+  const child = spawn(
+    process.execPath,
+    ['docker-free-scripts/run-bundled.mjs', 'apps/api/src/worker.ts'],
+    {
+      env: {
+        ...process.env,
+        DATABASE_URL: t.config.databaseUrl,
+        GAPWISE_SCREEN_MAINTENANCE_SECONDS: '1',
+        ...extraEnv,
+      },
+      stdio: ['ignore', 'pipe', 'pipe'],
     },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
+  );
   child.stderr!.on('data', (d: Buffer) => {
     const text = d.toString();
     if (!text.includes('unexpected operator'))

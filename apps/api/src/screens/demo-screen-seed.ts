@@ -6,8 +6,9 @@
  * this process (no queue needed).
  */
 import { readFileSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
+import { join } from 'node:path';
 import type { DataSource } from 'typeorm';
+import { REPO_ROOT } from '../config';
 import { createSeries, fitSeriesUseCase } from '../series/series-use-case';
 import type { ScreenService } from './screen-queue';
 import { processChunk } from './screen-results-writer';
@@ -15,9 +16,7 @@ import { uploadScreen } from './screen-use-case';
 
 export const DEMO_SCREEN_NAME = 'Med-n mediator pairs, photo-charging screen (demo)';
 export const DEMO_SERIES_NAME = 'DA dyads: charge recombination against driving force (demo)';
-export const DEMO_SCREEN_CSV = fileURLToPath(
-  new URL('../../../../db/seed/screens/demo-mediator-screen.csv', import.meta.url),
-);
+export const DEMO_SCREEN_CSV = join(REPO_ROOT, 'db/seed/screens/demo-mediator-screen.csv');
 
 /**
  * Invented recombination rates of eight dyads in MeCN at 298 K (ΔG° in kJ/mol as typed in the

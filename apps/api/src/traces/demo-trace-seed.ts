@@ -9,9 +9,9 @@
  */
 import { createHash } from 'node:crypto';
 import { createReadStream, readFileSync } from 'node:fs';
-import { basename } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { basename, join } from 'node:path';
 import type { DataSource } from 'typeorm';
+import { REPO_ROOT } from '../config';
 import { runTraceAnalysisJob } from './trace-analysis-job';
 import type { TraceObjectStore } from './trace-object-store';
 import type { TraceServices } from './trace-services';
@@ -23,12 +23,8 @@ import {
 } from './trace-use-case';
 
 export const DEMO_TRACE_FILES = {
-  reactant: fileURLToPath(
-    new URL('../../../../db/seed/traces/demo-dyad-reactant.csv', import.meta.url),
-  ),
-  product: fileURLToPath(
-    new URL('../../../../db/seed/traces/demo-dyad-product.csv', import.meta.url),
-  ),
+  reactant: join(REPO_ROOT, 'db/seed/traces/demo-dyad-reactant.csv'),
+  product: join(REPO_ROOT, 'db/seed/traces/demo-dyad-product.csv'),
 } as const;
 /** The files' sampling temperature and units (db/seed/traces/generate.ts). */
 export const DEMO_TRACE_TEMPERATURE_K = 300;
