@@ -83,7 +83,9 @@ export class ScreenResultEntity {
   @Column({ type: 'double precision', nullable: true })
   score: number | null;
 
-  @ManyToOne(() => ScreenEntity, { onDelete: 'CASCADE' })
+  // No foreign key in the database (migration 1796500000000): a per-row check dominated the
+  // cost of storing results; a trigger on screens deletes them with their screen.
+  @ManyToOne(() => ScreenEntity, { createForeignKeyConstraints: false })
   @JoinColumn({ name: 'screen_id' })
   screen: Relation<ScreenEntity>;
 }

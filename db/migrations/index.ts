@@ -3,6 +3,7 @@ import { ScreensSeries1796176187568 } from './1796176187568-screens-series';
 import { Traces1796200000000 } from './1796200000000-traces';
 import { Reports1796300000000 } from './1796300000000-reports';
 import { PendingRegistrations1796400000000 } from './1796400000000-pending-registrations';
+import { ScreenResultsWithoutRowTrigger1796500000000 } from './1796500000000-screen-results-without-row-trigger';
 
 /** Every migration, in order (listed explicitly; see STACK.md). */
 export const migrations = [
@@ -11,4 +12,5 @@ export const migrations = [
   Traces1796200000000,
   Reports1796300000000,
   PendingRegistrations1796400000000,
+  ScreenResultsWithoutRowTrigger1796500000000,
 ];

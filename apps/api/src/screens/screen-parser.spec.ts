@@ -106,4 +106,42 @@ describe('screen CSV parser', () => {
     expect(Array.from(back.values.distance)).toEqual(Array.from(a.chunks[1].values.distance));
     expect(Number.isNaN(back.values.lambdaOuter[0])).toBe(true);
   });
+
+  it('numbers lines as an editor shows them: BOM, CRLF, empty lines, quoted cells with line breaks, split pieces', async () => {
+    const good = (name: string) => `${name},A-1,1.0,-1000,2.5,0.7,3.5,3.5,acetonitrile,2.3,80,25`;
+    const text = [
+      `\ufeff${HEADER}`, // line 1, with a byte-order mark
+      good('D-1'), // line 2
+      '', // line 3: empty, skipped
+      good('"D-2\r\nsecond line of the name"'), // lines 4–5: one record
+      good('D-3').replace('2.5', 'abc'), // line 6: bad
+      good('"D-""4"""'), // line 7: escaped quotes
+      '',
+    ].join('\r\n');
+    // Delivered in 7-character pieces, so records and quoted cells straddle piece boundaries.
+    const pieces = Array.from({ length: Math.ceil(text.length / 7) }, (_, i) =>
+      text.slice(i * 7, i * 7 + 7),
+    );
+    const chunks: InputChunk[] = [];
+    const summary = await parseScreenCsv(Readable.from(pieces), {
+      chunkSize: 10,
+      onChunk: (c) => void chunks.push(c),
+    });
+    expect(summary.fatal).toBe(false);
+    expect(chunks[0].lines).toEqual([2, 4, 7]);
+    expect(chunks[0].donor).toEqual(['D-1', 'D-2\r\nsecond line of the name', 'D-"4"']);
+    expect(summary.badRows.map((b) => b.line)).toEqual([6]);
+  });
+
+  it('stops at a quote left open for more than 1 MB, naming its line, instead of reading on', async () => {
+    const good = `D-1,A-1,1.0,-1000,2.5,0.7,3.5,3.5,acetonitrile,2.3,80,25`;
+    const open = `"D-2,A-2,${'x'.repeat(1024)}`;
+    // The open quote swallows every later line: more than MAX_RECORD_CHARS in all.
+    const pieces = [`${HEADER}\n${good}\n${open}\n`];
+    for (let i = 0; i < 1100; i++) pieces.push(`${'y'.repeat(1023)}\n`);
+    const summary = await parseScreenCsv(Readable.from(pieces), { chunkSize: 10 });
+    expect(summary.fatal).toBe(true);
+    expect(summary.badRows.map((b) => b.line)).toEqual([3]);
+    expect(summary.badRows[0].message).toMatch(/longer than 1 MB \(is a quote left open\?\)/);
+  });
 });

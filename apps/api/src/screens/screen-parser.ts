@@ -6,7 +6,8 @@
  */
 import { createHash } from 'node:crypto';
 import type { Readable } from 'node:stream';
-import { parse } from 'csv-parse';
+import { StringDecoder } from 'node:string_decoder';
+import Papa from 'papaparse';
 import {
   NUMERIC_KEYS,
   resolveHeader,
@@ -46,8 +47,11 @@ export interface ParseSummary {
 export interface ParseOptions {
   readonly chunkSize: number;
   readonly maxListed?: number;
-  /** Awaited for every full chunk (and the last partial one): gives back-pressure. */
-  readonly onChunk?: (chunk: InputChunk) => Promise<void> | void;
+  /**
+   * Awaited for every full chunk (and the last partial one): gives back-pressure. `encoded` is
+   * the chunk's storage form (`encodeInputChunk`), already made for the input hash.
+   */
+  readonly onChunk?: (chunk: InputChunk, encoded: string) => Promise<void> | void;
 }
 
 const NUMBER_RE = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
@@ -174,13 +178,6 @@ export async function parseScreenCsv(
 ): Promise<ParseSummary> {
   const maxListed = options.maxListed ?? 20;
   const chunkSize = options.chunkSize;
-  const parser = parse({
-    relax_column_count: true,
-    skip_empty_lines: true,
-    bom: true,
-    info: true,
-    relax_quotes: true,
-  });
   const hash = createHash('sha256');
   const badRows: BadRow[] = [];
   let badRowCount = 0;
@@ -214,60 +211,78 @@ export async function parseScreenCsv(
   async function flush(): Promise<void> {
     if (fill === 0) return;
     const out: InputChunk = fill === chunkSize ? chunk : trimChunk(chunk, fill);
-    hash.update(encodeInputChunk(out));
+    const encoded = encodeInputChunk(out);
+    hash.update(encoded);
     chunks += 1;
-    await options.onChunk?.(out);
+    await options.onChunk?.(out, encoded);
     chunk = newChunk(chunks);
     fill = 0;
   }
 
-  if (typeof source === 'string') parser.end(source);
-  else {
-    source.on('error', (err) => parser.destroy(err));
-    source.pipe(parser);
-  }
-
-  for await (const item of parser as AsyncIterable<{ record: string[]; info: { lines: number } }>) {
-    const cells = item.record;
-    const line = item.info.lines;
-    if (columns === null) {
-      const header = resolveHeader(cells);
-      if (!header.ok) {
-        fatal = true;
-        for (const p of header.problems) bad(line, p.message);
-        parser.destroy();
-        break;
+  let nextLine = 1;
+  let longRecord: RecordTooLongError | null = null;
+  const batches = csvRecordBatches(source);
+  records: for (;;) {
+    let next: IteratorResult<string[][]>;
+    try {
+      next = await batches.next();
+    } catch (error) {
+      if (!(error instanceof RecordTooLongError)) throw error;
+      longRecord = error;
+      break;
+    }
+    if (next.done) break;
+    for (const cells of next.value) {
+      const last = cells.length - 1;
+      if (cells[last]!.endsWith('\r')) cells[last] = cells[last]!.slice(0, -1);
+      const line = nextLine;
+      nextLine += 1 + lineBreaksInside(cells);
+      if (line === 1 && cells[0]?.charCodeAt(0) === 0xfeff) cells[0] = cells[0].slice(1); // BOM
+      if (cells.length === 1 && cells[0] === '') continue; // an empty line
+      if (columns === null) {
+        const header = resolveHeader(cells);
+        if (!header.ok) {
+          fatal = true;
+          for (const p of header.problems) bad(line, p.message);
+          break records;
+        }
+        columns = header.columns;
+        width = header.width;
+        headerKey = cells.map((c) => c.trim().toLowerCase()).join(',');
+        headerFirst = cells[0]?.trim().toLowerCase() ?? '';
+        continue;
       }
-      columns = header.columns;
-      width = header.width;
-      headerKey = cells.map((c) => c.trim().toLowerCase()).join(',');
-      headerFirst = cells[0]?.trim().toLowerCase() ?? '';
-      continue;
+      if (
+        cells[0]?.trim().toLowerCase() === headerFirst &&
+        cells.map((c) => c.trim().toLowerCase()).join(',') === headerKey
+      ) {
+        bad(line, 'a second header in the middle of the file');
+        continue;
+      }
+      if (cells.length !== width) {
+        bad(line, `expected ${width} columns, found ${cells.length}`);
+        continue;
+      }
+      const problems = readRow(cells, columns, row, text);
+      if (problems.length > 0) {
+        bad(line, problems.join('; '));
+        continue;
+      }
+      chunk.lines.push(line);
+      chunk.donor.push(text.donor);
+      chunk.acceptor.push(text.acceptor);
+      chunk.solvent.push(text.solvent);
+      for (const key of NUMERIC_KEYS) chunk.values[key][fill] = row[key];
+      fill += 1;
+      goodRows += 1;
+      if (fill === chunkSize) await flush();
     }
-    if (
-      cells[0]?.trim().toLowerCase() === headerFirst &&
-      cells.map((c) => c.trim().toLowerCase()).join(',') === headerKey
-    ) {
-      bad(line, 'a second header in the middle of the file');
-      continue;
-    }
-    if (cells.length !== width) {
-      bad(line, `expected ${width} columns, found ${cells.length}`);
-      continue;
-    }
-    const problems = readRow(cells, columns, row, text);
-    if (problems.length > 0) {
-      bad(line, problems.join('; '));
-      continue;
-    }
-    chunk.lines.push(line);
-    chunk.donor.push(text.donor);
-    chunk.acceptor.push(text.acceptor);
-    chunk.solvent.push(text.solvent);
-    for (const key of NUMERIC_KEYS) chunk.values[key][fill] = row[key];
-    fill += 1;
-    goodRows += 1;
-    if (fill === chunkSize) await flush();
+  }
+  // Stops reading without destroying the stream (an early stop leaves the rest for the caller).
+  await batches.return(undefined);
+  if (longRecord) {
+    fatal = true;
+    bad(nextLine, longRecord.message);
   }
   if (!fatal) await flush();
   if (!fatal && columns === null) {
@@ -278,6 +293,52 @@ export async function parseScreenCsv(
     bad(1, 'No data rows found.');
   }
   return { goodRows, badRowCount, badRows, chunks, inputHash: hash.digest('hex'), fatal };
+}
+
+const PARSE_OPTIONS = { delimiter: ',', newline: '\n' } as const;
+/** Longest record accepted; a longer one is nearly always a quote that was never closed. */
+export const MAX_RECORD_CHARS = 1 << 20;
+
+class RecordTooLongError extends Error {
+  constructor() {
+    super(
+      `a record longer than ${MAX_RECORD_CHARS / 2 ** 20} MB (is a quote left open?); nothing after it was read`,
+    );
+  }
+}
+
+/**
+ * The records of a CSV stream, one batch per piece read. Papa Parse (RFC 4180 quoting) with a
+ * comma and LF records fixed, not guessed from the first piece, which may hold no line break
+ * yet; the CR of CRLF files is taken off later. A piece's last, possibly unfinished record is
+ * carried over to the next piece. The stream is read without being destroyed when the caller
+ * stops early, so an HTTP request can still be drained and answered.
+ */
+async function* csvRecordBatches(source: Readable | string): AsyncGenerator<string[][]> {
+  if (typeof source === 'string') {
+    yield new Papa.Parser(PARSE_OPTIONS).parse(source, 0, false).data as string[][];
+    return;
+  }
+  const decoder = new StringDecoder('utf8');
+  let carry = '';
+  for await (const piece of source.iterator({ destroyOnReturn: false })) {
+    const text = carry + (typeof piece === 'string' ? piece : decoder.write(piece as Buffer));
+    const parsed = new Papa.Parser(PARSE_OPTIONS).parse(text, 0, true);
+    carry = text.substring(parsed.meta.cursor as number);
+    if (carry.length > MAX_RECORD_CHARS) throw new RecordTooLongError();
+    if (parsed.data.length > 0) yield parsed.data as string[][];
+  }
+  const rest = carry + decoder.end();
+  if (rest !== '') yield new Papa.Parser(PARSE_OPTIONS).parse(rest, 0, false).data as string[][];
+}
+
+/** Line breaks inside quoted cells (CRLF counts once: its LF). */
+function lineBreaksInside(cells: readonly string[]): number {
+  let count = 0;
+  for (const cell of cells) {
+    for (let at = cell.indexOf('\n'); at !== -1; at = cell.indexOf('\n', at + 1)) count += 1;
+  }
+  return count;
 }
 
 function trimChunk(chunk: InputChunk, size: number): InputChunk {

@@ -7,20 +7,22 @@
  */
 import type { DataSource, EntityManager } from 'typeorm';
 import { computeChunk, REGIMES, type ChunkResult } from './chunk-computer';
+import { float8ArrayParam, int4ArrayParam, textArrayParam } from './pg-binary-array';
 import { decodeInputChunk } from './screen-parser';
 import type { ScoreChoice, ScoreKind } from './screen-score';
 
-const num = (a: Float64Array): Array<number | null> =>
-  Array.from(a, (x) => (Number.isFinite(x) ? x : null));
-
-/** Inserts the rows of a chunk result (ignoring rows already there). */
+/**
+ * Inserts the rows of a chunk result (ignoring rows already there). Columns travel as binary
+ * arrays (`pg-binary-array.ts`); a value that could not be computed (non-finite) is stored as
+ * NULL, and so is the regime of a rate that could not be computed.
+ */
 export async function insertResults(
   tx: EntityManager,
   screenId: string,
   r: ChunkResult,
 ): Promise<void> {
   const regime = (codes: Uint8Array, valid: Float64Array) =>
-    Array.from(codes, (c, i) => (Number.isFinite(valid[i]) ? REGIMES[c] : null));
+    textArrayParam(Array.from(codes, (c, i) => (Number.isFinite(valid[i]) ? REGIMES[c]! : null)));
   await tx.query(
     `INSERT INTO screen_results (screen_id, row_number, donor, acceptor, solvent, delta_g_cs,
        delta_g_cr, lambda_inner, lambda_outer, lambda_total, coupling, temperature_k,
@@ -33,25 +35,25 @@ export async function insertResults(
      ON CONFLICT (screen_id, row_number) DO NOTHING`,
     [
       screenId,
-      r.lines,
-      r.donor,
-      r.acceptor,
-      r.solvent,
-      num(r.deltaGCs),
-      num(r.deltaGCr),
-      num(r.lambdaInner),
-      num(r.lambdaOuter),
-      num(r.lambdaTotal),
-      num(r.coupling),
-      num(r.temperature),
-      num(r.log10kCsMarcus),
-      num(r.log10kCrMarcus),
-      num(r.log10kCsMlj),
-      num(r.log10kCrMlj),
+      int4ArrayParam(r.lines),
+      textArrayParam(r.donor),
+      textArrayParam(r.acceptor),
+      textArrayParam(r.solvent),
+      float8ArrayParam(r.deltaGCs),
+      float8ArrayParam(r.deltaGCr),
+      float8ArrayParam(r.lambdaInner),
+      float8ArrayParam(r.lambdaOuter),
+      float8ArrayParam(r.lambdaTotal),
+      float8ArrayParam(r.coupling),
+      float8ArrayParam(r.temperature),
+      float8ArrayParam(r.log10kCsMarcus),
+      float8ArrayParam(r.log10kCrMarcus),
+      float8ArrayParam(r.log10kCsMlj),
+      float8ArrayParam(r.log10kCrMlj),
       regime(r.regimeCs, r.log10kCsMarcus),
       regime(r.regimeCr, r.log10kCrMarcus),
-      Array.from(r.warningMask),
-      num(r.score),
+      int4ArrayParam(r.warningMask),
+      float8ArrayParam(r.score),
     ],
   );
 }

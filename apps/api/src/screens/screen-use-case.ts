@@ -20,12 +20,7 @@ import { PairInputDto } from '../pairs/pair-dto';
 import { acceptPairInput, createPair } from '../pairs/pair-use-case';
 import { requireRole } from '../workspaces/workspace-access';
 import type { ScreenService } from './screen-queue';
-import {
-  decodeInputChunk,
-  encodeInputChunk,
-  parseScreenCsv,
-  type InputChunk,
-} from './screen-parser';
+import { decodeInputChunk, parseScreenCsv, type InputChunk } from './screen-parser';
 import { findResult, findScreen, inputPayloadForLine, screenWorkspace } from './screen-repository';
 import type { ScoreChoice } from './screen-score';
 import { SCREEN_SOFTWARE_VERSION } from './screen-version';
@@ -91,9 +86,11 @@ export async function uploadScreen(
     let waiting = 0;
     const summary = await parseScreenCsv(source, {
       chunkSize,
-      onChunk: async (chunk) => {
+      onChunk: async (chunk, encoded) => {
         waiting += 1;
-        stored = stored.then(() => storeChunk(tx, screenId, chunk)).finally(() => (waiting -= 1));
+        stored = stored
+          .then(() => storeChunk(tx, screenId, chunk, encoded))
+          .finally(() => (waiting -= 1));
         stored.catch(() => undefined);
         if (waiting >= STORE_AHEAD) await stored;
       },
@@ -173,14 +170,19 @@ export async function uploadScreen(
 const STORE_AHEAD = 4;
 
 /** Stores a chunk's inputs and its chunk row in one statement (one round trip). */
-async function storeChunk(tx: EntityManager, screenId: string, chunk: InputChunk): Promise<void> {
+async function storeChunk(
+  tx: EntityManager,
+  screenId: string,
+  chunk: InputChunk,
+  encoded: string,
+): Promise<void> {
   await tx.query(
     `WITH input AS (INSERT INTO screen_inputs (screen_id, chunk_index, payload) VALUES ($1, $2, $3))
      INSERT INTO screen_chunks (screen_id, chunk_index, first_line, last_line, row_count) VALUES ($1, $2, $4, $5, $6)`,
     [
       screenId,
       chunk.index,
-      encodeInputChunk(chunk),
+      encoded,
       chunk.lines[0],
       chunk.lines[chunk.lines.length - 1],
       chunk.lines.length,
