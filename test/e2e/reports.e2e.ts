@@ -195,7 +195,7 @@ describe('reports and review in chromium', () => {
     // Subscripts as in the PDF, derivation inputs with units, no raw markup in the equations.
     expect(await coupling.locator('th sub').textContent()).toBe('AB');
     expect(await reviewer.locator('tr[data-kind="lambdaOuter"]').textContent()).toContain(
-      'distance = 10.8 Å',
+      'centre-to-centre distance R = 10.8 Å',
     );
     const methods = (await reviewer.getByRole('region', { name: 'Methods' }).textContent())!;
     expect(methods).not.toMatch(/_\{|H_AB|λ_s/);

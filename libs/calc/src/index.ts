@@ -4,7 +4,7 @@ export * from './core/method';
 
 // Dispatcher, registry and serialisation shared by the web pages, the API and the command line.
 export { calculate, runMethod, serializeAnswer, canonicalInputs } from './core/calculate';
-export { allMethods, findMethod, methodCatalog } from './core/registry';
+export { allMethods, findMethod, inputLabel, methodCatalog } from './core/registry';
 export type { CatalogEntry, CatalogInput } from './core/registry';
 
 // Units (the one units module) and strict input reading.

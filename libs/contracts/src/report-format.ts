@@ -189,21 +189,31 @@ export function modelName(model: string): string {
   return MODEL_NAMES[model] ?? model;
 }
 
-let methodInputUnits: Map<string, Map<string, string>> | null = null;
+let methodInputs: Map<string, Map<string, { label: string; unit: string }>> | null = null;
 
-/** A derivation input with its canonical unit from the method catalog: "10.8 Å", "0.62 V". */
-function methodInputText(methodId: string, name: string, value: unknown): string {
-  if (typeof value !== 'number') return JSON.stringify(value);
-  methodInputUnits ??= new Map(
-    methodCatalog().map((m) => [m.id, new Map(m.inputs.map((i) => [i.name, i.unit]))]),
-  );
-  const unit = displayUnit(methodInputUnits.get(methodId)?.get(name) ?? '');
-  return unit ? `${formatNumber(value)} ${unit}` : formatNumber(value);
+/** First letter in lower case unless the label starts with a symbol or acronym ("E_ox", "ΔE°"). */
+function inSentence(label: string): string {
+  return /^[A-Z][a-z]/.test(label) ? label.charAt(0).toLowerCase() + label.slice(1) : label;
 }
 
 /**
- * "Literature: Smith et al. 2020" / "Derived: reorg.twoSphere from distance = 10.8 Å, …"
- * (method inputs with their canonical units).
+ * A derivation input by its label, with its canonical unit from the method catalog:
+ * "donor radius a_D = 5.5 Å", "ion-pair distance R = 10.8 Å".
+ */
+function methodInputText(methodId: string, name: string, value: unknown): string {
+  methodInputs ??= new Map(
+    methodCatalog().map((m) => [m.id, new Map(m.inputs.map((i) => [i.name, i]))]),
+  );
+  const input = methodInputs.get(methodId)?.get(name);
+  const label = input ? inSentence(input.label) : name;
+  if (typeof value !== 'number') return `${label} = ${JSON.stringify(value)}`;
+  const unit = displayUnit(input?.unit ?? '');
+  return `${label} = ${unit ? `${formatNumber(value)} ${unit}` : formatNumber(value)}`;
+}
+
+/**
+ * "Literature: Smith et al. 2020" / "Derived: reorg.twoSphere from donor radius a_D = 5.5 Å, …"
+ * (method inputs by their labels, with their canonical units).
  */
 export function provenanceText(p: Provenance): string {
   const kind = p.kind.charAt(0).toUpperCase() + p.kind.slice(1);
@@ -212,7 +222,7 @@ export function provenanceText(p: Provenance): string {
   if (p.methodId) {
     const inputs = p.methodInputs
       ? Object.entries(p.methodInputs)
-          .map(([k, v]) => `${k} = ${methodInputText(p.methodId!, k, v)}`)
+          .map(([k, v]) => methodInputText(p.methodId!, k, v))
           .join(', ')
       : '';
     parts.push(inputs ? `${p.methodId} from ${inputs}` : p.methodId);

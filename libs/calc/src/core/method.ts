@@ -58,6 +58,11 @@ export interface InputSpec {
   readonly quantity: Quantity;
   readonly required: boolean;
   readonly description: string;
+  /**
+   * Short name for people (report provenance, forms): "Donor radius a_D". When absent, the
+   * description up to its first parenthesis, full stop, colon or semicolon (see `inputLabel`).
+   */
+  readonly label?: string;
   /** Default used when an optional input is absent (canonical unit). */
   readonly defaultValue?: number | string;
 }

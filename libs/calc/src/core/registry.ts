@@ -58,7 +58,15 @@ export function findMethod(id: string): MethodDefinition<any> | undefined {
   return byId.get(id);
 }
 
+/** The input's short name for people: its `label`, else its description's first phrase. */
+export function inputLabel(input: InputSpec): string {
+  if (input.label) return input.label;
+  return input.description.split(/ \(|\.(?: |$)|; |: /)[0]!.trim();
+}
+
 export interface CatalogInput extends InputSpec {
+  /** `inputLabel` of the input. */
+  readonly label: string;
   /** Canonical unit ('' when unitless). */
   readonly unit: string;
   /** Units accepted in `{ value, unit }` (empty when only bare numbers are accepted). */
@@ -83,6 +91,7 @@ export function methodCatalog(): CatalogEntry[] {
     references: [...method.references],
     inputs: method.inputs.map((input) => ({
       ...input,
+      label: inputLabel(input),
       unit: UNITLESS.has(input.quantity) ? '' : canonicalUnit(input.quantity),
       units: allowedUnits(input.quantity),
     })),

@@ -126,12 +126,14 @@ export const rehmWellerMethod: MethodDefinition<RehmWellerInputs> = {
       name: 'donorOxidation',
       quantity: 'potential',
       required: true,
+      label: 'Donor oxidation potential E_ox(D⁺/D)',
       description: 'E_ox(D⁺/D), V, same reference electrode and solvent as E_red.',
     },
     {
       name: 'acceptorReduction',
       quantity: 'potential',
       required: true,
+      label: 'Acceptor reduction potential E_red(A/A⁻)',
       description: 'E_red(A/A⁻), V.',
     },
     {
@@ -144,6 +146,7 @@ export const rehmWellerMethod: MethodDefinition<RehmWellerInputs> = {
       name: 'distance',
       quantity: 'distance',
       required: true,
+      label: 'Ion-pair distance R',
       description: 'Ion-pair (centre-to-centre) distance R (> 0).',
     },
     {

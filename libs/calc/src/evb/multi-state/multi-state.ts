@@ -74,6 +74,7 @@ export const multiStateMethod: MethodDefinition<MultiStateInputs> = {
       name: 'hamiltonian',
       quantity: 'array',
       required: true,
+      label: 'Diabatic Hamiltonian',
       description:
         'Square symmetric matrix of diabatic energies and couplings, eV (elements may be { value, unit }).',
     },

@@ -88,6 +88,7 @@ export const crossRelationMethod: MethodDefinition<CrossRelationInputs> = {
       name: 'deltaE',
       quantity: 'potential',
       required: false,
+      label: 'Potential difference ΔE° of the cross reaction',
       description: 'ΔE° = E°(acceptor) − E°(donor), one electron (give K12 or deltaE).',
     },
     {

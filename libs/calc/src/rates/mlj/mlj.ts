@@ -147,6 +147,7 @@ export const mljMethod: MethodDefinition<MljInputs> = {
       name: 'lambdaSolvent',
       quantity: 'energy',
       required: true,
+      label: 'Classical reorganization energy λ_s',
       description: 'Classical (solvent, low-frequency) reorganization energy λ_s (> 0).',
     },
     {

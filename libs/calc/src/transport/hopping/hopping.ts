@@ -169,6 +169,7 @@ export const hoppingMethod: MethodDefinition<HoppingInputs> = {
       name: 'neighbors',
       quantity: 'array',
       required: true,
+      label: 'Neighbours',
       description:
         'Neighbours [{ distance (Å), coupling J (eV), deltaG0 (eV, default 0) }] of one site.',
     },
@@ -184,6 +185,7 @@ export const hoppingMethod: MethodDefinition<HoppingInputs> = {
       name: 'form',
       quantity: 'string',
       required: false,
+      label: 'Form of the diffusion coefficient',
       defaultValue: 'random-walk',
       description: "'random-walk' (exact) or 'pi-weighted' (literature P_i-weighted form).",
     },

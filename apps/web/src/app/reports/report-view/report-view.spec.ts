@@ -57,11 +57,15 @@ describe('ReportViewPage', () => {
     expect(equations).not.toMatch(/_\{|_[A-Za-z]/);
   });
 
-  it('shows derivation inputs with units in the provenance column', () => {
+  it('shows derivation inputs by their labels, with units and subscripts, in the provenance column', () => {
     const { el } = setup({ role: 'reviewer', userId: REVIEWER_ID });
-    const lambdaOuter = el.querySelector('tr[data-kind="lambdaOuter"]')!.textContent!;
-    expect(lambdaOuter).toContain('distance = 10.8 Å');
-    expect(lambdaOuter).toContain('radiusDonor = 5.5 Å');
+    const row = el.querySelector('tr[data-kind="lambdaOuter"]')!;
+    const lambdaOuter = row.textContent!;
+    expect(lambdaOuter).toContain('centre-to-centre distance R = 10.8 Å');
+    // "donor radius a_D": the D is a subscript, as in the PDF.
+    expect(lambdaOuter).toContain('donor radius aD = 5.5 Å');
+    expect(Array.from(row.querySelectorAll('td sub'), (s) => s.textContent)).toContain('D');
+    expect(lambdaOuter).not.toContain('radiusDonor');
   });
 
   it('offers a reviewer who did not write the report both decisions', () => {

@@ -1,0 +1,46 @@
+import { describe, expect, it } from 'vitest';
+import { inputLabel, methodCatalog } from './registry';
+
+describe('input labels', () => {
+  it('give every input of every method a short name a report can print', () => {
+    for (const method of methodCatalog()) {
+      for (const input of method.inputs) {
+        const where = `${method.id}.${input.name}: '${input.label}'`;
+        expect(input.label, where).toBe(inputLabel(input));
+        expect(input.label.length, where).toBeGreaterThan(2);
+        expect(input.label.length, where).toBeLessThanOrEqual(60);
+        // A phrase, not a sentence or a format description.
+        expect(input.label, where).not.toMatch(/[.,;:]$|^\W*$|\[\{|', '/);
+        expect(input.label, where).not.toBe(input.name);
+      }
+    }
+  });
+
+  it('take the description up to its first parenthesis or full stop unless set', () => {
+    expect(
+      inputLabel({
+        name: 'radiusDonor',
+        quantity: 'distance',
+        required: true,
+        description: 'Donor radius a_D (> 0).',
+      }),
+    ).toBe('Donor radius a_D');
+    expect(
+      inputLabel({
+        name: 'k0',
+        quantity: 'energy',
+        required: true,
+        description: 'Standard rate constant k⁰. Per second.',
+      }),
+    ).toBe('Standard rate constant k⁰');
+    expect(
+      inputLabel({
+        name: 'x',
+        quantity: 'energy',
+        required: true,
+        label: 'Own label',
+        description: 'Anything (ignored).',
+      }),
+    ).toBe('Own label');
+  });
+});
