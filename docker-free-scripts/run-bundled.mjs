@@ -56,8 +56,8 @@ async function build(entryPath, bundlePath, inputsPath, { bundlePackages }) {
     target: 'node20',
     tsconfig: join(repoRoot, 'tsconfig.json'),
     // A map file beside the bundle; `NODE_OPTIONS=--enable-source-maps` makes stack traces name
-    // the TypeScript files. Off by default: with maps on, every error's stack is mapped, and the
-    // S3 client makes enough of them to cost a quarter of a trace upload's CPU time.
+    // the TypeScript files. Off by default: with maps on, a trace upload took a quarter more CPU
+    // in one run (most likely from stack traces of errors made inside the S3 client).
     sourcemap: 'linked',
     sourcesContent: false,
     metafile: true,
