@@ -9,3 +9,4 @@ export * from './reports';
 export * from './report-format';
 export * from './traces';
 export * from './screens';
+export * from './rich-text';

@@ -1,9 +1,11 @@
 /**
  * A small inline text layout for the report: word wrapping over runs that switch weight and
- * drop to subscripts. `H_AB` and `τ_L` print with a true subscript (the alphanumeric run after
- * `_`; `_{…}` for longer ones). Everything else is plain Unicode, which the embedded Inter covers.
+ * drop to subscripts. `H_AB` and `τ_L` print with a true subscript (the markup of `textRuns` in
+ * `@gapwise/contracts`, the rule the web page draws by). Everything else is plain Unicode, which
+ * the embedded Inter covers.
  */
 import type PDFDocument from 'pdfkit';
+import { textRuns } from '@gapwise/contracts';
 import { FONT_REGULAR, FONT_SEMIBOLD } from './fonts';
 
 type Doc = InstanceType<typeof PDFDocument>;
@@ -25,18 +27,9 @@ export interface TextStyle {
 
 const SUB_SCALE = 0.72;
 
-/** Splits `text` into runs; `_X` / `_{X}` become subscripts. */
+/** Splits `text` into runs; `_X` / `_{X}` become subscripts (`textRuns`, as on the web page). */
 export function parseRuns(text: string, bold = false): Run[] {
-  const runs: Run[] = [];
-  const re = /_\{([^}]*)\}|_([A-Za-z0-9]+)/g;
-  let last = 0;
-  for (let m = re.exec(text); m; m = re.exec(text)) {
-    if (m.index > last) runs.push({ text: text.slice(last, m.index), bold, sub: false });
-    runs.push({ text: m[1] ?? m[2] ?? '', bold, sub: true });
-    last = m.index + m[0].length;
-  }
-  if (last < text.length) runs.push({ text: text.slice(last), bold, sub: false });
-  return runs;
+  return textRuns(text).map((r) => ({ text: r.text, bold, sub: r.sub }));
 }
 
 /** Sets the document's font for a run. */

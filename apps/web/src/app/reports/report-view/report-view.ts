@@ -36,7 +36,7 @@ import { Session } from '../../session/session';
 import { WorkspaceContext } from '../../workspaces/workspace-context';
 import { ReportsApi } from '../reports-api';
 import { ReportStatusChip } from '../report-status-chip';
-import { RichText } from '../rich-text/rich-text';
+import { RichText } from '../../shared/rich-text/rich-text';
 
 interface Thread {
   readonly comment: ReportCommentView;
