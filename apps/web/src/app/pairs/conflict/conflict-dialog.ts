@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule } from '@angular/material/dialog';
 import type { Pair, PairInput } from '@gapwise/contracts';
+import { RichText } from '../../shared/rich-text/rich-text';
 import { pairDifferences } from '../pair-diff';
 
 export interface ConflictDialogData {
@@ -15,7 +16,7 @@ export type ConflictChoice = 'reload' | 'overwrite';
 /** Someone saved this pair since it was opened: show what differs and let the user choose. */
 @Component({
   selector: 'gw-conflict-dialog',
-  imports: [MatDialogModule, MatButtonModule],
+  imports: [MatDialogModule, MatButtonModule, RichText],
   template: `
     <h2 mat-dialog-title>This pair changed while you were editing</h2>
     <mat-dialog-content>
@@ -37,7 +38,7 @@ export type ConflictChoice = 'reload' | 'overwrite';
         <tbody>
           @for (row of rows; track row.field) {
             <tr>
-              <th scope="row">{{ row.field }}</th>
+              <th scope="row"><gw-rich-text [text]="row.field" /></th>
               <td class="mine">{{ row.left }}</td>
               <td class="theirs">{{ row.right }}</td>
             </tr>

@@ -88,7 +88,13 @@ describe('DerivationDialog', () => {
     }
     fixture.detectChanges();
     // R = 5 Å < a_D + a_A = 8 Å: the spheres overlap (VALIDATION.md A11).
-    expect(el.textContent).toMatch(/a_D \+ a_A|overlap|≥/);
+    expect(el.textContent).toMatch(/aD \+ aA|overlap|≥/);
+    // Labels and messages draw a_D, ε_s as subscripts, never the raw markup.
+    expect(el.textContent).not.toContain('_');
+    const donor = el.querySelector(
+      '.row[data-input="radiusDonor"] mat-label, .row[data-input="radiusDonor"] label',
+    );
+    expect(donor?.querySelector('sub')?.textContent).toBe('D');
     expect(el.querySelector<HTMLButtonElement>('button.use-value')!.disabled).toBe(true);
   });
 });

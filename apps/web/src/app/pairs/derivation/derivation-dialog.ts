@@ -12,7 +12,8 @@ import {
   type InputSpec,
   type Quantity,
 } from '@gapwise/calc';
-import { PARAMETER_KINDS } from '@gapwise/contracts';
+import { PARAMETER_KINDS, plainText } from '@gapwise/contracts';
+import { RichText } from '../../shared/rich-text/rich-text';
 import { editableText, formatSignificant, parseStrictNumber } from '../../units/number-format';
 import { displayOf, unitLabel, unitsFor } from '../../units/units';
 import {
@@ -64,6 +65,7 @@ function labelOf(spec: InputSpec): string {
     MatFormFieldModule,
     MatInputModule,
     MatSelectModule,
+    RichText,
   ],
   templateUrl: './derivation-dialog.html',
   styleUrl: './derivation-dialog.scss',
@@ -74,6 +76,7 @@ export class DerivationDialog {
   private readonly ref = inject<MatDialogRef<DerivationDialog, DerivationResult>>(MatDialogRef);
 
   protected readonly unitLabel = unitLabel;
+  protected readonly plain = plainText;
   protected readonly method = findMethod(this.data.derivation.methodId);
   protected readonly rows: InputRow[] = (this.method?.inputs ?? []).map((spec) =>
     this.rowFor(spec),

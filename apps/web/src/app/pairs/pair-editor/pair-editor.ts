@@ -40,6 +40,7 @@ import { WorkspaceContext } from '../../workspaces/workspace-context';
 import { DrivingForcePlot } from '../../plots/driving-force-plot/driving-force-plot';
 import { ParabolaPlot } from '../../plots/parabola-plot/parabola-plot';
 import { TemperaturePlot } from '../../plots/temperature-plot/temperature-plot';
+import { RichText } from '../../shared/rich-text/rich-text';
 import { unitLabel, unitsFor } from '../../units/units';
 import {
   ConflictDialog,
@@ -129,6 +130,7 @@ export const REDRAW_MEASURE = 'gw-keystroke-to-redraw';
     ParabolaPlot,
     DrivingForcePlot,
     TemperaturePlot,
+    RichText,
   ],
   templateUrl: './pair-editor.html',
   styleUrl: './pair-editor.scss',

@@ -88,6 +88,26 @@ describe('ParameterField', () => {
     expect(host.lambda.controls.value.value).toBe(0.4);
   });
 
+  it('draws |H_AB| in the label and its messages with a subscript, never the raw markup', async () => {
+    const fixture = TestBed.createComponent(Host);
+    fixture.detectChanges();
+    const loader = TestbedHarnessEnvironment.loader(fixture);
+    const coupling = await loader.getHarness(ParameterFieldHarness.with({ kind: 'coupling' }));
+    expect(await coupling.getLabel()).toBe('Electronic coupling |HAB|');
+    expect(await coupling.getLabelSubscripts()).toEqual(['AB']);
+    await coupling.setValue('abc');
+    const messages = (await coupling.getErrorMessages()).join(' ');
+    expect(messages).toMatch(/Electronic coupling \|HAB\| is not a finite number/);
+    const el = fixture.nativeElement as HTMLElement;
+    const field = el.querySelector('gw-parameter-field[data-kind="coupling"]')!;
+    expect(field.querySelector('mat-error sub')?.textContent).toBe('AB');
+    expect(field.textContent).not.toContain('_');
+    // Assistive technology hears the same words, without the underscore.
+    expect(field.querySelector('.unit-select')?.getAttribute('aria-label')).toBe(
+      'Unit of Electronic coupling |HAB|',
+    );
+  });
+
   it('offers the five provenance kinds and shows a citation field for literature', async () => {
     const { host, lambda } = await setup();
     expect(await lambda.getProvenance()).toBe('Assumed');

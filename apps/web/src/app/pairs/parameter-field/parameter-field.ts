@@ -8,8 +8,14 @@ import { MatInputModule } from '@angular/material/input';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import { PARAMETER_KINDS, PROVENANCE_KINDS, type ParameterKind } from '@gapwise/contracts';
+import {
+  PARAMETER_KINDS,
+  PROVENANCE_KINDS,
+  plainText,
+  type ParameterKind,
+} from '@gapwise/contracts';
 import type { Quantity } from '@gapwise/calc';
+import { RichText } from '../../shared/rich-text/rich-text';
 import { unitLabel, unitsFor } from '../../units/units';
 import type { ParameterGroup } from '../pair-form/pair-form';
 import { parameterSpec } from '../pair-form/pair-form';
@@ -54,6 +60,7 @@ const PROVENANCE_WORDS: Record<string, string> = {
     MatIconModule,
     MatMenuModule,
     MatTooltipModule,
+    RichText,
   ],
   templateUrl: './parameter-field.html',
   styleUrl: './parameter-field.scss',
@@ -77,7 +84,10 @@ export class ParameterField {
   protected readonly provenanceWords = PROVENANCE_WORDS;
   protected readonly unitLabel = unitLabel;
   protected readonly spec = computed(() => parameterSpec(this.kind()));
+  /** The label with its subscript markup (`|H_AB|`), drawn by `gw-rich-text`. */
   protected readonly label = computed(() => PARAMETER_KINDS[this.kind()].label);
+  /** The same label as plain text (`|HAB|`) for aria-labels. */
+  protected readonly plainLabel = computed(() => plainText(this.label()));
   protected readonly units = computed(() =>
     unitsFor(PARAMETER_KINDS[this.kind()].quantity as Quantity),
   );

@@ -12,6 +12,7 @@ import {
   formatScientificAscii,
   formatSignificant,
 } from '../../units/number-format';
+import { RichText } from '../../shared/rich-text/rich-text';
 import type { MonteCarloState } from './monte-carlo';
 
 const MODEL_NAMES: Record<string, string> = {
@@ -36,7 +37,7 @@ const FIELD_LABELS: Record<string, string> = {
 /** k, log10 k, ΔG‡, regime, warnings and the Monte Carlo interval of the pair being edited. */
 @Component({
   selector: 'gw-results-panel',
-  imports: [MatButtonModule, MatIconModule, MatTooltipModule],
+  imports: [MatButtonModule, MatIconModule, MatTooltipModule, RichText],
   templateUrl: './results-panel.html',
   styleUrl: './results-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -70,7 +71,10 @@ export class ResultsPanel {
     };
   });
 
-  /** Nuclear regime in words, with the electronic one judged from |H_AB| against k_BT. */
+  /**
+   * Nuclear regime in words, with the electronic one judged from |H_AB| against k_BT (sentences
+   * carry the subscript markup that `gw-rich-text` draws).
+   */
   protected readonly regimeWords = computed(() => {
     const r = this.results();
     if (!r.regime) return null;

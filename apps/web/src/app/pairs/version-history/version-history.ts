@@ -9,6 +9,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
 import type { Pair, PairVersionSummary } from '@gapwise/contracts';
 import { catchError, combineLatest, filter, forkJoin, of, switchMap, tap } from 'rxjs';
+import { RichText } from '../../shared/rich-text/rich-text';
 import { pairDifferences } from '../pair-diff';
 import { PairsApi } from '../pairs-api';
 
@@ -23,6 +24,7 @@ import { PairsApi } from '../pairs-api';
     MatFormFieldModule,
     MatSelectModule,
     MatCheckboxModule,
+    RichText,
   ],
   templateUrl: './version-history.html',
   styleUrl: './version-history.scss',

@@ -36,13 +36,20 @@ export class ParameterFieldHarness extends ComponentHarness {
   private readonly valueErrors = this.locatorForAll('.value-error');
   private readonly calcErrors = this.locatorForAll('.calc-error');
   private readonly labelEl = this.locatorFor('.label');
+  private readonly labelSubs = this.locatorForAll('.label sub');
   private readonly badge = this.locatorForOptional('.derived-badge');
   private readonly deriveMenu = this.locatorForOptional(
     MatMenuHarness.with({ selector: '.derive' }),
   );
 
+  /** The label as it reads on screen, subscripts inline (`Electronic coupling |HAB|`). */
   async getLabel(): Promise<string> {
     return (await this.labelEl()).text();
+  }
+
+  /** The subscripts of the label (`['AB']` for |H_AB|). */
+  async getLabelSubscripts(): Promise<string[]> {
+    return Promise.all((await this.labelSubs()).map((s) => s.text()));
   }
 
   async getValue(): Promise<string> {

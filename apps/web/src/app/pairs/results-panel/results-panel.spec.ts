@@ -1,0 +1,68 @@
+import { TestBed } from '@angular/core/testing';
+import type { PairResults } from '@gapwise/contracts';
+import { ResultsPanel } from './results-panel';
+
+const results: PairResults = {
+  model: 'marcus',
+  k: 2.31e11,
+  log10k: 11.36,
+  activationFreeEnergy: 0.021,
+  regime: 'normal',
+  warnings: [
+    {
+      code: 'low-frequency-mode',
+      message: 'Low-frequency mode (ħω = 0.05 eV < 4k_BT): use thermal MLJ or include it in λ_s.',
+    },
+  ],
+  errors: [],
+};
+
+function render(coupling: number, extra: Partial<PairResults> = {}): HTMLElement {
+  const fixture = TestBed.createComponent(ResultsPanel);
+  fixture.componentRef.setInput('results', { ...results, ...extra });
+  fixture.componentRef.setInput('temperature', 298.15);
+  fixture.componentRef.setInput('coupling', coupling);
+  fixture.detectChanges();
+  return fixture.nativeElement as HTMLElement;
+}
+
+const subs = (el: Element | null) =>
+  Array.from(el?.querySelectorAll('sub') ?? [], (s) => s.textContent);
+
+/** Text as read, without the icon ligatures (`content_copy`). */
+function shownText(el: HTMLElement): string {
+  const copy = el.cloneNode(true) as HTMLElement;
+  copy.querySelectorAll('mat-icon').forEach((i) => i.remove());
+  return copy.textContent ?? '';
+}
+
+describe('ResultsPanel', () => {
+  it('writes the regime sentences and warnings with subscripts, never the raw markup', () => {
+    const el = render(0.0056);
+    const regime = el.querySelector('.regime p')!;
+    expect(regime.textContent).toContain('Nonadiabatic: |HAB| is well below kBT.');
+    expect(subs(regime)).toEqual(['AB', 'B']);
+    const warning = el.querySelector('.warnings li')!;
+    expect(warning.textContent).toContain('warning Low-frequency mode (ħω = 0.05 eV < 4kBT)');
+    expect(subs(warning)).toEqual(['B', 's']);
+    expect(shownText(el)).not.toContain('_');
+  });
+
+  it('says so in words with subscripts when |H_AB| exceeds k_BT', () => {
+    const el = render(0.05, { model: 'crossover', warnings: [] });
+    const regime = el.querySelector('.regime p')!;
+    expect(regime.textContent).toContain('Adiabatic side (|HAB| > kBT)');
+    expect(shownText(el)).not.toContain('_');
+  });
+
+  it('names the field of a calculation error by its label, with its subscript', () => {
+    const el = render(0.0056, {
+      k: null,
+      log10k: null,
+      errors: [{ field: 'tauL', message: 'is needed for this rate model.' }],
+    });
+    const item = el.querySelector('.errors li')!;
+    expect(item.textContent).toMatch(/Longitudinal relaxation time τL\s+is needed/);
+    expect(subs(item)).toEqual(['L']);
+  });
+});
