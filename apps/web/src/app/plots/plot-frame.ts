@@ -1,4 +1,6 @@
+import { plainText } from '@gapwise/contracts';
 import { axisBottom, axisLeft, scaleLinear, select, type ScaleLinear, type Selection } from 'd3';
+import { setSvgRichText } from './svg-rich-text';
 
 export interface FrameOptions {
   readonly width: number;
@@ -11,8 +13,10 @@ export interface FrameOptions {
   };
   readonly xDomain: readonly [number, number];
   readonly yDomain: readonly [number, number];
+  /** Axis labels may carry subscript markup (`−ΔG°_CS / eV`). */
   readonly xLabel: string;
   readonly yLabel: string;
+  /** Read by assistive technology; markup is dropped (`|H_AB|` → `|HAB|`). */
   readonly title: string;
 }
 
@@ -20,7 +24,10 @@ export interface Frame {
   readonly svg: Selection<SVGSVGElement, unknown, null, undefined>;
   /** Plot area, translated by the margins and clipped to them. */
   readonly plot: Selection<SVGGElement, unknown, null, undefined>;
-  /** Overlay group above the plot (labels, hover), not clipped. */
+  /**
+   * Overlay group above the plot, not clipped: labels and arrows (exported with the plot) and the
+   * hover read-out of `attachHover` (class `hover`, left out of exports).
+   */
   readonly overlay: Selection<SVGGElement, unknown, null, undefined>;
   readonly x: ScaleLinear<number, number>;
   readonly y: ScaleLinear<number, number>;
@@ -44,7 +51,7 @@ export function drawFrame(svgEl: SVGSVGElement, id: string, o: FrameOptions): Fr
     .attr('font-family', 'Inter, system-ui, sans-serif')
     .attr('font-size', 12)
     .attr('role', 'img');
-  svg.append('title').text(o.title);
+  svg.append('title').text(plainText(o.title));
   const defs = svg.append('defs');
   defs
     .append('clipPath')
@@ -106,21 +113,21 @@ export function drawFrame(svgEl: SVGSVGElement, id: string, o: FrameOptions): Fr
     .attr('y2', (d) => y(d))
     .attr('stroke', '#e3eaea');
 
-  root
+  const xLabel = root
     .append('text')
     .attr('class', 'axis-label')
     .attr('x', innerWidth / 2)
     .attr('y', innerHeight + 36)
     .attr('text-anchor', 'middle')
-    .attr('fill', '#1f2b2b')
-    .text(o.xLabel);
-  root
+    .attr('fill', '#1f2b2b');
+  setSvgRichText(xLabel.node()!, o.xLabel);
+  const yLabel = root
     .append('text')
     .attr('class', 'axis-label')
     .attr('transform', `translate(${-o.margin.left + 14},${innerHeight / 2}) rotate(-90)`)
     .attr('text-anchor', 'middle')
-    .attr('fill', '#1f2b2b')
-    .text(o.yLabel);
+    .attr('fill', '#1f2b2b');
+  setSvgRichText(yLabel.node()!, o.yLabel);
 
   const plot = root.append('g').attr('clip-path', `url(#${id}-clip)`);
   const overlay = root.append('g').attr('class', 'overlay');
@@ -135,12 +142,17 @@ export function attachHover(
   const { overlay, innerWidth, innerHeight, x } = frame;
   const rule = overlay
     .append('line')
+    .attr('class', 'hover')
     .attr('y1', 0)
     .attr('y2', innerHeight)
     .attr('stroke', '#5d6b6b')
     .attr('stroke-dasharray', '2 3')
     .style('display', 'none');
-  const box = overlay.append('g').style('display', 'none').attr('pointer-events', 'none');
+  const box = overlay
+    .append('g')
+    .attr('class', 'hover')
+    .style('display', 'none')
+    .attr('pointer-events', 'none');
   const bg = box
     .append('rect')
     .attr('fill', 'rgba(255,255,255,0.94)')
@@ -149,6 +161,7 @@ export function attachHover(
   const text = box.append('text').attr('fill', '#1f2b2b').attr('font-size', 11);
   overlay
     .append('rect')
+    .attr('class', 'hover')
     .attr('width', innerWidth)
     .attr('height', innerHeight)
     .attr('fill', 'transparent')

@@ -2,10 +2,13 @@ import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 
-/** Serialises a drawn plot as a standalone SVG document (Inter named, white background). */
+/**
+ * Serialises a drawn plot as a standalone SVG document (Inter named, white background): curves,
+ * axes, labels and arrows as on the page, without the hover read-out.
+ */
 export function svgText(svg: SVGSVGElement): string {
   const clone = svg.cloneNode(true) as SVGSVGElement;
-  clone.querySelectorAll('.overlay').forEach((n) => n.remove());
+  clone.querySelectorAll('.hover').forEach((n) => n.remove());
   clone.setAttribute('xmlns', 'http://www.w3.org/2000/svg');
   const [, , w, h] = (clone.getAttribute('viewBox') ?? '0 0 600 360').split(/\s+/).map(Number);
   clone.setAttribute('width', String(w));
