@@ -12,6 +12,7 @@ import { ActivatedRoute, Router, RouterLink } from '@angular/router';
 import type { ScreenScoreKind } from '@gapwise/contracts';
 import { map } from 'rxjs';
 import { apiErrorOf } from '../../session/api-errors';
+import { RichText } from '../../shared/rich-text/rich-text';
 import { ScreensApi } from '../screens-api';
 import { badRowReportOf, type BadRowReport } from './bad-row-report';
 
@@ -34,6 +35,7 @@ type Source = 'file' | 'paste';
     MatInputModule,
     MatProgressBarModule,
     MatSelectModule,
+    RichText,
   ],
   templateUrl: './new-screen.html',
   styleUrls: ['../screens.scss', './new-screen.scss'],

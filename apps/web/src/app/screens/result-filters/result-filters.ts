@@ -17,6 +17,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import type { ScreenNumericColumn } from '@gapwise/contracts';
 import { debounceTime } from 'rxjs';
+import { RichText } from '../../shared/rich-text/rich-text';
 import { parseStrictNumber } from '../../units/number-format';
 import { RESULT_COLUMNS, WARNING_LABELS, storedValue } from '../result-columns';
 import type { FormFilter, RangeMap } from '../screen-results-store';
@@ -70,6 +71,7 @@ export function filterOf(value: {
     MatIconModule,
     MatInputModule,
     MatSelectModule,
+    RichText,
   ],
   templateUrl: './result-filters.html',
   styleUrl: './result-filters.scss',
@@ -99,6 +101,11 @@ export class ResultFilters {
 
   protected get ranges(): FormArray<RangeGroup> {
     return this.form.controls.ranges;
+  }
+
+  /** Quantity with unit, with subscript markup (`|H_AB| / meV`). */
+  protected labelOf(column: ScreenNumericColumn): string {
+    return RESULT_COLUMNS.find((x) => x.key === column)?.label ?? column;
   }
 
   protected unitOf(column: ScreenNumericColumn): string {

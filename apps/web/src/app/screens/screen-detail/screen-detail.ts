@@ -16,10 +16,11 @@ import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator'
 import { MatSelectModule } from '@angular/material/select';
 import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
-import { MatTooltipModule } from '@angular/material/tooltip';
 import { ActivatedRoute, Router, RouterLink } from '@angular/router';
-import type { Screen, ScreenResultRow } from '@gapwise/contracts';
+import { plainText, type Screen, type ScreenResultRow } from '@gapwise/contracts';
 import { filter, map, switchMap } from 'rxjs';
+import { RichText } from '../../shared/rich-text/rich-text';
+import { RichTooltip } from '../../shared/rich-tooltip/rich-tooltip';
 import { formatFixed, formatSignificant } from '../../units/number-format';
 import { WorkspaceContext } from '../../workspaces/workspace-context';
 import {
@@ -50,8 +51,9 @@ import { ScreensApi, isActive } from '../screens-api';
     MatSelectModule,
     MatSortModule,
     MatTableModule,
-    MatTooltipModule,
     ResultFilters,
+    RichText,
+    RichTooltip,
     ScreenProgress,
     ScreenScatter,
   ],
@@ -80,6 +82,9 @@ export class ScreenDetail {
   protected readonly plotLimit = PLOT_LIMIT;
   protected readonly rate = signal<PlotRate>(PLOT_RATES[0]);
   protected readonly colourBy = signal<ColourBy>('score');
+  protected readonly colourName = computed(
+    () => COLOUR_BY.find((c) => c.key === this.colourBy())?.name ?? '',
+  );
   protected readonly opening = signal<number | null>(null);
   protected readonly fmt = formatFixed;
   protected readonly sig = formatSignificant;
@@ -192,8 +197,14 @@ export class ScreenDetail {
     });
   }
 
+  /** The row's warnings in words, with subscript markup (for the tooltip). */
+  protected warningLines(row: ScreenResultRow): string[] {
+    return row.warnings.map((w) => this.warningLabel[w] ?? w);
+  }
+
+  /** The same as plain text (for the aria-label). */
   protected warningText(row: ScreenResultRow): string {
-    return row.warnings.map((w) => this.warningLabel[w] ?? w).join('; ');
+    return plainText(this.warningLines(row).join('; '));
   }
 
   protected choiceText(s: Screen): string {

@@ -67,4 +67,23 @@ describe('ScreenScatter', () => {
     expect(shapes.size).toBe(2); // normal and inverted: two shapes, not only two colours
     expect(svg.querySelector('.legend')?.textContent).toContain('inverted');
   });
+
+  it('draws subscripts in the axis labels and the legend as SVG tspans, not raw markup', async () => {
+    const fixture = TestBed.createComponent(ScreenScatter);
+    fixture.componentRef.setInput('rows', [row(0), row(1)]);
+    fixture.componentRef.setInput('rate', PLOT_RATES[0]);
+    fixture.componentRef.setInput('colourBy', 'coupling');
+    fixture.detectChanges();
+    await fixture.whenStable();
+    const svg: SVGSVGElement = fixture.nativeElement.querySelector('svg');
+    const subs = (el: Element | null) =>
+      Array.from(el?.querySelectorAll('tspan.sub') ?? [], (t) => t.textContent);
+    const [xLabel, yLabel] = Array.from(svg.querySelectorAll('.axis-label'));
+    expect(subs(xLabel)).toEqual(['CS']);
+    expect(subs(yLabel)).toEqual(['CS']);
+    const legend = svg.querySelector('.legend')!;
+    expect(legend.textContent).toContain('Colour: |HAB|');
+    expect(subs(legend)).toEqual(['AB']);
+    expect(svg.textContent).not.toContain('_');
+  });
 });

@@ -25,6 +25,8 @@ import {
 import { formatFixed, formatSignificant } from '../../units/number-format';
 import { PlotExport } from '../../plots/plot-export/plot-export';
 import { drawFrame } from '../../plots/plot-frame';
+import { setSvgRichText } from '../../plots/svg-rich-text';
+import { RichText } from '../../shared/rich-text/rich-text';
 import type { BrushBox } from '../screen-results-store';
 import {
   COLOUR_BY,
@@ -81,7 +83,9 @@ export function scatterPoints(
 interface Hover {
   readonly left: number;
   readonly top: number;
+  /** Plain lines (pair names as typed), then the colour value with its subscript markup. */
   readonly lines: string[];
+  readonly colourLine: string;
 }
 
 /**
@@ -91,7 +95,7 @@ interface Hover {
  */
 @Component({
   selector: 'gw-screen-scatter',
-  imports: [PlotExport],
+  imports: [PlotExport, RichText],
   template: `
     <figure class="plot">
       <figcaption>
@@ -106,6 +110,7 @@ interface Hover {
             @for (line of h.lines; track $index) {
               <div [class.strong]="$first">{{ line }}</div>
             }
+            <div><gw-rich-text [text]="h.colourLine" /></div>
           </div>
         }
       </div>
@@ -156,8 +161,8 @@ export class ScreenScatter {
       margin: MARGIN,
       xDomain: pad(xs[0], xs[1], 0.2),
       yDomain: pad(ys[0], ys[1], 1),
-      xLabel: `Driving force −ΔG°${reaction} / eV`,
-      yLabel: `log₁₀(k${reaction} / s⁻¹)`,
+      xLabel: `Driving force −ΔG°_${reaction} / eV`,
+      yLabel: `log₁₀(k_${reaction} / s⁻¹)`,
       title: `${rate.name}: log10 k against driving force for ${points.length} pairs`,
     });
     const { plot, x, y, svg } = f;
@@ -253,10 +258,8 @@ export class ScreenScatter {
       .attr('class', 'legend')
       .attr('transform', `translate(${W - MARGIN.right + 20},${MARGIN.top + 6})`);
     const name = COLOUR_BY.find((c) => c.key === colourBy)?.name ?? colourBy;
-    g.append('text')
-      .attr('font-weight', 600)
-      .attr('fill', '#1f2b2b')
-      .text('Colour: ' + name);
+    const title = g.append('text').attr('font-weight', 600).attr('fill', '#1f2b2b');
+    setSvgRichText(title.node()!, 'Colour: ' + name);
     if (categorical) {
       Object.entries(REGIME_STYLE).forEach(([regime, style], i) => {
         const row = g.append('g').attr('transform', `translate(6,${20 + i * 20})`);
@@ -334,8 +337,8 @@ export class ScreenScatter {
         `line ${r.rowNumber}${r.solvent ? ` · ${r.solvent}` : ''}`,
         `−ΔG° = ${formatFixed(hit.x, 3)} eV`,
         `log₁₀ k = ${formatFixed(hit.y, 2)} (${rate.name})`,
-        colourLine,
       ],
+      colourLine,
     });
   }
 }
