@@ -2,3 +2,4 @@
 export * from './scale';
 export * from './parabolas';
 export * from './rate-curves';
+export * from './label-placement';

@@ -45,8 +45,51 @@ describe('ParabolaPlot', () => {
     const [top, bottom] = g.energyDomain.slice().reverse();
     const pxPerEv = (380 - 16 - 48) / (top - bottom);
     expect(lower[i][1] - upper[i][1]).toBeCloseTo(2 * H * pxPerEv, 1);
-    expect(el.textContent).toContain('2|H_AB| = 0.1 eV');
     expect(el.textContent).toContain('ΔG‡ = 0.0781 eV');
+    // 2|H_AB| is drawn with an SVG subscript, never with the raw underscore.
+    const splitting = el.querySelector('text.arrow-label.splitting')!;
+    expect(splitting.textContent).toBe('2|HAB| = 0.1 eV');
+    expect(Array.from(splitting.querySelectorAll('tspan.sub'), (t) => t.textContent)).toEqual([
+      'AB',
+    ]);
+    expect(el.querySelector('svg')!.textContent).not.toContain('_');
+  });
+
+  it('keeps the ΔG‡ and 2|H_AB| labels off the curves and apart, even for a tiny barrier', async () => {
+    // The demo pair DA-1: ΔG° = −0.71 eV, λ = 1.0 eV, |H_AB| = 45 cm⁻¹ = 0.00558 eV; ΔG‡ is
+    // (ΔG° + λ)²/(4λ) = 0.021 eV, an arrow of a few pixels at the crossing.
+    const el = await render(-0.71, 1.0, 45 / 8065.543937);
+    const curves = Array.from(el.querySelectorAll('path.curve'), (p) =>
+      pointsOf(p.getAttribute('d')!),
+    );
+    const boxes = ['activation', 'splitting'].map((id) => {
+      const t = el.querySelector(`text.arrow-label.${id}`)!;
+      // jsdom lays nothing out: the plot falls back to 7.2 units a character (subscripts 0.72).
+      const chars = Array.from(t.childNodes).reduce(
+        (n, c) =>
+          n + (c.textContent?.length ?? 0) * ((c as Element).classList?.contains('sub') ? 0.72 : 1),
+        0,
+      );
+      const width = Math.ceil(chars * 7.2);
+      const end = t.getAttribute('text-anchor') === 'end';
+      const x = Number(t.getAttribute('x')) - (end ? width : 0);
+      const y = Number(t.getAttribute('y')) - 12;
+      return { x, y, width, height: 17 };
+    });
+    const inside = (p: [number, number], b: (typeof boxes)[number]) =>
+      p[0] >= b.x && p[0] <= b.x + b.width && p[1] >= b.y && p[1] <= b.y + b.height;
+    for (const b of boxes) {
+      for (const points of curves) expect(points.some((p) => inside(p, b))).toBe(false);
+    }
+    const [a, s] = boxes;
+    const apart =
+      a.x + a.width <= s.x ||
+      s.x + s.width <= a.x ||
+      a.y + a.height <= s.y ||
+      s.y + s.height <= a.y;
+    expect(apart).toBe(true);
+    // Far from their short arrows, each label is tied to it by a leader line.
+    expect(el.querySelectorAll('line.leader').length).toBeGreaterThanOrEqual(1);
   });
 
   it('hides the adiabatic surfaces when toggled off and labels curves in words', async () => {

@@ -10,19 +10,29 @@ import {
   viewChild,
 } from '@angular/core';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
-import { parabolaGeometry, type ParabolaGeometry } from '@gapwise/plots';
+import { LabelSpace, parabolaGeometry, type Box, type ParabolaGeometry } from '@gapwise/plots';
+import { textRuns } from '@gapwise/contracts';
 import { line } from 'd3';
 import { formatSignificant } from '../../units/number-format';
 import { PlotExport } from '../plot-export/plot-export';
 import { attachHover, drawFrame } from '../plot-frame';
+import { SUB_SCALE, setSvgRichText } from '../svg-rich-text';
 
 const W = 600;
 const H = 380;
 const MARGIN = { top: 16, right: 24, bottom: 48, left: 62 };
+const CURVES = ['reactant', 'product'] as const;
+/** Clearance kept between a label and a curve, and an arrow, in plot units. */
+const CURVE_MARGIN = 4;
+const ARROW_MARGIN = 3;
+/** An arrow label's box: 12-unit text with a subscript below the baseline. */
+const LABEL_HEIGHT = 17;
+const LABEL_BASELINE = 12;
 
 /**
  * Reactant and product free-energy parabolas along the energy gap ΔE, crossing at ΔE = 0,
  * with ΔG°, λ and ΔG‡ as labelled arrows; optionally the adiabatic surfaces and their 2|H_AB| gap.
+ * Labels carry true subscripts (SVG tspans) and keep clear of every curve and arrow.
  */
 @Component({
   selector: 'gw-parabola-plot',
@@ -134,77 +144,44 @@ export class ParabolaPlot {
       }
     }
 
-    // Curve labels (colour is never the only carrier).
-    const labelAt = (gap: number, energy: number, text: string, colour: string, anchor: string) =>
-      overlay
-        .append('text')
-        .attr('x', x(gap))
-        .attr('y', Math.max(12, y(energy)))
-        .attr('fill', colour)
-        .attr('font-weight', 600)
-        .attr('text-anchor', anchor)
-        .text(text);
-    const top = g.energyDomain[1];
-    const rEdge = g.points.find((p) => p.reactant <= top * 0.92)!;
-    const pEdge = [...g.points].reverse().find((p) => p.product <= top * 0.92)!;
-    labelAt(rEdge.gap, rEdge.reactant, 'reactant (D–A) ——', '#2f6fb3', 'start').attr('dx', 6);
-    labelAt(pEdge.gap, pEdge.product, '— · product (D⁺–A⁻)', '#c0581b', 'end').attr('dx', -6);
+    // Room for labels: every curve drawn, the arrows and the crossing mark are obstacles, so
+    // no label is written over a line (see LabelSpace in @gapwise/plots).
+    const space = new LabelSpace({ x: 0, y: 0, width: f.innerWidth, height: f.innerHeight });
+    const keys = adiabatic ? (['reactant', 'product', 'lower', 'upper'] as const) : CURVES;
+    for (const key of keys) {
+      space.addPolyline(
+        g.points.map((p) => ({ x: x(p.gap), y: y(p[key]) })),
+        CURVE_MARGIN,
+      );
+    }
 
-    // Labelled arrows: ΔG°, λ, ΔG‡, and the 2|H_AB| splitting. Short arrows get their label
-    // beside the tip (ΔG‡ above on the left, 2|H_AB| below on the right) so labels never meet.
-    const arrow = (
-      gap: number,
-      from: number,
-      to: number,
-      label: string,
-      side: 'left' | 'right',
-      accent = false,
-    ) => {
-      const length = Math.abs(y(from) - y(to));
-      if (length >= 2) {
+    // Arrows: ΔG°, λ, ΔG‡, and the 2|H_AB| splitting (nudged right of ΔE = 0, only with the
+    // adiabatic surfaces). All are drawn before any label so that no label covers one.
+    const nudge = (g.gapDomain[1] - g.gapDomain[0]) * 0.035;
+    const shown = g.arrows
+      .filter((a) => a.id !== 'splitting' || adiabatic)
+      .map((a) => ({ ...a, px: x(a.id === 'splitting' ? a.gap + nudge : a.gap) }));
+    for (const a of shown) {
+      const accent = a.id === 'splitting';
+      if (Math.abs(y(a.from) - y(a.to)) >= 2) {
         overlay
           .append('line')
-          .attr('x1', x(gap))
-          .attr('x2', x(gap))
-          .attr('y1', y(from))
-          .attr('y2', y(to))
+          .attr('class', `arrow ${a.id}`)
+          .attr('x1', a.px)
+          .attr('x2', a.px)
+          .attr('y1', y(a.from))
+          .attr('y2', y(a.to))
           .attr('stroke', accent ? '#9a6400' : '#1f2b2b')
           .attr('stroke-width', 1.4)
           .attr('marker-end', `url(#parabola-${accent ? 'arrow-accent' : 'arrow'})`);
       }
-      const short = length < 28;
-      const top = Math.min(y(from), y(to));
-      const bottom = Math.max(y(from), y(to));
-      const ly = !short
-        ? (top + bottom) / 2 + 4
-        : side === 'left' && !accent
-          ? top - 8
-          : bottom + 14;
-      overlay
-        .append('text')
-        .attr('class', 'arrow-label')
-        .attr('x', x(gap) + (side === 'left' ? -6 : 6))
-        .attr('y', ly)
-        .attr('text-anchor', side === 'left' ? 'end' : 'start')
-        .attr('font-size', 12)
-        .attr('font-weight', 600)
-        .attr('fill', accent ? '#7a4f00' : '#1f2b2b')
-        .text(label);
-    };
-    const nudge = (g.gapDomain[1] - g.gapDomain[0]) * 0.035;
-    for (const a of g.arrows) {
-      const value = `${a.label} = ${fmt(a.to - a.from)} eV`;
-      if (a.id === 'splitting') {
-        if (adiabatic) {
-          // Near the right edge the label goes left, below the lower tip (ΔG‡ sits above).
-          const roomRight = x(a.gap + nudge) + 130 < f.innerWidth;
-          arrow(a.gap + nudge, a.from, a.to, value, roomRight ? 'right' : 'left', true);
-        }
-      } else if (a.id === 'activation') {
-        arrow(a.gap, a.from, a.to, value, 'left');
-      } else {
-        arrow(a.gap, a.from, a.to, value, 'right');
-      }
+      space.addPolyline(
+        [
+          { x: a.px, y: y(a.from) },
+          { x: a.px, y: y(a.to) },
+        ],
+        ARROW_MARGIN,
+      );
     }
     overlay
       .append('circle')
@@ -212,6 +189,75 @@ export class ParabolaPlot {
       .attr('cy', y(g.crossing.energy))
       .attr('r', 3.5)
       .attr('fill', '#1f2b2b');
+    space.addBox({ x: x(0) - 4, y: y(g.crossing.energy) - 4, width: 8, height: 8 }, 2);
+
+    // Curve labels (colour is never the only carrier): at the curve's upper end, or the nearest
+    // free spot when another curve runs there (the upper adiabatic surface, for a large |H_AB|).
+    const labelAt = (gap: number, energy: number, text: string, colour: string, end: boolean) => {
+      const label = overlay
+        .append('text')
+        .attr('class', 'curve-label')
+        .attr('fill', colour)
+        .attr('font-weight', 600)
+        .text(text);
+      const width = textWidth(label.node()!, text);
+      const at = { x: x(gap), y: Math.max(12, y(energy)) };
+      const preferred = {
+        x: end ? at.x - 6 - width : at.x + 6,
+        y: at.y - LABEL_BASELINE,
+        width,
+        height: LABEL_HEIGHT,
+      };
+      const placed = space.place(at, width, LABEL_HEIGHT, {
+        preferred: [preferred],
+        leaderFrom: Infinity,
+      });
+      setInBox(label.node()!, placed?.box ?? preferred, at.x);
+    };
+    const top = g.energyDomain[1];
+    const rEdge = g.points.find((p) => p.reactant <= top * 0.92)!;
+    const pEdge = [...g.points].reverse().find((p) => p.product <= top * 0.92)!;
+    labelAt(rEdge.gap, rEdge.reactant, 'reactant (D–A) ——', '#2f6fb3', false);
+    labelAt(pEdge.gap, pEdge.product, '— · product (D⁺–A⁻)', '#c0581b', true);
+
+    // Arrow labels beside the arrow's middle when that is free of lines (ΔG° and λ usually);
+    // otherwise at the nearest free spot with a thin leader line to the arrow (ΔG‡ and
+    // 2|H_AB| meet the curves at the crossing, and their arrows may be only pixels long).
+    for (const a of shown) {
+      const accent = a.id === 'splitting';
+      const value = `${a.label} = ${fmt(a.to - a.from)} eV`;
+      const label = overlay
+        .append('text')
+        .attr('class', `arrow-label ${a.id}`)
+        .attr('font-size', 12)
+        .attr('font-weight', 600)
+        .attr('fill', accent ? '#7a4f00' : '#1f2b2b');
+      setSvgRichText(label.node()!, value);
+      const width = textWidth(label.node()!, value);
+      const arrow = [
+        { x: a.px, y: y(a.from) },
+        { x: a.px, y: y(a.to) },
+      ] as const;
+      const middle = (arrow[0].y + arrow[1].y) / 2;
+      const right = { x: a.px + 6, y: middle - LABEL_HEIGHT / 2, width, height: LABEL_HEIGHT };
+      const left = { ...right, x: a.px - 6 - width };
+      const placed = space.place(arrow, width, LABEL_HEIGHT, {
+        preferred: a.id === 'activation' ? [left, right] : [right, left],
+      });
+      setInBox(label.node()!, placed?.box ?? (a.id === 'activation' ? left : right), a.px);
+      if (placed?.leader) {
+        const [from, to] = placed.leader;
+        overlay
+          .insert('line', '.arrow-label')
+          .attr('class', `leader ${a.id}`)
+          .attr('x1', from.x)
+          .attr('y1', from.y)
+          .attr('x2', to.x)
+          .attr('y2', to.y)
+          .attr('stroke', accent ? '#9a6400' : '#5d6b6b')
+          .attr('stroke-width', 0.9);
+      }
+    }
 
     attachHover(f, (gapValue) => {
       const p = nearest(g.points, gapValue);
@@ -224,6 +270,26 @@ export class ParabolaPlot {
       return { x: p.gap, lines };
     });
   }
+}
+
+/** Writes a label into its box, flush with the side facing what it names (`towardX`). */
+function setInBox(el: SVGTextElement, box: Box, towardX: number): void {
+  const end = towardX >= box.x + box.width / 2;
+  el.setAttribute('x', String(end ? box.x + box.width : box.x));
+  el.setAttribute('y', String(box.y + LABEL_BASELINE));
+  el.setAttribute('text-anchor', end ? 'end' : 'start');
+}
+
+/**
+ * The room a label needs: its width as the browser draws it, plus 12 % for the wider fallback
+ * font an exported SVG or PNG may be shown in (an SVG image cannot reach the page's Inter); or,
+ * where nothing is laid out (unit tests), an estimate from its characters, subscripts smaller.
+ */
+function textWidth(el: SVGTextElement, text: string): number {
+  const measured = typeof el.getComputedTextLength === 'function' ? el.getComputedTextLength() : 0;
+  if (measured > 0) return Math.ceil(measured * 1.12) + 1;
+  const chars = textRuns(text).reduce((n, r) => n + r.text.length * (r.sub ? SUB_SCALE : 1), 0);
+  return Math.ceil(chars * 7.2);
 }
 
 function fmt(v: number): string {
