@@ -95,7 +95,7 @@ describe('reports and review in chromium', () => {
     await reviewer.goto(`${baseUrl}/reviews`);
     await reviewer.getByRole('link', { name: /^DA-1/ }).click();
     await reviewer.waitForURL(reportUrl);
-    await reviewer.getByRole('button', { name: 'Comment on Electronic coupling |H_AB|' }).click();
+    await reviewer.getByRole('button', { name: 'Comment on Electronic coupling |HAB|' }).click();
     await reviewer
       .locator('#comment-body')
       .fill('Please give the source of the 45 cm⁻¹ coupling (which DFT functional?).');
@@ -214,7 +214,7 @@ describe('reports and review in chromium', () => {
     await shoot(reviewer, 'report-view-submitted');
 
     // Comment anchored on the coupling, then approve.
-    await reviewer.getByRole('button', { name: 'Comment on Electronic coupling |H_AB|' }).click();
+    await reviewer.getByRole('button', { name: 'Comment on Electronic coupling |HAB|' }).click();
     await reviewer
       .locator('#comment-body')
       .fill('The GMH coupling of 120 cm⁻¹ is consistent with the CT band; fine for this estimate.');

@@ -2,6 +2,7 @@ import { HttpErrorResponse, HttpInterceptorFn, HttpRequest } from '@angular/comm
 import { inject } from '@angular/core';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router } from '@angular/router';
+import { plainText } from '@gapwise/contracts';
 import { catchError, switchMap, throwError } from 'rxjs';
 import { NO_SIGN_IN_REDIRECT, QUIET_ERRORS, RETRIED_AFTER_REFRESH, apiErrorOf } from './api-errors';
 import { Session } from './session';
@@ -43,7 +44,8 @@ export const apiInterceptor: HttpInterceptorFn = (req, next) => {
         );
       }
       if (!req.context.get(QUIET_ERRORS) && err.status !== 401) {
-        snackBar.open(apiErrorOf(err).message, 'Dismiss');
+        // A snackbar takes no markup: a calculation message reads `|HAB|`, not `|H_AB|`.
+        snackBar.open(plainText(apiErrorOf(err).message), 'Dismiss');
       }
       return throwError(() => err);
     }),

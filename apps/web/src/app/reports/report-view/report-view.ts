@@ -21,6 +21,7 @@ import {
   intervalText,
   modelName,
   pairRateRequest,
+  plainText,
   provenanceText,
   type ParameterKind,
   type ReportAction,
@@ -79,6 +80,8 @@ export class ReportViewPage {
   protected commentAnchor = '';
   protected replyTo = signal<ReportCommentView | null>(null);
 
+  /** A label without its markup, for aria-labels (`|H_AB|` → `|HAB|`). */
+  protected readonly plain = plainText;
   protected readonly f = {
     rate: formatRate,
     log: formatLog10,

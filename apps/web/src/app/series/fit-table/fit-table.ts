@@ -1,5 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { SeriesFit, SeriesModel, SeriesModelFit } from '@gapwise/contracts';
+import { RichText } from '../../shared/rich-text/rich-text';
 import { formatFixed, formatSignificant } from '../../units/number-format';
 import { MODEL_NAMES } from '../series-plot/series-plot';
 
@@ -8,6 +9,7 @@ const CM1_PER_EV = 8065.543937;
 /** Fitted parameters with standard errors, correlation, residuals and AIC/BIC per model. */
 @Component({
   selector: 'gw-fit-table',
+  imports: [RichText],
   template: `
     @let f = fit();
     <table class="gw-table fit-table">
@@ -62,7 +64,7 @@ const CM1_PER_EV = 8065.543937;
       <ul class="warnings" aria-label="Fit warnings">
         @for (w of warnings(); track $index) {
           <li>
-            <strong>{{ names[w.model] }}:</strong> {{ w.message }}
+            <strong>{{ names[w.model] }}:</strong> <gw-rich-text [text]="w.message" />
           </li>
         }
       </ul>

@@ -21,6 +21,7 @@ import { ActivatedRoute, Router, RouterLink } from '@angular/router';
 import type { Pair, Series, SeriesModel, SeriesPoint } from '@gapwise/contracts';
 import { filter, map, switchMap } from 'rxjs';
 import { apiErrorOf } from '../../session/api-errors';
+import { RichText } from '../../shared/rich-text/rich-text';
 import { displayOf, unitLabel } from '../../units/units';
 import { editableText, parseStrictNumber } from '../../units/number-format';
 import { WorkspaceContext } from '../../workspaces/workspace-context';
@@ -62,6 +63,7 @@ export const ENERGY_UNITS = ['eV', 'meV', 'kJ/mol', 'kcal/mol', 'cm-1'] as const
     MatInputModule,
     MatSelectModule,
     FitTable,
+    RichText,
     SeriesPlot,
   ],
   templateUrl: './series-page.html',

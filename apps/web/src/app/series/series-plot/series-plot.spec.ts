@@ -82,4 +82,24 @@ describe('SeriesPlot and FitTable', () => {
       'No point beyond',
     );
   });
+
+  it('writes fit warnings with subscripts (λ_s, k_BT), not the raw markup', () => {
+    const warned: SeriesFit = {
+      ...fit,
+      fits: {
+        ...fit.fits,
+        mlj: {
+          ...fit.fits.mlj!,
+          warnings: [{ code: 'low-frequency-mode', message: 'ħω below 4k_BT: fold it into λ_s.' }],
+        },
+      },
+    };
+    const fixture = TestBed.createComponent(FitTable);
+    fixture.componentRef.setInput('fit', warned);
+    fixture.componentRef.setInput('temperature', 298.15);
+    fixture.detectChanges();
+    const list = fixture.nativeElement.querySelector('.warnings') as HTMLElement;
+    expect(list.textContent).toContain('ħω below 4kBT: fold it into λs.');
+    expect(Array.from(list.querySelectorAll('sub'), (e) => e.textContent)).toEqual(['B', 's']);
+  });
 });

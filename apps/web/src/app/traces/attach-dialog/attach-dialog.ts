@@ -8,6 +8,7 @@ import { MatSelectModule } from '@angular/material/select';
 import type { AttachableTraceParameter, Pair, PairListItem } from '@gapwise/contracts';
 import { PairsApi } from '../../pairs/pairs-api';
 import { apiErrorOf } from '../../session/api-errors';
+import { RichText } from '../../shared/rich-text/rich-text';
 import { formatSignificant } from '../../units/number-format';
 import { TracesApi } from '../traces-api';
 
@@ -33,6 +34,7 @@ export interface AttachDialogData {
     MatCheckboxModule,
     MatFormFieldModule,
     MatSelectModule,
+    RichText,
   ],
   template: `
     <h2 mat-dialog-title>Use on a pair</h2>
@@ -73,7 +75,7 @@ export interface AttachDialogData {
           pair.
         </p>
         @if (error(); as message) {
-          <p class="error" role="alert">{{ message }}</p>
+          <p class="error" role="alert"><gw-rich-text [text]="message" /></p>
         }
       </mat-dialog-content>
       <mat-dialog-actions align="end">

@@ -19,6 +19,7 @@ import { Router, RouterLink } from '@angular/router';
 import type { Pair, Trace, TraceAnalysis } from '@gapwise/contracts';
 import { filter, finalize, switchMap } from 'rxjs';
 import { apiErrorOf } from '../../session/api-errors';
+import { RichText } from '../../shared/rich-text/rich-text';
 import { formatSignificant } from '../../units/number-format';
 import { WorkspaceContext } from '../../workspaces/workspace-context';
 import { AttachDialog, type AttachDialogData } from '../attach-dialog/attach-dialog';
@@ -53,6 +54,7 @@ interface NumberRow {
     GapHistogramPlot,
     FreeEnergyPlot,
     BlockPlot,
+    RichText,
   ],
   templateUrl: './trace-analysis.html',
   styleUrl: './trace-analysis.scss',

@@ -28,6 +28,7 @@ import {
 } from '@gapwise/contracts';
 import { catchError, forkJoin, last, map, of, switchMap, tap } from 'rxjs';
 import { apiErrorOf } from '../../session/api-errors';
+import { RichText } from '../../shared/rich-text/rich-text';
 import { formatSignificant } from '../../units/number-format';
 import { WorkspaceContext } from '../../workspaces/workspace-context';
 import { TracesApi, type UploadStep } from '../traces-api';
@@ -83,6 +84,7 @@ export function formatBytes(bytes: number): string {
     MatInputModule,
     MatProgressBarModule,
     MatSelectModule,
+    RichText,
   ],
   templateUrl: './trace-list.html',
   styleUrl: './trace-list.scss',
