@@ -79,8 +79,13 @@ export async function signIn(
   await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'), { timeout: 30_000 });
 }
 
-/** A full-page screenshot under the git-ignored test-output/screenshots/. */
+/**
+ * A full-page screenshot under the git-ignored test-output/screenshots/, taken from the top of
+ * the page: scrolled, the sticky app bar would be drawn across the middle of the image (over the
+ * form) although on screen it stays at the top of the viewport.
+ */
 export async function shoot(page: Page, name: string): Promise<void> {
+  await page.evaluate(() => window.scrollTo(0, 0));
   await page.screenshot({ path: join(screenshotDir, `${name}.png`), fullPage: true });
 }
 
