@@ -82,6 +82,19 @@ describe('LabelSpace', () => {
     });
   });
 
+  it('keeps a leader line clear for later labels', () => {
+    const space = new LabelSpace({ x: 0, y: 0, width: 300, height: 200 });
+    const far = { x: 200, y: 150, width: 40, height: 10 };
+    const p = space.place({ x: 100, y: 100 }, 40, 10, { preferred: [far] })!;
+    // From the target to the box's nearest corner, (200, 150).
+    expect(p.leader).toEqual([
+      { x: 100, y: 100 },
+      { x: 200, y: 150 },
+    ]);
+    expect(space.isFree({ x: 148, y: 123, width: 4, height: 4 })).toBe(false); // on the line
+    expect(space.isFree({ x: 148, y: 100, width: 4, height: 4 })).toBe(true); // beside it
+  });
+
   it('keeps two labels for the same anchor apart', () => {
     const space = new LabelSpace({ x: 0, y: 0, width: 200, height: 120 });
     space.addPolyline(

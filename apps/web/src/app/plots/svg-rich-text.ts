@@ -30,3 +30,25 @@ export function setSvgRichText(el: SVGTextElement, text: string): void {
     el.appendChild(span);
   }
 }
+
+let context: OffscreenCanvasRenderingContext2D | null | undefined;
+
+/**
+ * The width of `text` as `setSvgRichText` draws it in Inter at `sizePx` and `weight`, subscripts
+ * at their smaller size, measured on an offscreen canvas: no layout of the page is forced, so a
+ * plot can measure its labels on every keystroke. Null where no canvas exists (unit tests).
+ */
+export function svgRichTextWidth(text: string, sizePx: number, weight = 400): number | null {
+  if (context === undefined) {
+    context =
+      typeof OffscreenCanvas === 'function' ? new OffscreenCanvas(1, 1).getContext('2d') : null;
+  }
+  if (!context) return null;
+  let width = 0;
+  for (const run of textRuns(text)) {
+    const size = run.sub ? sizePx * SUB_SCALE : sizePx;
+    context.font = `${weight} ${size}px Inter, system-ui, sans-serif`;
+    width += context.measureText(run.text).width;
+  }
+  return width;
+}

@@ -16,7 +16,7 @@ import { line } from 'd3';
 import { formatSignificant } from '../../units/number-format';
 import { PlotExport } from '../plot-export/plot-export';
 import { attachHover, drawFrame } from '../plot-frame';
-import { SUB_SCALE, setSvgRichText } from '../svg-rich-text';
+import { SUB_SCALE, setSvgRichText, svgRichTextWidth } from '../svg-rich-text';
 
 const W = 600;
 const H = 380;
@@ -200,7 +200,7 @@ export class ParabolaPlot {
         .attr('fill', colour)
         .attr('font-weight', 600)
         .text(text);
-      const width = textWidth(label.node()!, text);
+      const width = textWidth(text);
       const at = { x: x(gap), y: Math.max(12, y(energy)) };
       const preferred = {
         x: end ? at.x - 6 - width : at.x + 6,
@@ -233,7 +233,7 @@ export class ParabolaPlot {
         .attr('font-weight', 600)
         .attr('fill', accent ? '#7a4f00' : '#1f2b2b');
       setSvgRichText(label.node()!, value);
-      const width = textWidth(label.node()!, value);
+      const width = textWidth(value);
       const arrow = [
         { x: a.px, y: y(a.from) },
         { x: a.px, y: y(a.to) },
@@ -281,13 +281,13 @@ function setInBox(el: SVGTextElement, box: Box, towardX: number): void {
 }
 
 /**
- * The room a label needs: its width as the browser draws it, plus 12 % for the wider fallback
- * font an exported SVG or PNG may be shown in (an SVG image cannot reach the page's Inter); or,
- * where nothing is laid out (unit tests), an estimate from its characters, subscripts smaller.
+ * The room a 12-unit semibold label needs: its width in Inter plus 12 % for the wider fallback
+ * font an exported SVG or PNG may be shown in (an SVG image cannot reach the page's Inter); where
+ * nothing can be measured (unit tests), an estimate from its characters, subscripts smaller.
  */
-function textWidth(el: SVGTextElement, text: string): number {
-  const measured = typeof el.getComputedTextLength === 'function' ? el.getComputedTextLength() : 0;
-  if (measured > 0) return Math.ceil(measured * 1.12) + 1;
+function textWidth(text: string): number {
+  const measured = svgRichTextWidth(text, 12, 600);
+  if (measured !== null && measured > 0) return Math.ceil(measured * 1.12) + 1;
   const chars = textRuns(text).reduce((n, r) => n + r.text.length * (r.sub ? SUB_SCALE : 1), 0);
   return Math.ceil(chars * 7.2);
 }
