@@ -1,8 +1,8 @@
 import { ComponentPortal } from '@angular/cdk/portal';
 import {
-  createCloseScrollStrategy,
   createFlexibleConnectedPositionStrategy,
   createOverlayRef,
+  createRepositionScrollStrategy,
   type OverlayRef,
 } from '@angular/cdk/overlay';
 import {
@@ -77,7 +77,11 @@ export class RichTooltip implements OnDestroy {
       .withPush(true);
     this.overlay = createOverlayRef(this.injector, {
       positionStrategy: position,
-      scrollStrategy: createCloseScrollStrategy(this.injector),
+      // As matTooltip: follows its host on scroll, and closes once the host scrolls out of view.
+      scrollStrategy: createRepositionScrollStrategy(this.injector, {
+        scrollThrottle: 20,
+        autoClose: true,
+      }),
     });
     const panel = this.overlay.attach(new ComponentPortal(RichTooltipPanel));
     panel.setInput('lines', this.lines());
