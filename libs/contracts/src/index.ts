@@ -10,3 +10,4 @@ export * from './report-format';
 export * from './traces';
 export * from './screens';
 export * from './rich-text';
+export * from './csv';

@@ -37,7 +37,8 @@ function listQuery(req: Request): PairListQuery {
   const sortRaw = queryString(req.query['sort'], 'sort', errors) ?? 'name';
   const descending = sortRaw.startsWith('-');
   const sort = sortRaw.replace(/^-/, '');
-  if (!(sort in SORT_COLUMNS))
+  // Own keys only: `in` would accept inherited names such as constructor or __proto__.
+  if (!Object.hasOwn(SORT_COLUMNS, sort))
     errors.push({
       field: 'sort',
       message: `must be one of ${Object.keys(SORT_COLUMNS).join(', ')} (prefix - for descending)`,

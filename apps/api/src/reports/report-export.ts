@@ -3,7 +3,7 @@
  * review status) and CSV in long form, one value per row at full double precision, canonical
  * units named as in CALC-API.md.
  */
-import type { ReportView } from '@gapwise/contracts';
+import { csvCell, type ReportView } from '@gapwise/contracts';
 import { provenanceText } from './pdf/report-text';
 
 export const CSV_COLUMNS = [
@@ -20,18 +20,6 @@ export const CSV_COLUMNS = [
   'uncertainty',
   'provenance',
 ] as const;
-
-function cell(value: unknown): string {
-  if (value === null || value === undefined) return '';
-  const text =
-    typeof value === 'number' ? (Number.isFinite(value) ? String(value) : '') : String(value);
-  // Quote when needed; neutralise spreadsheet formulas in text cells.
-  const safe =
-    typeof value === 'string' && /^[=+\-@\t\r]/.test(text) && !/^-?\d/.test(text)
-      ? `'${text}`
-      : text;
-  return /[",\n\r]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
-}
 
 export function reportCsv(view: ReportView): string {
   const rows: unknown[][] = [[...CSV_COLUMNS]];
@@ -114,7 +102,7 @@ export function reportCsv(view: ReportView): string {
         ]);
     }
   }
-  return rows.map((r) => r.map(cell).join(',')).join('\r\n') + '\r\n';
+  return rows.map((r) => r.map(csvCell).join(',')).join('\r\n') + '\r\n';
 }
 
 export function reportJson(view: ReportView): unknown {

@@ -8,6 +8,7 @@ import type { Request, Response, Router } from 'express';
 import multer from 'multer';
 import {
   canEdit,
+  csvCell,
   SCREEN_NUMERIC_COLUMNS,
   type ScreenNumericColumn,
   type ScreenResultRow,
@@ -15,6 +16,7 @@ import {
 import type { AppDeps } from '../http/context';
 import { requireAuth, userIdOf } from '../http/authenticate';
 import { notFound, validationFailed } from '../http/app-error';
+import { multipartError } from '../http/multipart';
 import { isUuid, queryInt, queryString } from '../http/validate';
 import { requireRole } from '../workspaces/workspace-access';
 import { SCREEN_WARNINGS, warningBit } from './chunk-computer';
@@ -198,16 +200,6 @@ const CSV_COLUMNS: Array<[keyof ScreenResultRow, string]> = [
   ['score', 'score'],
 ];
 
-function csvCell(value: unknown): string {
-  if (value === null || value === undefined) return '';
-  const text = Array.isArray(value) ? value.join(' ') : String(value);
-  // Quote separators, and text cells a spreadsheet would read as a formula.
-  const formula = typeof value === 'string' && /^[=+\-@]/.test(text);
-  return /[",\n\r]/.test(text) || formula
-    ? `"${formula ? "'" : ''}${text.replace(/"/g, '""')}"`
-    : text;
-}
-
 export function registerScreenRoutes(router: Router, deps: AppDeps): void {
   const db = deps.dataSource;
   const screenId = (req: Request) => {
@@ -240,7 +232,9 @@ export function registerScreenRoutes(router: Router, deps: AppDeps): void {
         limits: { files: 1, fileSize: 512 * 1024 * 1024 },
       }).single('file');
       await new Promise<void>((resolve, reject) =>
-        upload(req, res, (err: unknown) => (err ? reject(err) : resolve())),
+        upload(req, res, (err: unknown) =>
+          err ? reject(multipartError(err, 'file', '512 MiB')) : resolve(),
+        ),
       );
       const result = (req as Request & { screenUpload?: unknown }).screenUpload;
       if (!result)

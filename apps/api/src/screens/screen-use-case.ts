@@ -226,12 +226,14 @@ export async function cancelScreen(
       `UPDATE screen_chunks SET status = 'cancelled' WHERE screen_id = $1 AND status = 'pending'`,
       [screenId],
     );
-    const rows: Array<{ id: string }> = await tx.query(
+    // TypeORM answers UPDATE … RETURNING with [rows, affected count], never the rows alone; the
+    // throw below rolls back the chunk update too (nothing written for a finished screen).
+    const [rows]: [Array<{ id: string }>, number] = await tx.query(
       `UPDATE screens SET status = 'cancelled', finished_at = now() WHERE id = $1 AND status IN ('uploaded', 'running')
        RETURNING id`,
       [screenId],
     );
-    if (!rows[0])
+    if (rows.length === 0)
       throw new AppError(
         409,
         'screen-not-running',

@@ -9,6 +9,7 @@ import { canEdit } from '@gapwise/contracts';
 import { AppError, notFound, validationFailed } from '../http/app-error';
 import type { AppDeps } from '../http/context';
 import { requireAuth, userIdOf } from '../http/authenticate';
+import { multipartError } from '../http/multipart';
 import { isUuid } from '../http/validate';
 import { requireRole } from '../workspaces/workspace-access';
 import type { IngestedTrace } from './trace-ingest';
@@ -94,7 +95,7 @@ function multerErrorToAppError(error: unknown): unknown {
       },
     ]);
   }
-  return error;
+  return multipartError(error, 'file', `${MAX_TRACE_UPLOAD_BYTES / 1024 ** 3} GiB`);
 }
 
 const provided = new WeakMap<AppDeps, Promise<TraceServices>>();

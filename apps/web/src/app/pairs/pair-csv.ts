@@ -1,4 +1,4 @@
-import type { PairListItem } from '@gapwise/contracts';
+import { csvCell, type PairListItem } from '@gapwise/contracts';
 
 const COLUMNS: ReadonlyArray<[string, (row: PairListItem) => unknown]> = [
   ['name', (r) => r.name],
@@ -15,16 +15,10 @@ const COLUMNS: ReadonlyArray<[string, (row: PairListItem) => unknown]> = [
   ['updated_by', (r) => r.updatedBy],
 ];
 
-function cell(value: unknown): string {
-  if (value === null || value === undefined) return '';
-  const text = String(value);
-  return /[",\n\r]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
-}
-
 /** The visible rows as CSV, canonical units named in the header (full precision). */
 export function pairsToCsv(rows: readonly PairListItem[]): string {
   const header = COLUMNS.map(([name]) => name).join(',');
-  const lines = rows.map((row) => COLUMNS.map(([, get]) => cell(get(row))).join(','));
+  const lines = rows.map((row) => COLUMNS.map(([, get]) => csvCell(get(row))).join(','));
   return [header, ...lines].join('\r\n') + '\r\n';
 }
 

@@ -1,0 +1,153 @@
+/**
+ * Bad input against the real server and PostgreSQL: every malformed or hostile request answers a
+ * 4xx naming the problem (never 500), and nothing is written half way. One `it` per finding of
+ * the security review (issue 12, "Bad input").
+ */
+import { mkdtemp, rm } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startObjectStore, type ObjectStore } from '../../docker-free-scripts/s3/object-store';
+import { pairBody } from './support/fixtures';
+import { registerUser, startTestApp, type Session, type TestApp } from './support/test-app';
+import { screenCsv } from './screens/screen-csv';
+
+process.env['GAPWISE_SCREEN_WORKER'] = 'false';
+process.env['GAPWISE_TRACE_WORKER'] = 'false';
+
+let t: TestApp;
+let s3: ObjectStore;
+let s3dir: string;
+let owner: Session;
+let stranger: Session;
+let wid: string;
+let foreignWid: string;
+
+const INJECTION = "-2+3+cmd|' /C calc'!A0";
+
+beforeAll(async () => {
+  s3dir = await mkdtemp(join(tmpdir(), 'gapwise-bad-input-s3-'));
+  s3 = await startObjectStore({ port: 0, directory: s3dir });
+  process.env['S3_ENDPOINT'] = s3.endpoint;
+  t = await startTestApp();
+  owner = await registerUser(t.app, 'owner');
+  stranger = await registerUser(t.app, 'stranger');
+  wid = (await owner.post('/api/workspaces', { name: 'Hostile input' }).expect(201)).body.id;
+  foreignWid = (await stranger.post('/api/workspaces', { name: 'Elsewhere' }).expect(201)).body.id;
+}, 120_000);
+
+afterAll(async () => {
+  await t?.close();
+  await s3?.stop();
+  await rm(s3dir, { recursive: true, force: true });
+});
+
+const newPair = async (session: Session, workspace: string, name = 'P') =>
+  (await session.post(`/api/workspaces/${workspace}/pairs`, pairBody({ name })).expect(201)).body;
+
+/** A multipart body written by hand, so it can be malformed on purpose. */
+function rawMultipart(session: Session, path: string, contentType: string, body: Buffer | string) {
+  return session.call('post', path).set('Content-Type', contentType).send(Buffer.from(body));
+}
+
+describe('bad input', () => {
+  it('refuses inherited names as a pairs sort column with a 400 naming sort', async () => {
+    for (const sort of ['constructor', 'toString', '__proto__', '-constructor', 'hasOwnProperty']) {
+      const res = await owner.get(`/api/workspaces/${wid}/pairs?sort=${encodeURIComponent(sort)}`);
+      expect(res.status, sort).toBe(400);
+      expect(res.body.error.fields[0].field).toBe('sort');
+    }
+    for (const sort of ['constructor', '__proto__', 'toString']) {
+      const res = await owner.get(
+        `/api/workspaces/${wid}/screens/00000000-0000-4000-8000-000000000000/results?sort=${sort}`,
+      );
+      expect(res.status).toBeLessThan(500);
+    }
+    await owner.get(`/api/workspaces/${wid}/pairs?sort=-name`).expect(200);
+  });
+
+  it('answers malformed multipart on trace and screen uploads with a 400, not a 500', async () => {
+    const boundary = 'gw-boundary';
+    const part = (name: string) =>
+      `--${boundary}\r\nContent-Disposition: form-data; name="state"\r\n\r\nreactant\r\n` +
+      `--${boundary}\r\nContent-Disposition: form-data; name="unit"\r\n\r\neV\r\n` +
+      `--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="${name}"\r\n` +
+      `Content-Type: text/csv\r\n\r\nframe,dE\n0,0.1\n1,0.2\n`;
+    const cases: Array<[string, string, string]> = [
+      ['no boundary', 'multipart/form-data', part('a.csv') + `\r\n--${boundary}--\r\n`],
+      ['unterminated form', `multipart/form-data; boundary=${boundary}`, part('a.csv')],
+      [
+        'NUL in the file name',
+        `multipart/form-data; boundary=${boundary}`,
+        part('a\u0000b.csv') + `\r\n--${boundary}--\r\n`,
+      ],
+    ];
+    for (const path of [`/api/workspaces/${wid}/traces`, `/api/workspaces/${wid}/screens`]) {
+      for (const [label, type, body] of cases) {
+        const res = await rawMultipart(owner, path, type, body);
+        expect(res.status, `${path}: ${label}: ${JSON.stringify(res.body)}`).toBeGreaterThanOrEqual(
+          400,
+        );
+        expect(res.status, `${path}: ${label}`).toBeLessThan(500);
+        expect(res.body.error.message.length).toBeGreaterThan(0);
+      }
+    }
+    expect(Number((await t.db.query('SELECT count(*)::int AS n FROM traces'))[0].n)).toBe(0);
+  });
+
+  it('answers 409 to cancelling a finished screen and writes no audit event', async () => {
+    const up = await owner
+      .call('post', `/api/workspaces/${wid}/screens?name=finished`)
+      .set('Content-Type', 'text/csv')
+      .send(screenCsv(3));
+    expect(up.status).toBe(201);
+    const id = up.body.id as string;
+    // A finished screen, set directly (this server runs no screen worker).
+    await t.db.query(`UPDATE screens SET status = 'done', finished_at = now() WHERE id = $1`, [id]);
+    const audits = async () =>
+      Number(
+        (
+          await t.db.query(
+            `SELECT count(*)::int AS n FROM audit_events WHERE entity_id = $1 AND action = 'screen.cancelled'`,
+            [id],
+          )
+        )[0].n,
+      );
+    const res = await owner.post(`/api/screens/${id}/cancel`);
+    expect(res.status).toBe(409);
+    expect(res.body.error.code).toBe('screen-not-running');
+    expect(await audits()).toBe(0);
+    expect((await owner.get(`/api/screens/${id}`)).body.status).toBe('done');
+  });
+
+  it('neutralises formula text in the report CSV export with the shared rule', async () => {
+    const pair = await newPair(owner, wid, INJECTION);
+    const report = (
+      await owner.post(`/api/workspaces/${wid}/reports`, { pairId: pair.id }).expect(201)
+    ).body;
+    const csv = await owner.get(`/api/reports/${report.reportId}/export?format=csv`).expect(200);
+    expect(csv.text).not.toMatch(/(^|,)-2\+3\+cmd/m);
+    expect(csv.text).toContain(`'${INJECTION}`);
+    // A real negative number in the value column stays a number.
+    expect(csv.text).toMatch(/,deltaG0,-0\.5,eV,/);
+  });
+
+  it('neutralises formula text in the screen results CSV with the shared rule', async () => {
+    const csv = screenCsv(2).replace('Med-1,', `"${INJECTION}",`);
+    const up = await owner
+      .call('post', `/api/workspaces/${wid}/screens?name=formula`)
+      .set('Content-Type', 'text/csv')
+      .send(csv);
+    expect(up.status).toBe(201);
+    // Results written directly (this server runs no screen worker): one row per input line.
+    await t.db.query(
+      `INSERT INTO screen_results (screen_id, row_number, donor, acceptor, solvent, delta_g_cs)
+       SELECT $1, 1, $2, 'Med-2', 'acetonitrile', -0.75`,
+      [up.body.id, INJECTION],
+    );
+    const res = await owner.get(`/api/screens/${up.body.id}/results.csv`).expect(200);
+    const line = res.text.split(/\r?\n/)[1]!;
+    expect(line.startsWith(`1,'${INJECTION},Med-2,acetonitrile,-0.75,`)).toBe(true);
+  });
+});
