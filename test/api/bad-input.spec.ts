@@ -6,6 +6,7 @@
 import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import pg from 'pg';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startObjectStore, type ObjectStore } from '../../docker-free-scripts/s3/object-store';
@@ -150,4 +151,40 @@ describe('bad input', () => {
     const line = res.text.split(/\r?\n/)[1]!;
     expect(line.startsWith(`1,'${INJECTION},Med-2,acetonitrile,-0.75,`)).toBe(true);
   });
+
+  it('answers 503 database-unavailable on every route while the database refuses connections', async () => {
+    const down = await startTestApp();
+    const admin = new pg.Client({ connectionString: process.env['GAPWISE_TEST_DATABASE_URL'] });
+    await admin.connect();
+    try {
+      const member = await registerUser(down.app, 'member');
+      // The database goes away: no new connections, and every open one is cut.
+      await admin.query(`ALTER DATABASE "${down.database.name}" ALLOW_CONNECTIONS false`);
+      await admin.query(
+        'SELECT pg_terminate_backend(pid) FROM pg_stat_activity WHERE datname = $1',
+        [down.database.name],
+      );
+      for (const res of [
+        await member.get('/api/workspaces'),
+        await member.post('/api/workspaces', { name: 'never' }),
+        await request(down.app)
+          .post('/api/auth/sign-in')
+          .send({ email: member.email, password: 'correct horse battery' }),
+      ]) {
+        expect(res.status, JSON.stringify(res.body)).toBe(503);
+        expect(res.body.error.code).toBe('database-unavailable');
+        expect(res.body.error.message).toMatch(/database is unavailable/);
+      }
+      expect((await request(down.app).get('/api/health')).status).toBe(503);
+      // Back up: the same routes answer normally again.
+      await admin.query(`ALTER DATABASE "${down.database.name}" ALLOW_CONNECTIONS true`);
+      await member.get('/api/workspaces').expect(200);
+    } finally {
+      await admin
+        .query(`ALTER DATABASE "${down.database.name}" ALLOW_CONNECTIONS true`)
+        .catch(() => undefined);
+      await admin.end();
+      await down.close();
+    }
+  }, 60_000);
 });

@@ -42,7 +42,53 @@ export function errorMiddleware(log: (message: string) => void): ErrorRequestHan
       send(status, { error: { code: 'bad-request', message: 'The request could not be read.' } });
       return;
     }
+    if (isDatabaseUnavailable(err)) {
+      res.setHeader('Retry-After', '5');
+      send(503, {
+        error: {
+          code: 'database-unavailable',
+          message: 'The database is unavailable; try again shortly.',
+        },
+      });
+      return;
+    }
     log(`error on ${req.method} ${req.originalUrl}: ${(err as Error)?.stack ?? String(err)}`);
     send(500, { error: { code: 'internal-error', message: 'Something went wrong on our side.' } });
   };
+}
+
+/** Node socket errors of a connection that could not be opened or was cut. */
+const SOCKET_CODES = new Set([
+  'ECONNREFUSED',
+  'ECONNRESET',
+  'ETIMEDOUT',
+  'EHOSTUNREACH',
+  'ENOTFOUND',
+  'EAI_AGAIN',
+  'EPIPE',
+]);
+/** SQLSTATEs of a server that is down or refusing connections (class 08, 57P01–57P03, 53300). */
+const UNAVAILABLE_STATES = new Set(['57P01', '57P02', '57P03', '53300']);
+/** node-postgres and pool messages of a lost or impossible connection (they carry no code). */
+const UNAVAILABLE_MESSAGE =
+  /Connection terminated|timeout exceeded when trying to connect|not currently accepting connections|Client has encountered a connection error|Connection is not established|Driver not Connected/i;
+
+/**
+ * True for errors saying the database cannot be reached (down, restarting, refusing
+ * connections), so every route answers 503 like health instead of a 500. TypeORM wraps driver
+ * errors (`driverError`); both levels are checked.
+ */
+export function isDatabaseUnavailable(err: unknown): boolean {
+  for (
+    let e = err as { code?: unknown; message?: unknown; driverError?: unknown } | null, i = 0;
+    e && i < 3;
+    i++
+  ) {
+    const code = typeof e.code === 'string' ? e.code : '';
+    if (SOCKET_CODES.has(code) || UNAVAILABLE_STATES.has(code) || code.startsWith('08'))
+      return true;
+    if (typeof e.message === 'string' && UNAVAILABLE_MESSAGE.test(e.message)) return true;
+    e = (e.driverError ?? null) as typeof e;
+  }
+  return false;
 }
