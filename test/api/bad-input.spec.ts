@@ -187,4 +187,40 @@ describe('bad input', () => {
       await down.close();
     }
   }, 60_000);
+
+  it('refuses __proto__ and constructor keys naming the key, and names a wrong JSON type', async () => {
+    for (const [raw, field] of [
+      ['{"name":"x","__proto__":{"isAdmin":true}}', '__proto__'],
+      ['{"name":"x","constructor":{"prototype":{"polluted":1}}}', 'constructor'],
+    ] as const) {
+      const res = await owner
+        .call('post', '/api/workspaces')
+        .set('Content-Type', 'application/json')
+        .send(raw);
+      expect(res.status).toBe(400);
+      expect(res.body.error.fields[0].field).toBe(field);
+      expect(res.body.error.fields[0].message).toContain(`'${field}'`);
+    }
+    const nested = await owner
+      .call('post', `/api/workspaces/${wid}/pairs`)
+      .set('Content-Type', 'application/json')
+      .send(JSON.stringify(pairBody()).replace('"status":', '"__proto__":{"x":1},"status":'));
+    expect(nested.status).toBe(400);
+    expect(nested.body.error.fields).toEqual([
+      { field: '__proto__', message: "'__proto__' is not allowed as a field name" },
+    ]);
+    const names = (await t.db.query('SELECT name FROM workspaces')).map(
+      (r: { name: string }) => r.name,
+    );
+    expect(names).not.toContain('x');
+
+    const typed = await owner.post(`/api/workspaces/${wid}/pairs`, {
+      ...pairBody(),
+      temperature: '300',
+    });
+    expect(typed.status).toBe(400);
+    expect(typed.body.error.fields).toEqual([
+      { field: 'temperature', message: 'must be a number (got a string)' },
+    ]);
+  });
 });

@@ -6,6 +6,7 @@ import helmet from 'helmet';
 import type { AppDeps } from './http/context';
 import { identify } from './http/authenticate';
 import { apiNotFound, errorMiddleware } from './http/error-middleware';
+import { refusePrototypeKeys } from './http/validate';
 import { registerAuditRoutes } from './audit/routes';
 import { registerAuthRoutes } from './auth/routes';
 import { registerCalcRoutes } from './calc/routes';
@@ -109,6 +110,7 @@ export function createApp(deps: AppDeps): Express {
       next();
     },
     express.json({ limit: deps.config.jsonBodyLimit, strict: false }),
+    refusePrototypeKeys,
     cookieParser(),
     identify(deps),
     api,

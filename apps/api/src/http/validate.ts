@@ -1,6 +1,7 @@
 import 'reflect-metadata';
 import { plainToInstance, type ClassConstructor } from 'class-transformer';
 import { validateSync, type ValidationError } from 'class-validator';
+import type { RequestHandler } from 'express';
 import { validationFailed } from './app-error';
 
 type FieldError = { field: string; message: string };
@@ -40,11 +41,83 @@ export function unstorableStrings(
   return out;
 }
 
+/** Keys that would reach an object's prototype if code ever copied the body into an object. */
+const PROTOTYPE_KEYS = new Set(['__proto__', 'constructor', 'prototype']);
+
+/** Every `__proto__`, `constructor` or `prototype` key anywhere in a JSON value, as field errors. */
+export function prototypeKeys(
+  value: unknown,
+  path = '',
+  out: FieldError[] = [],
+  depth = 0,
+): FieldError[] {
+  if (out.length >= 20 || depth > 20 || !value || typeof value !== 'object') return out;
+  if (Array.isArray(value)) {
+    value.forEach((v, i) => prototypeKeys(v, path ? `${path}.${i}` : String(i), out, depth + 1));
+    return out;
+  }
+  for (const key of Object.keys(value)) {
+    const p = path ? `${path}.${key}` : key;
+    if (PROTOTYPE_KEYS.has(key))
+      out.push({ field: p, message: `'${key}' is not allowed as a field name` });
+    else prototypeKeys((value as Record<string, unknown>)[key], p, out, depth + 1);
+  }
+  return out;
+}
+
+/**
+ * Middleware after the JSON parser: a body carrying `__proto__`/`constructor`/`prototype` keys
+ * is refused with a 400 naming the key, on every route (prototype pollution never starts).
+ */
+export const refusePrototypeKeys: RequestHandler = (req, _res, next) => {
+  const found = prototypeKeys(req.body);
+  if (found.length) throw validationFailed(found);
+  next();
+};
+
+/** The type a class-validator type check asks for, by constraint name. */
+const EXPECTED_TYPE: Record<string, { name: string; test: (v: unknown) => boolean }> = {
+  isNumber: { name: 'a number', test: (v) => typeof v === 'number' },
+  isInt: { name: 'a whole number', test: (v) => typeof v === 'number' },
+  isString: { name: 'a text', test: (v) => typeof v === 'string' },
+  isEmail: { name: 'a text', test: (v) => typeof v === 'string' },
+  isUuid: { name: 'a text', test: (v) => typeof v === 'string' },
+  isArray: { name: 'a list', test: (v) => Array.isArray(v) },
+  isObject: { name: 'an object', test: (v) => !!v && typeof v === 'object' && !Array.isArray(v) },
+};
+
+const typeName = (v: unknown) =>
+  v === null
+    ? 'null'
+    : Array.isArray(v)
+      ? 'a list'
+      : typeof v === 'string'
+        ? 'a string'
+        : typeof v === 'object'
+          ? 'an object'
+          : `a ${typeof v}`;
+
+/**
+ * One message naming the type when a value has the wrong JSON type ("must be a number (got a
+ * string)"); range rules say nothing useful about a value of the wrong type.
+ */
+function wrongType(error: ValidationError): string | undefined {
+  if (error.value === undefined || error.value === null) return undefined;
+  for (const name of Object.keys(error.constraints ?? {})) {
+    const expected = Object.hasOwn(EXPECTED_TYPE, name) ? EXPECTED_TYPE[name] : undefined;
+    if (expected && !expected.test(error.value))
+      return `must be ${expected.name} (got ${typeName(error.value)})`;
+  }
+  return undefined;
+}
+
 function flatten(errors: ValidationError[], parent = ''): FieldError[] {
   const out: FieldError[] = [];
   for (const error of errors) {
     const field = parent ? `${parent}.${error.property}` : error.property;
-    for (const message of Object.values(error.constraints ?? {})) out.push({ field, message });
+    const typeMessage = wrongType(error);
+    if (typeMessage) out.push({ field, message: typeMessage });
+    else for (const message of Object.values(error.constraints ?? {})) out.push({ field, message });
     if (error.children?.length) out.push(...flatten(error.children, field));
   }
   return out;
@@ -65,7 +138,8 @@ export function parseBody<T extends object>(dto: ClassConstructor<T>, body: unkn
     whitelist: true,
     forbidNonWhitelisted: true,
     forbidUnknownValues: true,
-    validationError: { target: false, value: false },
+    // Values are read by flatten (to name a wrong type) and never put in the answer.
+    validationError: { target: false, value: true },
   });
   if (errors.length) throw validationFailed(flatten(errors));
   return instance;
