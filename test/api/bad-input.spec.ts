@@ -223,4 +223,78 @@ describe('bad input', () => {
       { field: 'temperature', message: 'must be a number (got a string)' },
     ]);
   });
+
+  it('applies a series fit to several pairs all or nothing, and refuses links to other workspaces', async () => {
+    const own = await newPair(owner, wid, 'own');
+    const foreign = await newPair(stranger, foreignWid, 'foreign');
+    const points = [-0.3, -0.6, -0.9, -1.2].map((dg, i) => ({
+      deltaG0: dg,
+      log10k: 8 + i * 0.5 - i * i * 0.2,
+    }));
+    const series = await owner.post(`/api/workspaces/${wid}/series`, {
+      name: 'atomic',
+      temperature: 298.15,
+      points,
+    });
+    expect(series.status).toBe(201);
+    await owner.post(`/api/series/${series.body.id}/fit`, { model: 'marcus' }).expect(200);
+    const unknown = '00000000-0000-4000-8000-000000000000';
+    for (const bad of [foreign.id, unknown]) {
+      const res = await owner.post(`/api/series/${series.body.id}/apply`, {
+        pairIds: [own.id, bad],
+      });
+      expect(res.status).toBeGreaterThanOrEqual(400);
+      expect(res.status).toBeLessThan(500);
+      expect(res.body.error.fields).toEqual([
+        { field: 'pairIds.1', message: 'is not a pair of this workspace' },
+      ]);
+      // Nothing half-written: the own pair keeps its version and has no new audit event.
+      expect((await owner.get(`/api/pairs/${own.id}`)).body.version).toBe(own.version);
+    }
+    const applied = await owner.post(`/api/series/${series.body.id}/apply`, { pairIds: [own.id] });
+    expect(applied.status).toBe(200);
+    expect(applied.body.pairs[0].version).toBe(own.version + 1);
+
+    // Series pairIds, point pairId and provenance sources refuse ids of other workspaces.
+    const linked = await owner.post(`/api/workspaces/${wid}/series`, {
+      name: 'foreign links',
+      temperature: 298.15,
+      pairIds: [own.id, foreign.id],
+      points: points.map((p, i) => ({ ...p, pairId: i === 2 ? foreign.id : own.id })),
+    });
+    expect(linked.status).toBe(400);
+    expect(linked.body.error.fields).toEqual([
+      { field: 'pairIds.1', message: 'is not a pair of this workspace' },
+      { field: 'points.2.pairId', message: 'is not a pair of this workspace' },
+    ]);
+    const foreignSeries = await stranger.post(`/api/workspaces/${foreignWid}/series`, {
+      name: 'theirs',
+      temperature: 298.15,
+      points,
+    });
+    const body = pairBody({ name: 'borrowed' });
+    body.parameters[0] = {
+      ...body.parameters[0]!,
+      provenance: {
+        kind: 'derived',
+        methodId: 'fit.drivingForceSeries',
+        sources: [{ type: 'series', id: foreignSeries.body.id }],
+      },
+    };
+    const borrowed = await owner.post(`/api/workspaces/${wid}/pairs`, body);
+    expect(borrowed.status).toBe(400);
+    expect(borrowed.body.error.fields).toEqual([
+      {
+        field: 'parameters.0.provenance.sources.0.id',
+        message: 'is not a series of this workspace',
+      },
+    ]);
+    const edited = await owner.put(`/api/pairs/${own.id}`, {
+      ...body,
+      name: 'own',
+      version: own.version + 1,
+    });
+    expect(edited.status).toBe(400);
+    expect(edited.body.error.fields[0].field).toBe('parameters.0.provenance.sources.0.id');
+  });
 });

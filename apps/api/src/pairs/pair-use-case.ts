@@ -11,6 +11,10 @@ import {
 import { AppError, notFound, validationFailed } from '../http/app-error';
 import { recordAudit } from '../audit/audit-repository';
 import { requireRole } from '../workspaces/workspace-access';
+import {
+  provenanceReferences,
+  requireWorkspaceReferences,
+} from '../workspaces/workspace-references';
 import type { PairInputDto } from './pair-dto';
 import { diffPairs, summariseChange } from './pair-diff';
 import { normalisePairInput, pairInputProblems } from './pair-rules';
@@ -95,6 +99,7 @@ export async function createPair(
 ): Promise<Pair> {
   return db.transaction(async (tx) => {
     await requireRole(tx, workspaceId, userId, canEdit);
+    await requireWorkspaceReferences(tx, workspaceId, provenanceReferences(input));
     const id = await insertPair(tx, workspaceId, input, resultsFor(input), userId);
     const pair = (await findPair(tx, id))!;
     await saveSnapshot(tx, pair, null, userId, 'pair.created', 'created');
@@ -115,31 +120,51 @@ export async function savePair(
   action = 'pair.updated',
   fixedSummary?: string,
 ): Promise<Pair> {
-  return db.transaction(async (tx) => {
-    await pairForCaller(tx, pairId, userId, canEdit);
-    const current = await findPair(tx, pairId, true);
-    if (!current) throw notFound('pair');
-    if (current.version !== version) {
-      throw new AppError(
-        409,
-        'version-conflict',
-        `This pair was changed by someone else (now version ${current.version}); review and save again.`,
-        { current },
-      );
-    }
-    const input = build(current);
-    await updatePair(tx, pairId, input, resultsFor(input), userId);
-    const pair = (await findPair(tx, pairId))!;
-    await saveSnapshot(
-      tx,
-      pair,
-      current,
-      userId,
-      action,
-      fixedSummary ?? summariseChange(current, pair),
+  return db.transaction((tx) =>
+    savePairIn(tx, userId, pairId, version, build, action, fixedSummary),
+  );
+}
+
+/** `savePair` inside a caller's transaction (several pairs saved all or nothing). */
+export async function savePairIn(
+  tx: EntityManager,
+  userId: string,
+  pairId: string,
+  version: number,
+  build: (current: Pair) => FullInput,
+  action = 'pair.updated',
+  fixedSummary?: string,
+): Promise<Pair> {
+  const { workspaceId } = await pairForCaller(tx, pairId, userId, canEdit);
+  const current = await findPair(tx, pairId, true);
+  if (!current) throw notFound('pair');
+  if (current.version !== version) {
+    throw new AppError(
+      409,
+      'version-conflict',
+      `This pair was changed by someone else (now version ${current.version}); review and save again.`,
+      { current },
     );
-    return pair;
-  });
+  }
+  const input = build(current);
+  // Only links this save adds are checked: a source deleted since it was linked stays readable.
+  const linked = new Set(provenanceReferences(current).map((r) => `${r.type}:${r.id}`));
+  await requireWorkspaceReferences(
+    tx,
+    workspaceId,
+    provenanceReferences(input).filter((r) => !linked.has(`${r.type}:${r.id}`)),
+  );
+  await updatePair(tx, pairId, input, resultsFor(input), userId);
+  const pair = (await findPair(tx, pairId))!;
+  await saveSnapshot(
+    tx,
+    pair,
+    current,
+    userId,
+    action,
+    fixedSummary ?? summariseChange(current, pair),
+  );
+  return pair;
 }
 
 export const inputOf = (p: Pair): FullInput => ({

@@ -15,8 +15,10 @@ import {
 } from '@gapwise/contracts';
 import { recordAudit } from '../audit/audit-repository';
 import { AppError, notFound, validationFailed } from '../http/app-error';
-import { inputOf, pairForCaller, readPair, savePair } from '../pairs/pair-use-case';
+import { findPair } from '../pairs/pair-repository';
+import { inputOf, pairForCaller, savePairIn } from '../pairs/pair-use-case';
 import { requireRole } from '../workspaces/workspace-access';
+import { requireWorkspaceReferences } from '../workspaces/workspace-references';
 import type { SeriesApplyDto, SeriesFitDto, SeriesInputDto } from './series-dto';
 import { fitSeries } from './series-fit';
 
@@ -181,6 +183,7 @@ export async function createSeries(
   const n = normaliseSeries(dto);
   const id = await db.transaction(async (tx) => {
     await requireRole(tx, workspaceId, userId, canEdit);
+    await requireWorkspaceReferences(tx, workspaceId, seriesReferences(n));
     const rows: Array<{ id: string }> = await tx.query(
       `INSERT INTO series (workspace_id, name, temperature_k, temperature_unit, energy_unit, model_options, pair_ids, notes, created_by)
        VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9) RETURNING id`,
@@ -299,6 +302,7 @@ export async function updateSeries(
         { current },
       );
     }
+    await requireWorkspaceReferences(tx, workspaceId, seriesReferences(n));
     await tx.query(
       `UPDATE series SET name = $2, temperature_k = $3, temperature_unit = $4, energy_unit = $5, model_options = $6,
          pair_ids = $7, notes = $8, fit = NULL, version = version + 1, updated_at = now() WHERE id = $1`,
@@ -381,93 +385,112 @@ export async function applySeries(
   const fit = series.fit?.fits[model];
   if (!fit)
     throw new AppError(409, 'series-not-fitted', `Fit the series with the ${model} model first.`);
-  const out: Pair[] = [];
-  for (const pairId of dto.pairIds) {
-    const current = await readPair(db, userId, pairId);
-    if (current.workspaceId !== workspaceId) throw notFound('pair');
-    const sources = [{ type: 'series', id }];
-    const methodInputs = {
-      seriesId: id,
-      seriesVersion: series.version,
-      model,
-      points: series.points.length,
-      temperature: series.temperature,
-    };
-    const note = `Fitted to series "${series.name}" (${model}, ${series.points.length} points).`;
-    const derived: Provenance = {
-      kind: 'derived',
-      methodId: 'fit.drivingForceSeries',
-      methodInputs,
-      sources,
-      note,
-    };
-    const saved = await savePair(
-      db,
-      userId,
-      pairId,
-      current.version,
-      (p) => {
-        const input = inputOf(p);
-        const keep = input.parameters.filter(
-          (x) =>
-            ![
-              'lambdaOuter',
-              'coupling',
-              ...(model === 'mlj' ? ['lambdaInner', 'hbarOmega'] : []),
-            ].includes(x.kind),
-        );
-        const params: PairParameter[] = [...keep];
-        const inner = params.find((x) => x.kind === 'lambdaInner');
-        let outer = fit.lambda;
-        let outerSe = fit.standardErrors.lambda;
-        if (model === 'marcus' && inner) {
-          if (inner.value < fit.lambda) outer = fit.lambda - inner.value;
-          else
-            params.splice(params.indexOf(inner), 1, {
-              ...inner,
-              value: 0,
-              provenance: {
-                ...derived,
-                note: `${note} λ_inner set to 0: the fitted total λ is smaller.`,
-              },
-            });
-        }
-        if (model === 'mlj') {
-          params.push({
-            kind: 'lambdaInner',
-            value: series.fit!.lambdaVib!,
-            unit: 'eV',
-            uncertainty: null,
-            provenance: { ...derived, note: `${note} Fixed λ_vib of the fit.` },
-          });
-          params.push({
-            kind: 'hbarOmega',
-            value: series.fit!.hbarOmega!,
-            unit: 'eV',
-            uncertainty: null,
-            provenance: { ...derived, note: `${note} Fixed ħω of the fit.` },
-          });
-        } else outerSe = fit.standardErrors.lambda;
-        params.push({
-          kind: 'lambdaOuter',
-          value: outer,
-          unit: 'eV',
-          uncertainty: outerSe,
-          provenance: derived,
-        });
-        params.push({
-          kind: 'coupling',
-          value: fit.coupling,
-          unit: 'eV',
-          uncertainty: fit.standardErrors.coupling,
-          provenance: derived,
-        });
-        return { ...input, model: model === 'mlj' ? 'mlj' : input.model, parameters: params };
-      },
-      'pair.series-applied',
-      `λ and |H_AB| from series ${series.name}`,
+  // All or nothing: every pair is checked and saved in one transaction, so one foreign or
+  // unknown id leaves every pair as it was.
+  return db.transaction(async (tx) => {
+    const ids = [...new Set(dto.pairIds.map((p) => p.toLowerCase()))];
+    await requireWorkspaceReferences(
+      tx,
+      workspaceId,
+      ids.map((pairId, i) => ({ field: `pairIds.${i}`, type: 'pair', id: pairId })),
     );
-    out.push(saved);
-  }
-  return out;
+    const out: Pair[] = [];
+    for (const pairId of ids) {
+      const current = (await findPair(tx, pairId, true))!;
+      const sources = [{ type: 'series', id }];
+      const methodInputs = {
+        seriesId: id,
+        seriesVersion: series.version,
+        model,
+        points: series.points.length,
+        temperature: series.temperature,
+      };
+      const note = `Fitted to series "${series.name}" (${model}, ${series.points.length} points).`;
+      const derived: Provenance = {
+        kind: 'derived',
+        methodId: 'fit.drivingForceSeries',
+        methodInputs,
+        sources,
+        note,
+      };
+      const saved = await savePairIn(
+        tx,
+        userId,
+        pairId,
+        current.version,
+        (p) => {
+          const input = inputOf(p);
+          const keep = input.parameters.filter(
+            (x) =>
+              ![
+                'lambdaOuter',
+                'coupling',
+                ...(model === 'mlj' ? ['lambdaInner', 'hbarOmega'] : []),
+              ].includes(x.kind),
+          );
+          const params: PairParameter[] = [...keep];
+          const inner = params.find((x) => x.kind === 'lambdaInner');
+          let outer = fit.lambda;
+          let outerSe = fit.standardErrors.lambda;
+          if (model === 'marcus' && inner) {
+            if (inner.value < fit.lambda) outer = fit.lambda - inner.value;
+            else
+              params.splice(params.indexOf(inner), 1, {
+                ...inner,
+                value: 0,
+                provenance: {
+                  ...derived,
+                  note: `${note} λ_inner set to 0: the fitted total λ is smaller.`,
+                },
+              });
+          }
+          if (model === 'mlj') {
+            params.push({
+              kind: 'lambdaInner',
+              value: series.fit!.lambdaVib!,
+              unit: 'eV',
+              uncertainty: null,
+              provenance: { ...derived, note: `${note} Fixed λ_vib of the fit.` },
+            });
+            params.push({
+              kind: 'hbarOmega',
+              value: series.fit!.hbarOmega!,
+              unit: 'eV',
+              uncertainty: null,
+              provenance: { ...derived, note: `${note} Fixed ħω of the fit.` },
+            });
+          } else outerSe = fit.standardErrors.lambda;
+          params.push({
+            kind: 'lambdaOuter',
+            value: outer,
+            unit: 'eV',
+            uncertainty: outerSe,
+            provenance: derived,
+          });
+          params.push({
+            kind: 'coupling',
+            value: fit.coupling,
+            unit: 'eV',
+            uncertainty: fit.standardErrors.coupling,
+            provenance: derived,
+          });
+          return { ...input, model: model === 'mlj' ? 'mlj' : input.model, parameters: params };
+        },
+        'pair.series-applied',
+        `λ and |H_AB| from series ${series.name}`,
+      );
+      out.push(saved);
+    }
+    return out;
+  });
+}
+
+/** The pairs a series links (its pair list and its points), with their request field names. */
+function seriesReferences(n: { pairIds: readonly string[]; points: readonly SeriesPoint[] }) {
+  return [
+    ...n.pairIds.map((id, i) => ({ field: `pairIds.${i}`, type: 'pair', id })),
+    ...n.points.flatMap((p, i) =>
+      p.pairId ? [{ field: `points.${i}.pairId`, type: 'pair', id: p.pairId }] : [],
+    ),
+  ];
 }
