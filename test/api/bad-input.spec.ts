@@ -297,4 +297,63 @@ describe('bad input', () => {
     expect(edited.status).toBe(400);
     expect(edited.body.error.fields[0].field).toBe('parameters.0.provenance.sources.0.id');
   });
+
+  it('refuses physically absurd magnitudes at input, naming the field', async () => {
+    const body = pairBody({ name: 'absurd' });
+    body.parameters[0] = { ...body.parameters[0]!, value: -1e155 };
+    body.parameters[2] = { ...body.parameters[2]!, value: 2000 };
+    const res = await owner.post(`/api/workspaces/${wid}/pairs`, body);
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.map((f: { field: string }) => f.field)).toEqual([
+      'parameters.0.value',
+      'parameters.2.value',
+    ]);
+    expect(res.body.error.fields[0].message).toMatch(/between −1000 eV and 1000 eV/);
+    // The largest warned value (VALIDATION.md B10: up to 1000 "eV") is still accepted.
+    const edge = pairBody({ name: 'edge' });
+    edge.parameters[2] = { ...edge.parameters[2]!, value: 999 };
+    expect((await owner.post(`/api/workspaces/${wid}/pairs`, edge)).status).toBe(201);
+    const series = await owner.post(`/api/workspaces/${wid}/series`, {
+      name: 'absurd',
+      temperature: 298.15,
+      points: [
+        { deltaG0: -0.2, log10k: 9 },
+        { deltaG0: -1e155, log10k: 9 },
+        { deltaG0: -0.6, log10k: 9 },
+      ],
+    });
+    expect(series.status).toBe(400);
+    expect(series.body.error.fields[0].field).toBe('points.1.deltaG0');
+  });
+
+  it('renders a report PDF and CSV for any number already stored, 1e155 eV included', async () => {
+    for (const [kind, value] of [
+      ['deltaG0', -1e155],
+      ['lambdaOuter', 1e155],
+      ['deltaG0', 1e300],
+    ] as const) {
+      const pair = await newPair(owner, wid, `stored ${kind} ${value}`);
+      // Stored directly: rows written before input limits existed, or by another tool.
+      await t.db.query(
+        'UPDATE pair_parameters SET value = $3, uncertainty = $3 WHERE pair_id = $1 AND kind = $2',
+        [pair.id, kind, value],
+      );
+      const report = await owner.post(`/api/workspaces/${wid}/reports`, { pairId: pair.id });
+      expect(report.status, JSON.stringify(report.body)).toBe(201);
+      const pdf = await owner
+        .get(`/api/reports/${report.body.reportId}/pdf`)
+        .buffer(true)
+        .parse((res, done) => {
+          const chunks: Buffer[] = [];
+          res.on('data', (c: Buffer) => chunks.push(c));
+          res.on('end', () => done(null, Buffer.concat(chunks)));
+        });
+      expect(pdf.status, `${kind} ${value}`).toBe(200);
+      expect((pdf.body as Buffer).subarray(0, 5).toString()).toBe('%PDF-');
+      const csv = await owner.get(`/api/reports/${report.body.reportId}/export?format=csv`);
+      expect(csv.status).toBe(200);
+      expect(csv.text).not.toMatch(/NaN|Infinity/);
+      expect(csv.text).toContain(`,${kind},${value},eV,`);
+    }
+  });
 });

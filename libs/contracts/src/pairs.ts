@@ -166,3 +166,35 @@ export const PAIR_SORT_KEYS = [
   'coupling',
 ] as const;
 export type PairSortKey = (typeof PAIR_SORT_KEYS)[number];
+
+/**
+ * Largest magnitude (canonical unit) accepted for an input of each quantity. These are refusal
+ * bounds, far beyond anything physical, so that no real input reaches them while absurd values
+ * (1e155 eV, which overflow k = exp(−(ΔG°+λ)²/4λk_BT) intermediates and the report's plots) are
+ * refused at input. VALIDATION.md part B §9/§10 already *warn* from λ > 3 eV, |ΔG°| > 4 eV and
+ * 20–1000 "eV" (kJ/mol or cm⁻¹ typed as eV); above 1000 eV no typing slip explains the value
+ * (covalent bonds hold ~4 eV, core-electron binding in light atoms is a few hundred eV).
+ * Distances: 10⁴ Å = 1 µm, a thousand times the longest measured tunnelling distances (~25 Å,
+ * VALIDATION.md B23). Potentials: electrochemical windows span a few volts. τ_L: solvent
+ * relaxation is ps–ns; 10³ s is no solvent. Dielectric constants of liquids stay below ~200.
+ */
+export const INPUT_MAGNITUDE_LIMITS: Readonly<Record<string, { max: number; unit: string }>> = {
+  energy: { max: 1e3, unit: 'eV' },
+  distance: { max: 1e4, unit: 'Å' },
+  potential: { max: 1e2, unit: 'V' },
+  time: { max: 1e3, unit: 's' },
+  dimensionless: { max: 1e5, unit: '' },
+};
+
+/**
+ * The refusal message for a value (canonical unit) beyond its quantity's magnitude limit, else
+ * null. Also used for uncertainties and series points.
+ */
+export function magnitudeProblem(quantity: string, value: number): string | null {
+  const limit = Object.hasOwn(INPUT_MAGNITUDE_LIMITS, quantity)
+    ? INPUT_MAGNITUDE_LIMITS[quantity]
+    : undefined;
+  if (!limit || !(Math.abs(value) > limit.max)) return null;
+  const unit = limit.unit ? ` ${limit.unit}` : '';
+  return `must be between −${limit.max}${unit} and ${limit.max}${unit} (a value this large is not physical; check the unit)`;
+}

@@ -1,5 +1,6 @@
 import { allowedUnits, canonicalUnit, isUnitFor, type Quantity } from '@gapwise/calc';
 import {
+  magnitudeProblem,
   PARAMETER_KINDS,
   type PairInput,
   type PairParameter,
@@ -53,6 +54,10 @@ function checkParameter(p: ParameterDto, i: number, errors: FieldError[]): void 
       message: `must be ${bound.strict ? 'greater than' : 'at least'} ${bound.min}${unit ? ' ' + unit : ''}`,
     });
   }
+  const tooLarge = magnitudeProblem(quantity, p.value);
+  if (tooLarge) errors.push({ field: at('value'), message: tooLarge });
+  const sigmaTooLarge = p.uncertainty == null ? null : magnitudeProblem(quantity, p.uncertainty);
+  if (sigmaTooLarge) errors.push({ field: at('uncertainty'), message: sigmaTooLarge });
   const prov = p.provenance;
   if (prov.kind === 'literature' && !prov.citation?.trim()) {
     errors.push({ field: at('provenance.citation'), message: 'is required for literature values' });

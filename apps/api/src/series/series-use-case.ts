@@ -3,6 +3,7 @@ import type { DataSource, EntityManager } from 'typeorm';
 import { toCanonical } from '@gapwise/calc';
 import {
   canEdit,
+  magnitudeProblem,
   type Pair,
   type PairParameter,
   type PairSeriesPoint,
@@ -54,6 +55,9 @@ export function normaliseSeries(dto: SeriesInputDto): Normalised {
       else if (log10k === undefined) log10k = Math.log10(p.k);
     }
     if (log10k === undefined) errors.push({ field: `points.${i}`, message: 'give k or log10k' });
+    const deltaG0Ev = toCanonical(p.deltaG0, energyUnit, 'energy');
+    const tooLarge = magnitudeProblem('energy', deltaG0Ev);
+    if (tooLarge) errors.push({ field: `points.${i}.deltaG0`, message: tooLarge });
     return {
       label: p.label ?? '',
       deltaG0: toCanonical(p.deltaG0, energyUnit, 'energy'),

@@ -160,6 +160,24 @@ function arrow(doc: Doc, x: number, y0: number, y1: number, label: string, color
   drawRich(doc, label, x + 3, (y0 + y1) / 2 - 5, 40, { size: 7.5, bold: true, color });
 }
 
+/**
+ * True when a plot's geometry is all finite numbers with a non-empty, finite span on each axis.
+ * Stored values far beyond physical ranges (ΔG° or λ of 1e155 eV, written before input limits
+ * or by another tool) overflow the curves to ±Infinity/NaN, and pdfkit refuses NaN: such a plot
+ * is left out (the tables still print every stored number).
+ */
+function plottable(
+  domains: ReadonlyArray<readonly [number, number]>,
+  ...values: ReadonlyArray<number | null | undefined>
+): boolean {
+  const finite = (v: number | null | undefined) => v == null || Number.isFinite(v);
+  return (
+    domains.every(
+      ([a, b]) => Number.isFinite(a) && Number.isFinite(b) && Number.isFinite(b - a) && b > a,
+    ) && values.every(finite)
+  );
+}
+
 /** Diabatic parabolas with the adiabatic surfaces, crossing, ΔG°, λ and ΔG‡ marked. */
 export function drawParabolas(doc: Doc, frame: Frame, pair: ReportPairSnapshot): boolean {
   const deltaG0 = inputValue(pair, 'deltaG0');
@@ -167,6 +185,16 @@ export function drawParabolas(doc: Doc, frame: Frame, pair: ReportPairSnapshot):
   const coupling = inputValue(pair, 'coupling') ?? 0;
   if (deltaG0 === null || lambda === null || !(lambda > 0)) return false;
   const g = parabolaGeometry({ deltaG0, lambda, coupling });
+  if (
+    !plottable(
+      [g.gapDomain, g.energyDomain],
+      g.crossing.gap,
+      g.crossing.energy,
+      ...g.arrows.flatMap((a) => [a.gap, a.from, a.to]),
+      ...g.points.flatMap((p) => [p.gap, p.reactant, p.product, p.lower, p.upper]),
+    )
+  )
+    return false;
   const axes = drawAxes(doc, frame, g.gapDomain, g.energyDomain, {
     title: 'Free-energy curves along the energy gap',
     x: 'Energy gap ΔE = E_P − E_R (eV)',
@@ -218,6 +246,16 @@ export function drawDrivingForce(doc: Doc, frame: Frame, pair: ReportPairSnapsho
     pair: deltaG0 !== null && r?.log10k != null ? { deltaG0, log10k: r.log10k } : null,
     samples: 161,
   });
+  if (
+    !plottable(
+      [g.domain, g.log10kDomain],
+      g.invertedFrom,
+      g.pair?.x,
+      g.pair?.y,
+      ...g.points.map((p) => p.minusDeltaG0),
+    )
+  )
+    return false;
   const { sx, sy, inner } = drawAxes(doc, frame, g.domain, g.log10kDomain, {
     title: 'Rate against driving force',
     x: '−ΔG° (eV)',
@@ -280,6 +318,15 @@ export function drawTemperature(doc: Doc, frame: Frame, pair: ReportPairSnapshot
   if ('missing' in request) return false;
   const g = temperatureCurve(request, pair.temperatureK);
   if (g.points.every((p) => p.log10k === null)) return false;
+  if (
+    !plottable(
+      [g.inverseTDomain, g.log10kDomain],
+      g.pair?.x,
+      g.pair?.y,
+      ...g.points.map((p) => p.inverseT),
+    )
+  )
+    return false;
   const { sx, sy, inner } = drawAxes(doc, frame, g.inverseTDomain, g.log10kDomain, {
     title: 'Rate against temperature',
     x: '1000 / T (K⁻¹)',
@@ -332,7 +379,10 @@ export function drawPairPlots(cursor: Cursor, pair: ReportPairSnapshot): void {
   );
   if (a || b) cursor.y += h2 + 4;
   if (!drewParabolas && !a && !b) {
-    cursor.text('No plots: the pair lacks ΔG°, λ or |H_AB|.', { size: 9, color: COLORS.muted });
+    cursor.text(
+      'No plots: the pair lacks ΔG°, λ or |H_AB|, or its values are beyond any plot range.',
+      { size: 9, color: COLORS.muted },
+    );
   }
 }
 
@@ -352,6 +402,7 @@ export function drawComparisonPlot(cursor: Cursor, pairs: readonly ReportPairSna
       pair: deltaG0 !== null && r?.log10k != null ? { deltaG0, log10k: r.log10k } : null,
       samples: 121,
     });
+    if (!plottable([g.domain, g.log10kDomain], g.pair?.x, g.pair?.y)) return [];
     return [{ pair, g, color: SERIES_COLORS[i % SERIES_COLORS.length] }];
   });
   if (curves.length === 0) return;
