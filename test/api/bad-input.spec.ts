@@ -6,6 +6,7 @@
 import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { gzipSync } from 'node:zlib';
 import pg from 'pg';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -31,7 +32,8 @@ beforeAll(async () => {
   s3dir = await mkdtemp(join(tmpdir(), 'gapwise-bad-input-s3-'));
   s3 = await startObjectStore({ port: 0, directory: s3dir });
   process.env['S3_ENDPOINT'] = s3.endpoint;
-  t = await startTestApp();
+  // Small screen caps so the test files stay small; trace caps keep their defaults.
+  t = await startTestApp({ screenMaxRows: 50, screenMaxBytes: 64 * 1024 });
   owner = await registerUser(t.app, 'owner');
   stranger = await registerUser(t.app, 'stranger');
   wid = (await owner.post('/api/workspaces', { name: 'Hostile input' }).expect(201)).body.id;
@@ -355,5 +357,53 @@ describe('bad input', () => {
       expect(csv.text).not.toMatch(/NaN|Infinity/);
       expect(csv.text).toContain(`,${kind},${value},eV,`);
     }
+  });
+
+  it('refuses a gzip trace that inflates far beyond its size with 413 naming the limit', async () => {
+    // 6 bytes a line, about 105 MB inflated, about 100 kB compressed (the review's decompression bomb).
+    const bomb = gzipSync(Buffer.from(`frame,dE\n${'1,0.1\n'.repeat(17_500_000)}`));
+    expect(bomb.length).toBeLessThan(1024 * 1024);
+    const res = await owner
+      .call('post', `/api/workspaces/${wid}/traces`)
+      .field('state', 'reactant')
+      .field('unit', 'eV')
+      .attach('file', bomb, 'bomb.csv.gz');
+    expect(res.status).toBe(413);
+    expect(res.body.error.message).toContain('TRACE_MAX_GZIP_RATIO');
+    expect(Number((await t.db.query('SELECT count(*)::int AS n FROM traces'))[0].n)).toBe(0);
+  }, 60_000);
+
+  it('refuses screens over the row and byte caps with 413 naming the limit, storing nothing', async () => {
+    const screens = async () =>
+      Number((await t.db.query('SELECT count(*)::int AS n FROM screens'))[0].n);
+    const before = await screens();
+    const rows = await owner
+      .call('post', `/api/workspaces/${wid}/screens?name=rows`)
+      .set('Content-Type', 'text/csv')
+      .send(screenCsv(51));
+    expect(rows.status).toBe(413);
+    expect(rows.body.error.message).toContain('at most 50 data rows (SCREEN_MAX_ROWS)');
+    const atCap = await owner
+      .call('post', `/api/workspaces/${wid}/screens?name=at-cap`)
+      .set('Content-Type', 'text/csv')
+      .send(screenCsv(50));
+    expect(atCap.status).toBe(201);
+    const big = `${screenCsv(40)}${'#'.repeat(70 * 1024)}\n`;
+    for (const send of [
+      () =>
+        owner
+          .call('post', `/api/workspaces/${wid}/screens?name=bytes`)
+          .set('Content-Type', 'text/csv')
+          .send(big),
+      () =>
+        owner
+          .call('post', `/api/workspaces/${wid}/screens?name=bytes`)
+          .attach('file', Buffer.from(big), 'big.csv'),
+    ]) {
+      const res = await send();
+      expect(res.status).toBe(413);
+      expect(res.body.error.message).toContain('at most 64 KiB (SCREEN_MAX_BYTES)');
+    }
+    expect(await screens()).toBe(before + 1);
   });
 });

@@ -49,6 +49,17 @@ export interface Config {
   /** Built Angular app (index.html and assets). */
   readonly webDist: string;
   readonly logRequests: boolean;
+  /** Largest decompressed size of a gzip trace upload (bytes): a small file may inflate to gigabytes. */
+  readonly traceMaxDecompressedBytes: number;
+  /**
+   * Largest ratio of decompressed to compressed bytes of a gzip trace, checked once it has
+   * inflated past 16 MiB: numeric text compresses 3–10×, a decompression bomb by hundreds.
+   */
+  readonly traceMaxGzipRatio: number;
+  /** Largest screen upload (bytes of CSV, file, body or paste). */
+  readonly screenMaxBytes: number;
+  /** Most data rows of one screen. */
+  readonly screenMaxRows: number;
 }
 
 export class ConfigError extends Error {
@@ -128,6 +139,10 @@ export function loadConfig(env: Env = process.env, overrides: Partial<Config> = 
     jsonBodyLimit: env['JSON_BODY_LIMIT'] || '256kb',
     webDist: resolve(REPO_ROOT, env['WEB_DIST'] || 'dist/web/browser'),
     logRequests: bool('LOG_REQUESTS', false),
+    traceMaxDecompressedBytes: int('TRACE_MAX_DECOMPRESSED_BYTES', 4 * 1024 ** 3, 1024, 2 ** 50),
+    traceMaxGzipRatio: int('TRACE_MAX_GZIP_RATIO', 100, 2, 100_000),
+    screenMaxBytes: int('SCREEN_MAX_BYTES', 512 * 1024 ** 2, 1024, 2 ** 40),
+    screenMaxRows: int('SCREEN_MAX_ROWS', 1_000_000, 1, 100_000_000),
     ...overrides,
   };
   if (problems.length > 0) throw new ConfigError(problems);

@@ -34,3 +34,15 @@ export function multipartError(error: unknown, field: string, fileSizeLimit: str
   }
   return error;
 }
+
+/** A byte count as people read limits: "512 MiB", "1.5 GiB", "100 kB"-style binary units. */
+export function formatBytes(bytes: number): string {
+  const units = ['bytes', 'KiB', 'MiB', 'GiB', 'TiB'];
+  let value = bytes;
+  let unit = 0;
+  while (value >= 1024 && unit < units.length - 1) {
+    value /= 1024;
+    unit++;
+  }
+  return `${Number(value.toPrecision(4))} ${units[unit]}`;
+}

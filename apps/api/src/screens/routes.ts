@@ -3,7 +3,7 @@
  * pipes the file into the parser, a raw `text/csv` body, or a JSON paste `{ "csv": "…" }`.
  * Options travel in the query string (name, runGoodRows, badRowChoice, score, floorEv).
  */
-import type { Readable } from 'node:stream';
+import { Transform, type Readable } from 'node:stream';
 import type { Request, Response, Router } from 'express';
 import multer from 'multer';
 import {
@@ -15,8 +15,8 @@ import {
 } from '@gapwise/contracts';
 import type { AppDeps } from '../http/context';
 import { requireAuth, userIdOf } from '../http/authenticate';
-import { notFound, validationFailed } from '../http/app-error';
-import { multipartError } from '../http/multipart';
+import { AppError, notFound, validationFailed } from '../http/app-error';
+import { formatBytes, multipartError } from '../http/multipart';
 import { isUuid, queryInt, queryString } from '../http/validate';
 import { requireRole } from '../workspaces/workspace-access';
 import { SCREEN_WARNINGS, warningBit } from './chunk-computer';
@@ -93,6 +93,18 @@ function uploadOptions(req: Request): UploadOptions {
     score: score as Exclude<typeof score, string>,
     chunkSize,
   };
+}
+
+/** Passes bytes through until more than `maxBytes` went by, then fails with `tooLarge()`. */
+function byteCap(maxBytes: number, tooLarge: () => Error): Transform {
+  let seen = 0;
+  return new Transform({
+    transform(chunk: Buffer, _encoding, done) {
+      seen += chunk.length;
+      if (seen > maxBytes) done(tooLarge());
+      else done(null, chunk);
+    },
+  });
 }
 
 /** Runs `handle` on the uploaded file's stream as multer reads it (no temporary file). */
@@ -221,7 +233,15 @@ export function registerScreenRoutes(router: Router, deps: AppDeps): void {
   router.post('/workspaces/:wid/screens', requireAuth, async (req: Request, res: Response) => {
     const wid = String(req.params['wid']);
     await requireRole(db.manager, wid, userIdOf(req), canEdit);
-    const options = uploadOptions(req);
+    const options = { ...uploadOptions(req), maxRows: deps.config.screenMaxRows };
+    const maxBytes = deps.config.screenMaxBytes;
+    const tooLarge = () =>
+      new AppError(
+        413,
+        'payload-too-large',
+        `A screen file may be at most ${formatBytes(maxBytes)} (SCREEN_MAX_BYTES); nothing was stored.`,
+        { fields: [{ field: 'file', message: `is larger than ${formatBytes(maxBytes)}` }] },
+      );
     const service = await serviceFor(deps);
     const run = (source: Readable | string) =>
       uploadScreen(db, service, userIdOf(req), wid, source, options);
@@ -229,11 +249,17 @@ export function registerScreenRoutes(router: Router, deps: AppDeps): void {
     if (type.startsWith('multipart/form-data')) {
       const upload = multer({
         storage: streamingStorage(run),
-        limits: { files: 1, fileSize: 512 * 1024 * 1024 },
+        limits: { files: 1, fileSize: maxBytes },
       }).single('file');
       await new Promise<void>((resolve, reject) =>
         upload(req, res, (err: unknown) =>
-          err ? reject(multipartError(err, 'file', '512 MiB')) : resolve(),
+          err
+            ? reject(
+                err instanceof multer.MulterError && err.code === 'LIMIT_FILE_SIZE'
+                  ? tooLarge()
+                  : multipartError(err, 'file', formatBytes(maxBytes)),
+              )
+            : resolve(),
         ),
       );
       const result = (req as Request & { screenUpload?: unknown }).screenUpload;
@@ -245,10 +271,12 @@ export function registerScreenRoutes(router: Router, deps: AppDeps): void {
       return;
     }
     if (type.startsWith('text/csv') || type.startsWith('text/plain')) {
-      res.status(201).json(await run(req));
+      if (Number(req.headers['content-length'] ?? 0) > maxBytes) throw tooLarge();
+      res.status(201).json(await run(req.pipe(byteCap(maxBytes, tooLarge))));
       return;
     }
     const csv = (req.body as { csv?: unknown } | undefined)?.csv;
+    if (typeof csv === 'string' && Buffer.byteLength(csv) > maxBytes) throw tooLarge();
     if (typeof csv !== 'string' || csv.trim() === '') {
       throw validationFailed([
         { field: 'csv', message: 'paste the CSV text as "csv", or upload a file' },

@@ -44,8 +44,18 @@ export interface ParseSummary {
   readonly fatal: boolean;
 }
 
+/** The file has more data rows than `ParseOptions.maxRows`; reading stopped there. */
+export class ScreenTooManyRowsError extends Error {
+  constructor(readonly maxRows: number) {
+    super(`The screen has more than ${maxRows} data rows.`);
+    this.name = 'ScreenTooManyRowsError';
+  }
+}
+
 export interface ParseOptions {
   readonly chunkSize: number;
+  /** Most data rows (good and bad) read; one more throws ScreenTooManyRowsError. */
+  readonly maxRows?: number;
   readonly maxListed?: number;
   /**
    * Awaited for every full chunk (and the last partial one): gives back-pressure. `encoded` is
@@ -177,6 +187,7 @@ export async function parseScreenCsv(
   options: ParseOptions,
 ): Promise<ParseSummary> {
   const maxListed = options.maxListed ?? 20;
+  const maxRows = options.maxRows ?? Number.POSITIVE_INFINITY;
   const chunkSize = options.chunkSize;
   const hash = createHash('sha256');
   const badRows: BadRow[] = [];
@@ -251,6 +262,10 @@ export async function parseScreenCsv(
         headerKey = cells.map((c) => c.trim().toLowerCase()).join(',');
         headerFirst = cells[0]?.trim().toLowerCase() ?? '';
         continue;
+      }
+      if (goodRows + badRowCount >= maxRows) {
+        await batches.return(undefined);
+        throw new ScreenTooManyRowsError(maxRows);
       }
       if (
         cells[0]?.trim().toLowerCase() === headerFirst &&

@@ -20,7 +20,12 @@ import { PairInputDto } from '../pairs/pair-dto';
 import { acceptPairInput, createPair } from '../pairs/pair-use-case';
 import { requireRole } from '../workspaces/workspace-access';
 import type { ScreenService } from './screen-queue';
-import { decodeInputChunk, parseScreenCsv, type InputChunk } from './screen-parser';
+import {
+  decodeInputChunk,
+  parseScreenCsv,
+  ScreenTooManyRowsError,
+  type InputChunk,
+} from './screen-parser';
 import { findResult, findScreen, inputPayloadForLine, screenWorkspace } from './screen-repository';
 import type { ScoreChoice } from './screen-score';
 import { SCREEN_SOFTWARE_VERSION } from './screen-version';
@@ -33,6 +38,8 @@ export interface UploadOptions {
   readonly badRowChoice?: BadRowChoice;
   readonly score: ScoreChoice;
   readonly chunkSize?: number;
+  /** Most data rows of one screen (SCREEN_MAX_ROWS); more answers 413. */
+  readonly maxRows?: number;
 }
 
 /** Loads the screen's workspace and checks the caller's role (404 for non-members). */
@@ -86,6 +93,7 @@ export async function uploadScreen(
     let waiting = 0;
     const summary = await parseScreenCsv(source, {
       chunkSize,
+      maxRows: options.maxRows,
       onChunk: async (chunk, encoded) => {
         waiting += 1;
         stored = stored
@@ -94,6 +102,15 @@ export async function uploadScreen(
         stored.catch(() => undefined);
         if (waiting >= STORE_AHEAD) await stored;
       },
+    }).catch((error: unknown) => {
+      if (error instanceof ScreenTooManyRowsError)
+        throw new AppError(
+          413,
+          'payload-too-large',
+          `A screen may have at most ${error.maxRows} data rows (SCREEN_MAX_ROWS); nothing was stored.`,
+          { fields: [{ field: 'file', message: `has more than ${error.maxRows} data rows` }] },
+        );
+      throw error;
     });
     await stored;
     if (typeof source !== 'string') source.resume();

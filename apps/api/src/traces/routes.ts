@@ -40,7 +40,10 @@ type UploadedFile = Express.Multer.File & { ingested?: IngestedTrace; upload?: U
 
 /** Streams each file into the ingest; multer calls `_removeFile` only for files it keeps. */
 class TraceStorageEngine implements StorageEngine {
-  constructor(private readonly services: TraceServices) {}
+  constructor(
+    private readonly services: TraceServices,
+    private readonly limits: { maxDecompressedBytes: number; maxGzipRatio: number },
+  ) {}
 
   _handleFile(
     req: Request,
@@ -58,7 +61,7 @@ class TraceStorageEngine implements StorageEngine {
       callback(error);
       return;
     }
-    ingestUpload(this.services, file.stream, upload).then(
+    ingestUpload(this.services, file.stream, upload, this.limits).then(
       (ingested) => callback(null, { ingested, upload, size: ingested.sizeBytes }),
       (error: unknown) => {
         file.stream.resume();
@@ -137,7 +140,10 @@ export function registerTraceRoutes(router: Router, deps: AppDeps): void {
       ]);
     }
     const middleware = multer({
-      storage: new TraceStorageEngine(svc),
+      storage: new TraceStorageEngine(svc, {
+        maxDecompressedBytes: deps.config.traceMaxDecompressedBytes,
+        maxGzipRatio: deps.config.traceMaxGzipRatio,
+      }),
       limits: {
         files: 1,
         fileSize: MAX_TRACE_UPLOAD_BYTES,

@@ -33,7 +33,11 @@ export async function ingestTrace(
   store: TraceObjectStore,
   source: AsyncIterable<Uint8Array>,
   settings: TraceParseSettings,
-  options: { readonly onBytes?: (bytes: number) => void } = {},
+  options: {
+    readonly onBytes?: (bytes: number) => void;
+    readonly maxDecompressedBytes?: number;
+    readonly maxGzipRatio?: number;
+  } = {},
 ): Promise<IngestedTrace> {
   const hash = createHash('sha256');
   const staged = store.beginUpload();
@@ -43,6 +47,8 @@ export async function ingestTrace(
     let result;
     try {
       result = await readTrace(source, settings, () => undefined, {
+        maxDecompressedBytes: options.maxDecompressedBytes,
+        maxGzipRatio: options.maxGzipRatio,
         onRawChunk: async (chunk) => {
           hash.update(chunk);
           seen += chunk.length;

@@ -16,6 +16,10 @@ import {
 export interface ReadTraceOptions {
   /** Sees every raw chunk (as stored, possibly compressed) before it is parsed; may apply backpressure. */
   readonly onRawChunk?: (chunk: Buffer) => void | Promise<void>;
+  /** Largest decompressed size of a gzip file (bytes); over it the read stops with TraceTooLargeError. */
+  readonly maxDecompressedBytes?: number;
+  /** Largest decompressed/compressed ratio, checked once more than 16 MiB are inflated. */
+  readonly maxGzipRatio?: number;
 }
 
 export interface TraceReadResult {
@@ -33,6 +37,21 @@ export class TraceFileError extends Error {
   }
 }
 
+/** A gzip file expands beyond the configured cap (a decompression bomb, or simply too big). */
+/** Below this many inflated bytes the ratio rule does not apply (small files compress well too). */
+const RATIO_CHECK_FROM_BYTES = 16 * 1024 ** 2;
+
+export class TraceTooLargeError extends Error {
+  constructor(
+    readonly limitBytes: number,
+    /** Set when the ratio rule refused the file rather than the size cap. */
+    readonly ratio: number | null = null,
+  ) {
+    super(`The file decompresses to more than ${limitBytes} bytes.`);
+    this.name = 'TraceTooLargeError';
+  }
+}
+
 export async function readTrace(
   source: AsyncIterable<Uint8Array>,
   settings: TraceParseSettings,
@@ -45,13 +64,18 @@ export async function readTrace(
   let gzipError: Error | null = null;
   let decided = false;
   let rawBytes = 0;
+  let inflatedBytes = 0;
+  let tooLarge = false;
+  const maxInflated = options.maxDecompressedBytes ?? Number.POSITIVE_INFINITY;
+  const maxRatio = options.maxGzipRatio ?? Number.POSITIVE_INFINITY;
+  let ratioLimited = false;
 
   const feed = async (chunk: Buffer): Promise<void> => {
     if (!gunzip) {
       parser.push(chunk);
       return;
     }
-    if (gzipError) return;
+    if (gzipError || tooLarge) return;
     if (!gunzip.write(chunk)) {
       await Promise.race([once(gunzip, 'drain'), once(gunzip, 'close')]);
     }
@@ -69,7 +93,21 @@ export async function readTrace(
       decided = true;
       if (head[0] === 0x1f && head[1] === 0x8b) {
         gunzip = createGunzip();
-        gunzip.on('data', (out: Buffer) => parser.push(out));
+        const g: Gunzip = gunzip;
+        g.on('data', (out: Buffer) => {
+          if (tooLarge) return;
+          inflatedBytes += out.length;
+          const ratioOver =
+            inflatedBytes > RATIO_CHECK_FROM_BYTES && inflatedBytes > maxRatio * rawBytes;
+          if (inflatedBytes > maxInflated || ratioOver) {
+            if (ratioOver && !(inflatedBytes > maxInflated)) ratioLimited = true;
+            // Stop inflating at once; the rest of the upload is read (and discarded) unparsed.
+            tooLarge = true;
+            g.destroy();
+            return;
+          }
+          parser.push(out);
+        });
         gunzip.on('error', (error) => {
           gzipError = error;
         });
@@ -82,6 +120,7 @@ export async function readTrace(
     await feed(chunk);
   }
   if (!decided && head) parser.push(head);
+  if (tooLarge) throw new TraceTooLargeError(maxInflated, ratioLimited ? maxRatio : null);
   if (gunzip) {
     const g: Gunzip = gunzip;
     if (!gzipError) {

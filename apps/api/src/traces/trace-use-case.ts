@@ -18,6 +18,8 @@ import {
 } from '@gapwise/contracts';
 import { recordAudit } from '../audit/audit-repository';
 import { AppError, notFound, validationFailed } from '../http/app-error';
+import { formatBytes } from '../http/multipart';
+import { TraceTooLargeError } from './trace-stream';
 import { isUuid } from '../http/validate';
 import { inputOf, pairForCaller, savePair } from '../pairs/pair-use-case';
 import { requireRole } from '../workspaces/workspace-access';
@@ -126,10 +128,23 @@ export async function ingestUpload(
   services: TraceServices,
   source: AsyncIterable<Uint8Array>,
   upload: UploadSettings,
+  limits: { readonly maxDecompressedBytes?: number; readonly maxGzipRatio?: number } = {},
 ): Promise<IngestedTrace> {
   try {
-    return await ingestTrace(services.store, source, upload.settings);
+    return await ingestTrace(services.store, source, upload.settings, limits);
   } catch (error) {
+    if (error instanceof TraceTooLargeError) {
+      const limit =
+        error.ratio !== null
+          ? `${error.ratio} times its compressed size (TRACE_MAX_GZIP_RATIO)`
+          : `${formatBytes(error.limitBytes)} (TRACE_MAX_DECOMPRESSED_BYTES)`;
+      throw new AppError(
+        413,
+        'payload-too-large',
+        `The gzip file decompresses to more than ${limit}; nothing was stored.`,
+        { fields: [{ field: 'file', message: `decompresses to more than ${limit}` }] },
+      );
+    }
     if (error instanceof TraceRefusedError) {
       throw new AppError(400, 'trace-refused', refusalMessage(error), { fields: error.problems });
     }
