@@ -23,6 +23,7 @@ import {
   ReportEntity,
   ReportCommentEntity,
   ReportTransitionEntity,
+  WorkspaceDeletionEntity,
 } from './entities/index';
 import { migrations } from './migrations/index';
 
@@ -50,6 +51,7 @@ export const entities = [
   ReportCommentEntity,
   ReportTransitionEntity,
   PendingRegistrationEntity,
+  WorkspaceDeletionEntity,
 ];
 
 /** Development database of docker-free-scripts/postgres-start.sh. */

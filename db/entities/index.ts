@@ -20,3 +20,4 @@ export { TraceAnalysisEntity } from './trace-analysis';
 export { ReportEntity } from './report';
 export { ReportCommentEntity } from './report-comment';
 export { ReportTransitionEntity } from './report-transition';
+export { WorkspaceDeletionEntity } from './workspace-deletion';

@@ -406,4 +406,47 @@ describe('bad input', () => {
     }
     expect(await screens()).toBe(before + 1);
   });
+
+  it('keeps a record of a deleted workspace (who, when, what it held) that survives the cascade', async () => {
+    const doomed = (await owner.post('/api/workspaces', { name: 'Doomed' }).expect(201)).body.id;
+    const a = await newPair(owner, doomed, 'A');
+    await newPair(owner, doomed, 'B');
+    await owner.post(`/api/workspaces/${doomed}/reports`, { pairId: a.id }).expect(201);
+    await owner
+      .call('post', `/api/workspaces/${doomed}/screens?name=s`)
+      .set('Content-Type', 'text/csv')
+      .send(screenCsv(2))
+      .expect(201);
+    await t.db.query('INSERT INTO memberships (workspace_id, user_id, role) VALUES ($1, $2, $3)', [
+      doomed,
+      stranger.userId,
+      'viewer',
+    ]);
+    const before = Date.now();
+    await owner.delete(`/api/workspaces/${doomed}`).expect(204);
+    expect(
+      Number(
+        (
+          await t.db.query('SELECT count(*)::int AS n FROM pairs WHERE workspace_id = $1', [doomed])
+        )[0].n,
+      ),
+    ).toBe(0);
+    const rows = await t.db.query('SELECT * FROM workspace_deletions WHERE workspace_id = $1', [
+      doomed,
+    ]);
+    expect(rows).toHaveLength(1);
+    const r = rows[0];
+    expect(r.workspace_name).toBe('Doomed');
+    expect(r.deleted_by).toBe(owner.userId);
+    expect(r.deleted_by_email).toBe(owner.email.toLowerCase());
+    expect(new Date(r.deleted_at).getTime()).toBeGreaterThanOrEqual(before - 5000);
+    expect([
+      r.pair_count,
+      r.report_count,
+      r.screen_count,
+      r.trace_count,
+      r.series_count,
+      r.member_count,
+    ]).toEqual([2, 1, 1, 0, 0, 2]);
+  });
 });

@@ -1,4 +1,15 @@
-import type { DataSource } from 'typeorm';
+import type { DataSource, EntityManager } from 'typeorm';
+import {
+  MembershipEntity,
+  PairEntity,
+  ReportEntity,
+  ScreenEntity,
+  SeriesEntity,
+  TraceEntity,
+  UserEntity,
+  WorkspaceDeletionEntity,
+  WorkspaceEntity,
+} from '@gapwise/db';
 import {
   canManageMembers,
   type Member,
@@ -73,6 +84,7 @@ export async function deleteWorkspaceUseCase(
 ): Promise<void> {
   await db.transaction(async (tx) => {
     await requireRole(tx, workspaceId, userId, canManageMembers);
+    await recordWorkspaceDeletion(tx, workspaceId, userId);
     await deleteWorkspace(tx, workspaceId);
   });
 }
@@ -154,5 +166,49 @@ export async function removeMember(
           : `removed a member (${target.role})`,
       before: { role: target.role },
     });
+  });
+}
+
+/**
+ * Keeps a record of a workspace about to be deleted (who, when, what it held) in
+ * `workspace_deletions`, which has no foreign keys and so survives the cascade. Same
+ * transaction as the deletion: no record without a deletion, no deletion without a record.
+ */
+async function recordWorkspaceDeletion(
+  tx: EntityManager,
+  workspaceId: string,
+  userId: string,
+): Promise<void> {
+  const where = { workspaceId };
+  const [
+    workspace,
+    user,
+    pairCount,
+    reportCount,
+    screenCount,
+    traceCount,
+    seriesCount,
+    memberCount,
+  ] = await Promise.all([
+    tx.findOneByOrFail(WorkspaceEntity, { id: workspaceId }),
+    tx.findOneBy(UserEntity, { id: userId }),
+    tx.countBy(PairEntity, where),
+    tx.countBy(ReportEntity, where),
+    tx.countBy(ScreenEntity, where),
+    tx.countBy(TraceEntity, where),
+    tx.countBy(SeriesEntity, where),
+    tx.countBy(MembershipEntity, where),
+  ]);
+  await tx.insert(WorkspaceDeletionEntity, {
+    workspaceId,
+    workspaceName: workspace.name,
+    deletedBy: userId,
+    deletedByEmail: user?.email ?? '',
+    pairCount,
+    reportCount,
+    screenCount,
+    traceCount,
+    seriesCount,
+    memberCount,
   });
 }
