@@ -242,6 +242,7 @@ const ERROR_TEXT: Record<number, string> = {
   404: 'not-found (also for records of workspaces you are not a member of)',
   409: 'conflict (see summary)',
   410: 'gone (expired or revoked)',
+  413: 'payload-too-large (the message names the limit and its setting)',
   429: 'too-many-attempts',
 };
 

@@ -55,12 +55,13 @@ export const SCREEN_ROUTE_DOCS: readonly RouteDoc[] = [
     path: '/workspaces/:wid/screens',
     tag: 'screens',
     summary:
-      'Upload a screen as multipart/form-data (field `file`), a text/csv body, or JSON `{ "csv": "…" }` (a paste). Streamed into chunks queued on `screen-chunk`. Bad rows answer 400 screen-bad-rows with up to 20 line numbers (nothing saved) unless runGoodRows=true; equal inputs reuse a finished screen',
+      'Upload a screen as multipart/form-data (field `file`), a text/csv body, or JSON `{ "csv": "…" }` (a paste). Streamed into chunks queued on `screen-chunk`. Bad rows answer 400 screen-bad-rows with up to 20 line numbers (nothing saved) unless runGoodRows=true; more than SCREEN_MAX_ROWS rows or SCREEN_MAX_BYTES bytes answer 413; equal inputs reuse a finished screen',
     access: editor,
     auth: true,
     body: 'ScreenPaste',
     status: 201,
     response: 'Screen',
+    errors: [413],
     query: [
       { name: 'name', description: 'name of the screen (default: the date and time)' },
       {
