@@ -120,14 +120,15 @@ export async function readTrace(
     await feed(chunk);
   }
   if (!decided && head) parser.push(head);
-  if (tooLarge) throw new TraceTooLargeError(maxInflated, ratioLimited ? maxRatio : null);
   if (gunzip) {
     const g: Gunzip = gunzip;
-    if (!gzipError) {
+    if (!gzipError && !tooLarge) {
       const ended = Promise.race([once(g, 'end'), once(g, 'close')]);
       g.end();
       await ended.catch(() => undefined);
     }
+    // Checked after the end: the last input's output (all of it, for a small file) comes out there.
+    if (tooLarge) throw new TraceTooLargeError(maxInflated, ratioLimited ? maxRatio : null);
     if (gzipError) {
       g.destroy();
       throw new TraceFileError(
