@@ -1,4 +1,5 @@
 import { randomBytes } from 'node:crypto';
+import { availableParallelism } from 'node:os';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -49,6 +50,14 @@ export interface Config {
   /** Built Angular app (index.html and assets). */
   readonly webDist: string;
   readonly logRequests: boolean;
+  /** Worker threads of the calculation pool (compute/compute-pool.ts). */
+  readonly calcThreads: number;
+  /** Calculations waiting for a thread at most; beyond it 503 with Retry-After. */
+  readonly calcQueue: number;
+  /** Budget (ms of a worker's time) of a calculation a person waits for; over it 422. */
+  readonly calcBudgetMs: number;
+  /** Budget (ms) of background calculations: screen chunks, trace analyses. */
+  readonly backgroundCalcBudgetMs: number;
 }
 
 export class ConfigError extends Error {
@@ -128,6 +137,11 @@ export function loadConfig(env: Env = process.env, overrides: Partial<Config> = 
     jsonBodyLimit: env['JSON_BODY_LIMIT'] || '256kb',
     webDist: resolve(REPO_ROOT, env['WEB_DIST'] || 'dist/web/browser'),
     logRequests: bool('LOG_REQUESTS', false),
+    // One CPU is left to the thread that answers HTTP (and to PostgreSQL on a small machine).
+    calcThreads: int('CALC_THREADS', Math.max(1, availableParallelism() - 1), 1, 256),
+    calcQueue: int('CALC_QUEUE', 64, 0, 100_000),
+    calcBudgetMs: int('CALC_BUDGET_MS', 10_000, 10, 3_600_000),
+    backgroundCalcBudgetMs: int('BACKGROUND_CALC_BUDGET_MS', 300_000, 10, 24 * 3_600_000),
     ...overrides,
   };
   if (problems.length > 0) throw new ConfigError(problems);

@@ -1,0 +1,160 @@
+/**
+ * The pool of worker threads every calculation runs in (piscina), so the thread that answers HTTP
+ * never computes. Each task has a budget of wall time counted from the moment a worker starts it
+ * (time spent queued does not count); over budget the worker thread is terminated (piscina ends
+ * the thread of an aborted task) and the caller gets 422 naming the budget and what to change.
+ * With every thread busy and the queue full, a new task is refused with 503 and Retry-After.
+ *
+ * Wall time rather than CPU time: Node cannot stop a thread when its CPU clock passes a mark, only
+ * when a timer fires, and a calculation is one synchronous, single-threaded loop, so on a machine
+ * that is not oversubscribed its wall time is its CPU time.
+ */
+import { dirname, join } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { MessageChannel } from 'node:worker_threads';
+import { Piscina } from 'piscina';
+import { REPO_ROOT } from '../config';
+import { AppError } from '../http/app-error';
+import type { ComputeRunner, ComputeTaskName, ComputeTasks } from './compute-tasks';
+import type { ComputeJob, ComputeOutcome } from './compute-worker';
+
+export interface ComputePoolOptions {
+  /** Worker threads at most. */
+  readonly threads: number;
+  /** Tasks waiting for a thread at most; one more is refused with 503. */
+  readonly queue: number;
+  /** Budget of a calculation a person waits for (ms). */
+  readonly interactiveBudgetMs: number;
+  /** Budget of background work: screen chunks, trace analyses (ms). */
+  readonly backgroundBudgetMs: number;
+}
+
+export interface ComputeRunOptions {
+  /** `interactive` (CALC_BUDGET_MS) or `background` (BACKGROUND_CALC_BUDGET_MS). */
+  readonly budget: 'interactive' | 'background';
+  /** What the caller can change to stay within the budget, one sentence. */
+  readonly advice: string;
+}
+
+/** Seconds a client is told to wait when the pool is saturated. */
+export const RETRY_AFTER_SECONDS = 5;
+
+const DEFAULT_ADVICE =
+  'Ask for less work: fewer samples or points, a larger ħω, or the classical or thermal form.';
+
+/** The worker entry: the bundle beside the bundled server, or the TypeScript source via tsx. */
+async function workerFilename(): Promise<string> {
+  const here = fileURLToPath(import.meta.url);
+  if (here.endsWith('.ts')) return join(dirname(here), 'compute-worker-tsx.mjs');
+  // Running from .cache/bundles (docker-free-scripts/run-bundled.mjs): the worker has its own
+  // bundle, built (or found fresh) the same way as the server's.
+  const script = pathToFileURL(join(REPO_ROOT, 'docker-free-scripts', 'run-bundled.mjs')).href;
+  const { bundledPath } = (await import(script)) as {
+    bundledPath(entry: string): Promise<string>;
+  };
+  return bundledPath('apps/api/src/compute/compute-worker.ts');
+}
+
+export class ComputePool implements ComputeRunner {
+  private closed = false;
+
+  private constructor(
+    private readonly piscina: Piscina,
+    readonly options: ComputePoolOptions,
+    /** The file the worker threads run (tests check the bundled server uses its bundle). */
+    readonly workerFile: string,
+  ) {}
+
+  static async start(options: ComputePoolOptions): Promise<ComputePool> {
+    const filename = await workerFilename();
+    const piscina = new Piscina({
+      filename,
+      minThreads: 0,
+      maxThreads: options.threads,
+      maxQueue: options.queue,
+      // One calculation per thread: a second one would share the thread's CPU and its budget.
+      concurrentTasksPerWorker: 1,
+      // An idle thread is ended after a minute; the server idles without them.
+      idleTimeout: 60_000,
+    });
+    return new ComputePool(piscina, options, filename);
+  }
+
+  /** Runs `task(...args)` in a worker thread within its budget. */
+  async run<T extends ComputeTaskName>(
+    task: T,
+    args: Parameters<ComputeTasks[T]>,
+    options: ComputeRunOptions = { budget: 'interactive', advice: DEFAULT_ADVICE },
+  ): Promise<ReturnType<ComputeTasks[T]>> {
+    if (this.closed) throw poolBusy('The server is stopping.');
+    const budgetMs =
+      options.budget === 'interactive'
+        ? this.options.interactiveBudgetMs
+        : this.options.backgroundBudgetMs;
+    const abort = new AbortController();
+    const channel = new MessageChannel();
+    let timer: NodeJS.Timeout | undefined;
+    let overBudget = false;
+    channel.port1.once('message', () => {
+      timer = setTimeout(() => {
+        overBudget = true;
+        abort.abort();
+      }, budgetMs);
+      channel.port1.close();
+    });
+    const job: ComputeJob = { task, args, started: channel.port2 };
+    try {
+      const outcome = (await this.piscina.run(job, {
+        signal: abort.signal,
+        transferList: [channel.port2],
+      })) as ComputeOutcome;
+      if ('appError' in outcome) {
+        const e = outcome.appError;
+        throw new AppError(e.status, e.code, e.message, e.details);
+      }
+      return outcome.value as ReturnType<ComputeTasks[T]>;
+    } catch (error) {
+      if (overBudget) throw overBudgetError(budgetMs, options);
+      if (this.closed) throw poolBusy('The server is stopping.');
+      if (error instanceof Error && error.message === 'Task queue is at limit')
+        throw poolBusy(
+          `All ${this.options.threads} calculation thread(s) are busy and ${this.options.queue} calculation(s) are waiting.`,
+        );
+      throw error;
+    } finally {
+      clearTimeout(timer);
+      channel.port1.close();
+    }
+  }
+
+  /** Ends every worker thread, running calculations included (server shutdown). */
+  async destroy(): Promise<void> {
+    this.closed = true;
+    // destroy(), not close(): close waits for running tasks (up to its closeTimeout), while the
+    // server must stop within 10 s of SIGTERM whatever is being computed.
+    await this.piscina.destroy();
+  }
+}
+
+function seconds(ms: number): string {
+  return `${Number((ms / 1000).toPrecision(3))} s`;
+}
+
+function overBudgetError(budgetMs: number, options: ComputeRunOptions): AppError {
+  const variable =
+    options.budget === 'interactive' ? 'CALC_BUDGET_MS' : 'BACKGROUND_CALC_BUDGET_MS';
+  return new AppError(
+    422,
+    'calculation-over-budget',
+    `The calculation did not finish within its budget of ${seconds(budgetMs)} of computing time and was stopped. ${options.advice} (The server's budget is set by ${variable}.)`,
+  );
+}
+
+function poolBusy(reason: string): AppError {
+  return new AppError(
+    503,
+    'calculation-pool-busy',
+    `${reason} Try again in ${RETRY_AFTER_SECONDS} s.`,
+    { retryAfterSeconds: RETRY_AFTER_SECONDS },
+  );
+}
