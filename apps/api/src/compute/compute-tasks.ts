@@ -5,6 +5,7 @@
  * plain data. Nothing here touches the database, the network or the file system.
  */
 import { calculate, serializeAnswer } from '@gapwise/calc';
+import { computePairResults } from '@gapwise/contracts';
 import { fitSeries } from '../series/series-fit';
 
 export const computeTasks = {
@@ -15,6 +16,8 @@ export const computeTasks = {
   },
   /** `POST /api/series/{id}/fit`: both models' fits, band and information criteria. */
   seriesFit: fitSeries,
+  /** `POST /api/pairs/{id}/compute`: a pair's results by the shared dispatcher. */
+  pairResults: computePairResults,
 };
 
 export type ComputeTasks = typeof computeTasks;

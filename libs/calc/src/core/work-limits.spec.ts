@@ -41,7 +41,7 @@ describe('MLJ terms', () => {
     expect(errorsOf(calculate(mlj(1, 1e-5))).map((e) => e.field)).toContain('hbarOmega');
     const accepted = calculate(mlj(0.5, 1e-5));
     expect(accepted.ok).toBe(true);
-    const terms = (accepted as { outputs: { termsUsed: number } }).outputs.termsUsed;
+    const terms = (accepted as unknown as { outputs: { termsUsed: number } }).outputs.termsUsed;
     expect(terms).toBeLessThanOrEqual(MLJ_TERMS_LIMIT);
   });
 
