@@ -57,6 +57,11 @@ async function workerFilename(): Promise<string> {
 
 export class ComputePool implements ComputeRunner {
   private closed = false;
+  private started = 0;
+  /** Tasks handed to piscina (at most `threads`: piscina never queues). */
+  private active = 0;
+  /** Tasks waiting for a thread, first come first served (at most `queue`). */
+  private readonly waiting: { resolve(): void; reject(error: Error): void }[] = [];
 
   private constructor(
     private readonly piscina: Piscina,
@@ -65,17 +70,21 @@ export class ComputePool implements ComputeRunner {
     readonly workerFile: string,
   ) {}
 
+  /** Calculations a worker thread is computing now (tests wait on it). */
+  get running(): number {
+    return this.started;
+  }
+
   static async start(options: ComputePoolOptions): Promise<ComputePool> {
     const filename = await workerFilename();
     const piscina = new Piscina({
       filename,
-      minThreads: 0,
+      // As many threads as allowed, kept: piscina replaces a thread it terminated (over budget)
+      // only up to minThreads, and a replacement is then ready for the next task.
+      minThreads: options.threads,
       maxThreads: options.threads,
-      maxQueue: options.queue,
       // One calculation per thread: a second one would share the thread's CPU and its budget.
       concurrentTasksPerWorker: 1,
-      // An idle thread is ended after a minute; the server idles without them.
-      idleTimeout: 60_000,
     });
     return new ComputePool(piscina, options, filename);
   }
@@ -86,7 +95,44 @@ export class ComputePool implements ComputeRunner {
     args: Parameters<ComputeTasks[T]>,
     options: ComputeRunOptions = { budget: 'interactive', advice: DEFAULT_ADVICE },
   ): Promise<ReturnType<ComputeTasks[T]>> {
+    await this.acquire();
+    try {
+      return await this.runNow(task, args, options);
+    } finally {
+      this.release();
+    }
+  }
+
+  /**
+   * A thread of our own counting, or a place in our queue, or 503. The queue is kept here rather
+   * than in piscina so that admission is exact (a task handed over always has a thread) and a
+   * waiting task never follows a thread that is being terminated.
+   */
+  private async acquire(): Promise<void> {
     if (this.closed) throw poolBusy('The server is stopping.');
+    if (this.active < this.options.threads) {
+      this.active++;
+      return;
+    }
+    if (this.waiting.length >= this.options.queue)
+      throw poolBusy(
+        `All ${this.options.threads} calculation thread(s) are busy and ${this.waiting.length} calculation(s) are waiting.`,
+      );
+    // The slot is handed over by release() (active stays counted).
+    await new Promise<void>((resolve, reject) => this.waiting.push({ resolve, reject }));
+  }
+
+  private release(): void {
+    const next = this.waiting.shift();
+    if (next) next.resolve();
+    else this.active--;
+  }
+
+  private async runNow<T extends ComputeTaskName>(
+    task: T,
+    args: Parameters<ComputeTasks[T]>,
+    options: ComputeRunOptions,
+  ): Promise<ReturnType<ComputeTasks[T]>> {
     const budgetMs =
       options.budget === 'interactive'
         ? this.options.interactiveBudgetMs
@@ -95,7 +141,10 @@ export class ComputePool implements ComputeRunner {
     const channel = new MessageChannel();
     let timer: NodeJS.Timeout | undefined;
     let overBudget = false;
+    let counted = false;
     channel.port1.once('message', () => {
+      counted = true;
+      this.started++;
       timer = setTimeout(() => {
         overBudget = true;
         abort.abort();
@@ -116,12 +165,9 @@ export class ComputePool implements ComputeRunner {
     } catch (error) {
       if (overBudget) throw overBudgetError(budgetMs, options);
       if (this.closed) throw poolBusy('The server is stopping.');
-      if (error instanceof Error && error.message === 'Task queue is at limit')
-        throw poolBusy(
-          `All ${this.options.threads} calculation thread(s) are busy and ${this.options.queue} calculation(s) are waiting.`,
-        );
       throw error;
     } finally {
+      if (counted) this.started--;
       clearTimeout(timer);
       channel.port1.close();
     }
@@ -130,6 +176,7 @@ export class ComputePool implements ComputeRunner {
   /** Ends every worker thread, running calculations included (server shutdown). */
   async destroy(): Promise<void> {
     this.closed = true;
+    for (const waiter of this.waiting.splice(0)) waiter.reject(poolBusy('The server is stopping.'));
     // destroy(), not close(): close waits for running tasks (up to its closeTimeout), while the
     // server must stop within 10 s of SIGTERM whatever is being computed.
     await this.piscina.destroy();
