@@ -47,8 +47,10 @@ async function workerFilename(): Promise<string> {
   const here = fileURLToPath(import.meta.url);
   if (here.endsWith('.ts')) return join(dirname(here), 'compute-worker-tsx.mjs');
   // Running from .cache/bundles (docker-free-scripts/run-bundled.mjs): the worker has its own
-  // bundle, built (or found fresh) the same way as the server's.
-  const script = pathToFileURL(join(REPO_ROOT, 'docker-free-scripts', 'run-bundled.mjs')).href;
+  // bundle, built (or found fresh) the same way as the server's. The query makes a second,
+  // separate instance of the launcher module: the first is still evaluating (it is awaiting this
+  // very server), and importing it again would wait on itself.
+  const script = `${pathToFileURL(join(REPO_ROOT, 'docker-free-scripts', 'run-bundled.mjs')).href}?library`;
   const { bundledPath } = (await import(script)) as {
     bundledPath(entry: string): Promise<string>;
   };
