@@ -17,7 +17,7 @@ process.env['GAPWISE_TRACE_WORKER'] = 'false';
 const root = fileURLToPath(new URL('../..', import.meta.url));
 const workerBundle = join(root, '.cache', 'bundles', 'apps-api-src-compute-compute-worker.mjs');
 
-/** 390 Monte Carlo samples of an MLJ rate with S = 5e4: about 2e7 vibronic terms, seconds. */
+/** 350 Monte Carlo samples of an MLJ rate with S = 5e4: about 1.8e7 vibronic terms, seconds. */
 const EXPENSIVE = {
   method: 'uncertainty.monteCarlo',
   inputs: {
@@ -30,7 +30,7 @@ const EXPENSIVE = {
       coupling: 0.01,
       temperature: 298.15,
     },
-    samples: 390,
+    samples: 350,
     seed: 3,
   },
 };
