@@ -58,6 +58,7 @@ export async function startRuntime(
     const screens = await startScreenService(dataSource, {
       ...screenServiceOptionsFromEnv(process.env, config.databaseUrl),
       log,
+      compute,
     });
     // Traces: object store (S3_*) and pg-boss queue `trace-analysis`, with one worker in this
     // process unless GAPWISE_TRACE_WORKER=false (apps/api/src/traces/README.md).

@@ -6,6 +6,7 @@
  */
 import { calculate, serializeAnswer } from '@gapwise/calc';
 import { computePairResults } from '@gapwise/contracts';
+import { computeChunk } from '../screens/chunk-computer';
 import { fitSeries } from '../series/series-fit';
 
 export const computeTasks = {
@@ -18,6 +19,8 @@ export const computeTasks = {
   seriesFit: fitSeries,
   /** `POST /api/pairs/{id}/compute`: a pair's results by the shared dispatcher. */
   pairResults: computePairResults,
+  /** A screen chunk of the in-server `screen-chunk` worker (background budget). */
+  screenChunk: computeChunk,
 };
 
 export type ComputeTasks = typeof computeTasks;
