@@ -56,7 +56,7 @@ export interface Config {
   readonly calcQueue: number;
   /** Budget (ms of a worker's time) of a calculation a person waits for; over it 422. */
   readonly calcBudgetMs: number;
-  /** Budget (ms) of background calculations: screen chunks, trace analyses. */
+  /** Budget (ms) of background calculations: screen chunks of the in-server worker. */
   readonly backgroundCalcBudgetMs: number;
 }
 

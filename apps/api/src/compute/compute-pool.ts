@@ -25,7 +25,7 @@ export interface ComputePoolOptions {
   readonly queue: number;
   /** Budget of a calculation a person waits for (ms). */
   readonly interactiveBudgetMs: number;
-  /** Budget of background work: screen chunks, trace analyses (ms). */
+  /** Budget of background work: screen chunks of the in-server worker (ms). */
   readonly backgroundBudgetMs: number;
 }
 
