@@ -78,6 +78,14 @@ async function build(entryPath, bundlePath, inputsPath, { bundlePackages }) {
  * missing or stale. `bundlePackages` also inlines packages (fastest start for a short command).
  */
 export async function importBundled(entry, { bundlePackages = false } = {}) {
+  return import(pathToFileURL(await bundledPath(entry, { bundlePackages })).href);
+}
+
+/**
+ * The path of the fresh bundle of `entry`, built first when missing or stale. The server asks
+ * for the bundle of its compute-pool worker (apps/api/src/compute/compute-worker.ts) this way.
+ */
+export async function bundledPath(entry, { bundlePackages = false } = {}) {
   const entryPath = resolve(repoRoot, entry);
   const name = relative(repoRoot, entryPath)
     .replace(/\.[cm]?tsx?$/, '')
@@ -93,7 +101,7 @@ export async function importBundled(entry, { bundlePackages = false } = {}) {
       process.exit(70);
     }
   }
-  return import(pathToFileURL(bundlePath).href);
+  return bundlePath;
 }
 
 // Used as a command: run the entry with the remaining arguments.

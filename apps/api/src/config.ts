@@ -1,4 +1,5 @@
 import { randomBytes } from 'node:crypto';
+import { availableParallelism } from 'node:os';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -60,6 +61,14 @@ export interface Config {
   readonly screenMaxBytes: number;
   /** Most data rows of one screen. */
   readonly screenMaxRows: number;
+  /** Worker threads of the calculation pool (compute/compute-pool.ts). */
+  readonly calcThreads: number;
+  /** Calculations waiting for a thread at most; beyond it 503 with Retry-After. */
+  readonly calcQueue: number;
+  /** Budget (ms of a worker's time) of a calculation a person waits for; over it 422. */
+  readonly calcBudgetMs: number;
+  /** Budget (ms) of background calculations: screen chunks of the in-server worker. */
+  readonly backgroundCalcBudgetMs: number;
 }
 
 export class ConfigError extends Error {
@@ -143,6 +152,11 @@ export function loadConfig(env: Env = process.env, overrides: Partial<Config> = 
     traceMaxGzipRatio: int('TRACE_MAX_GZIP_RATIO', 100, 2, 100_000),
     screenMaxBytes: int('SCREEN_MAX_BYTES', 512 * 1024 ** 2, 1024, 2 ** 40),
     screenMaxRows: int('SCREEN_MAX_ROWS', 1_000_000, 1, 100_000_000),
+    // One CPU is left to the thread that answers HTTP (and to PostgreSQL on a small machine).
+    calcThreads: int('CALC_THREADS', Math.max(1, availableParallelism() - 1), 1, 256),
+    calcQueue: int('CALC_QUEUE', 64, 0, 100_000),
+    calcBudgetMs: int('CALC_BUDGET_MS', 10_000, 10, 3_600_000),
+    backgroundCalcBudgetMs: int('BACKGROUND_CALC_BUDGET_MS', 300_000, 10, 24 * 3_600_000),
     ...overrides,
   };
   if (problems.length > 0) throw new ConfigError(problems);

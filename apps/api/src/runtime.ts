@@ -2,6 +2,7 @@ import type { DataSource } from 'typeorm';
 import { createDataSource } from '@gapwise/db';
 import type { Config } from './config';
 import type { AppDeps } from './http/context';
+import { ComputePool } from './compute/compute-pool';
 import { createSmtpMailer, type Mailer } from './mail/mailer';
 import { resendPending, startMailQueue, type MailQueue } from './mail/mail-queue';
 import { provideScreenService } from './screens/routes';
@@ -32,7 +33,14 @@ export async function startRuntime(
   const log = options.log ?? ((m: string) => console.error(m));
   const dataSource = createDataSource({ url: config.databaseUrl });
   await dataSource.initialize();
+  let compute: ComputePool | undefined;
   try {
+    compute = await ComputePool.start({
+      threads: config.calcThreads,
+      queue: config.calcQueue,
+      interactiveBudgetMs: config.calcBudgetMs,
+      backgroundBudgetMs: config.backgroundCalcBudgetMs,
+    });
     if (options.migrate) {
       const done = await dataSource.runMigrations({ transaction: 'each' });
       if (done.length) log(`applied migrations: ${done.map((m) => m.name).join(', ')}`);
@@ -50,6 +58,7 @@ export async function startRuntime(
     const screens = await startScreenService(dataSource, {
       ...screenServiceOptionsFromEnv(process.env, config.databaseUrl),
       log,
+      compute,
     });
     // Traces: object store (S3_*) and pg-boss queue `trace-analysis`, with one worker in this
     // process unless GAPWISE_TRACE_WORKER=false (apps/api/src/traces/README.md).
@@ -60,12 +69,16 @@ export async function startRuntime(
     const runtime: Runtime = {
       config,
       dataSource,
+      compute,
       mailer,
       queue,
       log,
       // Report PDFs in the S3-API object store named by S3_ENDPOINT (reports/report-pdf-store.ts).
       reportPdfStore: reportPdfStoreFromEnv(process.env),
       async close() {
+        // The pool first: its threads are ended at once, running calculations included, so the
+        // queues below are not kept waiting for them (SIGTERM stops the server within 10 s).
+        await compute!.destroy().catch(() => undefined);
         await traces.stop().catch(() => undefined);
         await screens.stop().catch(() => undefined);
         await queue.stop().catch(() => undefined);
@@ -77,6 +90,7 @@ export async function startRuntime(
     provideTraceServices(runtime, traces);
     return runtime;
   } catch (error) {
+    await compute?.destroy().catch(() => undefined);
     await dataSource.destroy().catch(() => undefined);
     throw error;
   }

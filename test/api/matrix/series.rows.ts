@@ -22,7 +22,10 @@ async function series(c: CaseContext, fitted: boolean): Promise<string> {
     c.workspaceId,
     seriesBody(c.unique('series')) as never,
   );
-  if (fitted) await fitSeriesUseCase(c.t.db, c.users.owner.id, s.id, { model: 'marcus' });
+  if (fitted)
+    await fitSeriesUseCase(c.t.db, c.t.runtime.compute, c.users.owner.id, s.id, {
+      model: 'marcus',
+    });
   return s.id;
 }
 

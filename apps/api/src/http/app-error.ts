@@ -10,6 +10,8 @@ export class AppError extends Error {
     readonly details: {
       fields?: ReadonlyArray<{ field: string; message: string }>;
       current?: unknown;
+      /** Sent as the Retry-After header (seconds), with 503 answers. */
+      retryAfterSeconds?: number;
     } = {},
   ) {
     super(message);

@@ -1,5 +1,6 @@
 import type { DataSource } from 'typeorm';
 import type { Config } from '../config';
+import type { ComputePool } from '../compute/compute-pool';
 import type { Mailer } from '../mail/mailer';
 import type { MailQueue } from '../mail/mail-queue';
 import type { ReportPdfStore } from '../reports/report-pdf-store';
@@ -8,6 +9,8 @@ import type { ReportPdfStore } from '../reports/report-pdf-store';
 export interface AppDeps {
   readonly config: Config;
   readonly dataSource: DataSource;
+  /** Worker threads every calculation runs in (never the thread answering HTTP). */
+  readonly compute: ComputePool;
   readonly mailer: Mailer;
   /** pg-boss backed mail queue; `null` only in tests that do not send e-mail. */
   readonly queue: MailQueue | null;

@@ -21,6 +21,8 @@ export function errorMiddleware(log: (message: string) => void): ErrorRequestHan
       const error: Record<string, unknown> = { code: err.code, message: err.message };
       if (err.details.fields) error['fields'] = err.details.fields;
       if (err.details.current !== undefined) error['current'] = err.details.current;
+      if (err.details.retryAfterSeconds !== undefined && !res.headersSent)
+        res.set('Retry-After', String(err.details.retryAfterSeconds));
       send(err.status, { error } as unknown as ApiErrorBody);
       return;
     }

@@ -8,6 +8,7 @@ import {
   type PairResults,
   type Role,
 } from '@gapwise/contracts';
+import type { ComputeRunner } from '../compute/compute-tasks';
 import { AppError, notFound, validationFailed } from '../http/app-error';
 import { recordAudit } from '../audit/audit-repository';
 import { requireRole } from '../workspaces/workspace-access';
@@ -285,9 +286,14 @@ export async function comparePairVersions(
 /** Recomputes a pair's results with the shared dispatcher (nothing is saved). */
 export async function computePair(
   db: DataSource,
+  compute: ComputeRunner,
   userId: string,
   pairId: string,
 ): Promise<PairResults> {
   const pair = await readPair(db, userId, pairId);
-  return resultsFor(pair);
+  const { temperature, model, parameters } = pair;
+  return compute.run('pairResults', [{ temperature, model: model ?? 'marcus', parameters }], {
+    budget: 'interactive',
+    advice: 'Compute the pair with a larger ħω or the classical or thermal form.',
+  });
 }

@@ -150,7 +150,7 @@ export function registerPairRoutes(router: Router, deps: AppDeps): void {
   });
 
   router.post('/pairs/:id/compute', requireAuth, async (req, res) => {
-    res.json(await computePair(db, userIdOf(req), id(req)));
+    res.json(await computePair(db, deps.compute, userIdOf(req), id(req)));
   });
 }
 

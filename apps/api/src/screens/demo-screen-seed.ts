@@ -8,6 +8,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { DataSource } from 'typeorm';
+import { inlineCompute } from '../compute/compute-tasks';
 import { REPO_ROOT } from '../config';
 import { createSeries, fitSeriesUseCase } from '../series/series-use-case';
 import type { ScreenService } from './screen-queue';
@@ -107,7 +108,7 @@ export async function seedDemoScreensAndSeries(
           sigmaLog10k,
         })),
       } as never);
-      await fitSeriesUseCase(db, editor, series.id, {
+      await fitSeriesUseCase(db, inlineCompute, editor, series.id, {
         model: 'marcus',
         hbarOmega: 0.18,
         lambdaVib: 0.25,

@@ -8,6 +8,7 @@
 import { hostname } from 'node:os';
 import PgBoss from 'pg-boss';
 import type { DataSource, EntityManager } from 'typeorm';
+import type { ComputeRunner } from '../compute/compute-tasks';
 import { processChunk } from './screen-results-writer';
 
 export const SCREEN_QUEUE = 'screen-chunk';
@@ -79,6 +80,8 @@ export interface ScreenWorkerOptions {
   readonly log?: (message: string) => void;
   /** Test hook: hold each chunk's transaction open this long before commit (kill tests). */
   readonly chunkDelayMs?: number;
+  /** Where chunks compute: the server's pool; unset, on this thread (standalone worker). */
+  readonly compute?: ComputeRunner;
 }
 
 /**
@@ -122,7 +125,14 @@ export function startScreenWorker(
           const hooks = delay
             ? { beforeCommit: () => new Promise<void>((r) => setTimeout(r, delay)) }
             : {};
-          const outcome = await processChunk(db, job.data.screenId, job.data.chunkIndex, id, hooks);
+          const outcome = await processChunk(
+            db,
+            job.data.screenId,
+            job.data.chunkIndex,
+            id,
+            hooks,
+            options.compute,
+          );
           if (outcome === 'done') processed += 1;
           await boss.complete(SCREEN_QUEUE, job.id, { outcome });
         } catch (err) {
@@ -173,6 +183,8 @@ export interface ScreenServiceOptions {
   readonly maintenanceIntervalSeconds?: number;
   readonly log?: (message: string) => void;
   readonly chunkDelayMs?: number;
+  /** Where the in-process worker computes chunks (the server passes its pool). */
+  readonly compute?: ComputeRunner;
 }
 
 /** Starts pg-boss for screens (its own small connection pool) and the worker when asked. */
@@ -193,7 +205,11 @@ export async function startScreenService(
   await boss.start();
   await ensureScreenQueue(boss, queueOptions);
   const worker = options.runWorker
-    ? startScreenWorker(boss, db, { log: options.log, chunkDelayMs: options.chunkDelayMs })
+    ? startScreenWorker(boss, db, {
+        log: options.log,
+        chunkDelayMs: options.chunkDelayMs,
+        compute: options.compute,
+      })
     : null;
   return {
     boss,

@@ -6,7 +6,8 @@
  * neither loses nor duplicates rows.
  */
 import type { DataSource, EntityManager } from 'typeorm';
-import { computeChunk, REGIMES, type ChunkResult } from './chunk-computer';
+import { inlineCompute, type ComputeRunner } from '../compute/compute-tasks';
+import { REGIMES, type ChunkResult } from './chunk-computer';
 import { float8ArrayParam, int4ArrayParam, textArrayParam } from './pg-binary-array';
 import { decodeInputChunk } from './screen-parser';
 import type { ScoreChoice, ScoreKind } from './screen-score';
@@ -61,7 +62,11 @@ export async function insertResults(
 export type ChunkOutcome = 'done' | 'already-done' | 'screen-not-running' | 'missing';
 
 /**
- * Computes and stores one chunk (the body of a `screen-chunk` job).
+ * Computes and stores one chunk (the body of a `screen-chunk` job). The chunk is computed first,
+ * by `compute` (the server's worker-thread pool; on the calling thread in the standalone worker
+ * process, which answers no HTTP), and only then is the transaction opened that locks the chunk,
+ * re-checks it is still pending and its screen still running, and writes: no transaction stays
+ * open while a chunk computes.
  * @param hooks.beforeCommit test hook: runs inside the transaction after the insert
  */
 export async function processChunk(
@@ -70,40 +75,55 @@ export async function processChunk(
   chunkIndex: number,
   worker: string,
   hooks: { beforeCommit?: () => Promise<void> } = {},
+  compute: ComputeRunner = inlineCompute,
 ): Promise<ChunkOutcome> {
   // Counted outside the transaction, so attempts killed mid-way are counted too.
   await db.query(
     'UPDATE screen_chunks SET attempts = attempts + 1, worker = $3 WHERE screen_id = $1 AND chunk_index = $2',
     [screenId, chunkIndex, worker],
   );
-  return db.transaction(async (tx) => {
+  const chunkState = async (q: Pick<EntityManager, 'query'>, lock: boolean) => {
     const rows: Array<{
       status: string;
       screen_status: string;
       score_kind: string;
       score_floor_ev: number | null;
-    }> = await tx.query(
+    }> = await q.query(
       `SELECT c.status, s.status AS screen_status, s.score_kind, s.score_floor_ev
            FROM screen_chunks c JOIN screens s ON s.id = c.screen_id
-          WHERE c.screen_id = $1 AND c.chunk_index = $2
-          FOR UPDATE OF c`,
+          WHERE c.screen_id = $1 AND c.chunk_index = $2${lock ? '\n          FOR UPDATE OF c' : ''}`,
       [screenId, chunkIndex],
     );
     const chunk = rows[0];
-    if (!chunk) return 'missing';
-    if (chunk.status === 'done') return 'already-done';
-    if (chunk.status !== 'pending') return 'screen-not-running';
-    if (chunk.screen_status !== 'running') return 'screen-not-running';
-    const inputs: Array<{ payload: string }> = await tx.query(
-      'SELECT payload FROM screen_inputs WHERE screen_id = $1 AND chunk_index = $2',
-      [screenId, chunkIndex],
-    );
-    if (!inputs[0]) return 'missing';
-    const score: ScoreChoice = {
-      kind: chunk.score_kind as ScoreKind,
-      floorEv: chunk.score_floor_ev ?? undefined,
-    };
-    const result = computeChunk(decodeInputChunk(chunkIndex, inputs[0].payload), score);
+    if (!chunk) return 'missing' as const;
+    if (chunk.status === 'done') return 'already-done' as const;
+    if (chunk.status !== 'pending') return 'screen-not-running' as const;
+    if (chunk.screen_status !== 'running') return 'screen-not-running' as const;
+    return chunk;
+  };
+  const before = await chunkState(db.manager, false);
+  if (typeof before === 'string') return before;
+  const inputs: Array<{ payload: string }> = await db.query(
+    'SELECT payload FROM screen_inputs WHERE screen_id = $1 AND chunk_index = $2',
+    [screenId, chunkIndex],
+  );
+  if (!inputs[0]) return 'missing';
+  const score: ScoreChoice = {
+    kind: before.score_kind as ScoreKind,
+    floorEv: before.score_floor_ev ?? undefined,
+  };
+  const result = await compute.run(
+    'screenChunk',
+    [decodeInputChunk(chunkIndex, inputs[0].payload), score],
+    {
+      budget: 'background',
+      advice: 'Split the screen into smaller ones, or use a larger ħω in its rows.',
+    },
+  );
+  return db.transaction(async (tx) => {
+    // Another worker may have stored the chunk, or the screen been cancelled, meanwhile.
+    const now = await chunkState(tx, true);
+    if (typeof now === 'string') return now;
     await insertResults(tx, screenId, result);
     await hooks.beforeCommit?.();
     await tx.query(

@@ -57,7 +57,13 @@ export function registerSeriesRoutes(router: Router, deps: AppDeps): void {
   router.post('/series/:id/fit', requireAuth, async (req, res) => {
     const seriesId = id(req);
     res.json(
-      await fitSeriesUseCase(db, userIdOf(req), seriesId, parseBody(SeriesFitDto, req.body)),
+      await fitSeriesUseCase(
+        db,
+        deps.compute,
+        userIdOf(req),
+        seriesId,
+        parseBody(SeriesFitDto, req.body),
+      ),
     );
   });
 

@@ -21,7 +21,7 @@ import { inputOf, pairForCaller, savePairIn } from '../pairs/pair-use-case';
 import { requireRole } from '../workspaces/workspace-access';
 import { requireWorkspaceReferences } from '../workspaces/workspace-references';
 import type { SeriesApplyDto, SeriesFitDto, SeriesInputDto } from './series-dto';
-import { fitSeries } from './series-fit';
+import type { ComputeRunner } from '../compute/compute-tasks';
 
 type FieldError = { field: string; message: string };
 
@@ -336,19 +336,35 @@ export async function updateSeries(
 
 export async function fitSeriesUseCase(
   db: DataSource,
+  compute: ComputeRunner,
   userId: string,
   id: string,
   dto: SeriesFitDto,
 ): Promise<Series> {
+  // The fit runs in the compute pool before any transaction opens (no transaction is held open
+  // while a calculation runs); the write then checks the series is still the version fitted.
+  await seriesForCaller(db.manager, id, userId, canEdit);
+  const fitted = (await loadSeries(db.manager, id))!;
+  if (dto.model === 'mlj' && (dto.hbarOmega === undefined || dto.lambdaVib === undefined)) {
+    throw validationFailed([
+      { field: 'hbarOmega', message: 'MLJ needs hbarOmega and lambdaVib (eV).' },
+    ]);
+  }
+  const fit = await compute.run('seriesFit', [fitted.points, fitted.temperature, dto], {
+    budget: 'interactive',
+    advice:
+      'Fit with a larger ħω, a smaller λ_vib or fewer points, or fit the classical Marcus model.',
+  });
   await db.transaction(async (tx) => {
     const workspaceId = await seriesForCaller(tx, id, userId, canEdit);
     const series = (await loadSeries(tx, id, true))!;
-    if (dto.model === 'mlj' && (dto.hbarOmega === undefined || dto.lambdaVib === undefined)) {
-      throw validationFailed([
-        { field: 'hbarOmega', message: 'MLJ needs hbarOmega and lambdaVib (eV).' },
-      ]);
-    }
-    const fit = fitSeries(series.points, series.temperature, dto);
+    if (series.version !== fitted.version)
+      throw new AppError(
+        409,
+        'version-conflict',
+        'The series changed while it was being fitted; fit it again.',
+        { current: series },
+      );
     await tx.query(
       `UPDATE series SET fit = $2, model_options = $3, updated_at = now() WHERE id = $1`,
       [

@@ -7,7 +7,7 @@ import { BOLTZMANN_EV_PER_K, HBAR_EV_S } from '../../core/constants';
 import { CalcRefusal } from '../../core/method';
 import type { CalcOutputs, MethodDefinition, WarningSink } from '../../core/method';
 import { marcusRateLog } from '../../rates/marcus/marcus';
-import { mljRateLog } from '../../rates/mlj/mlj';
+import { mljRateLog, mljTermsEstimate, mljTermsMessage } from '../../rates/mlj/mlj';
 
 export type FitModel = 'marcus' | 'mlj';
 
@@ -55,6 +55,25 @@ const PARAMETER_COUNT = 2;
 /** λ is kept in [1e-4, 20] eV and ln|H| in [ln 1e-12, ln 5] eV during the search. */
 const MIN_VALUES = [1e-4, Math.log(1e-12)];
 const MAX_VALUES = [20, Math.log(5)];
+
+/** Levenberg–Marquardt iterations of one start (three starts per fit). */
+export const FIT_MAX_ITERATIONS = 300;
+const FIT_STARTS = 3;
+/** Rate evaluations per point and iteration: the model and a central-difference gradient in 2 parameters. */
+const EVALUATIONS_PER_POINT = 1 + 2 * PARAMETER_COUNT;
+/**
+ * Series size limit: points of one fit. Far above any measured driving-force series (tens of
+ * points); a larger one is a file read the wrong way, and refused naming `points`.
+ */
+export const FIT_MAX_POINTS = 10_000;
+/**
+ * Work limit of an MLJ fit: vibronic terms summed over the whole fit at most, i.e. starts ×
+ * iterations × rate evaluations per point × points × terms per rate. A term costs about 70 ns of
+ * one CPU on an idle machine and about 200 ns with the API test suite running beside it (measured
+ * on Node 20: 1e5 terms in 7 ms; 4.6e7 terms in 9.9 s), so 2e7 terms stay within the default 10 s
+ * budget even on a loaded machine; beyond it the request is refused naming ħω.
+ */
+export const FIT_MAX_MLJ_TERM_EVALUATIONS = 2e7;
 
 /**
  * log10 k(ΔG°) of the fitted model at (λ, ln|H|): classical Marcus, or MLJ with the fixed mode.
@@ -150,7 +169,7 @@ function runLevenbergMarquardt(
       maxValues: MAX_VALUES,
       jacobianFunction: (params) => (x) => modelGradient(settings, x, params),
       damping: 1e-2,
-      maxIterations: 300,
+      maxIterations: FIT_MAX_ITERATIONS,
       // Keep iterating down to round-off: noise-free series are fitted exactly.
       errorTolerance: 1e-26,
     },
@@ -182,7 +201,7 @@ export function fitDrivingForceSeries(inputs: DrivingForceInputs): DrivingForceF
     lambdaVibEv: inputs.lambdaVibEv,
   };
   const first = startingValues(points, inputs.temperatureK);
-  const starts = [first, [0.5, first[1]], [1.5, first[1]]];
+  const starts = [first, [0.5, first[1]], [1.5, first[1]]].slice(0, FIT_STARTS);
   let best: number[] = first;
   let bestRss = Number.POSITIVE_INFINITY;
   for (const start of starts) {
@@ -385,6 +404,20 @@ export const drivingForceSeriesMethod: MethodDefinition<DrivingForceInputs> = {
       atLeast: 0,
       message: 'Huang–Rhys factor must be ≥ 0.',
     });
+    if (points.length > FIT_MAX_POINTS)
+      reader.fail(
+        'points',
+        `A fit takes at most ${FIT_MAX_POINTS.toLocaleString('en-US')} points (got ${points.length.toLocaleString('en-US')}).`,
+      );
+    if (model === 'mlj' && hbarOmegaEv! > 0 && lambdaVibEv! >= 0) {
+      // The most terms a rate of this fit may need: the lowest ΔG° with λ_s at its lower bound.
+      const lowestDeltaG0Ev = Math.min(...points.map((p) => p.deltaG0Ev));
+      const terms = mljTermsEstimate(lowestDeltaG0Ev, MIN_VALUES[0], lambdaVibEv!, hbarOmegaEv!);
+      const evaluations = FIT_STARTS * FIT_MAX_ITERATIONS * EVALUATIONS_PER_POINT * points.length;
+      const limit = Math.floor(FIT_MAX_MLJ_TERM_EVALUATIONS / evaluations);
+      if (terms > limit)
+        reader.fail('hbarOmega', mljTermsMessage(terms, lambdaVibEv! / hbarOmegaEv!, limit));
+    }
     return { points, temperatureK, model, hbarOmegaEv, lambdaVibEv };
   },
   compute(inputs, warnings): CalcOutputs {

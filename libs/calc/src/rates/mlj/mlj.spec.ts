@@ -153,14 +153,17 @@ describe('rate.mlj', () => {
 
   it('reports non-convergence when the term cap is reached (B7)', () => {
     expect(mljRateLog(-1, 0.5, 5, 0.01, 0.01, 298.15, 20).converged).toBe(false);
-    const answer = computeOk('rate.mlj', {
+  });
+
+  it('refuses up front a request whose sum would need more terms than the work limit', () => {
+    // S = 5e9: the sum would need billions of terms; refused before any is summed.
+    const errors = computeRefused('rate.mlj', {
       ...base,
       lambdaVib: 50000,
       hbarOmega: 1e-5,
       coupling: 1e-4,
     });
-    expect(warningCodes(answer)).toContain('mlj-not-converged');
-    expect(Number.isFinite(answer.outputs['log10k'])).toBe(true);
+    expect(errors.find((e) => e.field === 'hbarOmega')?.message).toMatch(/vibronic terms/);
   });
 
   it('warns for a low-frequency mode ħω < 4k_BT (B6) and λ_s < k_BT (B3)', () => {

@@ -34,6 +34,45 @@ export const MLJ_MIN_EXTRA_TERMS = 5;
 /** Hard cap on the number of terms; reaching it is reported as non-convergence (B7). */
 export const MLJ_MAX_TERMS = 1_000_000;
 
+/**
+ * Work limit: the most vibronic terms one MLJ rate may need. A request needing more is refused in
+ * read(), naming ħω (a refusal, not a silent cap). 100 000 terms take about 7 ms of one CPU
+ * (measured, Node 20, warm), so a single rate stays fast; S = λ_v/ħω beyond that means a mode so
+ * soft next to λ_v that the thermal or classical form describes it better anyway.
+ */
+export const MLJ_TERMS_LIMIT = 100_000;
+
+/**
+ * Terms the MLJ sum of `mljRateLog` is expected to need: max(S, n*) + 5 (SCIENCE.md §2) plus the
+ * Poisson tail past the larger of the two, where terms fall below 1e-15 of the sum about 8.3
+ * standard deviations √S out (Gaussian limit of the Poisson weights, exp(−z²/2) = 1e-15).
+ */
+export function mljTermsEstimate(
+  deltaG0Ev: number,
+  lambdaSolventEv: number,
+  lambdaVibEv: number,
+  hbarOmegaEv: number,
+): number {
+  const huangRhys = lambdaVibEv / hbarOmegaEv;
+  return (
+    mljMinimumTerms(deltaG0Ev, lambdaSolventEv, huangRhys, hbarOmegaEv) +
+    Math.ceil(8.3 * Math.sqrt(huangRhys))
+  );
+}
+
+/** The refusal of a request whose MLJ sum would need more than `limit` terms (field ħω). */
+export function mljTermsMessage(terms: number, huangRhys: number, limit: number): string {
+  return (
+    `The MLJ sum would need about ${formatCount(terms)} vibronic terms ` +
+    `(S = λ_v/ħω = ${huangRhys.toPrecision(3)}), more than the limit of ${formatCount(limit)}: ` +
+    'use a larger ħω or a smaller λ_v, or the thermal MLJ or classical Marcus form.'
+  );
+}
+
+function formatCount(n: number): string {
+  return n < 1e7 ? Math.round(n).toLocaleString('en-US') : n.toPrecision(3);
+}
+
 export interface MljSum {
   /** ln k, k in s⁻¹ (−∞ when H_AB = 0). */
   readonly lnK: number;
@@ -201,6 +240,9 @@ export const mljMethod: MethodDefinition<MljInputs> = {
       reader.fail('lambdaVib', `${LAMBDA_MESSAGE} (≤ ${MAX_ENERGY_EV} eV)`);
     if (hbarOmegaEv > MAX_ENERGY_EV)
       reader.fail('hbarOmega', `Mode energy must be ≤ ${MAX_ENERGY_EV} eV.`);
+    const terms = mljTermsEstimate(deltaG0Ev, lambdaSolventEv, lambdaVibEv, hbarOmegaEv);
+    if (terms > MLJ_TERMS_LIMIT)
+      reader.fail('hbarOmega', mljTermsMessage(terms, lambdaVibEv / hbarOmegaEv, MLJ_TERMS_LIMIT));
     const couplingEv = readEnergy(reader, 'coupling');
     const temperatureK = readTemperature(reader);
     refuseClassIII(reader, couplingEv, lambdaSolventEv + lambdaVibEv);

@@ -23,6 +23,14 @@ import {
 
 const SELF_ID = 'uncertainty.monteCarlo';
 const MAX_SAMPLES = 200_000;
+/**
+ * Work limit: samples × the cost of one inner run, counted in MLJ vibronic terms (an inner method
+ * that reports `termsUsed`) or as 1 otherwise. A term costs 70–200 ns of one CPU (idle machine
+ * to one loaded by a test suite; measured on Node 20), so 2e7 terms stay within the default 10 s
+ * budget. Checked after the nominal run, before any sample is drawn; over it the request is
+ * refused naming `samples`.
+ */
+export const MONTE_CARLO_MAX_WORK = 2e7;
 const DEFAULT_SAMPLES = 10_000;
 /** Outputs whose distributions are also returned as histograms. */
 const HISTOGRAM_OUTPUTS = ['log10k'];
@@ -284,6 +292,21 @@ export function runMonteCarlo(inputs: MonteCarloInputs, warnings: WarningSink): 
       'monte-carlo-no-uncertainty',
       'No input carries { value, sigma } or { low, high }.',
     );
+  }
+  const termsUsed = (nominal.outputs as Record<string, unknown>)['termsUsed'];
+  const costPerSample = typeof termsUsed === 'number' && termsUsed > 1 ? termsUsed : 1;
+  if (inputs.samples * costPerSample > MONTE_CARLO_MAX_WORK) {
+    const most = Math.max(0, Math.floor(MONTE_CARLO_MAX_WORK / costPerSample));
+    throw new CalcRefusal([
+      {
+        field: 'samples',
+        message:
+          `${inputs.samples.toLocaleString('en-US')} samples of ${inputs.method} at ` +
+          `${costPerSample.toLocaleString('en-US')} vibronic terms each exceed the work limit of ` +
+          `${MONTE_CARLO_MAX_WORK.toExponential(0)} terms: use at most ` +
+          `${most.toLocaleString('en-US')} samples, or a larger ħω.`,
+      },
+    ]);
   }
   const names = [...numericOutputs(nominal.outputs).keys()];
   const columns = new Map(names.map((name) => [name, new Float64Array(inputs.samples)]));

@@ -1,0 +1,45 @@
+/**
+ * The calculations an HTTP request or the in-server workers can start, by name. They run inside
+ * the worker threads of the compute pool (compute-worker.ts), never on the thread that answers
+ * HTTP: every argument and answer crosses a thread boundary, so both are structured-cloneable
+ * plain data. Nothing here touches the database, the network or the file system.
+ */
+import { calculate, serializeAnswer } from '@gapwise/calc';
+import { computePairResults } from '@gapwise/contracts';
+import { computeChunk } from '../screens/chunk-computer';
+import { fitSeries } from '../series/series-fit';
+
+export const computeTasks = {
+  /** `POST /api/calc`: the serialized CALC-API.md answer (the bytes `gapwise calc` prints). */
+  calc: (request: unknown): { ok: boolean; body: string } => {
+    const answer = calculate(request);
+    return { ok: answer.ok, body: serializeAnswer(answer) };
+  },
+  /** `POST /api/series/{id}/fit`: both models' fits, band and information criteria. */
+  seriesFit: fitSeries,
+  /** `POST /api/pairs/{id}/compute`: a pair's results by the shared dispatcher. */
+  pairResults: computePairResults,
+  /** A screen chunk of the in-server `screen-chunk` worker (background budget). */
+  screenChunk: computeChunk,
+};
+
+export type ComputeTasks = typeof computeTasks;
+export type ComputeTaskName = keyof ComputeTasks;
+
+/** What use-cases need of the pool: run a named task (compute-pool.ts `ComputePool`). */
+export interface ComputeRunner {
+  run<T extends ComputeTaskName>(
+    task: T,
+    args: Parameters<ComputeTasks[T]>,
+    options?: { budget: 'interactive' | 'background'; advice: string },
+  ): Promise<ReturnType<ComputeTasks[T]>>;
+}
+
+/**
+ * Runs tasks on the calling thread. Only for one-shot commands with no HTTP to answer (demo
+ * seeding, test fixtures); the server always uses the pool.
+ */
+export const inlineCompute: ComputeRunner = {
+  run: async (task, args) =>
+    (computeTasks[task] as (...a: unknown[]) => never)(...(args as unknown[])),
+};
