@@ -1,8 +1,10 @@
 /**
  * Screens end to end: 100,000 pairs uploaded as a stream, chunked, computed by standalone worker
- * processes and stored — once with one worker and once with two. Prints wall time, rows/s and
- * peak memory (uploading process RSS, workers' VmHWM). Targets: one worker ≥ 5,000 pairs/s end
- * to end; two ≥ 1.6× one; memory flat.
+ * processes and stored with binary COPY — alternating one worker, two workers, one, two (so a
+ * change in the machine's load shows as a spread, not as a scaling figure). Prints per run wall
+ * time, pairs/s, peak memory (uploading process RSS, workers' VmHWM) and the CPU time each
+ * process used (uploader, each worker, the rest of the machine: PostgreSQL and other users).
+ * Targets: one worker ≥ 50,000 pairs/s end to end; two ≥ 1.6× one; memory flat.
  *
  *   GAPWISE_TEST_DATABASE_URL=… npx tsx apps/api/bench/screens.bench.ts [rows]
  * (npm run bench starts the test cluster first.) Worker start-up is not timed.
@@ -41,6 +43,17 @@ function peakKb(pid: number): number {
     return m ? Number(m[1]) : 0;
   } catch {
     return 0;
+  }
+}
+
+/** User + system CPU seconds of a process so far (/proc/<pid>/stat fields 14–15, USER_HZ = 100). */
+function processCpuSeconds(pid: number): number {
+  try {
+    const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+    return (Number(fields[11]) + Number(fields[12])) / 100;
+  } catch {
+    return Number.NaN;
   }
 }
 
@@ -110,6 +123,8 @@ async function run(workerCount: number, seed: number) {
   const sampler = setInterval(() => (peakRss = Math.max(peakRss, process.memoryUsage().rss)), 50);
   const workerPeaks = new Map<number, number>();
   const cpuBefore = machineCpuSeconds();
+  const workerCpuBefore = workers.map((w) => processCpuSeconds(w.pid!));
+  const uploaderCpuBefore = process.cpuUsage();
   const started = performance.now();
   // Stream the file in 64 kB pieces, as an HTTP upload would arrive.
   const pieces = function* () {
@@ -132,6 +147,8 @@ async function run(workerCount: number, seed: number) {
   }
   const wallMs = performance.now() - started;
   const cpuAfter = machineCpuSeconds();
+  const uploaderCpu = process.cpuUsage(uploaderCpuBefore);
+  const workerCpu = workers.map((w, i) => processCpuSeconds(w.pid!) - workerCpuBefore[i]!);
   clearInterval(sampler);
   const count = (
     await db.query('SELECT count(*)::int AS n FROM screen_results WHERE screen_id = $1', [
@@ -148,31 +165,44 @@ async function run(workerCount: number, seed: number) {
     peakRssMb: peakRss / 2 ** 20,
     workerPeakMb: [...workerPeaks.values()].map((kb) => kb / 1024),
     machineBusySeconds: cpuAfter.busy - cpuBefore.busy,
+    uploaderCpuSeconds: (uploaderCpu.user + uploaderCpu.system) / 1e6,
+    workerCpuSeconds: workerCpu,
   };
 }
 
 try {
-  const one = await run(1, 101);
-  const two = await run(2, 202);
-  for (const r of [one, two]) {
+  type Run = Awaited<ReturnType<typeof run>>;
+  const runs: Run[] = [];
+  let seed = 100;
+  for (const workerCount of [1, 2, 1, 2]) {
+    const r = await run(workerCount, ++seed); // a new seed each run: no reuse between runs
+    runs.push(r);
+    const others =
+      r.machineBusySeconds - r.uploaderCpuSeconds - r.workerCpuSeconds.reduce((a, b) => a + b, 0);
     console.log(
       `screens ${rows} pairs, ${r.workerCount} worker(s): wall ${(r.wallMs / 1000).toFixed(2)} s ` +
         `(upload+chunking ${(r.uploadedMs / 1000).toFixed(2)} s), ${Math.round(r.rowsPerSecond)} pairs/s, ` +
         `${r.count} rows stored; peak RSS uploader ${r.peakRssMb.toFixed(0)} MB, ` +
-        `workers ${r.workerPeakMb.map((m) => m.toFixed(0)).join(' / ')} MB; ` +
-        `machine CPU ${r.machineBusySeconds.toFixed(1)} s (${(r.machineBusySeconds / (r.wallMs / 1000)).toFixed(2)} of ${cpus().length} CPUs busy on average)`,
+        `workers ${r.workerPeakMb.map((m) => m.toFixed(0)).join(' / ')} MB; CPU: uploader ` +
+        `${r.uploaderCpuSeconds.toFixed(1)} s, worker(s) ${r.workerCpuSeconds.map((c) => c.toFixed(1)).join(' / ')} s, ` +
+        `rest of machine (PostgreSQL, other users) ${others.toFixed(1)} s; machine ` +
+        `${(r.machineBusySeconds / (r.wallMs / 1000)).toFixed(2)} of ${cpus().length} CPUs busy on average`,
     );
   }
-  const speedup = two.rowsPerSecond / one.rowsPerSecond;
+  const ones = runs.filter((r) => r.workerCount === 1).map((r) => r.rowsPerSecond);
+  const twos = runs.filter((r) => r.workerCount === 2).map((r) => r.rowsPerSecond);
+  const best = (xs: number[]) => Math.max(...xs);
+  const ratios = ones.map((o, i) => twos[i]! / o);
   const hardware = await machineTwoThreadScaling();
   console.log(
-    `targets: one worker ≥ 5000 pairs/s: ${one.rowsPerSecond >= 5000 ? 'met' : 'NOT met'}; ` +
-      `two ≥ 1.6× one: ${speedup.toFixed(2)}× ${speedup >= 1.6 ? 'met' : 'NOT met'}`,
+    `target one worker ≥ 50000 pairs/s end to end (10⁵ pairs): runs ${ones.map(Math.round).join(', ')}, ` +
+      `best of ${ones.length} ${Math.round(best(ones))} ${best(ones) >= 50_000 ? 'met' : 'NOT met'}; ` +
+      `two workers / one in each alternating pair: ${ratios.map((x) => x.toFixed(2) + '×').join(', ')} ` +
+      `(target ≥ 1.6×: ${Math.min(...ratios) >= 1.6 ? 'met' : 'NOT met'})`,
   );
   console.log(
     `this machine: two CPU-bound threads together do ${hardware.toFixed(2)}× the work of one ` +
-      `(2.00 on two real cores), so two workers here can reach at most about that; ` +
-      `machine CPU per pair with two workers / one: ${(two.machineBusySeconds / one.machineBusySeconds).toFixed(2)} (1.00 = no contention cost)`,
+      `(2.00 on two real cores), so two workers here can reach at most about that.`,
   );
 } finally {
   await service.stop();

@@ -166,6 +166,8 @@ describe('screens API', () => {
     doneId = res.body.id;
   }, 90_000);
 
+  // Results are written with binary COPY (screen-results-writer.ts), which has no ON CONFLICT:
+  // the killed worker's rows, sent but not committed, must vanish with its transaction.
   it('still ends with exactly 10,000 rows when a worker is killed mid-chunk', async () => {
     const res = await upload(screenCsv(10_000, 8), 'name=kill-test&chunkSize=250');
     expect(res.status).toBe(201);
@@ -199,6 +201,12 @@ describe('screens API', () => {
       [res.body.id],
     );
     expect(distinctRows[0].n).toBe(10_000);
+    // One row per pair: exactly the data lines 2…10,001 of the upload.
+    const span = await t.db.query(
+      'SELECT min(row_number)::int AS lo, max(row_number)::int AS hi FROM screen_results WHERE screen_id = $1',
+      [res.body.id],
+    );
+    expect(span[0]).toEqual({ lo: 2, hi: 10_001 });
     // The killed worker's chunk was attempted again by the survivor.
     const retried = await t.db.query(
       'SELECT count(*)::int AS n FROM screen_chunks WHERE screen_id = $1 AND attempts > 1',

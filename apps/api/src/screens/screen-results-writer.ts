@@ -1,62 +1,46 @@
 /**
  * Writes one computed chunk idempotently: in ONE transaction the chunk row is locked, skipped
- * when already done (or its screen is no longer running), its results inserted with
- * `ON CONFLICT DO NOTHING` on (screen_id, row_number), the chunk marked done and the screen's
- * counters advanced. A worker killed anywhere inside loses the whole transaction, so a retry
+ * when already done (or its screen is no longer running), its results written with binary COPY,
+ * the chunk marked done and the screen's counters advanced. A worker killed anywhere inside loses the whole transaction, so a retry
  * neither loses nor duplicates rows.
  */
+import { Readable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
+import type { PoolClient } from 'pg';
+import { from as copyFrom } from 'pg-copy-streams';
 import type { DataSource, EntityManager } from 'typeorm';
 import { inlineCompute, type ComputeRunner } from '../compute/compute-tasks';
-import { REGIMES, type ChunkResult } from './chunk-computer';
-import { float8ArrayParam, int4ArrayParam, textArrayParam } from './pg-binary-array';
+import type { ChunkResult } from './chunk-computer';
+import { SCREEN_RESULT_COPY_COLUMNS, screenResultsCopyPayload } from './pg-binary-copy';
 import { decodeInputChunk } from './screen-parser';
 import type { ScoreChoice, ScoreKind } from './screen-score';
 
 /**
- * Inserts the rows of a chunk result (ignoring rows already there). Columns travel as binary
- * arrays (`pg-binary-array.ts`); a value that could not be computed (non-finite) is stored as
- * NULL, and so is the regime of a rate that could not be computed.
+ * Writes the rows of a chunk result with one binary `COPY … FROM STDIN` on the transaction's
+ * connection. Raw SQL and the `pg-copy-streams` package rather than TypeORM: measured, COPY
+ * stores a pair in a fraction of the time of the former `INSERT … SELECT FROM unnest(…)`
+ * (README.md beside this file). COPY has no `ON CONFLICT`; none is needed, as rows are only
+ * written while the transaction holds their chunk row still pending, and a committed row always
+ * comes with its chunk marked done. Were a row there all the same, the primary key on
+ * (screen_id, row_number) would fail the transaction rather than store it twice.
  */
 export async function insertResults(
   tx: EntityManager,
   screenId: string,
   r: ChunkResult,
 ): Promise<void> {
-  const regime = (codes: Uint8Array, valid: Float64Array) =>
-    textArrayParam(Array.from(codes, (c, i) => (Number.isFinite(valid[i]) ? REGIMES[c]! : null)));
-  await tx.query(
-    `INSERT INTO screen_results (screen_id, row_number, donor, acceptor, solvent, delta_g_cs,
-       delta_g_cr, lambda_inner, lambda_outer, lambda_total, coupling, temperature_k,
-       log10k_cs_marcus, log10k_cr_marcus, log10k_cs_mlj, log10k_cr_mlj, regime_cs, regime_cr,
-       warning_mask, score)
-     SELECT $1, * FROM unnest($2::int[], $3::text[], $4::text[], $5::text[], $6::float8[],
-       $7::float8[], $8::float8[], $9::float8[], $10::float8[], $11::float8[], $12::float8[],
-       $13::float8[], $14::float8[], $15::float8[], $16::float8[], $17::text[], $18::text[],
-       $19::int[], $20::float8[])
-     ON CONFLICT (screen_id, row_number) DO NOTHING`,
-    [
-      screenId,
-      int4ArrayParam(r.lines),
-      textArrayParam(r.donor),
-      textArrayParam(r.acceptor),
-      textArrayParam(r.solvent),
-      float8ArrayParam(r.deltaGCs),
-      float8ArrayParam(r.deltaGCr),
-      float8ArrayParam(r.lambdaInner),
-      float8ArrayParam(r.lambdaOuter),
-      float8ArrayParam(r.lambdaTotal),
-      float8ArrayParam(r.coupling),
-      float8ArrayParam(r.temperature),
-      float8ArrayParam(r.log10kCsMarcus),
-      float8ArrayParam(r.log10kCrMarcus),
-      float8ArrayParam(r.log10kCsMlj),
-      float8ArrayParam(r.log10kCrMlj),
-      regime(r.regimeCs, r.log10kCsMarcus),
-      regime(r.regimeCr, r.log10kCrMarcus),
-      int4ArrayParam(r.warningMask),
-      float8ArrayParam(r.score),
-    ],
+  if (r.size === 0) return;
+  const runner = tx.queryRunner;
+  if (!runner)
+    throw new Error('insertResults needs a transaction (EntityManager of a query runner)');
+  const payload = screenResultsCopyPayload(screenId, r);
+  const client = (await runner.connect()) as PoolClient;
+  const copy = client.query(
+    copyFrom(
+      `COPY screen_results (${SCREEN_RESULT_COPY_COLUMNS.join(', ')}) FROM STDIN (FORMAT binary)`,
+    ),
   );
+  await pipeline(Readable.from([payload]), copy);
 }
 
 export type ChunkOutcome = 'done' | 'already-done' | 'screen-not-running' | 'missing';

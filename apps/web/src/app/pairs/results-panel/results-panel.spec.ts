@@ -29,7 +29,7 @@ function render(coupling: number, extra: Partial<PairResults> = {}): HTMLElement
 const subs = (el: Element | null) =>
   Array.from(el?.querySelectorAll('sub') ?? [], (s) => s.textContent);
 
-/** Text as read, without the icon ligatures (`content_copy`). */
+/** Text as read, without the icons. */
 function shownText(el: HTMLElement): string {
   const copy = el.cloneNode(true) as HTMLElement;
   copy.querySelectorAll('mat-icon').forEach((i) => i.remove());
@@ -43,7 +43,8 @@ describe('ResultsPanel', () => {
     expect(regime.textContent).toContain('Nonadiabatic: |HAB| is well below kBT.');
     expect(subs(regime)).toEqual(['AB', 'B']);
     const warning = el.querySelector('.warnings li')!;
-    expect(warning.textContent).toContain('warning Low-frequency mode (ħω = 0.05 eV < 4kBT)');
+    expect(warning.textContent).toContain(' Low-frequency mode (ħω = 0.05 eV < 4kBT)');
+    expect(warning.querySelector('mat-icon[data-mat-icon-name="warning"] svg')).not.toBeNull();
     expect(subs(warning)).toEqual(['B', 's']);
     expect(shownText(el)).not.toContain('_');
   });

@@ -67,7 +67,7 @@ export async function pngBlob(svg: SVGSVGElement, scale = 2): Promise<Blob> {
       (click)="exportSvg()"
       [attr.aria-label]="'Export ' + what() + ' as SVG'"
     >
-      <mat-icon aria-hidden="true">download</mat-icon> SVG
+      <mat-icon aria-hidden="true" svgIcon="download"></mat-icon> SVG
     </button>
     <button
       mat-button
@@ -76,7 +76,7 @@ export async function pngBlob(svg: SVGSVGElement, scale = 2): Promise<Blob> {
       (click)="exportPng()"
       [attr.aria-label]="'Export ' + what() + ' as PNG'"
     >
-      <mat-icon aria-hidden="true">image</mat-icon> PNG
+      <mat-icon aria-hidden="true" svgIcon="image"></mat-icon> PNG
     </button>
   `,
   styles: ':host { display: inline-flex; gap: 4px; }',

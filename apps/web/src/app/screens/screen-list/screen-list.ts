@@ -21,11 +21,11 @@ const count = new Intl.NumberFormat('en-GB');
         <h1 class="gw-title">Screens</h1>
         <span class="spacer"></span>
         <a mat-button [href]="api.templateUrl" download>
-          <mat-icon aria-hidden="true">description</mat-icon> Template (CSV)
+          <mat-icon aria-hidden="true" svgIcon="description"></mat-icon> Template (CSV)
         </a>
         @if (workspace.canEdit()) {
           <a mat-flat-button [routerLink]="['/w', wid(), 'screens', 'new']">
-            <mat-icon aria-hidden="true">upload_file</mat-icon> New screen
+            <mat-icon aria-hidden="true" svgIcon="upload_file"></mat-icon> New screen
           </a>
         }
       </header>
@@ -54,9 +54,7 @@ const count = new Intl.NumberFormat('en-GB');
                   </th>
                   <td>
                     <span class="status"
-                      ><span class="material-symbols-outlined" aria-hidden="true">{{
-                        icons[s.status]
-                      }}</span>
+                      ><mat-icon aria-hidden="true" [svgIcon]="icons[s.status]"></mat-icon>
                       {{ labels[s.status] }}</span
                     >
                   </td>

@@ -1,6 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { Screen, ScreenStatus } from '@gapwise/contracts';
+import type { AppIconName } from '../../icons/app-icons';
 
 const count = new Intl.NumberFormat('en-GB');
 
@@ -27,7 +28,7 @@ export const STATUS_LABELS: Record<ScreenStatus, string> = {
   failed: 'Failed',
 };
 
-export const STATUS_ICONS: Record<ScreenStatus, string> = {
+export const STATUS_ICONS: Record<ScreenStatus, AppIconName> = {
   uploaded: 'schedule',
   running: 'autorenew',
   cancelled: 'block',

@@ -47,7 +47,7 @@ describe('ScreenScatter', () => {
     fixture.componentRef.setInput('colourBy', 'score');
     fixture.detectChanges();
     await fixture.whenStable();
-    const svg: SVGSVGElement = fixture.nativeElement.querySelector('svg');
+    const svg: SVGSVGElement = fixture.nativeElement.querySelector('svg:not(mat-icon svg)');
     expect(svg.querySelectorAll('path.point')).toHaveLength(12);
     const labels = Array.from(svg.querySelectorAll('.axis-label')).map((t) => t.textContent);
     expect(labels).toEqual(['Driving force −ΔG°CS / eV', 'log₁₀(kCS / s⁻¹)']);
@@ -75,7 +75,7 @@ describe('ScreenScatter', () => {
     fixture.componentRef.setInput('colourBy', 'coupling');
     fixture.detectChanges();
     await fixture.whenStable();
-    const svg: SVGSVGElement = fixture.nativeElement.querySelector('svg');
+    const svg: SVGSVGElement = fixture.nativeElement.querySelector('svg:not(mat-icon svg)');
     const subs = (el: Element | null) =>
       Array.from(el?.querySelectorAll('tspan.sub') ?? [], (t) => t.textContent);
     const [xLabel, yLabel] = Array.from(svg.querySelectorAll('.axis-label'));

@@ -18,7 +18,7 @@ import { SeriesApi } from '../series-api';
         <span class="spacer"></span>
         @if (workspace.canEdit()) {
           <a mat-flat-button [routerLink]="['/w', wid(), 'series', 'new']">
-            <mat-icon aria-hidden="true">add</mat-icon> New series
+            <mat-icon aria-hidden="true" svgIcon="add"></mat-icon> New series
           </a>
         }
       </header>

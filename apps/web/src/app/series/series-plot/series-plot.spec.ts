@@ -54,7 +54,7 @@ describe('SeriesPlot and FitTable', () => {
     fixture.componentRef.setInput('fit', fit);
     fixture.detectChanges();
     await fixture.whenStable();
-    const svg: SVGSVGElement = fixture.nativeElement.querySelector('svg');
+    const svg: SVGSVGElement = fixture.nativeElement.querySelector('svg:not(mat-icon svg)');
     expect(svg.querySelectorAll('circle')).toHaveLength(2);
     expect(svg.querySelectorAll('line.error-bar')).toHaveLength(1); // only DA-1 has σ
     expect(svg.querySelector('path.curve.marcus')?.getAttribute('d')).toMatch(/^M/);
