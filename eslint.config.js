@@ -128,7 +128,7 @@ export default tseslint.config(
   },
   {
     files: ['libs/**/*.ts'],
-    ignores: ['libs/calc/**', 'libs/**/*.spec.ts'],
+    ignores: ['libs/calc/**', 'libs/traces/**', 'libs/**/*.spec.ts'],
     rules: {
       'no-restricted-imports': [
         'error',
@@ -139,6 +139,26 @@ export default tseslint.config(
               message: 'Shared libraries run in the browser: no Node built-in.',
             },
             { group: frameworks, message: 'Shared libraries import no framework.' },
+            deepLibraryImports,
+            appImports,
+            dbImports,
+          ],
+        },
+      ],
+    },
+  },
+  {
+    // Trace files are read from streams (uploads, object-store downloads, local files) and the
+    // analysis spills to temporary files: this library runs on the server and in the command
+    // line only, so Node built-ins are allowed; frameworks, the database and apps are not.
+    files: ['libs/traces/**/*.ts'],
+    ignores: ['libs/**/*.spec.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            { group: frameworks, message: 'libs/traces imports no framework.' },
             deepLibraryImports,
             appImports,
             dbImports,

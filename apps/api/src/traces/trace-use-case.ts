@@ -28,7 +28,7 @@ import {
   readColumnSetting,
   type TraceDelimiter,
   type TraceParseSettings,
-} from './trace-parser';
+} from '@gapwise/traces';
 import {
   countObjectReferences,
   findAnalysis,
