@@ -128,7 +128,7 @@ export default tseslint.config(
   },
   {
     files: ['libs/**/*.ts'],
-    ignores: ['libs/calc/**', 'libs/**/*.spec.ts'],
+    ignores: ['libs/calc/**', 'libs/traces/**', 'libs/**/*.spec.ts'],
     rules: {
       'no-restricted-imports': [
         'error',
@@ -139,6 +139,26 @@ export default tseslint.config(
               message: 'Shared libraries run in the browser: no Node built-in.',
             },
             { group: frameworks, message: 'Shared libraries import no framework.' },
+            deepLibraryImports,
+            appImports,
+            dbImports,
+          ],
+        },
+      ],
+    },
+  },
+  {
+    // Trace files are read from streams (uploads, object-store downloads, local files) and the
+    // analysis spills to temporary files: this library runs on the server and in the command
+    // line only, so Node built-ins are allowed; frameworks, the database and apps are not.
+    files: ['libs/traces/**/*.ts'],
+    ignores: ['libs/**/*.spec.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            { group: frameworks, message: 'libs/traces imports no framework.' },
             deepLibraryImports,
             appImports,
             dbImports,
@@ -174,8 +194,10 @@ export default tseslint.config(
       ],
     },
   },
+  // No app imports another app (apps/web ↔ apps/api ↔ apps/cli) and db imports no app: what two
+  // apps share goes into a library (e.g. the trace parser in libs/traces).
   {
-    files: ['apps/api/**/*.ts', 'apps/cli/**/*.ts', 'db/**/*.ts'],
+    files: ['apps/api/**/*.ts'],
     rules: {
       'no-restricted-imports': [
         'error',
@@ -184,6 +206,55 @@ export default tseslint.config(
             {
               group: ['**/apps/web/**', '**/web/src/**', '@angular/*'],
               message: 'Server code never imports the web app.',
+            },
+            {
+              group: ['**/apps/cli/**', '**/cli/src/**', '@gapwise/cli', '@gapwise/cli/*'],
+              message: 'No app imports another app: the API never imports the CLI.',
+            },
+            deepLibraryImports,
+          ],
+        },
+      ],
+    },
+  },
+  {
+    files: ['apps/cli/**/*.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              group: ['**/apps/web/**', '**/web/src/**', '@angular/*'],
+              message: 'Server code never imports the web app.',
+            },
+            {
+              group: ['**/apps/api/**', '**/api/src/**', '**/api/bench/**'],
+              message:
+                'No app imports another app: the CLI never imports the API (share code through a library).',
+            },
+            deepLibraryImports,
+          ],
+        },
+      ],
+    },
+  },
+  {
+    files: ['db/**/*.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              group: [
+                '**/apps/**',
+                '**/api/src/**',
+                '**/cli/src/**',
+                '**/web/src/**',
+                '@angular/*',
+              ],
+              message: 'The database layer imports no app.',
             },
             deepLibraryImports,
           ],

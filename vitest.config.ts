@@ -8,6 +8,7 @@ export const alias = {
   '@gapwise/calc': here('./libs/calc/src/index.ts'),
   '@gapwise/contracts': here('./libs/contracts/src/index.ts'),
   '@gapwise/plots': here('./libs/plots/src/index.ts'),
+  '@gapwise/traces': here('./libs/traces/src/index.ts'),
   '@gapwise/db': here('./db/index.ts'),
 };
 

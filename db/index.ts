@@ -8,4 +8,3 @@ export {
 } from './data-source';
 export * from './entities/index';
 export { migrations } from './migrations/index';
-export { seedDemo, DEMO_PASSWORD, DEMO_ACCOUNTS, type SeedReport } from './seed/demo-data';

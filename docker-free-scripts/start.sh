@@ -34,7 +34,7 @@ done
 
 say "applying migrations and the demo seed…"
 npx tsx db/migrate.ts
-npx tsx db/seed/seed-demo.ts
+npx tsx apps/api/src/seed/seed-demo.ts
 
 # Rebuild the web app only when a source file is newer than the last build.
 index=dist/web/browser/index.html

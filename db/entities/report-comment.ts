@@ -38,14 +38,14 @@ export class ReportCommentEntity {
   createdAt: Date;
 
   @ManyToOne(() => ReportEntity, { onDelete: 'CASCADE' })
-  @JoinColumn({ name: 'report_id' })
+  @JoinColumn({ name: 'report_id', foreignKeyConstraintName: 'FK_report_comments_report' })
   report: Relation<ReportEntity>;
 
   @ManyToOne(() => UserEntity, { onDelete: 'SET NULL' })
-  @JoinColumn({ name: 'author_id' })
+  @JoinColumn({ name: 'author_id', foreignKeyConstraintName: 'FK_report_comments_author' })
   author: Relation<UserEntity> | null;
 
   @ManyToOne(() => ReportCommentEntity, { onDelete: 'CASCADE' })
-  @JoinColumn({ name: 'parent_id' })
+  @JoinColumn({ name: 'parent_id', foreignKeyConstraintName: 'FK_report_comments_parent' })
   parent: Relation<ReportCommentEntity> | null;
 }

@@ -37,10 +37,10 @@ export class ReportTransitionEntity {
   note: string | null;
 
   @ManyToOne(() => ReportEntity, { onDelete: 'CASCADE' })
-  @JoinColumn({ name: 'report_id' })
+  @JoinColumn({ name: 'report_id', foreignKeyConstraintName: 'FK_report_transitions_report' })
   report: Relation<ReportEntity>;
 
   @ManyToOne(() => UserEntity, { onDelete: 'SET NULL' })
-  @JoinColumn({ name: 'by_id' })
+  @JoinColumn({ name: 'by_id', foreignKeyConstraintName: 'FK_report_transitions_by' })
   by: Relation<UserEntity> | null;
 }

@@ -1,4 +1,5 @@
 import {
+  Check,
   Column,
   CreateDateColumn,
   Entity,
@@ -20,6 +21,8 @@ import { WorkspaceEntity } from './workspace';
  */
 @Entity({ name: 'reports' })
 @Index('idx_reports_workspace_status', ['workspaceId', 'status'])
+@Check('CHK_reports_kind', `"kind" IN ('pair', 'comparison')`)
+@Check('CHK_reports_status', `"status" IN ('draft', 'submitted', 'changes-requested', 'approved')`)
 export class ReportEntity {
   @PrimaryGeneratedColumn('uuid')
   id: string;
@@ -63,10 +66,10 @@ export class ReportEntity {
   updatedAt: Date;
 
   @ManyToOne(() => WorkspaceEntity, { onDelete: 'CASCADE' })
-  @JoinColumn({ name: 'workspace_id' })
+  @JoinColumn({ name: 'workspace_id', foreignKeyConstraintName: 'FK_reports_workspace' })
   workspace: Relation<WorkspaceEntity>;
 
   @ManyToOne(() => UserEntity, { onDelete: 'SET NULL' })
-  @JoinColumn({ name: 'author_id' })
+  @JoinColumn({ name: 'author_id', foreignKeyConstraintName: 'FK_reports_author' })
   author: Relation<UserEntity> | null;
 }

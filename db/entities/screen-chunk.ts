@@ -33,6 +33,6 @@ export class ScreenChunkEntity {
   finishedAt: Date | null;
 
   @ManyToOne(() => ScreenEntity, { onDelete: 'CASCADE' })
-  @JoinColumn({ name: 'screen_id' })
+  @JoinColumn({ name: 'screen_id', foreignKeyConstraintName: 'FK_screen_chunks_screen' })
   screen: Relation<ScreenEntity>;
 }

@@ -17,6 +17,6 @@ export class ScreenInputEntity {
   payload: string;
 
   @ManyToOne(() => ScreenEntity, { onDelete: 'CASCADE' })
-  @JoinColumn({ name: 'screen_id' })
+  @JoinColumn({ name: 'screen_id', foreignKeyConstraintName: 'FK_screen_inputs_screen' })
   screen: Relation<ScreenEntity>;
 }

@@ -90,6 +90,6 @@ export class ScreenEntity {
   finishedAt: Date | null;
 
   @ManyToOne(() => WorkspaceEntity, { onDelete: 'CASCADE' })
-  @JoinColumn({ name: 'workspace_id' })
+  @JoinColumn({ name: 'workspace_id', foreignKeyConstraintName: 'FK_screens_workspace' })
   workspace: Relation<WorkspaceEntity>;
 }

@@ -38,6 +38,6 @@ export class SeriesPointEntity {
   pairId: string | null;
 
   @ManyToOne(() => SeriesEntity, { onDelete: 'CASCADE' })
-  @JoinColumn({ name: 'series_id' })
+  @JoinColumn({ name: 'series_id', foreignKeyConstraintName: 'FK_series_points_series' })
   series: Relation<SeriesEntity>;
 }

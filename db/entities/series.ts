@@ -62,6 +62,6 @@ export class SeriesEntity {
   updatedAt: Date;
 
   @ManyToOne(() => WorkspaceEntity, { onDelete: 'CASCADE' })
-  @JoinColumn({ name: 'workspace_id' })
+  @JoinColumn({ name: 'workspace_id', foreignKeyConstraintName: 'FK_series_workspace' })
   workspace: Relation<WorkspaceEntity>;
 }

@@ -1,4 +1,5 @@
 import {
+  Check,
   Column,
   CreateDateColumn,
   Entity,
@@ -17,6 +18,7 @@ import { WorkspaceEntity } from './workspace';
  */
 @Entity({ name: 'trace_analyses' })
 @Index('idx_trace_analyses_workspace', ['workspaceId', 'createdAt'])
+@Check('CHK_trace_analyses_status', `"status" IN ('queued', 'running', 'done', 'failed')`)
 export class TraceAnalysisEntity {
   @PrimaryGeneratedColumn('uuid')
   id: string;
@@ -64,14 +66,14 @@ export class TraceAnalysisEntity {
   finishedAt: Date | null;
 
   @ManyToOne(() => WorkspaceEntity, { onDelete: 'CASCADE' })
-  @JoinColumn({ name: 'workspace_id' })
+  @JoinColumn({ name: 'workspace_id', foreignKeyConstraintName: 'FK_trace_analyses_workspace' })
   workspace: Relation<WorkspaceEntity>;
 
   @ManyToOne(() => TraceEntity, { onDelete: 'CASCADE' })
-  @JoinColumn({ name: 'reactant_trace_id' })
+  @JoinColumn({ name: 'reactant_trace_id', foreignKeyConstraintName: 'FK_trace_analyses_reactant' })
   reactantTrace: Relation<TraceEntity>;
 
   @ManyToOne(() => TraceEntity, { onDelete: 'CASCADE' })
-  @JoinColumn({ name: 'product_trace_id' })
+  @JoinColumn({ name: 'product_trace_id', foreignKeyConstraintName: 'FK_trace_analyses_product' })
   productTrace: Relation<TraceEntity>;
 }

@@ -1,4 +1,5 @@
 import {
+  Check,
   Column,
   CreateDateColumn,
   Entity,
@@ -25,6 +26,8 @@ export const bigintAsNumber: ValueTransformer = {
  */
 @Entity({ name: 'traces' })
 @Index('idx_traces_workspace', ['workspaceId', 'uploadedAt'])
+@Index('idx_traces_object_key', ['objectKey'])
+@Check('CHK_traces_state', `"state" IN ('reactant', 'product')`)
 export class TraceEntity {
   @PrimaryGeneratedColumn('uuid')
   id: string;
@@ -101,10 +104,10 @@ export class TraceEntity {
   uploadedAt: Date;
 
   @ManyToOne(() => WorkspaceEntity, { onDelete: 'CASCADE' })
-  @JoinColumn({ name: 'workspace_id' })
+  @JoinColumn({ name: 'workspace_id', foreignKeyConstraintName: 'FK_traces_workspace' })
   workspace: Relation<WorkspaceEntity>;
 
   @ManyToOne(() => UserEntity, { onDelete: 'SET NULL' })
-  @JoinColumn({ name: 'uploaded_by' })
+  @JoinColumn({ name: 'uploaded_by', foreignKeyConstraintName: 'FK_traces_uploaded_by' })
   uploader: Relation<UserEntity> | null;
 }

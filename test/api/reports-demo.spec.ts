@@ -8,7 +8,7 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { formatLog10, formatRate, type ReportListItem, type ReportView } from '@gapwise/contracts';
-import { DEMO_LAB, DEMO_PASSWORD, seedDemo } from '../../db/seed/demo-data';
+import { DEMO_LAB, DEMO_PASSWORD, seedDemo } from '../../apps/api/src/seed/demo-data';
 import { DEMO_REPORT_TITLE, seedDemoReport } from '../../apps/api/src/reports/demo-report-seed';
 import { signIn, startTestApp, type TestApp } from './support/test-app';
 

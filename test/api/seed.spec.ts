@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD, seedDemo } from '@gapwise/db';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD, seedDemo } from '../../apps/api/src/seed/demo-data';
 import type { Pair, PairListItem } from '@gapwise/contracts';
 import { registerUser, signIn, startTestApp, type TestApp } from './support/test-app';
 

@@ -13,7 +13,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { TestProject } from 'vitest/node';
 import { createDataSource } from '../../db/data-source';
-import { DEMO_LAB, DEMO_MEDIATORS, seedDemo } from '../../db/seed/demo-data';
+import { DEMO_LAB, DEMO_MEDIATORS, seedDemo } from '../../apps/api/src/seed/demo-data';
 import { seedDemoReport } from '../../apps/api/src/reports/demo-report-seed';
 import { seedDemoScreensAndSeries } from '../../apps/api/src/screens/demo-screen-seed';
 import { seedDemoTraces } from '../../apps/api/src/traces/demo-trace-seed';

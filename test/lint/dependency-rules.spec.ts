@@ -70,6 +70,60 @@ describe('dependency rules', { timeout: 120_000 }, () => {
     ).toHaveLength(1);
   });
 
+  it('refuse an app importing another app and the database layer importing an app', async () => {
+    expect(
+      await ruleHits(
+        "import { analyzeTraces } from '../../api/src/traces/trace-analysis';\nexport const y = analyzeTraces;\n",
+        'apps/cli/src/bad.ts',
+      ),
+    ).toHaveLength(1);
+    expect(
+      await ruleHits(
+        "import { runTracesAnalyze } from '../../../cli/src/traces-command';\nexport const y = runTracesAnalyze;\n",
+        'apps/api/src/traces/bad.ts',
+      ),
+    ).toHaveLength(1);
+    expect(
+      await ruleHits(
+        "import { createPair } from '../../apps/api/src/pairs/pair-use-case';\nexport const y = createPair;\n",
+        'db/seed/bad.ts',
+      ),
+    ).toHaveLength(1);
+    expect(
+      await ruleHits(
+        "import { main } from '../apps/cli/src/main';\nexport const y = main;\n",
+        'db/bad.ts',
+      ),
+    ).toHaveLength(1);
+  });
+
+  it('let libs/traces read streams and files but import no framework, app or database', async () => {
+    expect(
+      await ruleHits(
+        "import { createGunzip } from 'node:zlib';\nexport const y = createGunzip;\n",
+        'libs/traces/src/ok.ts',
+      ),
+    ).toEqual([]);
+    expect(
+      await ruleHits(
+        "import express from 'express';\nexport const y = express;\n",
+        'libs/traces/src/bad.ts',
+      ),
+    ).toHaveLength(1);
+    expect(
+      await ruleHits(
+        "import { x } from '../../../apps/api/src/traces/trace-use-case';\nexport const y = x;\n",
+        'libs/traces/src/bad.ts',
+      ),
+    ).toHaveLength(1);
+    expect(
+      await ruleHits(
+        "import { readFileSync } from 'node:fs';\nexport const x = readFileSync;\n",
+        'libs/contracts/src/bad.ts',
+      ),
+    ).toHaveLength(1);
+  });
+
   it('allow what the rules allow', async () => {
     expect(
       await ruleHits(
@@ -81,6 +135,12 @@ describe('dependency rules', { timeout: 120_000 }, () => {
       await ruleHits(
         "import { x } from '../core/units';\nexport const y = x;\n",
         'libs/calc/src/rates/ok.ts',
+      ),
+    ).toEqual([]);
+    expect(
+      await ruleHits(
+        "import { analyzeTraces } from '@gapwise/traces';\nexport const y = analyzeTraces;\n",
+        'apps/cli/src/ok.ts',
       ),
     ).toEqual([]);
   });

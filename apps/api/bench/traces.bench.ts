@@ -19,7 +19,7 @@ import { pipeline } from 'node:stream/promises';
 import pg from 'pg';
 import { startObjectStore } from '../../../docker-free-scripts/s3/object-store';
 import { createTestDatabase } from '../../../test/api/support/test-database';
-import { marcusGapMoments, writeSyntheticTrace } from '../src/traces/synthetic-trace';
+import { marcusGapMoments, writeSyntheticTrace } from '@gapwise/traces';
 
 const samples = Number(process.argv[2] ?? 10_000_000);
 const LAMBDA = 0.5;

@@ -2,8 +2,8 @@
  * `gapwise traces analyze --reactant R.csv --product P.csv --unit kcal/mol [--column 2]
  * [--temperature 300] [--skip-bad-lines] [--delimiter auto|comma|tab|whitespace] [--pretty]`
  *
- * Reads both files with the server's parser and runs the server's analysis (the same modules as
- * the `trace-analysis` job), then prints the result JSON the API stores for an analysis — the
+ * Reads both files with the shared trace parser and runs the shared analysis (libs/traces, the
+ * same modules as the API's `trace-analysis` job), then prints the result JSON the API stores for an analysis — the
  * same object for the same files, except `sources.*.traceId` (null here).
  *
  * Exit codes: 0 analysed; 2 refused (bad file, estimator refusal; `{ ok: false, errors }` on
@@ -16,15 +16,13 @@ import { basename } from 'node:path';
 import { TRACE_FILE_UNITS, type TraceFileUnit } from '@gapwise/contracts';
 import {
   analyzeTraces,
-  TraceAnalysisRefusal,
-  type TraceAnalysisInput,
-} from '../../api/src/traces/trace-analysis';
-import {
-  TRACE_DELIMITERS,
-  TraceSettingsError,
   readColumnSetting,
+  TRACE_DELIMITERS,
+  TraceAnalysisRefusal,
+  TraceSettingsError,
+  type TraceAnalysisInput,
   type TraceDelimiter,
-} from '../../api/src/traces/trace-parser';
+} from '@gapwise/traces';
 import type { Subcommand } from './subcommand';
 
 const EXIT_OK = 0;

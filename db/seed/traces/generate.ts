@@ -8,10 +8,7 @@
  */
 import { fileURLToPath } from 'node:url';
 import { join } from 'node:path';
-import {
-  marcusGapMoments,
-  writeSyntheticTrace,
-} from '../../../apps/api/src/traces/synthetic-trace';
+import { marcusGapMoments, writeSyntheticTrace } from '@gapwise/traces';
 
 export const DEMO_TRACE = {
   lambdaEv: 0.62,

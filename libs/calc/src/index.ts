@@ -4,6 +4,8 @@ export * from './core/method';
 
 // Dispatcher, registry and serialisation shared by the web pages, the API and the command line.
 export { calculate, runMethod, serializeAnswer, canonicalInputs } from './core/calculate';
+export type { Answer } from './core/calculate';
+export type { MethodOutputs, TypedMethodId } from './method-outputs';
 export { allMethods, findMethod, inputLabel, methodCatalog } from './core/registry';
 export type { CatalogEntry, CatalogInput } from './core/registry';
 

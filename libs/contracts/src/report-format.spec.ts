@@ -3,7 +3,7 @@ import { provenanceText } from './report-format';
 
 describe('provenanceText', () => {
   it('prints derivation inputs by their labels, with canonical units, from the method catalog', () => {
-    // Inputs of the demo DA-3 λ_outer (db/seed/demo-data.ts); units per CALC-API.md reorg.twoSphere.
+    // Inputs of the demo DA-3 λ_outer (apps/api/src/seed/demo-data.ts); units per CALC-API.md reorg.twoSphere.
     const text = provenanceText({
       kind: 'derived',
       methodId: 'reorg.twoSphere',

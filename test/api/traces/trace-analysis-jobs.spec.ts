@@ -13,7 +13,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Pair, Trace, TraceAnalysis } from '@gapwise/contracts';
 import { startObjectStore, type ObjectStore } from '../../../docker-free-scripts/s3/object-store';
 import { provideTraceServices } from '../../../apps/api/src/traces/routes';
-import { marcusGapMoments } from '../../../apps/api/src/traces/synthetic-trace';
+import { marcusGapMoments } from '@gapwise/traces';
 import type { TraceServices } from '../../../apps/api/src/traces/trace-services';
 import { startTraceServices } from '../../../apps/api/src/traces/trace-services';
 import { pairBody } from '../support/fixtures';

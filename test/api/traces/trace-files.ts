@@ -1,15 +1,12 @@
 /**
  * Small trace files for the API tests, written from seeded synthetic samples with known
- * parameters (apps/api/src/traces/synthetic-trace.ts), plus the helpers that upload them.
+ * parameters (libs/traces/src/synthetic-trace.ts), plus the helpers that upload them.
  */
 import { createHash } from 'node:crypto';
 import { gzipSync } from 'node:zlib';
 import { ListObjectsV2Command, type S3Client } from '@aws-sdk/client-s3';
 import type request from 'supertest';
-import {
-  syntheticGapSamples,
-  type SyntheticTraceSpec,
-} from '../../../apps/api/src/traces/synthetic-trace';
+import { syntheticGapSamples, type SyntheticTraceSpec } from '@gapwise/traces';
 import type { Session } from '../support/test-app';
 
 /** Text of a trace: header `frame,dE` and one row per sample, values divided by `evPerUnit`. */

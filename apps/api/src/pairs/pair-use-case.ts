@@ -98,14 +98,25 @@ export async function createPair(
   workspaceId: string,
   input: FullInput,
 ): Promise<Pair> {
-  return db.transaction(async (tx) => {
-    await requireRole(tx, workspaceId, userId, canEdit);
-    await requireWorkspaceReferences(tx, workspaceId, provenanceReferences(input));
-    const id = await insertPair(tx, workspaceId, input, resultsFor(input), userId);
-    const pair = (await findPair(tx, id))!;
-    await saveSnapshot(tx, pair, null, userId, 'pair.created', 'created');
-    return pair;
-  });
+  return db.transaction((tx) => createPairIn(tx, userId, workspaceId, input));
+}
+
+/**
+ * Creates a pair inside the caller's transaction (the demo seed runs all of its writes in one):
+ * role check, the row and its parameters, version 1 and the audit event.
+ */
+export async function createPairIn(
+  tx: EntityManager,
+  userId: string,
+  workspaceId: string,
+  input: FullInput,
+): Promise<Pair> {
+  await requireRole(tx, workspaceId, userId, canEdit);
+  await requireWorkspaceReferences(tx, workspaceId, provenanceReferences(input));
+  const id = await insertPair(tx, workspaceId, input, resultsFor(input), userId);
+  const pair = (await findPair(tx, id))!;
+  await saveSnapshot(tx, pair, null, userId, 'pair.created', 'created');
+  return pair;
 }
 
 /**

@@ -150,7 +150,7 @@ export function deriveThroughCalculate(
       },
     });
     mask |= collectWarnings(ts);
-    if (ts.ok) lambdaOuter = ts.outputs.lambdaOuter as number;
+    if (ts.ok) lambdaOuter = ts.outputs.lambdaOuter;
     else refused = true;
   }
   let coupling = v.coupling[i];
@@ -165,12 +165,12 @@ export function deriveThroughCalculate(
       },
     });
     mask |= collectWarnings(dd);
-    if (dd.ok) coupling = dd.outputs.coupling as number;
+    if (dd.ok) coupling = dd.outputs.coupling;
     else refused = true;
   }
   return {
-    dCs: rw.ok ? (rw.outputs.deltaG0CS as number) : Number.NaN,
-    dCr: rw.ok ? (rw.outputs.deltaG0CR as number) : Number.NaN,
+    dCs: rw.ok ? rw.outputs.deltaG0CS : Number.NaN,
+    dCr: rw.ok ? rw.outputs.deltaG0CR : Number.NaN,
     lambdaOuter,
     coupling,
     mask,

@@ -44,15 +44,7 @@ function fitOne(
       answer.errors.map((e) => ({ field: `${request.model}.${e.field}`, message: e.message })),
     );
   }
-  const o = answer.outputs as {
-    lambda: number;
-    coupling: number;
-    standardErrors: { lambda: number; coupling: number };
-    covariance: number[][];
-    correlation: number;
-    rmsLog10Residual: number;
-    residuals: number[];
-  };
+  const o = answer.outputs;
   // The band needs the fit's internal covariance: the same deterministic fit, run once more.
   const fit = fitDrivingForceSeries({
     points: points.map((p) => ({ deltaG0Ev: p.deltaG0, k: 10 ** p.log10k })),
@@ -72,7 +64,7 @@ function fitOne(
     correlation: o.correlation,
     covariance: o.covariance.map((r) => [...r]),
     rmsLog10Residual: o.rmsLog10Residual,
-    residuals: o.residuals,
+    residuals: [...o.residuals],
     aic: base + 2 * PARAMETERS,
     bic: base + PARAMETERS * Math.log(n),
     band: confidenceBandLog10k(fit, grid(points, o.lambda)),

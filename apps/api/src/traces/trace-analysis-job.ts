@@ -5,7 +5,13 @@
 import type { Readable } from 'node:stream';
 import { setTimeout as sleep } from 'node:timers/promises';
 import type { DataSource } from 'typeorm';
-import { analyzeTraces, TraceAnalysisRefusal, type TraceAnalysisInput } from './trace-analysis';
+import {
+  analyzeTraces,
+  readColumnSetting,
+  TraceAnalysisRefusal,
+  type TraceAnalysisInput,
+  type TraceParseSettings,
+} from '@gapwise/traces';
 import type { TraceObjectStore } from './trace-object-store';
 import {
   claimAnalysis,
@@ -15,8 +21,6 @@ import {
   setProgress,
   type StoredTrace,
 } from './trace-repository';
-import type { TraceParseSettings } from './trace-parser';
-import { readColumnSetting } from './trace-parser';
 
 export interface JobRunOptions {
   readonly signal?: AbortSignal;

@@ -6,8 +6,14 @@
  */
 import { createHash } from 'node:crypto';
 import type { TraceObjectStore } from './trace-object-store';
-import type { TraceParseSettings, TraceParseSummary } from './trace-parser';
-import { TraceFileError, readTrace, traceProblems, type TraceProblem } from './trace-stream';
+import {
+  TraceFileError,
+  readTrace,
+  traceProblems,
+  type TraceParseSettings,
+  type TraceParseSummary,
+  type TraceProblem,
+} from '@gapwise/traces';
 
 export interface IngestedTrace {
   readonly sha256: string;

@@ -19,7 +19,7 @@ import {
 import { recordAudit } from '../audit/audit-repository';
 import { AppError, notFound, validationFailed } from '../http/app-error';
 import { formatBytes } from '../http/multipart';
-import { TraceTooLargeError } from './trace-stream';
+import { TraceTooLargeError } from '@gapwise/traces';
 import { isUuid } from '../http/validate';
 import { inputOf, pairForCaller, savePair } from '../pairs/pair-use-case';
 import { requireRole } from '../workspaces/workspace-access';
@@ -30,7 +30,7 @@ import {
   readColumnSetting,
   type TraceDelimiter,
   type TraceParseSettings,
-} from './trace-parser';
+} from '@gapwise/traces';
 import {
   countObjectReferences,
   findAnalysis,

@@ -37,20 +37,27 @@ export async function createWorkspace(
   userId: string,
   name: string,
 ): Promise<WorkspaceSummary> {
-  return db.transaction(async (tx) => {
-    const ws = await insertWorkspace(tx, name.trim());
-    await upsertMembership(tx, ws.id, userId, 'owner');
-    await recordAudit(tx, {
-      workspaceId: ws.id,
-      actorId: userId,
-      action: 'workspace.created',
-      entityType: 'workspace',
-      entityId: ws.id,
-      summary: `created workspace "${ws.name}"`,
-      after: { name: ws.name },
-    });
-    return { id: ws.id, name: ws.name, role: 'owner' };
+  return db.transaction((tx) => createWorkspaceIn(tx, userId, name));
+}
+
+/** Creates a workspace owned by the user inside the caller's transaction (the demo seed's). */
+export async function createWorkspaceIn(
+  tx: EntityManager,
+  userId: string,
+  name: string,
+): Promise<WorkspaceSummary> {
+  const ws = await insertWorkspace(tx, name.trim());
+  await upsertMembership(tx, ws.id, userId, 'owner');
+  await recordAudit(tx, {
+    workspaceId: ws.id,
+    actorId: userId,
+    action: 'workspace.created',
+    entityType: 'workspace',
+    entityId: ws.id,
+    summary: `created workspace "${ws.name}"`,
+    after: { name: ws.name },
   });
+  return { id: ws.id, name: ws.name, role: 'owner' };
 }
 
 export async function renameWorkspaceUseCase(

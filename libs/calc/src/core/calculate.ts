@@ -9,10 +9,12 @@ import {
   CalcRefusal,
   type CalcAnswer,
   type CalcOutputs,
+  type CalcWarning,
   type FieldError,
   type MethodDefinition,
 } from './method';
 import { allMethods, findMethod } from './registry';
+import type { MethodOutputs, TypedMethodId } from '../method-outputs';
 
 const REQUEST_KEYS = new Set(['method', 'inputs']);
 
@@ -24,10 +26,26 @@ function describeThrown(thrown: unknown): string {
   return thrown instanceof Error ? thrown.message : String(thrown);
 }
 
+/** An answer whose outputs have the type `O` (see `MethodOutputs`). */
+export type Answer<O> =
+  | {
+      readonly ok: true;
+      readonly method: string;
+      readonly outputs: O;
+      readonly warnings: CalcWarning[];
+    }
+  | { readonly ok: false; readonly errors: FieldError[] };
+
 /**
  * Runs a calculation request `{ method, inputs }` (CALC-API.md). Never throws.
  * Unknown method: error on field `method`; a request that is not an object: error on `request`.
+ * A literal id of `MethodOutputs` types the outputs; any other request answers `CalcOutputs`.
  */
+export function calculate<M extends TypedMethodId>(request: {
+  readonly method: M;
+  readonly inputs: unknown;
+}): Answer<MethodOutputs[M]>;
+export function calculate(request: unknown): CalcAnswer;
 export function calculate(request: unknown): CalcAnswer {
   try {
     if (!isPlainObject(request)) {

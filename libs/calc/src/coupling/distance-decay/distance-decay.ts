@@ -31,7 +31,7 @@ export interface DistanceDecayInputs {
   readonly coupling0Unit: string;
 }
 
-export const distanceDecayMethod: MethodDefinition<DistanceDecayInputs> = {
+export const distanceDecayMethod = {
   id: 'coupling.distanceDecay',
   summary: 'Coupling at distance R from H₀ at R₀ with rate decay constant β: H₀ e^(−β(R−R₀)/2).',
   references: [
@@ -99,4 +99,7 @@ export const distanceDecayMethod: MethodDefinition<DistanceDecayInputs> = {
       ),
     };
   },
-};
+} satisfies MethodDefinition<DistanceDecayInputs>;
+
+/** What `coupling.distanceDecay` answers (the compiler reads it through `MethodOutputs`). */
+export type DistanceDecayOutputs = ReturnType<(typeof distanceDecayMethod)['compute']>;

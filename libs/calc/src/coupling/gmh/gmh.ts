@@ -30,7 +30,7 @@ export interface GmhInputs {
   readonly transitionEnergyEv: number;
 }
 
-export const gmhMethod: MethodDefinition<GmhInputs> = {
+export const gmhMethod = {
   id: 'coupling.gmh',
   summary: 'Generalized Mulliken–Hush coupling from adiabatic dipoles and gap.',
   references: [
@@ -100,4 +100,7 @@ export const gmhMethod: MethodDefinition<GmhInputs> = {
     );
     return { coupling, couplingCm1: coupling * CM1_PER_EV };
   },
-};
+} satisfies MethodDefinition<GmhInputs>;
+
+/** What `coupling.gmh` answers (the compiler reads it through `MethodOutputs`). */
+export type GmhOutputs = ReturnType<(typeof gmhMethod)['compute']>;

@@ -49,7 +49,7 @@ export interface HushInputs {
   readonly temperatureK: number;
 }
 
-export const hushMethod: MethodDefinition<HushInputs> = {
+export const hushMethod = {
   id: 'coupling.hush',
   summary: 'Hush coupling from a charge-transfer band (published constant 2.06e-2).',
   references: [
@@ -126,4 +126,7 @@ export const hushMethod: MethodDefinition<HushInputs> = {
     );
     return { coupling: couplingCm1 / CM1_PER_EV, couplingCm1 };
   },
-};
+} satisfies MethodDefinition<HushInputs>;
+
+/** What `coupling.hush` answers (the compiler reads it through `MethodOutputs`). */
+export type HushOutputs = ReturnType<(typeof hushMethod)['compute']>;

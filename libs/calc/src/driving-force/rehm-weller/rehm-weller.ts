@@ -112,7 +112,7 @@ function readOptionalText(reader: InputReader, name: string): string | undefined
   return raw.trim();
 }
 
-export const rehmWellerMethod: MethodDefinition<RehmWellerInputs> = {
+export const rehmWellerMethod = {
   id: 'drivingForce.rehmWeller',
   summary:
     'Rehm–Weller ΔG° of photoinduced charge separation and of recombination, with Weller’s solvent correction.',
@@ -338,4 +338,7 @@ export const rehmWellerMethod: MethodDefinition<RehmWellerInputs> = {
       solventCorrection,
     };
   },
-};
+} satisfies MethodDefinition<RehmWellerInputs>;
+
+/** What `drivingForce.rehmWeller` answers (the compiler reads it through `MethodOutputs`). */
+export type RehmWellerOutputs = ReturnType<(typeof rehmWellerMethod)['compute']>;

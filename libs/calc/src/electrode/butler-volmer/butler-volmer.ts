@@ -1,7 +1,7 @@
 /** Butler–Volmer electrode kinetics. */
 import { BOLTZMANN_EV_PER_K } from '../../core/constants';
 import { CalcRefusal } from '../../core/method';
-import type { CalcOutputs, MethodDefinition } from '../../core/method';
+import type { MethodDefinition, WarningSink } from '../../core/method';
 
 /** Largest log10 rate reported (doubles overflow near 1e308). */
 const MAX_LOG10_RATE = 300;
@@ -45,7 +45,7 @@ export function butlerVolmerRates(inputs: ButlerVolmerInputs): ButlerVolmerRates
   };
 }
 
-export const butlerVolmerMethod: MethodDefinition<ButlerVolmerInputs> = {
+export const butlerVolmerMethod = {
   id: 'electrode.butlerVolmer',
   summary: 'Butler–Volmer reduction and oxidation rates from k⁰, α and the overpotential.',
   references: [
@@ -91,7 +91,7 @@ export const butlerVolmerMethod: MethodDefinition<ButlerVolmerInputs> = {
     });
     return { k0, alpha, overpotentialV, temperatureK };
   },
-  compute(inputs): CalcOutputs {
+  compute(inputs, _warnings: WarningSink) {
     const rates = butlerVolmerRates(inputs);
     if (Math.max(rates.log10kRed, rates.log10kOx) > MAX_LOG10_RATE) {
       // Joint refusal: the exponential would overflow a double (never report Infinity).
@@ -104,4 +104,7 @@ export const butlerVolmerMethod: MethodDefinition<ButlerVolmerInputs> = {
     }
     return { ...rates };
   },
-};
+} satisfies MethodDefinition<ButlerVolmerInputs>;
+
+/** What `electrode.butlerVolmer` answers (the compiler reads it through `MethodOutputs`). */
+export type ButlerVolmerOutputs = ReturnType<(typeof butlerVolmerMethod)['compute']>;

@@ -5,7 +5,7 @@
 import erfc from '@stdlib/math-base-special-erfc';
 
 import { BOLTZMANN_EV_PER_K } from '../../core/constants';
-import type { CalcOutputs, MethodDefinition, WarningSink } from '../../core/method';
+import type { MethodDefinition, WarningSink } from '../../core/method';
 import { integrateAdaptive } from './adaptive-gauss-kronrod';
 
 const LN10 = Math.LN10;
@@ -159,7 +159,7 @@ export function warnMhc(inputs: MhcInputs, lambdaOverKt: number, warnings: Warni
   }
 }
 
-export const mhcMethod: MethodDefinition<MhcInputs> = {
+export const mhcMethod = {
   id: 'electrode.mhc',
   summary:
     'Marcus–Hush–Chidsey electrode rates: adaptive quadrature (reference) and the Zeng 2014 ' +
@@ -224,9 +224,12 @@ export const mhcMethod: MethodDefinition<MhcInputs> = {
       reader.optionalNumber('prefactor', { greaterThan: 0, message: 'Must be > 0.' }) ?? 1;
     return { lambdaEv, overpotentialV, temperatureK, prefactor };
   },
-  compute(inputs, warnings): CalcOutputs {
+  compute(inputs, warnings) {
     const rates = mhcRates(inputs);
     warnMhc(inputs, rates.lambdaOverKt, warnings);
     return { ...rates };
   },
-};
+} satisfies MethodDefinition<MhcInputs>;
+
+/** What `electrode.mhc` answers (the compiler reads it through `MethodOutputs`). */
+export type MhcOutputs = ReturnType<(typeof mhcMethod)['compute']>;

@@ -62,7 +62,7 @@ export interface MultiStateInputs {
   readonly hamiltonianEv: number[][];
 }
 
-export const multiStateMethod: MethodDefinition<MultiStateInputs> = {
+export const multiStateMethod = {
   id: 'evb.multiState',
   summary: 'Adiabatic energies and states of a symmetric multi-state diabatic Hamiltonian.',
   references: [
@@ -116,4 +116,7 @@ export const multiStateMethod: MethodDefinition<MultiStateInputs> = {
   compute(inputs) {
     return { ...symmetricEigensystem(inputs.hamiltonianEv) };
   },
-};
+} satisfies MethodDefinition<MultiStateInputs>;
+
+/** What `evb.multiState` answers (the compiler reads it through `MethodOutputs`). */
+export type MultiStateOutputs = ReturnType<(typeof multiStateMethod)['compute']>;

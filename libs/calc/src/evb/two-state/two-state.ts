@@ -55,7 +55,7 @@ export interface TwoStateInputs {
   readonly couplingEv: number;
 }
 
-export const twoStateMethod: MethodDefinition<TwoStateInputs> = {
+export const twoStateMethod = {
   id: 'evb.twoState',
   summary: 'Adiabatic energies and mixing of two diabatic states coupled by H.',
   references: [
@@ -100,4 +100,7 @@ export const twoStateMethod: MethodDefinition<TwoStateInputs> = {
     }
     return { ...mixing };
   },
-};
+} satisfies MethodDefinition<TwoStateInputs>;
+
+/** What `evb.twoState` answers (the compiler reads it through `MethodOutputs`). */
+export type TwoStateOutputs = ReturnType<(typeof twoStateMethod)['compute']>;

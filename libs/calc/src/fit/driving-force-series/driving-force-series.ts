@@ -5,7 +5,7 @@ import { levenbergMarquardt } from 'ml-levenberg-marquardt';
 
 import { BOLTZMANN_EV_PER_K, HBAR_EV_S } from '../../core/constants';
 import { CalcRefusal } from '../../core/method';
-import type { CalcOutputs, MethodDefinition, WarningSink } from '../../core/method';
+import type { MethodDefinition, WarningSink } from '../../core/method';
 import { marcusRateLog } from '../../rates/marcus/marcus';
 import { mljRateLog, mljTermsEstimate, mljTermsMessage } from '../../rates/mlj/mlj';
 
@@ -335,7 +335,7 @@ export function warnFit(
 
 const A15_MESSAGE = 'Need ≥ 3 distinct points with k > 0 to fit λ and H with uncertainties.';
 
-export const drivingForceSeriesMethod: MethodDefinition<DrivingForceInputs> = {
+export const drivingForceSeriesMethod = {
   id: 'fit.drivingForceSeries',
   summary:
     'Levenberg–Marquardt fit of λ and |H_AB| to log10 k versus ΔG° (Marcus or MLJ), with ' +
@@ -420,7 +420,7 @@ export const drivingForceSeriesMethod: MethodDefinition<DrivingForceInputs> = {
     }
     return { points, temperatureK, model, hbarOmegaEv, lambdaVibEv };
   },
-  compute(inputs, warnings): CalcOutputs {
+  compute(inputs, warnings) {
     const fit = fitDrivingForceSeries(inputs);
     warnFit(fit, inputs.points, warnings);
     return {
@@ -435,4 +435,7 @@ export const drivingForceSeriesMethod: MethodDefinition<DrivingForceInputs> = {
       degreesOfFreedom: fit.degreesOfFreedom,
     };
   },
-};
+} satisfies MethodDefinition<DrivingForceInputs>;
+
+/** What `fit.drivingForceSeries` answers (the compiler reads it through `MethodOutputs`). */
+export type DrivingForceSeriesOutputs = ReturnType<(typeof drivingForceSeriesMethod)['compute']>;

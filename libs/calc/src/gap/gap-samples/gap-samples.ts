@@ -527,7 +527,7 @@ function warnGap(
   }
 }
 
-export const gapSamplesMethod: MethodDefinition<GapSampleInputs> = {
+export const gapSamplesMethod = {
   id: 'reorg.gapSamples',
   summary:
     'λ and ΔG° from energy-gap samples of both states: means, variances, free-energy curves, ' +
@@ -622,4 +622,7 @@ export const gapSamplesMethod: MethodDefinition<GapSampleInputs> = {
     return { reactant, product, temperatureK, bins };
   },
   compute: (inputs, warnings) => analyseGapSamples(inputs, warnings),
-};
+} satisfies MethodDefinition<GapSampleInputs>;
+
+/** What `reorg.gapSamples` answers (the compiler reads it through `MethodOutputs`). */
+export type GapSamplesOutputs = ReturnType<(typeof gapSamplesMethod)['compute']>;

@@ -5,7 +5,7 @@ import {
   COULOMB_EV_ANGSTROM,
   GAS_CONSTANT_J_PER_MOL_K,
 } from '../../core/constants';
-import type { CalcOutputs, MethodDefinition, WarningSink } from '../../core/method';
+import type { MethodDefinition, WarningSink } from '../../core/method';
 
 /** 1 m³ = 1000 L, so m³ mol⁻¹ s⁻¹ × 1000 = M⁻¹ s⁻¹. */
 const LITRES_PER_CUBIC_METRE = 1000;
@@ -125,7 +125,7 @@ export function warnQuench(inputs: QuenchInputs, result: QuenchResult, sink: War
   }
 }
 
-export const diffusionMethod: MethodDefinition<QuenchInputs> = {
+export const diffusionMethod = {
   id: 'quench.diffusion',
   summary:
     'Diffusion-limited rate constant 8RT/(3η) (with the Debye factor for ions) and the ' +
@@ -221,9 +221,12 @@ export const diffusionMethod: MethodDefinition<QuenchInputs> = {
       kqObserved,
     };
   },
-  compute(inputs, warnings): CalcOutputs {
+  compute(inputs, warnings) {
     const result = diffusionQuenching(inputs);
     warnQuench(inputs, result, warnings);
     return { ...result };
   },
-};
+} satisfies MethodDefinition<QuenchInputs>;
+
+/** What `quench.diffusion` answers (the compiler reads it through `MethodOutputs`). */
+export type DiffusionOutputs = ReturnType<(typeof diffusionMethod)['compute']>;

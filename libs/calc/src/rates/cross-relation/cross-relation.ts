@@ -58,7 +58,7 @@ export interface CrossRelationInputs {
   readonly collisionFrequency: number;
 }
 
-export const crossRelationMethod: MethodDefinition<CrossRelationInputs> = {
+export const crossRelationMethod = {
   id: 'rate.crossRelation',
   summary: 'Marcus cross relation k12 = (k11 k22 K12 f12)^½ for a one-electron cross reaction.',
   references: [
@@ -168,4 +168,7 @@ export const crossRelationMethod: MethodDefinition<CrossRelationInputs> = {
       log10k12: rate.log10k,
     };
   },
-};
+} satisfies MethodDefinition<CrossRelationInputs>;
+
+/** What `rate.crossRelation` answers (the compiler reads it through `MethodOutputs`). */
+export type CrossRelationOutputs = ReturnType<(typeof crossRelationMethod)['compute']>;

@@ -63,7 +63,7 @@ export interface CrossoverInputs extends MarcusInputs {
   readonly tauLS: number;
 }
 
-export const crossoverMethod: MethodDefinition<CrossoverInputs> = {
+export const crossoverMethod = {
   id: 'rate.crossover',
   summary: 'Nonadiabatic-to-solvent-controlled crossover rate k = k_NA/(1 + κ_A).',
   references: [
@@ -149,4 +149,7 @@ export const crossoverMethod: MethodDefinition<CrossoverInputs> = {
       regime: marcusRegime(deltaG0Ev, lambdaEv),
     };
   },
-};
+} satisfies MethodDefinition<CrossoverInputs>;
+
+/** What `rate.crossover` answers (the compiler reads it through `MethodOutputs`). */
+export type CrossoverOutputs = ReturnType<(typeof crossoverMethod)['compute']>;

@@ -122,7 +122,7 @@ export interface MarcusOutputs {
   [key: string]: unknown;
 }
 
-export const marcusMethod: MethodDefinition<MarcusInputs> = {
+export const marcusMethod = {
   id: 'rate.marcus',
   summary: 'Classical nonadiabatic Marcus rate constant.',
   references: [
@@ -184,4 +184,4 @@ export const marcusMethod: MethodDefinition<MarcusInputs> = {
       regime: marcusRegime(deltaG0Ev, lambdaEv),
     };
   },
-};
+} satisfies MethodDefinition<MarcusInputs>;

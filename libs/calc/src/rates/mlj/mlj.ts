@@ -167,7 +167,7 @@ export interface MljInputs {
   readonly units: Readonly<Record<'deltaG0' | 'lambdaSolvent' | 'lambdaVib' | 'coupling', string>>;
 }
 
-export const mljMethod: MethodDefinition<MljInputs> = {
+export const mljMethod = {
   id: 'rate.mlj',
   summary: 'Marcus–Levich–Jortner rate: one quantum mode (ground level) plus a classical solvent.',
   references: [
@@ -309,4 +309,7 @@ export const mljMethod: MethodDefinition<MljInputs> = {
       regime: marcusRegime(deltaG0Ev, lambdaSolventEv + lambdaVibEv),
     };
   },
-};
+} satisfies MethodDefinition<MljInputs>;
+
+/** What `rate.mlj` answers (the compiler reads it through `MethodOutputs`). */
+export type MljOutputs = ReturnType<(typeof mljMethod)['compute']>;

@@ -62,7 +62,7 @@ export interface RulerInputs {
   readonly units: { readonly deltaG0: string; readonly lambda: string };
 }
 
-export const rulerMethod: MethodDefinition<RulerInputs> = {
+export const rulerMethod = {
   id: 'rate.ruler',
   summary: 'Empirical Moser–Dutton ruler for ET in proteins (edge-to-edge distance).',
   references: [
@@ -139,4 +139,7 @@ export const rulerMethod: MethodDefinition<RulerInputs> = {
     const rate = reportRate(log10k / Math.LOG10E, false, sink, 'lambda');
     return { log10k, k: rate.k, regime: marcusRegime(deltaG0Ev, lambdaEv) };
   },
-};
+} satisfies MethodDefinition<RulerInputs>;
+
+/** What `rate.ruler` answers (the compiler reads it through `MethodOutputs`). */
+export type RulerOutputs = ReturnType<(typeof rulerMethod)['compute']>;

@@ -40,7 +40,7 @@ function typedValue(reader: InputReader, name: string): number {
   return typeof raw === 'number' ? raw : ((raw as { value: number }).value as number);
 }
 
-export const fourPointMethod: MethodDefinition<FourPointInputs> = {
+export const fourPointMethod = {
   id: 'reorg.fourPoint',
   summary: 'Inner-sphere λ from four energies (Nelsen four-point method).',
   references: [
@@ -124,4 +124,7 @@ export const fourPointMethod: MethodDefinition<FourPointInputs> = {
       lambdaFinal,
     };
   },
-};
+} satisfies MethodDefinition<FourPointInputs>;
+
+/** What `reorg.fourPoint` answers (the compiler reads it through `MethodOutputs`). */
+export type FourPointOutputs = ReturnType<(typeof fourPointMethod)['compute']>;

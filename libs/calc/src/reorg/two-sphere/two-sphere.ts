@@ -43,7 +43,7 @@ export interface TwoSphereInputs {
   readonly charge: number;
 }
 
-export const twoSphereMethod: MethodDefinition<TwoSphereInputs> = {
+export const twoSphereMethod = {
   id: 'reorg.twoSphere',
   summary: 'Outer-sphere λ from the Marcus two-sphere dielectric continuum model.',
   references: [
@@ -149,4 +149,7 @@ export const twoSphereMethod: MethodDefinition<TwoSphereInputs> = {
       ),
     };
   },
-};
+} satisfies MethodDefinition<TwoSphereInputs>;
+
+/** What `reorg.twoSphere` answers (the compiler reads it through `MethodOutputs`). */
+export type TwoSphereOutputs = ReturnType<(typeof twoSphereMethod)['compute']>;

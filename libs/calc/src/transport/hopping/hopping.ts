@@ -1,6 +1,6 @@
 /** Hopping transport between equivalent sites: Marcus pair rates, diffusion and mobility. */
 import { BOLTZMANN_EV_PER_K, HBAR_EV_S } from '../../core/constants';
-import type { CalcOutputs, MethodDefinition, WarningSink } from '../../core/method';
+import type { MethodDefinition, WarningSink } from '../../core/method';
 
 const CM_PER_ANGSTROM = 1e-8;
 const NEIGHBOUR_MESSAGE = 'Need ≥ 1 neighbour with r > 0 and n = 1, 2 or 3.';
@@ -154,7 +154,7 @@ export function warnHopping(inputs: HoppingInputs, warnings: WarningSink): void 
   }
 }
 
-export const hoppingMethod: MethodDefinition<HoppingInputs> = {
+export const hoppingMethod = {
   id: 'transport.hopping',
   summary:
     'Marcus hopping rates to each neighbour, random-walk diffusion coefficient and Einstein ' +
@@ -229,8 +229,11 @@ export const hoppingMethod: MethodDefinition<HoppingInputs> = {
     );
     return { neighbours, lambdaEv, temperatureK, dimensions, form };
   },
-  compute(inputs, warnings): CalcOutputs {
+  compute(inputs, warnings) {
     warnHopping(inputs, warnings);
     return { ...hoppingTransport(inputs) };
   },
-};
+} satisfies MethodDefinition<HoppingInputs>;
+
+/** What `transport.hopping` answers (the compiler reads it through `MethodOutputs`). */
+export type HoppingOutputs = ReturnType<(typeof hoppingMethod)['compute']>;

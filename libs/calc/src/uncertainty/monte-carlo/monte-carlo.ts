@@ -280,7 +280,17 @@ function readMonteCarlo(reader: InputReader): MonteCarloInputs {
  * expression of uncertainty in measurement" — Propagation of distributions using a Monte Carlo
  * method, BIPM, 2008; Box & Muller 1958 (above).
  */
-export function runMonteCarlo(inputs: MonteCarloInputs, warnings: WarningSink): CalcOutputs {
+/**
+ * What `uncertainty.monteCarlo` answers: one summary per numeric output of the inner method (by
+ * its name, `parent.child` for numbers inside an object output), the histograms and the counts.
+ */
+export type MonteCarloOutputs = {
+  readonly histograms: Partial<Record<string, Histogram>>;
+  readonly samplesUsed: number;
+  readonly samplesRefused: number;
+} & { readonly [output: string]: OutputSummary | unknown };
+
+export function runMonteCarlo(inputs: MonteCarloInputs, warnings: WarningSink): MonteCarloOutputs {
   const nominal = runMethod(inputs.method, inputs.nominalInputs);
   if (!nominal.ok) {
     throw new CalcRefusal(

@@ -22,7 +22,7 @@ function readUnitName(reader: InputReader, name: string): string {
   return '';
 }
 
-export const convertMethod: MethodDefinition<ConvertInputs> = {
+export const convertMethod = {
   id: 'units.convert',
   summary: 'Converts a value between units of one kind (energy ↔ cm⁻¹ ↔ hartree are all energies).',
   references: [
@@ -69,4 +69,7 @@ export const convertMethod: MethodDefinition<ConvertInputs> = {
     const result = tryConvertUnits(inputs.value, inputs.from, inputs.to);
     return { value: result.ok ? result.value : Number.NaN };
   },
-};
+} satisfies MethodDefinition<ConvertInputs>;
+
+/** What `units.convert` answers (the compiler reads it through `MethodOutputs`). */
+export type ConvertOutputs = ReturnType<(typeof convertMethod)['compute']>;

@@ -8,10 +8,8 @@ import { createReadStream } from 'node:fs';
 import { mkdtemp, readFile, rm, stat, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { Writable } from 'node:stream';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { analyseGapSamples } from '@gapwise/calc';
-import { runTracesAnalyze } from '../../../cli/src/traces-command';
 import { analyzeTraces, TraceAnalysisRefusal, type TraceAnalysisInput } from './trace-analysis';
 import {
   marcusGapMoments,
@@ -238,84 +236,5 @@ describe('streaming trace analysis', () => {
       code: 'trace-bad-lines-skipped',
       message: '2 bad lines were skipped in the reactant file (with-bad-lines.csv).',
     });
-  });
-});
-
-describe('gapwise traces analyze', () => {
-  const capture = () => {
-    let text = '';
-    const stream = new Writable({
-      write(chunk, _enc, cb) {
-        text += String(chunk);
-        cb();
-      },
-    });
-    return { stream, text: () => text };
-  };
-
-  it('prints the JSON the analysis produces (same code), for kcal/mol files with --column', async () => {
-    const f = await writePair('cli', gaussR, gaussP, 1 / KCAL_PER_EV);
-    const out = capture();
-    const code = await runTracesAnalyze(
-      [
-        '--reactant',
-        f.rp,
-        '--product',
-        f.pp,
-        '--unit',
-        'kcal/mol',
-        '--column',
-        '2',
-        '--temperature',
-        '300',
-      ],
-      out.stream,
-      capture().stream,
-    );
-    expect(code).toBe(0);
-    const printed = JSON.parse(out.text());
-    const direct = await analyzeTraces(
-      input(f.rp, { unit: 'kcal/mol', column: 2 }, f.rs),
-      input(f.pp, { unit: 'kcal/mol', column: 2 }, f.ps),
-      300,
-    );
-    expect(printed.outputs).toEqual(JSON.parse(JSON.stringify(direct.outputs)));
-    expect(printed.sources.reactant.sha256).toMatch(/^[0-9a-f]{64}$/);
-    expect(printed.outputs.lambdaFromMeans).toBeCloseTo(LAMBDA, 1);
-  });
-
-  it('exits 2 with the line numbers for a bad file and 1 for a bad command line', async () => {
-    const bad = join(dir, 'bad.csv');
-    await writeFile(bad, 'dE\n0.1\nabc\n');
-    const f = await writePair('cli-bad', gaussR, gaussP);
-    const out = capture();
-    expect(
-      await runTracesAnalyze(
-        ['--reactant', bad, '--product', f.pp, '--unit', 'eV'],
-        out.stream,
-        capture().stream,
-      ),
-    ).toBe(2);
-    expect(JSON.parse(out.text())).toEqual({
-      ok: false,
-      errors: [
-        { field: 'reactantSamples', message: "Line 3: 'abc' is not a number." },
-        { field: 'reactantSamples', message: '1 bad line in total.' },
-      ],
-    });
-    expect(
-      await runTracesAnalyze(
-        ['--reactant', bad, '--unit', 'eV'],
-        capture().stream,
-        capture().stream,
-      ),
-    ).toBe(1);
-    expect(
-      await runTracesAnalyze(
-        ['--reactant', bad, '--product', bad, '--unit', 'kcal'],
-        capture().stream,
-        capture().stream,
-      ),
-    ).toBe(1);
   });
 });

@@ -1,13 +1,12 @@
 import bcrypt from 'bcryptjs';
 import type { DataSource, EntityManager } from 'typeorm';
-import {
-  computePairResults,
-  type Pair,
-  type PairInput,
-  type PairParameter,
-  type Provenance,
-  type Role,
-} from '@gapwise/contracts';
+import { MembershipEntity, PairEntity, WorkspaceEntity } from '@gapwise/db';
+import { type PairInput, type PairParameter, type Provenance, type Role } from '@gapwise/contracts';
+
+import { findUserByEmail, insertUser } from '../auth/user-repository';
+import { createPairIn } from '../pairs/pair-use-case';
+import { createWorkspaceIn } from '../workspaces/workspace-use-case';
+import { upsertMembership } from '../workspaces/workspace-repository';
 
 /**
  * The demo scenario (invented): a small photoredox lab studying dye–acceptor dyads, and a flow
@@ -414,136 +413,46 @@ async function ensureUser(
   tx: EntityManager,
   email: string,
   displayName: string,
-  hash: string,
+  passwordHash: string,
 ): Promise<{ id: string; created: boolean }> {
-  const found = await tx.query('SELECT id FROM users WHERE email = $1', [email]);
-  if (found[0]) return { id: found[0].id, created: false };
-  const rows = await tx.query(
-    'INSERT INTO users (email, display_name, password_hash) VALUES ($1,$2,$3) RETURNING id',
-    [email, displayName, hash],
-  );
-  return { id: rows[0].id, created: true };
+  const found = await findUserByEmail(tx, email);
+  if (found) return { id: found.id, created: false };
+  const user = await insertUser(tx, { email, displayName, passwordHash });
+  return { id: user!.id, created: true };
 }
 
+/** The owner's workspace of that name, else a new one through the workspace use-case. */
 async function ensureWorkspace(
   tx: EntityManager,
   name: string,
   ownerId: string,
 ): Promise<{ id: string; created: boolean }> {
-  const found = await tx.query(
-    `SELECT w.id FROM workspaces w JOIN memberships m ON m.workspace_id = w.id AND m.user_id = $2 AND m.role = 'owner'
-      WHERE w.name = $1 ORDER BY w.created_at LIMIT 1`,
-    [name, ownerId],
-  );
-  if (found[0]) return { id: found[0].id, created: false };
-  const rows = await tx.query('INSERT INTO workspaces (name) VALUES ($1) RETURNING id', [name]);
-  await tx.query(`INSERT INTO memberships (workspace_id, user_id, role) VALUES ($1,$2,'owner')`, [
-    rows[0].id,
-    ownerId,
-  ]);
-  await tx.query(
-    `INSERT INTO audit_events (workspace_id, actor_id, action, entity_type, entity_id, summary) VALUES ($1,$2,'workspace.created','workspace',$3,$4)`,
-    [rows[0].id, ownerId, rows[0].id, `created workspace "${name}" (demo seed)`],
-  );
-  return { id: rows[0].id, created: true };
+  const found = await tx
+    .getRepository(WorkspaceEntity)
+    .createQueryBuilder('w')
+    .innerJoin(
+      MembershipEntity,
+      'm',
+      "m.workspaceId = w.id AND m.userId = :ownerId AND m.role = 'owner'",
+      { ownerId },
+    )
+    .where('w.name = :name', { name })
+    .orderBy('w.createdAt')
+    .getOne();
+  if (found) return { id: found.id, created: false };
+  return { id: (await createWorkspaceIn(tx, ownerId, name)).id, created: true };
 }
 
+/** Adds the pair through the pair use-case (row, version 1, audit) unless its name is taken. */
 async function ensurePair(
   tx: EntityManager,
   workspaceId: string,
   input: Required<PairInput>,
   userId: string,
 ): Promise<boolean> {
-  const found = await tx.query('SELECT 1 FROM pairs WHERE workspace_id = $1 AND name = $2', [
-    workspaceId,
-    input.name,
-  ]);
-  if (found[0]) return false;
-  const results = computePairResults({
-    temperature: input.temperature,
-    model: input.model,
-    parameters: input.parameters,
-  });
-  const value = (k: string) => input.parameters.find((x) => x.kind === k)?.value;
-  const inner = value('lambdaInner');
-  const outer = value('lambdaOuter');
-  const coupling = value('coupling');
-  const rows = await tx.query(
-    `INSERT INTO pairs (workspace_id, name, donor, acceptor, medium, temperature_k, temperature_unit, notes, status, tags,
-       model, version, results, delta_g0, lambda_total, coupling_abs, log10k, regime, created_by, updated_by)
-     VALUES ($1,$2,$3,$4,$5,$6,$7,$8,$9,$10,$11,1,$12,$13,$14,$15,$16,$17,$18,$18) RETURNING id, created_at, updated_at`,
-    [
-      workspaceId,
-      input.name,
-      input.donor,
-      input.acceptor,
-      input.medium,
-      input.temperature,
-      input.temperatureUnit,
-      input.notes,
-      input.status,
-      input.tags,
-      input.model,
-      JSON.stringify(results),
-      value('deltaG0') ?? null,
-      inner === undefined && outer === undefined ? null : (inner ?? 0) + (outer ?? 0),
-      coupling === undefined ? null : Math.abs(coupling),
-      results.log10k,
-      results.regime,
-      userId,
-    ],
-  );
-  const { id, created_at: createdAt, updated_at: updatedAt } = rows[0];
-  for (const [i, x] of input.parameters.entries()) {
-    await tx.query(
-      `INSERT INTO pair_parameters (pair_id, position, kind, value, unit, uncertainty, provenance_kind, citation, method_id,
-         method_inputs, sources, note) VALUES ($1,$2,$3,$4,$5,$6,$7,$8,$9,$10,$11,$12)`,
-      [
-        id,
-        i,
-        x.kind,
-        x.value,
-        x.unit,
-        x.uncertainty,
-        x.provenance.kind,
-        x.provenance.citation ?? null,
-        x.provenance.methodId ?? null,
-        x.provenance.methodInputs ? JSON.stringify(x.provenance.methodInputs) : null,
-        x.provenance.sources ? JSON.stringify(x.provenance.sources) : null,
-        x.provenance.note ?? null,
-      ],
-    );
-  }
-  const [user] = await tx.query('SELECT display_name FROM users WHERE id = $1', [userId]);
-  const snapshot: Pair = {
-    ...input,
-    parameters: input.parameters.map((x) => ({
-      ...x,
-      provenance: {
-        kind: x.provenance.kind,
-        citation: x.provenance.citation ?? null,
-        methodId: x.provenance.methodId ?? null,
-        methodInputs: x.provenance.methodInputs ?? null,
-        sources: x.provenance.sources ?? null,
-        note: x.provenance.note ?? null,
-      },
-    })),
-    id,
-    workspaceId,
-    version: 1,
-    results,
-    createdAt: new Date(createdAt).toISOString(),
-    updatedAt: new Date(updatedAt).toISOString(),
-    updatedBy: { id: userId, displayName: user.display_name },
-  };
-  await tx.query(
-    `INSERT INTO pair_versions (pair_id, version, snapshot, summary, created_by) VALUES ($1, 1, $2, 'created (demo seed)', $3)`,
-    [id, JSON.stringify(snapshot), userId],
-  );
-  await tx.query(
-    `INSERT INTO audit_events (workspace_id, actor_id, action, entity_type, entity_id, summary) VALUES ($1,$2,'pair.created','pair',$3,$4)`,
-    [workspaceId, userId, id, `${input.name} v1: created (demo seed)`],
-  );
+  if (await tx.getRepository(PairEntity).exists({ where: { workspaceId, name: input.name } }))
+    return false;
+  await createPairIn(tx, userId, workspaceId, input);
   return true;
 }
 
@@ -573,10 +482,7 @@ export async function seedDemo(
     if (lab.created) {
       workspaces++;
       for (const account of DEMO_ACCOUNTS.filter((a) => a.role !== 'owner')) {
-        await tx.query(
-          `INSERT INTO memberships (workspace_id, user_id, role) VALUES ($1,$2,$3) ON CONFLICT DO NOTHING`,
-          [lab.id, ids[account.role], account.role],
-        );
+        await upsertMembership(tx, lab.id, ids[account.role]!, account.role);
       }
     }
     const mediators = await ensureWorkspace(tx, DEMO_MEDIATORS, ownerId);

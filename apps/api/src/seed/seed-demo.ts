@@ -1,15 +1,16 @@
 /**
- * Seeds the demo workspaces and accounts (idempotent): `npx tsx db/seed/seed-demo.ts`.
+ * Seeds the demo workspaces and accounts (idempotent): `npx tsx apps/api/src/seed/seed-demo.ts`.
+ * It lives in the API because every write goes through the API's use-cases (db imports no app).
  * The four demo accounts share the password `gapwise-demo`: change or drop them for real use.
  * Applies pending migrations first. DATABASE_URL defaults to the development cluster.
  */
-import { createDataSource, DEFAULT_DATABASE_URL } from '../data-source';
+import { createDataSource, DEFAULT_DATABASE_URL } from '@gapwise/db';
 import { DEMO_ACCOUNTS, DEMO_LAB, DEMO_MEDIATORS, DEMO_PASSWORD, seedDemo } from './demo-data';
-import { seedDemoReport } from '../../apps/api/src/reports/demo-report-seed';
-import { seedDemoScreensAndSeries } from '../../apps/api/src/screens/demo-screen-seed';
-import { seedDemoTraces } from '../../apps/api/src/traces/demo-trace-seed';
-import { TraceObjectStore } from '../../apps/api/src/traces/trace-object-store';
-import { traceStoreConfigFromEnv } from '../../apps/api/src/traces/trace-services';
+import { seedDemoReport } from '../reports/demo-report-seed';
+import { seedDemoScreensAndSeries } from '../screens/demo-screen-seed';
+import { seedDemoTraces } from '../traces/demo-trace-seed';
+import { TraceObjectStore } from '../traces/trace-object-store';
+import { traceStoreConfigFromEnv } from '../traces/trace-services';
 
 const dataSource = createDataSource({
   url: process.env['DATABASE_URL'] || DEFAULT_DATABASE_URL,
