@@ -4,6 +4,7 @@ import { Traces1796200000000 } from './1796200000000-traces';
 import { Reports1796300000000 } from './1796300000000-reports';
 import { PendingRegistrations1796400000000 } from './1796400000000-pending-registrations';
 import { ScreenResultsWithoutRowTrigger1796500000000 } from './1796500000000-screen-results-without-row-trigger';
+import { Sessions1796600000000 } from './1796600000000-sessions';
 
 /** Every migration, in order (listed explicitly; see STACK.md). */
 export const migrations = [
@@ -13,4 +14,5 @@ export const migrations = [
   Reports1796300000000,
   PendingRegistrations1796400000000,
   ScreenResultsWithoutRowTrigger1796500000000,
+  Sessions1796600000000,
 ];

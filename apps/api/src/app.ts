@@ -87,7 +87,10 @@ export function createApp(deps: AppDeps): Express {
   const app = express();
   app.locals['config'] = deps.config;
   app.disable('x-powered-by');
-  app.set('trust proxy', false);
+  app.set(
+    'trust proxy',
+    Array.isArray(deps.config.trustProxy) ? [...deps.config.trustProxy] : deps.config.trustProxy,
+  );
   app.use(helmet({ contentSecurityPolicy: { useDefaults: false, directives: CSP_DIRECTIVES } }));
   if (deps.config.logRequests) {
     // Method, path and status only: never bodies, cookies or headers (passwords, tokens).
