@@ -17,7 +17,7 @@ const token = (over: Partial<ApiToken> = {}): ApiToken => ({
 });
 
 function setup() {
-  TestBed.configureTestingModule({});
+  TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting()] });
   const fixture = TestBed.createComponent(ApiTokens);
   fixture.detectChanges();
   const http = TestBed.inject(HttpTestingController);
