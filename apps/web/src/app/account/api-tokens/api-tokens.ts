@@ -1,6 +1,12 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, OnInit, inject, signal } from '@angular/core';
-import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
+import {
+  FormControl,
+  FormGroup,
+  FormGroupDirective,
+  ReactiveFormsModule,
+  Validators,
+} from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -63,7 +69,7 @@ export class ApiTokens implements OnInit {
     return !t.revokedAt && (!t.expiresAt || new Date(t.expiresAt).getTime() > Date.now());
   }
 
-  protected create(): void {
+  protected create(directive: FormGroupDirective): void {
     if (this.form.invalid || !this.form.controls.name.value.trim()) {
       this.form.controls.name.setErrors({ required: true });
       this.form.markAllAsTouched();
@@ -79,7 +85,8 @@ export class ApiTokens implements OnInit {
         this.busy.set(false);
         this.copied.set(false);
         this.created.set(token);
-        this.form.controls.name.reset('');
+        // Reset through the directive too, so the emptied name shows no "required" error.
+        directive.resetForm({ ...this.form.getRawValue(), name: '' });
         this.load();
       },
       error: (err: unknown) => {

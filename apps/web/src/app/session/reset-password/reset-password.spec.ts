@@ -47,17 +47,15 @@ describe('ResetPassword', () => {
     const { fixture, el, type, http } = setup(ResetPassword, 'tok_ABCDEFGHIJKLMNOPQRSTU');
     type('input[formcontrolname="newPassword"]', 'a brand new phrase');
     el.querySelector<HTMLButtonElement>('button[type="submit"]')!.click();
-    http
-      .expectOne('/api/auth/password-reset/confirm')
-      .flush(
-        {
-          error: {
-            code: 'reset-invalid',
-            message: 'This password link is invalid, expired or already used.',
-          },
+    http.expectOne('/api/auth/password-reset/confirm').flush(
+      {
+        error: {
+          code: 'reset-invalid',
+          message: 'This password link is invalid, expired or already used.',
         },
-        { status: 400, statusText: 'Bad Request' },
-      );
+      },
+      { status: 400, statusText: 'Bad Request' },
+    );
     fixture.detectChanges();
     expect(el.querySelector('[role="alert"]')!.textContent).toContain('already used');
     expect(el.querySelector('a[href="/forgot-password"]')).not.toBeNull();
