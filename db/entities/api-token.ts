@@ -39,6 +39,14 @@ export class ApiTokenEntity {
   @Column({ type: 'timestamptz', name: 'revoked_at', nullable: true })
   revokedAt: Date | null;
 
+  /** `read`: safe methods only; `read-write`: everything its owner may do. */
+  @Column({ type: 'text', default: 'read-write' })
+  scope: 'read' | 'read-write';
+
+  /** After this instant the token is refused; null = until revoked. */
+  @Column({ type: 'timestamptz', name: 'expires_at', nullable: true })
+  expiresAt: Date | null;
+
   @ManyToOne(() => UserEntity, { onDelete: 'CASCADE' })
   @JoinColumn({ name: 'user_id' })
   user: Relation<UserEntity>;

@@ -5,6 +5,7 @@ import { Reports1796300000000 } from './1796300000000-reports';
 import { PendingRegistrations1796400000000 } from './1796400000000-pending-registrations';
 import { ScreenResultsWithoutRowTrigger1796500000000 } from './1796500000000-screen-results-without-row-trigger';
 import { WorkspaceDeletions1796600000000 } from './1796600000000-workspace-deletions';
+import { Sessions1796700000000 } from './1796700000000-sessions';
 
 /** Every migration, in order (listed explicitly; see STACK.md). */
 export const migrations = [
@@ -15,4 +16,5 @@ export const migrations = [
   PendingRegistrations1796400000000,
   ScreenResultsWithoutRowTrigger1796500000000,
   WorkspaceDeletions1796600000000,
+  Sessions1796700000000,
 ];

@@ -1,5 +1,6 @@
 /// <reference types="vite/client" />
 import { randomBytes } from 'node:crypto';
+import bcrypt from 'bcryptjs';
 import request from 'supertest';
 import type { Router } from 'express';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -8,7 +9,13 @@ import { createPair } from '../../apps/api/src/pairs/pair-use-case';
 import { normalisePairInput } from '../../apps/api/src/pairs/pair-rules';
 import { mountedRoutes } from './support/routes';
 import { pairBody } from './support/fixtures';
-import { registerUser, startTestApp, type Session, type TestApp } from './support/test-app';
+import {
+  registerUser,
+  sessionFrom,
+  startTestApp,
+  type Session,
+  type TestApp,
+} from './support/test-app';
 import { CALLERS, type CaseContext, type Caller, type MatrixRow } from './matrix/matrix-types';
 
 /** Rows of every area: `test/api/matrix/<area>.rows.ts`, each exporting `rows`. */
@@ -20,6 +27,26 @@ let t: TestApp;
 const sessions: Partial<Record<Caller, Session>> = {};
 let extraUserId: string;
 let counter = 0;
+const PASSWORD = 'correct horse battery';
+let passwordHash: Promise<string> | null = null;
+
+/** A new account inserted directly (same password as the callers), not signed in. */
+async function throwawayAccount(): Promise<{ id: string; email: string }> {
+  passwordHash ??= bcrypt.hash(PASSWORD, 4);
+  const email = `throwaway-${++counter}-${randomBytes(3).toString('hex')}@example.test`;
+  const [row] = await t.db.query(
+    `INSERT INTO users (email, display_name, password_hash) VALUES ($1, 'Throwaway', $2) RETURNING id`,
+    [email, await passwordHash],
+  );
+  return { id: row.id, email };
+}
+
+async function throwawaySession(): Promise<Session> {
+  const { email } = await throwawayAccount();
+  const res = await request(t.app).post('/api/auth/sign-in').send({ email, password: PASSWORD });
+  expect(res.status).toBe(200);
+  return sessionFrom(t.app, res);
+}
 
 beforeAll(async () => {
   t = await startTestApp();
@@ -106,6 +133,15 @@ async function makeContext(caller: Caller): Promise<CaseContext> {
       );
       return token;
     },
+    async passwordReset() {
+      const { id } = await throwawayAccount();
+      const token = randomBytes(24).toString('base64url');
+      await t.db.query(
+        `INSERT INTO password_resets (user_id, token_hash, expires_at) VALUES ($1, $2, now() + interval '1 hour')`,
+        [id, hashToken(token)],
+      );
+      return token;
+    },
     async apiToken(userId) {
       const [row] = await t.db.query(
         `INSERT INTO api_tokens (user_id, name, prefix, token_hash) VALUES ($1, 'matrix', 'gw_matrix', $2) RETURNING id`,
@@ -134,8 +170,13 @@ describe('authorization matrix', () => {
       for (const caller of CALLERS) {
         const ctx = await makeContext(caller);
         const { path, body } = await row.request(ctx);
+        const session =
+          caller === 'anonymous'
+            ? undefined
+            : row.as === 'throwaway'
+              ? await throwawaySession()
+              : sessions[caller];
         const before = row.method === 'get' ? null : await fingerprint();
-        const session = sessions[caller as Exclude<Caller, 'anonymous'>];
         const anonymous = request(t.app);
         const res = session
           ? await session.call(row.method, `/api${path}`, body)

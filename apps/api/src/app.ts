@@ -105,7 +105,10 @@ export function createApp(deps: AppDeps): Express {
   const app = express();
   app.locals['config'] = deps.config;
   app.disable('x-powered-by');
-  app.set('trust proxy', false);
+  app.set(
+    'trust proxy',
+    Array.isArray(deps.config.trustProxy) ? [...deps.config.trustProxy] : deps.config.trustProxy,
+  );
   app.use(helmet({ contentSecurityPolicy: { useDefaults: false, directives: CSP_DIRECTIVES } }));
   // Brotli or gzip (by Accept-Encoding) for JSON, CSV and the web app's files: 677 kB of
   // JavaScript goes over the wire as ~170 kB. Compressed per response rather than precompressed

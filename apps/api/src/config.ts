@@ -1,5 +1,6 @@
 import { randomBytes } from 'node:crypto';
 import { availableParallelism } from 'node:os';
+import { isIP } from 'node:net';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -39,8 +40,16 @@ export interface Config {
   readonly corsOrigins: readonly string[];
   /** bcrypt cost factor (tests use 4). */
   readonly bcryptCost: number;
-  /** Sign-in attempts allowed per client per 15 minutes. */
+  /**
+   * Failed sign-ins allowed per client address and, separately, per account per 15 minutes (also
+   * the limit on registration, confirmation and password-reset requests per address).
+   */
   readonly signInRateLimit: number;
+  /**
+   * Express 'trust proxy': false (direct), a number of proxy hops, or a list of proxy addresses /
+   * subnets, so the client address (rate limits) comes from X-Forwarded-For behind a proxy.
+   */
+  readonly trustProxy: boolean | number | readonly string[];
   readonly accessTokenSeconds: number;
   readonly refreshTokenSeconds: number;
   readonly invitationDays: number;
@@ -126,6 +135,7 @@ export function loadConfig(env: Env = process.env, overrides: Partial<Config> = 
     if (!/^https?:\/\/[^/]+$/.test(origin))
       problems.push(`CORS_ORIGINS: "${origin}" is not an origin`);
   }
+  const trustProxy = parseTrustProxy(env['TRUST_PROXY'], problems);
   let jwtSecret = env['JWT_SECRET'] ?? '';
   if (jwtSecret && jwtSecret.length < 32)
     problems.push('JWT_SECRET must be at least 32 characters');
@@ -141,6 +151,7 @@ export function loadConfig(env: Env = process.env, overrides: Partial<Config> = 
     corsOrigins,
     bcryptCost: int('BCRYPT_COST', 12, 4, 15),
     signInRateLimit: int('SIGN_IN_RATE_LIMIT', 10, 1, 1_000_000),
+    trustProxy,
     accessTokenSeconds: int('ACCESS_TOKEN_SECONDS', 15 * 60, 10, 24 * 3600),
     refreshTokenSeconds: int('REFRESH_TOKEN_SECONDS', 14 * 24 * 3600, 60, 365 * 24 * 3600),
     invitationDays: int('INVITATION_DAYS', 7, 1, 90),
@@ -165,6 +176,45 @@ export function loadConfig(env: Env = process.env, overrides: Partial<Config> = 
     return { ...config, jwtSecret };
   }
   return config;
+}
+
+const PROXY_NAMES = new Set(['loopback', 'linklocal', 'uniquelocal']);
+
+/**
+ * TRUST_PROXY: empty or `false` (no proxy), a hop count 1–10, or a comma-separated list of proxy
+ * addresses, subnets (`10.0.0.0/8`) or the names loopback, linklocal, uniquelocal. `true` is
+ * refused: trusting every hop lets any client choose its address and walk past the rate limits.
+ */
+function parseTrustProxy(
+  raw: string | undefined,
+  problems: string[],
+): boolean | number | readonly string[] {
+  const value = (raw ?? '').trim();
+  if (value === '' || value.toLowerCase() === 'false' || value === '0') return false;
+  if (/^\d+$/.test(value)) {
+    const hops = Number(value);
+    if (hops <= 10) return hops;
+  } else if (value.toLowerCase() !== 'true') {
+    const entries = value.split(',').map((s) => s.trim());
+    const bad = entries.filter((entry) => {
+      if (PROXY_NAMES.has(entry)) return false;
+      const [address, bits, extra] = entry.split('/');
+      const family = isIP(address ?? '');
+      if (!family || extra !== undefined) return true;
+      if (bits === undefined) return false;
+      const n = Number(bits);
+      return !/^\d+$/.test(bits) || n > (family === 4 ? 32 : 128);
+    });
+    if (bad.length === 0) return entries;
+    problems.push(
+      `TRUST_PROXY: ${bad.map((b) => `"${b}"`).join(', ')} is not an address, subnet or one of loopback, linklocal, uniquelocal`,
+    );
+    return false;
+  }
+  problems.push(
+    `TRUST_PROXY must be false, a number of proxy hops from 1 to 10, or a list of proxy addresses (got "${value}")`,
+  );
+  return false;
 }
 
 function readOrCreateSecret(file: string): string {

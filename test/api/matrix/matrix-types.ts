@@ -17,6 +17,8 @@ export interface CaseContext {
   apiToken(userId: string): Promise<string>;
   /** A pending registration of this address; resolves with its confirmation token. */
   pendingRegistration(email: string): Promise<string>;
+  /** A fresh account with a password-reset link waiting; resolves with the link's token. */
+  passwordReset(): Promise<string>;
   unique(prefix: string): string;
 }
 
@@ -30,6 +32,11 @@ export interface MatrixRow {
   ): Promise<{ path: string; body?: unknown }> | { path: string; body?: unknown };
   /** Exact status for each caller. */
   readonly expect: Record<Caller, number>;
+  /**
+   * `throwaway`: signed-in callers call as a fresh account of their own, signed in for this case
+   * only (for routes that end the caller's sessions or delete the account).
+   */
+  readonly as?: 'throwaway';
 }
 
 /** Status shorthands. */

@@ -61,11 +61,61 @@ export const rows: MatrixRow[] = [
     }),
     expect: everyone(200),
   },
+  // Routes that end the caller's sessions run as a throwaway account (see matrix-types.ts).
   {
     method: 'post',
     route: '/auth/sign-out',
     request: () => ({ path: '/auth/sign-out' }),
     expect: everyone(204),
+    as: 'throwaway',
+  },
+  {
+    method: 'post',
+    route: '/auth/sign-out-everywhere',
+    request: () => ({ path: '/auth/sign-out-everywhere' }),
+    expect: signedIn(200),
+    as: 'throwaway',
+  },
+  {
+    method: 'delete',
+    route: '/auth/account',
+    request: () => ({ path: '/auth/account', body: { password: 'correct horse battery' } }),
+    expect: signedIn(200),
+    as: 'throwaway',
+  },
+  {
+    method: 'patch',
+    route: '/auth/me',
+    request: (c) => ({ path: '/auth/me', body: { displayName: c.caller } }),
+    expect: signedIn(200),
+  },
+  // Same password again: ends the caller's other sessions (none) and keeps this one.
+  {
+    method: 'post',
+    route: '/auth/password',
+    request: () => ({
+      path: '/auth/password',
+      body: { currentPassword: 'correct horse battery', newPassword: 'correct horse battery' },
+    }),
+    expect: signedIn(200),
+  },
+  {
+    method: 'post',
+    route: '/auth/password-reset',
+    request: (c) => ({
+      path: '/auth/password-reset',
+      body: { email: c.users[c.caller === 'anonymous' ? 'owner' : c.caller].email },
+    }),
+    expect: everyone(202),
+  },
+  {
+    method: 'post',
+    route: '/auth/password-reset/confirm',
+    request: async (c) => ({
+      path: '/auth/password-reset/confirm',
+      body: { token: await c.passwordReset(), newPassword: 'a brand new passphrase' },
+    }),
+    expect: everyone(200),
   },
   {
     method: 'post',

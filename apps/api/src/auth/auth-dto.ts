@@ -1,5 +1,27 @@
-import { IsEmail, IsOptional, IsString, Matches, MaxLength, MinLength } from 'class-validator';
-import { PASSWORD_MIN_LENGTH } from '@gapwise/contracts';
+import {
+  IsEmail,
+  IsOptional,
+  IsString,
+  Matches,
+  MaxLength,
+  MinLength,
+  Validate,
+  ValidatorConstraint,
+  type ValidatorConstraintInterface,
+} from 'class-validator';
+import { PASSWORD_MAX_BYTES, PASSWORD_MIN_LENGTH, passwordBytes } from '@gapwise/contracts';
+import { NotBlank } from '../workspaces/workspace-dto';
+
+/** bcrypt ignores everything after 72 UTF-8 bytes, so a longer new password is refused, not cut. */
+@ValidatorConstraint({ name: 'passwordBytes' })
+export class FitsBcrypt implements ValidatorConstraintInterface {
+  validate(value: unknown): boolean {
+    return typeof value !== 'string' || passwordBytes(value) <= PASSWORD_MAX_BYTES;
+  }
+  defaultMessage(): string {
+    return `must be at most ${PASSWORD_MAX_BYTES} bytes in UTF-8 (${PASSWORD_MAX_BYTES} plain letters; accented letters and other scripts take 2–4 bytes each): the rest would be ignored`;
+  }
+}
 
 /** A same-site path such as `/invitations/<token>` (no scheme, no `//host`, no query). */
 export const RETURN_PATH = /^\/(?!\/)[A-Za-z0-9._~\-/]*$/;
@@ -14,7 +36,7 @@ export class RegisterDto {
   @MinLength(PASSWORD_MIN_LENGTH, {
     message: `must have at least ${PASSWORD_MIN_LENGTH} characters`,
   })
-  @MaxLength(200)
+  @Validate(FitsBcrypt)
   password: string;
 
   @IsString()
@@ -40,6 +62,56 @@ export class SignInDto {
   @MaxLength(254)
   email: string;
 
+  @IsString()
+  @MaxLength(200)
+  password: string;
+}
+
+const newPasswordRules = () => [
+  IsString(),
+  MinLength(PASSWORD_MIN_LENGTH, {
+    message: `must have at least ${PASSWORD_MIN_LENGTH} characters`,
+  }),
+  Validate(FitsBcrypt),
+];
+const apply =
+  (decorators: PropertyDecorator[]): PropertyDecorator =>
+  (target, key) => {
+    for (const d of decorators) d(target, key);
+  };
+
+export class ChangePasswordDto {
+  @IsString()
+  @MaxLength(200)
+  currentPassword: string;
+
+  @apply(newPasswordRules())
+  newPassword: string;
+}
+
+export class PasswordResetRequestDto {
+  @IsString()
+  @MaxLength(254)
+  email: string;
+}
+
+export class PasswordResetConfirmDto {
+  @IsString()
+  @MaxLength(200)
+  token: string;
+
+  @apply(newPasswordRules())
+  newPassword: string;
+}
+
+export class UpdateProfileDto {
+  @IsString()
+  @MaxLength(100)
+  @Validate(NotBlank)
+  displayName: string;
+}
+
+export class DeleteAccountDto {
   @IsString()
   @MaxLength(200)
   password: string;

@@ -6,7 +6,13 @@ import type { Config } from '../config';
 import type { MailQueue } from '../mail/mail-queue';
 import { insertOutbox } from '../mail/outbox-repository';
 import { csrfTokenFor, hashToken, randomToken } from './session-tokens';
-import { findUserByEmail, findUserById, insertUser, membershipsOf } from './user-repository';
+import {
+  findUserByEmail,
+  findUserById,
+  insertUser,
+  membershipsOf,
+  setPasswordHash,
+} from './user-repository';
 import {
   deleteStalePendingRegistrations,
   takePendingRegistration,
@@ -162,8 +168,19 @@ export async function confirmRegistration(db: DataSource, token: string): Promis
   return user;
 }
 
-/** A hash to compare against when the e-mail is unknown, so timing does not reveal accounts. */
-let dummyHash: string | null = null;
+/**
+ * Hashes to compare against when the e-mail is unknown, one per cost factor, so an unknown
+ * address takes as long as a known one (same cost) and timing does not reveal accounts.
+ */
+const dummyHashes = new Map<number, Promise<string>>();
+export function dummyHashFor(cost: number): Promise<string> {
+  let hash = dummyHashes.get(cost);
+  if (!hash) {
+    hash = bcrypt.hash('not-a-password-at-all', cost);
+    dummyHashes.set(cost, hash);
+  }
+  return hash;
+}
 
 export async function signIn(
   db: DataSource,
@@ -171,8 +188,18 @@ export async function signIn(
   input: SignInDto,
 ): Promise<UserSummary> {
   const user = await findUserByEmail(db.manager, input.email.trim());
-  dummyHash ??= await bcrypt.hash('not-a-password-at-all', config.bcryptCost);
-  const ok = await bcrypt.compare(input.password, user?.passwordHash ?? dummyHash);
+  const ok = await bcrypt.compare(
+    input.password,
+    user?.passwordHash ?? (await dummyHashFor(config.bcryptCost)),
+  );
   if (!user || !ok) throw new AppError(401, 'invalid-credentials', 'E-mail or password is wrong.');
+  // A hash made at a lower cost than configured (older accounts, a seed) is upgraded now, while
+  // the password is at hand, so every account costs an attacker the same.
+  if (bcrypt.getRounds(user.passwordHash) < config.bcryptCost)
+    await setPasswordHash(
+      db.manager,
+      user.id,
+      await bcrypt.hash(input.password, config.bcryptCost),
+    );
   return { id: user.id, email: user.email, displayName: user.displayName };
 }

@@ -10,17 +10,20 @@ const ISSUER = 'gapwise';
 
 export interface SessionClaims {
   readonly sub: string;
+  /** Id of the server-side session (a `sessions` row). */
   readonly sid: string;
   readonly typ: 'access' | 'refresh';
-}
-
-export function newSessionId(): string {
-  return randomBytes(16).toString('base64url');
+  /** Refresh tokens only: the session generation it was issued for (rotation, reuse detection). */
+  readonly gen?: number;
 }
 
 export function signToken(config: Config, claims: SessionClaims): string {
   const seconds = claims.typ === 'access' ? config.accessTokenSeconds : config.refreshTokenSeconds;
-  return jwt.sign({ sid: claims.sid, typ: claims.typ }, config.jwtSecret, {
+  const payload =
+    claims.typ === 'refresh'
+      ? { sid: claims.sid, typ: claims.typ, gen: claims.gen ?? 0 }
+      : { sid: claims.sid, typ: claims.typ };
+  return jwt.sign(payload, config.jwtSecret, {
     algorithm: 'HS256',
     subject: claims.sub,
     issuer: ISSUER,
@@ -38,6 +41,11 @@ export function verifyToken(
     const payload = jwt.verify(token, config.jwtSecret, { algorithms: ['HS256'], issuer: ISSUER });
     if (typeof payload !== 'object' || payload['typ'] !== typ) return null;
     if (typeof payload.sub !== 'string' || typeof payload['sid'] !== 'string') return null;
+    if (typ === 'refresh') {
+      const gen: unknown = payload['gen'];
+      if (typeof gen !== 'number' || !Number.isInteger(gen) || gen < 0) return null;
+      return { sub: payload.sub, sid: payload['sid'], typ, gen };
+    }
     return { sub: payload.sub, sid: payload['sid'], typ };
   } catch {
     return null;
@@ -58,12 +66,13 @@ export function csrfMatches(config: Config, sid: string, given: unknown): boolea
   return expected.length === actual.length && timingSafeEqual(expected, actual);
 }
 
-/** Sets the access and refresh cookies (httpOnly, SameSite=Strict). */
+/** Sets the access and refresh cookies (httpOnly, SameSite=Strict) of a session generation. */
 export function setSessionCookies(
   res: Response,
   config: Config,
   userId: string,
   sid: string,
+  generation: number,
 ): void {
   const base = { httpOnly: true, sameSite: 'strict' as const, secure: config.cookieSecure };
   res.cookie(ACCESS_COOKIE, signToken(config, { sub: userId, sid, typ: 'access' }), {
@@ -71,11 +80,15 @@ export function setSessionCookies(
     path: '/',
     maxAge: config.accessTokenSeconds * 1000,
   });
-  res.cookie(REFRESH_COOKIE, signToken(config, { sub: userId, sid, typ: 'refresh' }), {
-    ...base,
-    path: '/api/auth',
-    maxAge: config.refreshTokenSeconds * 1000,
-  });
+  res.cookie(
+    REFRESH_COOKIE,
+    signToken(config, { sub: userId, sid, typ: 'refresh', gen: generation }),
+    {
+      ...base,
+      path: '/api/auth',
+      maxAge: config.refreshTokenSeconds * 1000,
+    },
+  );
 }
 
 export function clearSessionCookies(res: Response, config: Config): void {

@@ -13,9 +13,28 @@ const toSummary = (u: UserEntity): UserSummary => ({
   displayName: u.displayName,
 });
 
-export async function userExists(db: EntityManager, id: string): Promise<boolean> {
-  if (!isUuid(id)) return false;
-  return (await db.getRepository(UserEntity).count({ where: { id } })) > 0;
+export async function setPasswordHash(
+  db: EntityManager,
+  userId: string,
+  passwordHash: string,
+): Promise<void> {
+  await db.getRepository(UserEntity).update({ id: userId }, { passwordHash });
+}
+
+export async function passwordHashOf(db: EntityManager, userId: string): Promise<string | null> {
+  if (!isUuid(userId)) return null;
+  const user = await db
+    .getRepository(UserEntity)
+    .findOne({ where: { id: userId }, select: { id: true, passwordHash: true } });
+  return user?.passwordHash ?? null;
+}
+
+export async function setDisplayName(
+  db: EntityManager,
+  userId: string,
+  displayName: string,
+): Promise<void> {
+  await db.getRepository(UserEntity).update({ id: userId }, { displayName });
 }
 
 export async function findUserById(db: EntityManager, id: string): Promise<UserSummary | null> {

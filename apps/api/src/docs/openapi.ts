@@ -96,7 +96,7 @@ const SCHEMAS: Record<string, Schema> = {
   RegisterRequest: obj(
     {
       email: str,
-      password: { ...str, minLength: 10 },
+      password: { ...str, minLength: 10, description: 'at most 72 bytes in UTF-8' },
       displayName: str,
       returnUrl: { ...str, description: 'same-site path opened after the confirmation' },
     },
@@ -108,6 +108,25 @@ const SCHEMAS: Record<string, Schema> = {
   }),
   ConfirmRegistrationRequest: obj({ token: str }),
   SignInRequest: obj({ email: str, password: str }),
+  ChangePasswordRequest: obj({
+    currentPassword: str,
+    newPassword: { ...str, minLength: 10, description: 'at most 72 bytes in UTF-8' },
+  }),
+  PasswordResetRequest: obj({ email: str }),
+  PasswordResetConfirmRequest: obj({
+    token: str,
+    newPassword: { ...str, minLength: 10, description: 'at most 72 bytes in UTF-8' },
+  }),
+  UpdateProfileRequest: obj({ displayName: str }),
+  DeleteAccountRequest: obj({ password: str }),
+  DeletedAccount: obj({
+    deletedWorkspaces: {
+      type: 'array',
+      items: str,
+      description: 'ids of workspaces deleted with it',
+    },
+  }),
+  EndedSessions: obj({ endedSessions: num }),
   UserSummary: obj({ id: str, email: str, displayName: str }),
   MembershipSummary: obj({ workspaceId: str, workspaceName: str, role }),
   SessionInfo: obj({
@@ -212,7 +231,14 @@ const SCHEMAS: Record<string, Schema> = {
     after: {},
   }),
   AuditPage: page('AuditEvent'),
-  TokenName: obj({ name: str }),
+  CreateApiTokenRequest: obj(
+    {
+      name: str,
+      scope: { type: 'string', enum: ['read', 'read-write'], description: 'default read-write' },
+      expiresAt: nullable({ ...str, description: 'ISO date, at most 366 days ahead' }),
+    },
+    ['name'],
+  ),
   ApiToken: obj({
     id: str,
     name: str,
@@ -220,6 +246,8 @@ const SCHEMAS: Record<string, Schema> = {
     createdAt: str,
     lastUsedAt: nullable(str),
     revokedAt: nullable(str),
+    scope: { type: 'string', enum: ['read', 'read-write'] },
+    expiresAt: nullable(str),
   }),
   CreatedApiToken: obj({
     id: str,
@@ -228,6 +256,8 @@ const SCHEMAS: Record<string, Schema> = {
     createdAt: str,
     lastUsedAt: nullable(str),
     revokedAt: nullable(str),
+    scope: { type: 'string', enum: ['read', 'read-write'] },
+    expiresAt: nullable(str),
     token: str,
   }),
   ...REPORT_SCHEMAS,

@@ -4,14 +4,15 @@ import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import type { AppDeps, Principal } from './context';
 import { AppError, unauthenticated } from './app-error';
 import { ACCESS_COOKIE, CSRF_HEADER, JWT_OPTIONS, csrfMatches } from '../auth/session-tokens';
-import { findUserIdByApiToken } from '../tokens/token-repository';
-import { userExists } from '../auth/user-repository';
+import { findApiTokenGrant } from '../tokens/token-repository';
+import { sessionIsLive } from '../auth/session-repository';
 
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
 /**
  * Works out who is calling, without refusing anybody: `Authorization: Bearer gw_…` (API token),
- * `Authorization: Bearer <jwt>` (scripts), or the httpOnly access cookie (browser). Invalid
+ * `Authorization: Bearer <jwt>` (scripts), or the httpOnly access cookie (browser). A JWT counts
+ * only while its server-side session is live (not signed out, revoked or expired). Invalid
  * credentials leave the request anonymous; `requireAuth` answers 401 where it matters.
  * Uses its own Passport instance so several apps in one process never share strategies.
  */
@@ -31,12 +32,9 @@ export function identify(deps: AppDeps): RequestHandler {
         done(null, false);
         return;
       }
-      userExists(deps.dataSource.manager, payload.sub).then(
-        (exists) =>
-          done(
-            null,
-            exists ? ({ userId: payload.sub, via, sid: payload.sid } as Principal) : false,
-          ),
+      sessionIsLive(deps.dataSource.manager, payload.sid, payload.sub).then(
+        (live) =>
+          done(null, live ? ({ userId: payload.sub, via, sid: payload.sid } as Principal) : false),
         (error) => done(error),
       );
     };
@@ -75,8 +73,8 @@ export function identify(deps: AppDeps): RequestHandler {
     if (typeof header === 'string' && /^bearer\s+/i.test(header)) {
       const token = header.replace(/^bearer\s+/i, '').trim();
       if (token.startsWith('gw_')) {
-        const userId = await findUserIdByApiToken(deps.dataSource.manager, token);
-        if (userId) req.principal = { userId, via: 'api-token' };
+        const grant = await findApiTokenGrant(deps.dataSource.manager, token);
+        if (grant) req.principal = { userId: grant.userId, via: 'api-token', scope: grant.scope };
       } else {
         req.principal = (await run('jwt-bearer', req, res)) ?? undefined;
       }
@@ -91,12 +89,38 @@ export function identify(deps: AppDeps): RequestHandler {
 
 /**
  * 401 for anonymous callers; for cookie-authenticated writes, 403 `csrf-failed` unless the
- * `X-CSRF-Token` header carries the session's CSRF token (double submit).
+ * `X-CSRF-Token` header carries the session's CSRF token (double submit); for writes with a
+ * read-only API token, 403 `token-read-only`.
  */
 export const requireAuth: RequestHandler = (req: Request, _res: Response, next: NextFunction) => {
   const principal = req.principal;
   if (!principal) throw unauthenticated();
   checkCsrf(req, principal);
+  if (principal.via === 'api-token' && principal.scope === 'read' && !SAFE_METHODS.has(req.method))
+    throw new AppError(
+      403,
+      'token-read-only',
+      'This API token is read-only; create a read-write token on your account page to make changes.',
+    );
+  next();
+};
+
+/**
+ * After `requireAuth`: refuses API tokens (403 `session-required`) where only a signed-in person
+ * may act — creating tokens, password, sessions and account deletion.
+ */
+export const requireSession: RequestHandler = (
+  req: Request,
+  _res: Response,
+  next: NextFunction,
+) => {
+  if (!req.principal) throw unauthenticated();
+  if (req.principal.via === 'api-token' || !req.principal.sid)
+    throw new AppError(
+      403,
+      'session-required',
+      'Only a signed-in person can do this, not an API token: sign in on the web page.',
+    );
   next();
 };
 

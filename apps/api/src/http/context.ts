@@ -26,6 +26,8 @@ export interface Principal {
   readonly via: 'cookie' | 'bearer' | 'api-token';
   /** Session id of a JWT (binds the CSRF token); absent for API tokens. */
   readonly sid?: string;
+  /** API tokens only: `read` tokens may only use safe methods. */
+  readonly scope?: 'read' | 'read-write';
 }
 
 declare module 'express-serve-static-core' {

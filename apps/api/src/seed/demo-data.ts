@@ -464,7 +464,7 @@ export async function seedDemo(
   dataSource: DataSource,
   options: { bcryptCost?: number } = {},
 ): Promise<SeedReport> {
-  const hash = await bcrypt.hash(DEMO_PASSWORD, options.bcryptCost ?? 10);
+  const hash = await bcrypt.hash(DEMO_PASSWORD, options.bcryptCost ?? 12);
   return dataSource.transaction(async (tx) => {
     // One seed at a time (two `npm start`s at once must not duplicate the demo).
     await tx.query('SELECT pg_advisory_xact_lock(424242)');

@@ -11,6 +11,7 @@ import { seedDemoScreensAndSeries } from '../screens/demo-screen-seed';
 import { seedDemoTraces } from '../traces/demo-trace-seed';
 import { TraceObjectStore } from '../traces/trace-object-store';
 import { traceStoreConfigFromEnv } from '../traces/trace-services';
+import { loadConfig } from '../config';
 
 const dataSource = createDataSource({
   url: process.env['DATABASE_URL'] || DEFAULT_DATABASE_URL,
@@ -19,7 +20,9 @@ const dataSource = createDataSource({
 try {
   await dataSource.initialize();
   await dataSource.runMigrations({ transaction: 'each' });
-  const report = await seedDemo(dataSource);
+  // The server's configured bcrypt cost (BCRYPT_COST), so a demo account takes as long to check
+  // as any other account and as an unknown address.
+  const report = await seedDemo(dataSource, { bcryptCost: loadConfig().bcryptCost });
   console.log(
     `demo seed: ${report.users} user(s), ${report.workspaces} workspace(s), ${report.pairs} pair(s) added`,
   );

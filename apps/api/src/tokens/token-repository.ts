@@ -1,5 +1,5 @@
 import type { EntityManager } from 'typeorm';
-import type { ApiToken } from '@gapwise/contracts';
+import type { ApiToken, ApiTokenScope } from '@gapwise/contracts';
 import { hashToken } from '../auth/session-tokens';
 import { isUuid } from '../http/validate';
 
@@ -11,22 +11,29 @@ const toToken = (r: Row): ApiToken => ({
   createdAt: (r['created_at'] as Date).toISOString(),
   lastUsedAt: r['last_used_at'] ? (r['last_used_at'] as Date).toISOString() : null,
   revokedAt: r['revoked_at'] ? (r['revoked_at'] as Date).toISOString() : null,
+  scope: r['scope'] as ApiTokenScope,
+  expiresAt: r['expires_at'] ? (r['expires_at'] as Date).toISOString() : null,
 });
 
-/** The user a live (not revoked) API token belongs to; marks it used. */
-export async function findUserIdByApiToken(
+/** The user and scope of a live (not revoked, not expired) API token; marks it used. */
+export async function findApiTokenGrant(
   db: EntityManager,
   token: string,
-): Promise<string | null> {
+): Promise<{ userId: string; scope: ApiTokenScope; tokenId: string } | null> {
   if (token.length > 200) return null;
   const rows: Row[] = await db.query(
-    'SELECT id, user_id FROM api_tokens WHERE token_hash = $1 AND revoked_at IS NULL',
+    `SELECT id, user_id, scope FROM api_tokens WHERE token_hash = $1 AND revoked_at IS NULL
+       AND (expires_at IS NULL OR expires_at > now())`,
     [hashToken(token)],
   );
   const row = rows[0];
   if (!row) return null;
   await db.query('UPDATE api_tokens SET last_used_at = now() WHERE id = $1', [row['id']]);
-  return row['user_id'] as string;
+  return {
+    userId: row['user_id'] as string,
+    scope: row['scope'] as ApiTokenScope,
+    tokenId: row['id'] as string,
+  };
 }
 
 export async function listTokens(db: EntityManager, userId: string): Promise<ApiToken[]> {
@@ -42,10 +49,13 @@ export async function insertToken(
   userId: string,
   name: string,
   token: string,
+  scope: ApiTokenScope,
+  expiresAt: Date | null,
 ): Promise<ApiToken> {
   const rows: Row[] = await db.query(
-    `INSERT INTO api_tokens (user_id, name, prefix, token_hash) VALUES ($1, $2, $3, $4) RETURNING *`,
-    [userId, name, token.slice(0, 10), hashToken(token)],
+    `INSERT INTO api_tokens (user_id, name, prefix, token_hash, scope, expires_at)
+     VALUES ($1, $2, $3, $4, $5, $6) RETURNING *`,
+    [userId, name, token.slice(0, 10), hashToken(token), scope, expiresAt],
   );
   return toToken(rows[0]!);
 }

@@ -21,6 +21,18 @@ export const routes: Routes = [
     loadComponent: () => import('./session/confirm/confirm').then((m) => m.Confirm),
   },
   {
+    path: 'forgot-password',
+    title: 'Forgot password · Gapwise',
+    loadComponent: () =>
+      import('./session/forgot-password/forgot-password').then((m) => m.ForgotPassword),
+  },
+  {
+    path: 'reset-password/:token',
+    title: 'Choose a new password · Gapwise',
+    loadComponent: () =>
+      import('./session/reset-password/reset-password').then((m) => m.ResetPassword),
+  },
+  {
     path: 'invitations/:token',
     title: 'Invitation · Gapwise',
     loadComponent: () =>
@@ -109,6 +121,12 @@ export const routes: Routes = [
             loadComponent: () => import('./workspaces/members/members').then((m) => m.Members),
           },
         ],
+      },
+      {
+        path: 'account',
+        title: 'Your account · Gapwise',
+        loadComponent: () =>
+          import('./account/account-page/account-page').then((m) => m.AccountPage),
       },
       {
         path: 'reviews',

@@ -1,6 +1,8 @@
 import { HttpClient, HttpContext } from '@angular/common/http';
 import { Injectable, computed, inject, signal } from '@angular/core';
 import type {
+  ChangePasswordRequest,
+  PasswordResetConfirmRequest,
   RegisterRequest,
   RegistrationAnswer,
   SessionInfo,
@@ -72,6 +74,56 @@ export class Session {
       map(() => undefined),
       tap(() => this.clear()),
     );
+  }
+
+  /** Ends every session of the account on the server, this one included. */
+  signOutEverywhere(): Observable<void> {
+    return this.http
+      .post<{ endedSessions: number }>('/api/auth/sign-out-everywhere', {}, { context: quiet() })
+      .pipe(
+        map(() => undefined),
+        tap(() => this.clear()),
+      );
+  }
+
+  /** Changes the display name; the answer is the refreshed session. */
+  updateDisplayName(displayName: string): Observable<SessionInfo> {
+    return this.http
+      .patch<SessionInfo>('/api/auth/me', { displayName }, { context: quiet() })
+      .pipe(tap((info) => this.accept(info)));
+  }
+
+  /** Needs the current password; every other session of the account ends. */
+  changePassword(body: ChangePasswordRequest): Observable<{ endedSessions: number }> {
+    return this.http.post<{ endedSessions: number }>('/api/auth/password', body, {
+      context: quiet(),
+    });
+  }
+
+  /** E-mails a reset link if the address has an account (the answer is the same either way). */
+  requestPasswordReset(email: string): Observable<RegistrationAnswer> {
+    return this.http.post<RegistrationAnswer>(
+      '/api/auth/password-reset',
+      { email },
+      { context: quiet() },
+    );
+  }
+
+  /** Uses the e-mailed reset token: sets the password, ends every session, signs in afresh. */
+  confirmPasswordReset(body: PasswordResetConfirmRequest): Observable<SessionInfo> {
+    return this.http
+      .post<SessionInfo>('/api/auth/password-reset/confirm', body, { context: quiet() })
+      .pipe(tap((info) => this.accept(info)));
+  }
+
+  /** Deletes the account (password again); see the account page for the workspace rule. */
+  deleteAccount(password: string): Observable<{ deletedWorkspaces: string[] }> {
+    return this.http
+      .delete<{ deletedWorkspaces: string[] }>('/api/auth/account', {
+        body: { password },
+        context: quiet(),
+      })
+      .pipe(tap(() => this.clear()));
   }
 
   /** Trades the refresh cookie for a new session once, however many requests ask at the same time. */

@@ -53,6 +53,13 @@ export class Shell {
     this.session.signOut().subscribe(() => void this.router.navigate(['/sign-in']));
   }
 
+  /** Ends every session of the account on the server, this one included. */
+  protected signOutEverywhere(): void {
+    this.session.signOutEverywhere().subscribe({
+      next: () => void this.router.navigate(['/sign-in']),
+    });
+  }
+
   protected skipToContent(event: Event): void {
     event.preventDefault();
     document.getElementById('gw-main')?.focus();

@@ -9,6 +9,7 @@ import { PASSWORD_MIN_LENGTH } from '@gapwise/contracts';
 import { apiErrorOf, applyFieldErrors } from '../api-errors';
 import { registrationReturnUrl } from '../return-url';
 import { Session } from '../session';
+import { passwordFitsBcrypt } from '../password-rules';
 
 @Component({
   selector: 'gw-register',
@@ -38,7 +39,11 @@ export class Register {
     }),
     password: new FormControl('', {
       nonNullable: true,
-      validators: [Validators.required, Validators.minLength(PASSWORD_MIN_LENGTH)],
+      validators: [
+        Validators.required,
+        Validators.minLength(PASSWORD_MIN_LENGTH),
+        passwordFitsBcrypt,
+      ],
     }),
   });
   protected readonly busy = signal(false);
