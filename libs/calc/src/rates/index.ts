@@ -4,12 +4,14 @@ import { crossRelationMethod } from './cross-relation/cross-relation';
 import { crossoverMethod } from './crossover/crossover';
 import { marcusMethod } from './marcus/marcus';
 import { mljMethod } from './mlj/mlj';
+import { mljThermalMethod } from './mlj-thermal/mlj-thermal';
 import { rulerMethod } from './ruler/ruler';
 
 /** Every `rate.*` method, for the registry. */
 export const rateMethods: MethodDefinition<any>[] = [
   marcusMethod,
   mljMethod,
+  mljThermalMethod,
   crossoverMethod,
   rulerMethod,
   crossRelationMethod,
