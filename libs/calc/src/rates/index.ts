@@ -2,6 +2,7 @@
 import type { MethodDefinition } from '../core/method';
 import { crossRelationMethod } from './cross-relation/cross-relation';
 import { crossoverMethod } from './crossover/crossover';
+import { landauZenerMethod } from './landau-zener/landau-zener';
 import { marcusMethod } from './marcus/marcus';
 import { mljMethod } from './mlj/mlj';
 import { mljThermalMethod } from './mlj-thermal/mlj-thermal';
@@ -13,6 +14,7 @@ export const rateMethods: MethodDefinition<any>[] = [
   mljMethod,
   mljThermalMethod,
   crossoverMethod,
+  landauZenerMethod,
   rulerMethod,
   crossRelationMethod,
 ];
