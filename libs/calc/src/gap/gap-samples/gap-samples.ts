@@ -560,7 +560,7 @@ interface Barrier {
 /**
  * ΔG‡ = G_R(0) − min G_R (SCIENCE.md §7). Both ends come from weighted local quadratic fits
  * (`localQuadraticValue`, σ_i ∝ 1/√n_i) instead of single noisy bins: G_R(0) from the bins within
- * max(5 bin widths, σ_R/2) of ΔE = 0 (reactant bins, and product bins through G_R = G_P − x),
+ * max(5 bin widths, σ_R) of ΔE = 0 (reactant bins, and product bins through G_R = G_P − x),
  * min G_R from the vertex of a fit to the reactant bins within σ_R of ⟨ΔE⟩_R. The two standard
  * errors are combined in quadrature. When a fit is not possible (fewer than 4 bins), the one-bin
  * reading, then the reactant parabola (b²/(4a), warning B20) are used, as before.
@@ -603,7 +603,7 @@ function activationFreeEnergy(
   const width = edges[1] - edges[0];
   const sdR = Math.sqrt(r.variance);
   if (crossingSampled) {
-    const near = binsNear(curveR, curveP, 0, Math.max(5 * width, sdR / 2));
+    const near = binsNear(curveR, curveP, 0, Math.max(5 * width, sdR));
     const well = binsNear(curveR, null, r.mean, sdR);
     const atCrossing = localQuadraticValue(near.x, near.g, near.counts, thermalEv, 0);
     const atMinimum = localQuadraticValue(well.x, well.g, well.counts, thermalEv, null);
