@@ -14,9 +14,10 @@ const KB_EV = 8.617333262e-5;
 const HBAR_EV_S = 6.582119569e-16;
 
 // 40-digit arithmetic for the independent reference (mathjs BigNumber).
-const big = create(all, { number: 'BigNumber', precision: 40 });
-type Big = ReturnType<typeof big.bignumber>;
-const B = (x: number | string) => big.bignumber(x);
+// mathjs's typings do not narrow BigNumber arithmetic, so the reference works on `any`.
+const big: any = create(all, { number: 'BigNumber', precision: 40 });
+type Big = any;
+const B = (x: number | string): Big => big.bignumber(x);
 
 /** I_p(z) by its power series Σ_k (z/2)^(2k+p)/(k!(k+p)!) (Abramowitz & Stegun 9.6.10), 60 digits. */
 function besselIBig(p: number, z: Big): Big {

@@ -1,7 +1,8 @@
 /** Hopping transport between equivalent sites: Marcus pair rates, diffusion and mobility. */
 import { BOLTZMANN_EV_PER_K, HBAR_EV_S } from '../../core/constants';
 import type { CalcOutputs, MethodDefinition, WarningSink } from '../../core/method';
-import { noteCouplingSign, warnLambdaBelowKt, warnTemperatureRange } from '../../core/warnings';
+// Transfer integrals J carry a sign by convention, so no coupling-negative note here.
+import { warnLambdaBelowKt, warnTemperatureRange } from '../../core/warnings';
 import { adiabaticityMeasures, warnAdiabaticity } from '../../rates/coupling-regime';
 import { readEnergy, readLambda, readTemperature, refuseClassIII } from '../../rates/rate-inputs';
 import { reportRate } from '../../rates/rate-log';
