@@ -105,7 +105,14 @@ describe('gapwise calc', () => {
       for (const method of methodCatalog()) {
         expect(run.stdout).toContain(`  ${method.id}\n`);
         for (const input of method.inputs) expect(run.stdout).toContain(input.name);
+        for (const reference of method.references) expect(run.stdout).toContain(reference);
       }
+      // The methods of issue 13, each with its published source.
+      expect(run.stdout).toMatch(
+        / {2}rate\.mljThermal\n[\s\S]*?J\. Jortner, J\. Chem\. Phys\. 1976/,
+      );
+      expect(run.stdout).toMatch(/ {2}rate\.landauZener\n[\s\S]*?Newton, N\. Sutin/);
+      expect(run.stdout).toMatch(/ {2}evb\.adiabaticBarrier\n[\s\S]*?Brunschwig, N\. Sutin/);
       expect(run.stdout).toContain('kcal/mol');
       const bad = await gapwise(['calc', '--frobnicate'], '');
       expect(bad.code).toBe(1);

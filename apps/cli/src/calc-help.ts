@@ -27,6 +27,8 @@ function describeMethod(method: CatalogEntry): string[] {
       (output) =>
         `      ${output.name.padEnd(20)} ${output.unit === '' ? '-' : output.unit}. ${output.description}`,
     ),
+    '    sources:',
+    ...method.references.map((reference) => `      ${reference}`),
   ];
 }
 

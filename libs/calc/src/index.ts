@@ -52,6 +52,7 @@ export type { Regime } from './rates/rate-inputs';
 export { marcusLog10kInto, mljLog10kInto } from './rates/vector';
 export { marcusLog10kIntoArrays, mljLog10kIntoArrays } from './rates/vector-arrays';
 export {
+  bornSolventCorrectionEv,
   coulombWorkEv,
   ionPairCoulombTermEv,
   rehmWellerChargeRecombinationEv,

@@ -87,6 +87,8 @@ export function computePairResults(source: PairRateSource): PairResults {
     activationFreeEnergy: activation,
     regime:
       typeof out['regime'] === 'string' ? (out['regime'] as string) : regimeOf(deltaG0, lambda),
+    couplingRegime:
+      typeof out['couplingRegime'] === 'string' ? (out['couplingRegime'] as string) : null,
     warnings: answer.warnings,
     errors: [],
   };

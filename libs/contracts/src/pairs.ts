@@ -91,6 +91,11 @@ export interface PairResults {
   readonly log10k: number | null;
   readonly activationFreeEnergy: number | null;
   readonly regime: string | null;
+  /**
+   * nonadiabatic, intermediate or adiabatic (CALC-API.md `couplingRegime`); absent in results
+   * stored before the core reported it.
+   */
+  readonly couplingRegime?: string | null;
   readonly warnings: ReadonlyArray<{ readonly code: string; readonly message: string }>;
   readonly errors: ReadonlyArray<{ readonly field: string; readonly message: string }>;
 }

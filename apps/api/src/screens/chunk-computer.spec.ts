@@ -32,6 +32,23 @@ describe('screen chunk computer', () => {
     expect(Number.isNaN(r.log10kCsMlj[0])).toBe(true);
   });
 
+  it('applies the charged Born term and real-charge work terms (SCIENCE.md §4, Ru(bpy)₃²⁺*/MV²⁺ type)', async () => {
+    // z_D = z_A = 2, r_D = 7.0 Å, r_A = 3.5 Å, ε_s = 8.93, ε_ref = 35.94: ΔG_Born = −0.0866 eV
+    // (SCIENCE.md §4, from memory); work w(D³⁺A⁺) − w(D²⁺A²⁺) = 14.39965 (3 − 4)/(8.93 × 10.5).
+    const header =
+      'donor,acceptor,donorOxidation [V],acceptorReduction [V],excitationEnergy [eV],distance [A],' +
+      'radiusDonor [A],radiusAcceptor [A],epsilon,refractiveIndex,epsilonReference,chargeDonor,' +
+      'chargeAcceptor,lambdaInner [eV],lambdaOuter [eV],coupling [eV],temperature [K]';
+    const chunk = await chunkOf(
+      `${header}\nRu,MV,1.29,-0.45,2.12,10.5,7,3.5,8.93,1.4242,35.94,2,2,0.1,0.8,0.01,298.15\n`,
+    );
+    const r = computeChunk(chunk, { kind: 'cs-fast-cr-inverted' });
+    const work = (14.3996454784 * (3 - 4)) / (8.93 * 10.5);
+    const born = 7.1998227392 * (5 / 7 - 3 / 3.5) * (1 / 8.93 - 1 / 35.94);
+    expect(born).toBeCloseTo(-0.0866, 4);
+    expect(r.deltaGCs[0]).toBeCloseTo(1.29 + 0.45 - 2.12 + work + born, 10);
+  });
+
   it('gives the SCIENCE.md §1 worked rate: H = 0.010 eV, λ = 0.80, ΔG° = −0.30 eV → k = 8.978e10 s⁻¹', async () => {
     // Choose potentials so that ΔG_CS = −0.30 eV exactly: with ε huge the Coulomb term vanishes.
     // E_ox − E_red − E00 = −0.30 with E00 = 2.0 → E_ox − E_red = 1.70 V.

@@ -21,7 +21,7 @@ import {
   rehmWellerChargeRecombinationEv,
   rehmWellerChargeSeparationEv,
   twoSphereLambdaEv,
-  wellerSolventCorrectionEv,
+  bornSolventCorrectionEv,
   type CalcAnswer,
 } from '@gapwise/calc';
 import type { InputChunk } from './screen-parser';
@@ -133,6 +133,8 @@ export function deriveThroughCalculate(
       radiusDonor: weller ? v.radiusDonor[i] : undefined,
       radiusAcceptor: weller ? v.radiusAcceptor[i] : undefined,
       epsilonReference: weller ? v.epsilonReference[i] : undefined,
+      chargeDonor: Number.isNaN(v.chargeDonor[i]) ? undefined : v.chargeDonor[i],
+      chargeAcceptor: Number.isNaN(v.chargeAcceptor[i]) ? undefined : v.chargeAcceptor[i],
     },
   });
   mask |= collectWarnings(rw);
@@ -198,6 +200,11 @@ export function deriveFast(v: InputChunk['values'], i: number, into: Float64Arra
   const rA = v.radiusAcceptor[i];
   if (!(finite(eox) && finite(ered) && Math.abs(eox) <= 100 && Math.abs(ered) <= 100)) return false;
   if (!(e00 > 0 && e00 <= 1e3 && r > 0 && finite(r) && eps >= 1 && finite(eps))) return false;
+  // Charges default to 0 (neutral D and A); a non-integer charge takes the core's refusal.
+  const zD = Number.isNaN(v.chargeDonor[i]) ? 0 : v.chargeDonor[i];
+  const zA = Number.isNaN(v.chargeAcceptor[i]) ? 0 : v.chargeAcceptor[i];
+  if (!(Number.isInteger(zD) && Number.isInteger(zA) && Math.abs(zD) <= 10 && Math.abs(zA) <= 10))
+    return false;
   const weller = !Number.isNaN(epsRef);
   if (weller && !(rD > 0 && rA > 0 && finite(rD) && finite(rA) && epsRef >= 1 && finite(epsRef)))
     return false;
@@ -225,12 +232,12 @@ export function deriveFast(v: InputChunk['values'], i: number, into: Float64Arra
     if (Math.abs(h0) > 10) mask |= bit('other'); // the core's coupling-unit-suspect
     coupling = distanceDecayCouplingEv(h0, r0, beta, r);
   }
-  const correction = weller ? wellerSolventCorrectionEv(rD, rA, epsRef, eps) : 0;
+  const correction = weller ? bornSolventCorrectionEv(rD, rA, epsRef, eps, zD, zA) : 0;
   const dCs = rehmWellerChargeSeparationEv(
     eox,
     ered,
     e00,
-    ionPairCoulombTermEv(eps, r),
+    ionPairCoulombTermEv(eps, r, zD, zA),
     correction,
   );
   if (Math.abs(correction) > 0.5) mask |= bit('born-correction-large');

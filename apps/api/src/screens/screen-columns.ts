@@ -37,6 +37,8 @@ export const NUMERIC_KEYS = [
   'epsilon',
   'refractiveIndex',
   'epsilonReference',
+  'chargeDonor',
+  'chargeAcceptor',
   'lambdaInner',
   'lambdaOuter',
   'coupling',
@@ -147,6 +149,22 @@ export const SCREEN_COLUMNS: readonly ColumnSpec[] = [
     example: '',
     description:
       'ε of the solvent the potentials were measured in (Weller correction; needs radii)',
+  },
+  {
+    key: 'chargeDonor',
+    quantity: 'dimensionless',
+    required: false,
+    templateUnit: '',
+    example: '',
+    description: 'Charge z_D of the donor before transfer (Coulomb work, Born term); empty = 0',
+  },
+  {
+    key: 'chargeAcceptor',
+    quantity: 'dimensionless',
+    required: false,
+    templateUnit: '',
+    example: '',
+    description: 'Charge z_A of the acceptor before transfer; empty = 0',
   },
   {
     key: 'lambdaInner',

@@ -145,6 +145,10 @@ function readRow(
       );
     }
   }
+  for (const key of ['chargeDonor', 'chargeAcceptor'] as const) {
+    if (has(key) && !(Number.isInteger(out[key]) && Math.abs(out[key]) <= 10))
+      problems.push(`Charges must be whole numbers from −10 to 10 (${key}).`);
+  }
   if (out.lambdaInner < 0) problems.push('lambdaInner must be ≥ 0.');
   if (has('lambdaOuter')) {
     if (out.lambdaOuter < 0) problems.push('lambdaOuter must be ≥ 0.');

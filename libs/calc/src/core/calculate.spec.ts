@@ -258,6 +258,7 @@ describe('registry', () => {
       'log10k',
       'activationFreeEnergy',
       'regime',
+      'couplingRegime',
     ]);
   });
 });

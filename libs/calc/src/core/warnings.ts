@@ -117,9 +117,13 @@ export function warnLambdaBelowKt(lambdaEv: number, temperatureK: number, sink: 
   }
 }
 
-/** B1: the inverted region, where classical Marcus neglects nuclear tunnelling. */
+/**
+ * B1: the inverted region, where classical Marcus neglects nuclear tunnelling. The same rule as
+ * the `regime` output (CALC-API.md): inside the activationless band |ΔG° + λ| ≤ 0.01 λ there is
+ * no inverted-region warning, so `activationless` never comes with `inverted-region`.
+ */
 export function warnInvertedRegion(deltaG0Ev: number, lambdaEv: number, sink: WarningSink): void {
-  if (-deltaG0Ev > lambdaEv) {
+  if (deltaG0Ev + lambdaEv < -0.01 * lambdaEv) {
     sink.warn(
       WARNING_CODES.invertedRegion,
       'Inverted region: classical Marcus neglects nuclear tunnelling and may underestimate k by ' +

@@ -60,6 +60,8 @@ export function refuseClassIII(reader: InputReader, couplingEv: number, lambdaEv
 export type Regime = 'normal' | 'activationless' | 'inverted';
 
 export function marcusRegime(deltaG0Ev: number, lambdaEv: number): Regime {
-  if (Math.abs(deltaG0Ev + lambdaEv) <= 0.01 * lambdaEv) return 'activationless';
-  return -deltaG0Ev < lambdaEv ? 'normal' : 'inverted';
+  const shifted = deltaG0Ev + lambdaEv;
+  if (Math.abs(shifted) <= 0.01 * lambdaEv) return 'activationless';
+  // Outside the band, shifted > 0 is −ΔG° < λ; `warnInvertedRegion` uses the same test.
+  return shifted > 0 ? 'normal' : 'inverted';
 }

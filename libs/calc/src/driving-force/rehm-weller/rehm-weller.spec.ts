@@ -112,4 +112,53 @@ describe('drivingForce.rehmWeller', () => {
       'epsilonReference',
     );
   });
+
+  describe('charged reactants (SCIENCE.md §4)', () => {
+    // Ru(bpy)₃²⁺* / MV²⁺-type couple: z_D = z_A = 2, r_D = 7.0 Å, r_A = 3.5 Å, potentials in
+    // acetonitrile (ε_ref = 35.94), ET in dichloromethane (ε_s = 8.93). SCIENCE.md §4 check value
+    // (from memory): ΔG_Born = −0.0866 eV, where the neutral form gives +0.26 eV.
+    const ru = {
+      ...mecn,
+      epsilon: 8.93,
+      radiusDonor: 7.0,
+      radiusAcceptor: 3.5,
+      epsilonReference: 35.94,
+      chargeDonor: 2,
+      chargeAcceptor: 2,
+    };
+
+    it('applies the Born term with the real charges: −0.0866 eV', () => {
+      const answer = computeOk('drivingForce.rehmWeller', ru);
+      expect(numberOutput(answer, 'solventCorrection')).toBeCloseTo(-0.0866, 4);
+      // Independent: (e²/8πε₀)[(2z_D + 1)/r_D + (1 − 2z_A)/r_A](1/ε_s − 1/ε_ref).
+      const born = (COULOMB / 2) * (5 / 7 + -3 / 3.5) * (1 / 8.93 - 1 / 35.94);
+      expect(numberOutput(answer, 'solventCorrection')).toBeCloseTo(born, 10);
+      // The neutral (Weller) form would give +0.26 eV: 0.35 eV off.
+      const neutral = -(COULOMB / 2) * (1 / 7 + 1 / 3.5) * (1 / 35.94 - 1 / 8.93);
+      expect(neutral).toBeCloseTo(0.26, 2);
+      // Work terms with the real charges: w(D³⁺A⁺) − w(D²⁺A²⁺) = 14.4 (3·1 − 2·2)/(ε_s R).
+      expect(numberOutput(answer, 'coulombTerm')).toBeCloseTo((COULOMB * (3 - 4)) / (8.93 * 7), 10);
+      expect(numberOutput(answer, 'deltaG0CS')).toBeCloseTo(
+        2.2 - 2.8 + (COULOMB * (3 - 4)) / (8.93 * 7) + born,
+        10,
+      );
+    });
+
+    it('reduces to Weller’s neutral form for z_D = z_A = 0', () => {
+      const answer = computeOk('drivingForce.rehmWeller', {
+        ...ru,
+        chargeDonor: 0,
+        chargeAcceptor: 0,
+      });
+      const neutral = -(COULOMB / 2) * (1 / 7 + 1 / 3.5) * (1 / 35.94 - 1 / 8.93);
+      expect(numberOutput(answer, 'solventCorrection')).toBeCloseTo(neutral, 10);
+    });
+
+    it('refuses a non-integer or out-of-range charge, naming the field', () => {
+      const errors = computeRefused('drivingForce.rehmWeller', { ...ru, chargeDonor: 1.5 });
+      expect(errors.map((e) => e.field)).toContain('chargeDonor');
+      const far = computeRefused('drivingForce.rehmWeller', { ...ru, chargeAcceptor: 40 });
+      expect(far.map((e) => e.field)).toContain('chargeAcceptor');
+    });
+  });
 });

@@ -8,6 +8,8 @@ import { WARNING_CODES } from '../../core/warnings';
 
 const DIELECTRIC_MESSAGE = 'Dielectric constant and refractive index must be ≥ 1.';
 const RADIUS_MESSAGE = 'Radii and distances must be > 0.';
+/** Charges of D and A beyond ±10 are refused (no molecular ion in solution carries more). */
+export const MAX_CHARGE = 10;
 
 /**
  * Coulomb work term w = z₁z₂e²/(4πε₀ε_sR) in eV for charges z₁, z₂ at R Å in a solvent of static
@@ -41,11 +43,34 @@ export function ionPairCoulombTermEv(
 }
 
 /**
- * Weller's Born solvent correction for potentials measured in a solvent of dielectric constant
- * ε_ref used for ET in a solvent ε_s, in eV:
- * −(e²/(8πε₀))(1/r_D + 1/r_A)(1/ε_ref − 1/ε_s); positive when ε_s < ε_ref.
- * Reference: A. Weller, Z. Phys. Chem. (Neue Folge) 1982, 133, 93
- * (doi 10.1524/zpch.1982.133.1.093; from memory).
+ * Born solvent correction for redox potentials measured in a solvent of dielectric constant
+ * ε_ref, used for ET in a solvent ε_s, with the real charges of D and A (z_D → z_D + 1,
+ * z_A → z_A − 1 on transfer), in eV:
+ * ΔG_Born = (e²/(8πε₀)) [(2z_D + 1)/r_D + (1 − 2z_A)/r_A] (1/ε_s − 1/ε_ref).
+ * For z_D = z_A = 0 this is Weller's −(e²/(8πε₀))(1/r_D + 1/r_A)(1/ε_ref − 1/ε_s), positive when
+ * ε_s < ε_ref. Every driving-force path of Gapwise (the method, the pair editor's helper,
+ * screens) goes through this one function, so the neutral form is never applied to charged
+ * reactants (SCIENCE.md §4).
+ * References: M. Born, Z. Phys. 1920, 1, 45 (doi 10.1007/BF01881023; from memory);
+ * A. Weller, Z. Phys. Chem. (Neue Folge) 1982, 133, 93 (doi 10.1524/zpch.1982.133.1.093;
+ * from memory).
+ */
+export function bornSolventCorrectionEv(
+  radiusDonorAngstrom: number,
+  radiusAcceptorAngstrom: number,
+  epsilonReference: number,
+  epsilon: number,
+  chargeDonor = 0,
+  chargeAcceptor = 0,
+): number {
+  const chargeSum =
+    (2 * chargeDonor + 1) / radiusDonorAngstrom + (1 - 2 * chargeAcceptor) / radiusAcceptorAngstrom;
+  return (COULOMB_EV_ANGSTROM / 2) * chargeSum * (1 / epsilon - 1 / epsilonReference);
+}
+
+/**
+ * Weller's Born correction for neutral D and A (`bornSolventCorrectionEv` with z_D = z_A = 0).
+ * Reference: A. Weller, Z. Phys. Chem. (Neue Folge) 1982, 133, 93 (from memory).
  */
 export function wellerSolventCorrectionEv(
   radiusDonorAngstrom: number,
@@ -53,8 +78,12 @@ export function wellerSolventCorrectionEv(
   epsilonReference: number,
   epsilon: number,
 ): number {
-  const inverseRadii = 1 / radiusDonorAngstrom + 1 / radiusAcceptorAngstrom;
-  return -(COULOMB_EV_ANGSTROM / 2) * inverseRadii * (1 / epsilonReference - 1 / epsilon);
+  return bornSolventCorrectionEv(
+    radiusDonorAngstrom,
+    radiusAcceptorAngstrom,
+    epsilonReference,
+    epsilon,
+  );
 }
 
 /**
@@ -115,11 +144,12 @@ function readOptionalText(reader: InputReader, name: string): string | undefined
 export const rehmWellerMethod = {
   id: 'drivingForce.rehmWeller',
   summary:
-    'Rehm–Weller ΔG° of photoinduced charge separation and of recombination, with Weller’s solvent correction.',
+    'Rehm–Weller ΔG° of photoinduced charge separation and of recombination, with the Born solvent correction for the real charges.',
   references: [
     'D. Rehm, A. Weller, Isr. J. Chem. 1970, 8, 259; doi 10.1002/ijch.197000029',
     'A. Weller, Z. Phys. Chem. (N.F.) 1982, 133, 93; doi 10.1524/zpch.1982.133.1.093',
     'IUPAC Compendium of Chemical Terminology (Gold Book): Rehm–Weller equation; work term',
+    'M. Born, Z. Phys. 1920, 1, 45; doi 10.1007/BF01881023 (charged Born term)',
   ],
   inputs: [
     {
@@ -177,14 +207,16 @@ export const rehmWellerMethod = {
       name: 'chargeDonor',
       quantity: 'dimensionless',
       required: false,
-      description: 'Ground-state charge of D.',
+      label: 'Donor charge z_D',
+      description: 'Charge z_D of D before transfer (Coulomb work and Born terms).',
       defaultValue: 0,
     },
     {
       name: 'chargeAcceptor',
       quantity: 'dimensionless',
       required: false,
-      description: 'Ground-state charge of A.',
+      label: 'Acceptor charge z_A',
+      description: 'Charge z_A of A before transfer (Coulomb work and Born terms).',
       defaultValue: 0,
     },
     {
@@ -211,7 +243,8 @@ export const rehmWellerMethod = {
     {
       name: 'solventCorrection',
       unit: 'eV',
-      description: 'Weller Born correction (0 without radii).',
+      description:
+        'Born correction with the real charges z_D, z_A (Weller’s form when neutral; 0 without radii).',
     },
   ],
   read(reader) {
@@ -238,8 +271,14 @@ export const rehmWellerMethod = {
       atLeast: 1,
       message: DIELECTRIC_MESSAGE,
     });
-    const chargeDonor = reader.integer('chargeDonor', { defaultValue: 0 });
-    const chargeAcceptor = reader.integer('chargeAcceptor', { defaultValue: 0 });
+    const chargeOptions = {
+      defaultValue: 0,
+      atLeast: -MAX_CHARGE,
+      atMost: MAX_CHARGE,
+      message: `Charges must be whole numbers from −${MAX_CHARGE} to ${MAX_CHARGE}.`,
+    };
+    const chargeDonor = reader.integer('chargeDonor', chargeOptions);
+    const chargeAcceptor = reader.integer('chargeAcceptor', chargeOptions);
     const references = {
       donor: readOptionalText(reader, 'donorReference'),
       acceptor: readOptionalText(reader, 'acceptorReference'),
@@ -293,11 +332,13 @@ export const rehmWellerMethod = {
       inputs.chargeAcceptor,
     );
     const solventCorrection = born
-      ? wellerSolventCorrectionEv(
+      ? bornSolventCorrectionEv(
           born.radiusDonor,
           born.radiusAcceptor,
           born.epsilonReference,
           epsilon,
+          inputs.chargeDonor,
+          inputs.chargeAcceptor,
         )
       : 0;
     const deltaG0CS = rehmWellerChargeSeparationEv(

@@ -63,7 +63,42 @@ describe('reorg.gapSamples', () => {
 
   it('recovers ΔG‡ = (ΔG° + λ)²/(4λ) = 0.078125 eV from the curves (SCIENCE.md §1 example)', () => {
     expect(Math.abs(outputs.activationFreeEnergy - 0.078125)).toBeLessThan(0.01);
-    expect(outputs.activationFreeEnergySource).toBe('reactant-histogram');
+    expect(outputs.activationFreeEnergySource).toBe('local-fit');
+    // Within 4 of its own standard errors of the exact value.
+    expect(Math.abs(outputs.activationFreeEnergy - 0.078125)).toBeLessThan(
+      4 * outputs.activationFreeEnergyStandardError,
+    );
+    // Gaussian (cumulant) estimate k_BT⟨ΔE⟩_R²/(2σ_R²) beside it: exact for Gaussian data.
+    expect(Math.abs(outputs.activationFreeEnergyCumulant - 0.078125)).toBeLessThan(0.005);
+  });
+
+  it('has a smaller spread from the local fit than from the one bin at ΔE = 0 (24 seeded sets)', () => {
+    // Synthetic linear-response sets of SCIENCE.md §1's example (λ = 0.8, ΔG° = −0.3 eV,
+    // N = 2×10⁴ per state, fixed seeds): ΔG‡ = 0.078125 eV exactly.
+    const fit: number[] = [];
+    const oneBin: number[] = [];
+    const errors: number[] = [];
+    const sd = Math.sqrt(2 * 0.8 * KT);
+    for (let set = 0; set < 24; set++) {
+      const o = run(
+        normals(20_000, 0.5, sd, `spread-r-${set}`),
+        normals(20_000, -1.1, sd, `spread-p-${set}`),
+      ).outputs;
+      fit.push(o.activationFreeEnergy);
+      oneBin.push(o.activationFreeEnergyOneBin);
+      errors.push(o.activationFreeEnergyStandardError);
+    }
+    const spread = (v: number[]) => {
+      const m = v.reduce((a, b) => a + b, 0) / v.length;
+      return Math.sqrt(v.reduce((a, b) => a + (b - m) ** 2, 0) / (v.length - 1));
+    };
+    const meanOf = (v: number[]) => v.reduce((a, b) => a + b, 0) / v.length;
+    expect(spread(fit)).toBeLessThan(spread(oneBin));
+    // Unbiased within 3 standard errors of the mean of 24 sets.
+    expect(Math.abs(meanOf(fit) - 0.078125)).toBeLessThan((3 * spread(fit)) / Math.sqrt(24));
+    // The reported standard error matches the observed spread within a factor 2.
+    expect(meanOf(errors) / spread(fit)).toBeGreaterThan(0.5);
+    expect(meanOf(errors) / spread(fit)).toBeLessThan(2);
   });
 
   it('fits parabolas with λ = 1/(4a) near 0.8 eV and minima at ΔG° ± λ', () => {

@@ -247,8 +247,10 @@ function blockTable(levels: readonly BlockLevel[]) {
  * - Freedman–Diaconis histograms with exact type-7 quartiles (numpy's `bins='fd'`);
  * - diabatic free-energy curves on a common grid (width min(h_R, h_P)):
  *   G_R(x) = −k_BT ln P_R(x), G_P(x) = ΔG°(means) − k_BT ln P_P(x); empty bins are left out;
- * - ΔG‡ = G_R(0) − min G_R, from the reactant histogram, else through G_R(0) = G_P(0) from the
- *   product histogram, else from the reactant parabola (b²/(4a)) with warning B20;
+ * - ΔG‡ = G_R(0) − min G_R from weighted local quadratic fits near ΔE = 0 and near the minimum
+ *   (σ_i ∝ 1/√n_i), with its standard error; else from the one bin holding ΔE = 0 (reactant, or
+ *   product through G_R(0) = G_P(0)); else from the reactant parabola (b²/(4a)) with warning B20;
+ *   the Gaussian (cumulant) estimate k_BT⟨ΔE⟩_R²/(2σ_R²) beside it;
  * - parabolas G = ax² + bx + c through bins with count ≥ 10 (weights √count): λ = 1/(4a);
  * - the exact linear free-energy relation G_P(x) − G_R(x) = x checked on bins populated in
  *   both states (mean and rms of the deviation);
@@ -379,7 +381,7 @@ export function gapOutputsFromCounts(
     thermalEv,
   );
 
-  const barrier = activationFreeEnergy(curveR, curveP, edges, parabolaR, r, p, warnings);
+  const barrier = activationFreeEnergy(curveR, curveP, edges, parabolaR, r, p, thermalEv, warnings);
   const seR = r.plateau.standardError;
   const seP = p.plateau.standardError;
   const seCombined = 0.5 * Math.hypot(seR, seP);
@@ -405,6 +407,10 @@ export function gapOutputsFromCounts(
     freeEnergyCurves: curves,
     activationFreeEnergy: barrier.value,
     activationFreeEnergySource: barrier.source,
+    activationFreeEnergyStandardError: barrier.standardError,
+    activationFreeEnergyOneBin: barrier.oneBin,
+    // Gaussian (second-cumulant) estimate: G_R(x) = k_BT (x − ⟨ΔE⟩_R)²/(2σ_R²).
+    activationFreeEnergyCumulant: (thermalEv * r.mean * r.mean) / (2 * r.variance),
     parabola: { reactant: parabolaR, product: parabolaP },
     lambdaFromParabolaReactant: parabolaR.lambda,
     lambdaFromParabolaProduct: parabolaP.lambda,
@@ -438,6 +444,127 @@ function mean(values: number[]): number {
   return values.reduce((s, v) => s + v, 0) / values.length;
 }
 
+/** A value of a local fit with its standard error (eV). */
+interface FittedValue {
+  readonly value: number;
+  readonly standardError: number;
+  readonly binsUsed: number;
+}
+
+/**
+ * Weighted least-squares quadratic through points (x_i, G_i) with σ_i² = (k_BT)²/n_i — the
+ * variance of −k_BT ln n_i for a Poisson count, i.e. weights 1/σ_i² = n_i/(k_BT)² — and the fitted
+ * value at `at` (or at the vertex when `at` is null) with its standard error from the covariance
+ * (JᵀWJ)⁻¹ (known σ's, no rescaling). At the vertex the slope is zero, so the vertex position's
+ * own uncertainty does not enter to first order. Null with fewer than 4 points (no degree of
+ * freedom left) or an ill-conditioned system.
+ * Reference: P. R. Bevington, D. K. Robinson, Data Reduction and Error Analysis for the Physical
+ * Sciences, 3rd ed., McGraw-Hill 2003, ch. 7 (weighted polynomial least squares; from memory).
+ */
+function localQuadraticValue(
+  x: number[],
+  g: number[],
+  counts: number[],
+  thermalEv: number,
+  at: number | null,
+): FittedValue | null {
+  if (x.length < 4) return null;
+  const centre = x.reduce((s, v) => s + v, 0) / x.length;
+  const s = new Array<number>(5).fill(0);
+  const t = new Array<number>(3).fill(0);
+  for (let i = 0; i < x.length; i++) {
+    const u = x[i] - centre;
+    let power = counts[i] / (thermalEv * thermalEv);
+    for (let k = 0; k < 5; k++) {
+      s[k] += power;
+      if (k < 3) t[k] += power * g[i];
+      power *= u;
+    }
+  }
+  const m = [
+    [s[0], s[1], s[2]],
+    [s[1], s[2], s[3]],
+    [s[2], s[3], s[4]],
+  ];
+  const inverse = invert3(m);
+  if (!inverse) return null;
+  const p = inverse.map((row) => row[0] * t[0] + row[1] * t[1] + row[2] * t[2]);
+  let u0: number;
+  if (at === null) {
+    if (!(p[2] > 0)) return null; // no minimum
+    u0 = -p[1] / (2 * p[2]);
+  } else {
+    u0 = at - centre;
+  }
+  const basis = [1, u0, u0 * u0];
+  const value = p[0] + p[1] * u0 + p[2] * u0 * u0;
+  let variance = 0;
+  for (let i = 0; i < 3; i++)
+    for (let j = 0; j < 3; j++) variance += basis[i] * inverse[i][j] * basis[j];
+  if (!(variance >= 0) || !Number.isFinite(value)) return null;
+  return { value, standardError: Math.sqrt(variance), binsUsed: x.length };
+}
+
+/** Inverse of a symmetric 3×3 matrix by cofactors; null when (nearly) singular. */
+function invert3(m: number[][]): number[][] | null {
+  const [[a, b, c], [d, e, f], [g, h, k]] = m;
+  const A = e * k - f * h;
+  const B = -(d * k - f * g);
+  const C = d * h - e * g;
+  const det = a * A + b * B + c * C;
+  const scale = Math.abs(a * e * k) + Math.abs(b * f * g) + Math.abs(c * d * h);
+  if (!(Math.abs(det) > 1e-14 * scale)) return null;
+  return [
+    [A / det, -(b * k - c * h) / det, (b * f - c * e) / det],
+    [B / det, (a * k - c * g) / det, -(a * f - c * d) / det],
+    [C / det, -(a * h - b * g) / det, (a * e - b * d) / det],
+  ];
+}
+
+/** Bins whose centres lie within `halfWidth` of `centre`: the reactant curve's, and the product
+ * curve's mapped onto G_R by the linear free-energy relation G_R(x) = G_P(x) − x. */
+function binsNear(
+  curveR: Curve,
+  curveP: Curve | null,
+  centre: number,
+  halfWidth: number,
+): { x: number[]; g: number[]; counts: number[] } {
+  const x: number[] = [];
+  const g: number[] = [];
+  const counts: number[] = [];
+  for (let i = 0; i < curveR.x.length; i++) {
+    const xi = curveR.x[i];
+    if (Math.abs(xi - centre) > halfWidth) continue;
+    if (curveR.g[i] !== null) {
+      x.push(xi);
+      g.push(curveR.g[i] as number);
+      counts.push(curveR.counts[i]);
+    }
+    if (curveP && curveP.g[i] !== null) {
+      x.push(xi);
+      g.push((curveP.g[i] as number) - xi);
+      counts.push(curveP.counts[i]);
+    }
+  }
+  return { x, g, counts };
+}
+
+interface Barrier {
+  readonly value: number;
+  readonly source: string;
+  readonly standardError: number | null;
+  /** G_R in the one bin holding ΔE = 0 minus the lowest raw bin (null when that bin is empty). */
+  readonly oneBin: number | null;
+}
+
+/**
+ * ΔG‡ = G_R(0) − min G_R (SCIENCE.md §7). Both ends come from weighted local quadratic fits
+ * (`localQuadraticValue`, σ_i ∝ 1/√n_i) instead of single noisy bins: G_R(0) from the bins within
+ * max(5 bin widths, σ_R) of ΔE = 0 (reactant bins, and product bins through G_R = G_P − x),
+ * min G_R from the vertex of a fit to the reactant bins within σ_R of ⟨ΔE⟩_R. The two standard
+ * errors are combined in quadrature. When a fit is not possible (fewer than 4 bins), the one-bin
+ * reading, then the reactant parabola (b²/(4a), warning B20) are used, as before.
+ */
 function activationFreeEnergy(
   curveR: Curve,
   curveP: Curve,
@@ -445,8 +572,9 @@ function activationFreeEnergy(
   parabolaR: Parabola,
   r: GapStatistics,
   p: GapStatistics,
+  thermalEv: number,
   warnings: WarningSink,
-): { value: number; source: string } {
+): Barrier {
   const populated = curveR.g.filter((g): g is number => g !== null);
   const minimum = Math.min(...populated);
   const bins = curveR.x.length;
@@ -462,17 +590,39 @@ function activationFreeEnergy(
       'Crossing region not sampled (ΔE = 0 outside both sets, no overlap); ΔG‡ is an extrapolation.',
     );
   }
+  let oneBin: number | null = null;
+  let oneBinSource = '';
   if (zeroBin >= 0 && curveR.g[zeroBin] !== null) {
-    return { value: (curveR.g[zeroBin] as number) - minimum, source: 'reactant-histogram' };
-  }
-  if (zeroBin >= 0 && curveP.g[zeroBin] !== null) {
+    oneBin = (curveR.g[zeroBin] as number) - minimum;
+    oneBinSource = 'reactant-histogram';
+  } else if (zeroBin >= 0 && curveP.g[zeroBin] !== null) {
     // G_R(0) = G_P(0) − 0 by the linear free-energy relation.
-    return { value: (curveP.g[zeroBin] as number) - minimum, source: 'product-histogram' };
+    oneBin = (curveP.g[zeroBin] as number) - minimum;
+    oneBinSource = 'product-histogram';
   }
+  const width = edges[1] - edges[0];
+  const sdR = Math.sqrt(r.variance);
+  if (crossingSampled) {
+    const near = binsNear(curveR, curveP, 0, Math.max(5 * width, sdR));
+    const well = binsNear(curveR, null, r.mean, sdR);
+    const atCrossing = localQuadraticValue(near.x, near.g, near.counts, thermalEv, 0);
+    const atMinimum = localQuadraticValue(well.x, well.g, well.counts, thermalEv, null);
+    if (atCrossing && atMinimum) {
+      return {
+        value: atCrossing.value - atMinimum.value,
+        source: 'local-fit',
+        standardError: Math.hypot(atCrossing.standardError, atMinimum.standardError),
+        oneBin,
+      };
+    }
+  }
+  if (oneBin !== null) return { value: oneBin, source: oneBinSource, standardError: null, oneBin };
   // G_R(0) − G_R(min) of the parabola: c − (c − b²/(4a)).
   return {
     value: (parabolaR.b * parabolaR.b) / (4 * parabolaR.a),
     source: 'parabola-extrapolation',
+    standardError: null,
+    oneBin,
   };
 }
 
@@ -588,7 +738,27 @@ export const gapSamplesMethod = {
         '{ x, reactant, product, overlapBins, shiftEv, shiftStandardError }: G_R and G_P = G_R + x ' +
         'merged from both histograms, shift (≈ ΔG°) fitted on the overlap; null without overlap.',
     },
-    { name: 'activationFreeEnergy', unit: 'eV', description: 'ΔG‡ = G_R(0) − min G_R.' },
+    {
+      name: 'activationFreeEnergy',
+      unit: 'eV',
+      description:
+        'ΔG‡ = G_R(0) − min G_R from weighted local quadratic fits (weights ∝ bin count) at the crossing and the minimum.',
+    },
+    {
+      name: 'activationFreeEnergyStandardError',
+      unit: 'eV',
+      description: 'Standard error of ΔG‡ from the two fits (null for a fallback estimate).',
+    },
+    {
+      name: 'activationFreeEnergyCumulant',
+      unit: 'eV',
+      description: 'Gaussian (cumulant) ΔG‡ = k_BT⟨ΔE⟩_R²/(2σ_R²).',
+    },
+    {
+      name: 'activationFreeEnergyOneBin',
+      unit: 'eV',
+      description: 'G_R in the one bin holding ΔE = 0 minus the lowest bin (null when empty).',
+    },
     {
       name: 'standardErrors',
       unit: 'eV',

@@ -68,9 +68,29 @@ describe('rate.crossover', () => {
     ]);
   });
 
-  it('keeps the Marcus validity warnings but not coupling-large (the crossover is the correction)', () => {
-    const answer = computeOk('rate.crossover', { ...base, coupling: 0.1, deltaG0: -1.2 });
+  it('keeps the Marcus validity warnings and warns at κ_A = 29.8 (SCIENCE.md §3 tool rule)', () => {
+    // |H| for κ_A = 29.8 from κ_A = 4π|H|²τ_L/(ħλ), in SI units independent of the code.
+    const lambdaJ = 0.8 * E_C;
+    const couplingEv = Math.sqrt((29.8 * HBAR_J_S * lambdaJ) / (4 * Math.PI * 2e-13)) / E_C;
+    const answer = computeOk('rate.crossover', { ...base, coupling: couplingEv, deltaG0: -1.2 });
+    expect(numberOutput(answer, 'adiabaticity')).toBeCloseTo(29.8, 6); // ħ rounding (CODATA digits)
     expect(warningCodes(answer)).toContain('inverted-region');
-    expect(warningCodes(answer)).not.toContain('coupling-large');
+    expect(warningCodes(answer)).toContain('coupling-large');
+    expect(answer.warnings.find((w) => w.code === 'coupling-large')!.message).toContain('κ_A');
+    // κ_A > 10: adiabatic (CALC-API.md couplingRegime from κ_A when τ_L is known).
+    expect(answer.outputs.couplingRegime).toBe('adiabatic');
+  });
+
+  it('classifies couplingRegime from κ_A: < 0.1 nonadiabatic, 0.1–10 intermediate', () => {
+    const kappaOf = (h: number) => (4 * Math.PI * (h * E_C) ** 2 * 2e-13) / (HBAR_J_S * 0.8 * E_C);
+    expect(kappaOf(0.001)).toBeLessThan(0.1);
+    expect(computeOk('rate.crossover', { ...base, coupling: 0.001 }).outputs.couplingRegime).toBe(
+      'nonadiabatic',
+    );
+    expect(kappaOf(0.01)).toBeGreaterThan(0.1);
+    expect(kappaOf(0.01)).toBeLessThan(10);
+    const mid = computeOk('rate.crossover', { ...base, coupling: 0.01 });
+    expect(mid.outputs.couplingRegime).toBe('intermediate');
+    expect(warningCodes(mid)).toContain('coupling-large');
   });
 });

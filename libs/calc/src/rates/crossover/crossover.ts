@@ -3,7 +3,9 @@
  */
 import { BOLTZMANN_EV_PER_K, HBAR_EV_S } from '../../core/constants';
 import type { MethodDefinition } from '../../core/method';
+import { adiabaticityMeasures } from '../coupling-regime';
 import {
+  COUPLING_REGIME_OUTPUT,
   marcusActivationEv,
   marcusRateLog,
   readMarcusInputs,
@@ -115,6 +117,7 @@ export const crossoverMethod = {
     { name: 'log10k', unit: '', description: 'log10 of k in s⁻¹ (null when H_AB = 0).' },
     { name: 'activationFreeEnergy', unit: 'eV', description: 'ΔG‡ = (ΔG° + λ)²/(4λ).' },
     { name: 'regime', unit: '', description: 'normal, activationless or inverted.' },
+    COUPLING_REGIME_OUTPUT,
   ],
   read(reader) {
     const base = readMarcusInputs(reader);
@@ -126,11 +129,13 @@ export const crossoverMethod = {
   },
   compute(inputs, sink) {
     const { deltaG0Ev, lambdaEv, couplingEv, temperatureK, tauLS } = inputs;
-    // The crossover formula is itself the correction B4 asks for, so no coupling-large warning.
-    warnMarcusValidity(inputs, sink, false);
+    const kappa = adiabaticityParameter(couplingEv, lambdaEv, tauLS);
+    const measures = adiabaticityMeasures(couplingEv, lambdaEv, temperatureK, { kappa });
+    // The crossover formula is itself the correction B4 asks for; the warning still says where
+    // the pair sits (SCIENCE.md §3: warn when κ_A > 0.1), worded for a corrected result.
+    warnMarcusValidity(inputs, sink, measures, true);
     const zero = couplingEv === 0;
     const lnNonadiabatic = marcusRateLog(deltaG0Ev, lambdaEv, couplingEv, temperatureK);
-    const kappa = adiabaticityParameter(couplingEv, lambdaEv, tauLS);
     const nonadiabatic = reportRate(lnNonadiabatic, zero, sink, 'lambda');
     const adiabatic = reportRate(
       solventControlledRateLog(deltaG0Ev, lambdaEv, temperatureK, tauLS),
@@ -147,6 +152,7 @@ export const crossoverMethod = {
       log10k: rate.log10k,
       activationFreeEnergy: marcusActivationEv(deltaG0Ev, lambdaEv),
       regime: marcusRegime(deltaG0Ev, lambdaEv),
+      couplingRegime: measures.regime,
     };
   },
 } satisfies MethodDefinition<CrossoverInputs>;

@@ -233,4 +233,62 @@ describe('rate.marcus', () => {
       ),
     );
   });
+
+  describe('one rule for regime and the inverted-region warning (CALC-API.md)', () => {
+    it('never returns activationless together with inverted-region, nor inverted without it', () => {
+      fc.assert(
+        fc.property(
+          fc.double({ min: 0.05, max: 2, noNaN: true }),
+          fc.double({ min: -0.03, max: 0.03, noNaN: true }),
+          (lambda, offset) => {
+            const answer = computeOk('rate.marcus', {
+              ...base,
+              lambda,
+              deltaG0: -lambda * (1 + offset),
+            });
+            const warned = warningCodes(answer).includes('inverted-region');
+            expect(warned).toBe(answer.outputs['regime'] === 'inverted');
+          },
+        ),
+        { numRuns: 300, seed: 13 },
+      );
+    });
+
+    it('is activationless without a warning just inside the band (|ΔG° + λ| = 0.009 λ)', () => {
+      const answer = computeOk('rate.marcus', { ...base, deltaG0: -0.8 * 1.009 });
+      expect(answer.outputs['regime']).toBe('activationless');
+      expect(warningCodes(answer)).not.toContain('inverted-region');
+    });
+  });
+
+  describe('couplingRegime from the Landau–Zener γ with ν_n = 1e13 s⁻¹ (CALC-API.md)', () => {
+    // γ = π^(3/2)H²/(hν_n(λk_BT)^½) (Newton & Sutin 1984, from memory), in SI here.
+    const H_J_S = 6.62607015e-34;
+    const gammaOf = (h: number, lam: number) =>
+      (Math.PI ** 1.5 * (h * E_C) ** 2) /
+      (H_J_S * 1e13 * Math.sqrt(lam * E_C * KB_J_PER_K * 298.15));
+
+    it('is nonadiabatic for SCIENCE.md §3’s H = 0.01 eV, λ = 0.8 eV (γ = 0.094)', () => {
+      expect(gammaOf(0.01, 0.8)).toBeCloseTo(0.094, 3);
+      const answer = computeOk('rate.marcus', base);
+      expect(answer.outputs['couplingRegime']).toBe('nonadiabatic');
+      expect(warningCodes(answer)).not.toContain('coupling-large');
+    });
+
+    it('is adiabatic, with the warning, for H = 0.1 eV, λ = 0.5 eV (γ = 12, SCIENCE.md §3)', () => {
+      expect(gammaOf(0.1, 0.5)).toBeCloseTo(11.9, 1);
+      const answer = computeOk('rate.marcus', { ...base, lambda: 0.5, coupling: 0.1 });
+      expect(answer.outputs['couplingRegime']).toBe('adiabatic');
+      const warning = answer.warnings.find((w) => w.code === 'coupling-large');
+      expect(warning?.message).toContain('γ');
+    });
+
+    it('is intermediate and warns between γ = 0.1 and 10 even when |H| < k_BT', () => {
+      const h = 0.02; // γ ≈ 0.38, |H| < k_BT = 0.0257 eV
+      expect(gammaOf(h, 0.8)).toBeGreaterThan(0.1);
+      const answer = computeOk('rate.marcus', { ...base, coupling: h });
+      expect(answer.outputs['couplingRegime']).toBe('intermediate');
+      expect(warningCodes(answer)).toContain('coupling-large');
+    });
+  });
 });

@@ -6,7 +6,6 @@ import type { InputReader, MethodDefinition, WarningSink } from '../../core/meth
 import {
   noteCouplingSign,
   warnBarrierLowering,
-  warnCouplingLarge,
   warnCouplingMagnitude,
   warnEnergyMagnitude,
   warnInvertedRegion,
@@ -22,6 +21,12 @@ import {
   type Regime,
 } from '../rate-inputs';
 import { reportRate } from '../rate-log';
+import {
+  adiabaticityMeasures,
+  warnAdiabaticity,
+  type AdiabaticityMeasures,
+  type CouplingRegime,
+} from '../coupling-regime';
 
 /** ln(2π/ħ) with ħ in eV s (2π/ħ = 9.545838906e15 eV⁻¹ s⁻¹, CODATA 2018). */
 export const LN_TWO_PI_OVER_HBAR = Math.log((2 * Math.PI) / HBAR_EV_S);
@@ -100,13 +105,22 @@ export function readMarcusInputs(reader: InputReader): MarcusInputs {
   };
 }
 
-/** The validity warnings every classical-Marcus-based rate shares (VALIDATION.md B1, B3–B5, B8–B11). */
-export function warnMarcusValidity(inputs: MarcusInputs, sink: WarningSink, golden: boolean): void {
+/**
+ * The validity warnings every classical-Marcus-based rate shares (VALIDATION.md B1, B3–B5,
+ * B8–B11). B4 (|H_AB| > k_BT, γ > 0.1, κ_A > 0.1) comes from the measures the caller computed.
+ * @param corrected the caller's rate already includes an adiabatic correction
+ */
+export function warnMarcusValidity(
+  inputs: MarcusInputs,
+  sink: WarningSink,
+  measures: AdiabaticityMeasures,
+  corrected = false,
+): void {
   const { deltaG0Ev, lambdaEv, couplingEv, temperatureK, units } = inputs;
   noteCouplingSign(couplingEv, sink);
   warnInvertedRegion(deltaG0Ev, lambdaEv, sink);
   warnLambdaBelowKt(lambdaEv, temperatureK, sink);
-  if (golden) warnCouplingLarge(couplingEv, temperatureK, sink);
+  warnAdiabaticity(couplingEv, temperatureK, measures, sink, corrected);
   warnBarrierLowering(couplingEv, lambdaEv, sink);
   warnTemperatureRange(temperatureK, sink);
   warnEnergyMagnitude('lambda', 'lambda', lambdaEv, units.lambda, sink);
@@ -114,11 +128,21 @@ export function warnMarcusValidity(inputs: MarcusInputs, sink: WarningSink, gold
   warnCouplingMagnitude('coupling', couplingEv, units.coupling, sink);
 }
 
+/** The `couplingRegime` output every rate method lists (CALC-API.md). */
+export const COUPLING_REGIME_OUTPUT = {
+  name: 'couplingRegime',
+  unit: '',
+  description:
+    'nonadiabatic, intermediate or adiabatic: from κ_A when τ_L is known, else from the ' +
+    'Landau–Zener γ with ν_n = 1e13 s⁻¹ (< 0.1 nonadiabatic, > 10 adiabatic).',
+} as const;
+
 export interface MarcusOutputs {
   readonly k: number;
   readonly log10k: number | null;
   readonly activationFreeEnergy: number;
   readonly regime: Regime;
+  readonly couplingRegime: CouplingRegime;
   [key: string]: unknown;
 }
 
@@ -170,11 +194,13 @@ export const marcusMethod = {
     },
     { name: 'activationFreeEnergy', unit: 'eV', description: 'ΔG‡ = (ΔG° + λ)²/(4λ).' },
     { name: 'regime', unit: '', description: 'normal, activationless or inverted.' },
+    COUPLING_REGIME_OUTPUT,
   ],
   read: readMarcusInputs,
   compute(inputs, sink): MarcusOutputs {
     const { deltaG0Ev, lambdaEv, couplingEv, temperatureK } = inputs;
-    warnMarcusValidity(inputs, sink, true);
+    const measures = adiabaticityMeasures(couplingEv, lambdaEv, temperatureK);
+    warnMarcusValidity(inputs, sink, measures);
     const lnK = marcusRateLog(deltaG0Ev, lambdaEv, couplingEv, temperatureK);
     const rate = reportRate(lnK, couplingEv === 0, sink, 'lambda');
     return {
@@ -182,6 +208,7 @@ export const marcusMethod = {
       log10k: rate.log10k,
       activationFreeEnergy: marcusActivationEv(deltaG0Ev, lambdaEv),
       regime: marcusRegime(deltaG0Ev, lambdaEv),
+      couplingRegime: measures.regime,
     };
   },
 } satisfies MethodDefinition<MarcusInputs>;

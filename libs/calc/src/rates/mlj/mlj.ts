@@ -8,14 +8,14 @@ import { logGamma } from '../../core/special/log-gamma';
 import {
   noteCouplingSign,
   warnBarrierLowering,
-  warnCouplingLarge,
   warnCouplingMagnitude,
   warnEnergyMagnitude,
   warnLambdaBelowKt,
   warnTemperatureRange,
   WARNING_CODES,
 } from '../../core/warnings';
-import { LN_TWO_PI_OVER_HBAR } from '../marcus/marcus';
+import { adiabaticityMeasures, warnAdiabaticity } from '../coupling-regime';
+import { COUPLING_REGIME_OUTPUT, LN_TWO_PI_OVER_HBAR } from '../marcus/marcus';
 import {
   LAMBDA_MESSAGE,
   MAX_ENERGY_EV,
@@ -224,6 +224,7 @@ export const mljMethod = {
     { name: 'huangRhys', unit: '', description: 'Huang–Rhys factor S = λ_v/ħω.' },
     { name: 'termsUsed', unit: '', description: 'Vibronic terms summed until converged.' },
     { name: 'regime', unit: '', description: 'Regime by the CALC-API rule with λ = λ_s + λ_v.' },
+    COUPLING_REGIME_OUTPUT,
   ],
   read(reader) {
     const deltaG0Ev = readEnergy(reader, 'deltaG0');
@@ -267,7 +268,9 @@ export const mljMethod = {
     const thermalEv = BOLTZMANN_EV_PER_K * temperatureK;
     noteCouplingSign(couplingEv, sink);
     warnLambdaBelowKt(lambdaSolventEv, temperatureK, sink);
-    warnCouplingLarge(couplingEv, temperatureK, sink);
+    // γ with the total λ: the curvature of the diabatic surfaces along the reaction coordinate.
+    const measures = adiabaticityMeasures(couplingEv, lambdaSolventEv + lambdaVibEv, temperatureK);
+    warnAdiabaticity(couplingEv, temperatureK, measures, sink);
     warnBarrierLowering(couplingEv, lambdaSolventEv + lambdaVibEv, sink);
     warnTemperatureRange(temperatureK, sink);
     warnEnergyMagnitude(
@@ -283,7 +286,8 @@ export const mljMethod = {
     if (hbarOmegaEv < 4 * thermalEv && lambdaVibEv > 0) {
       sink.warn(
         WARNING_CODES.lowFrequencyMode,
-        `Low-frequency mode (ħω = ${hbarOmegaEv} eV < 4k_BT): use thermal MLJ or include it in λ_s.`,
+        `Low-frequency mode (ħω = ${hbarOmegaEv} eV < 4k_BT): use rate.mljThermal (the ` +
+          'finite-temperature form) or include the mode in λ_s.',
       );
     }
     const sum = mljRateLog(
@@ -307,6 +311,7 @@ export const mljMethod = {
       huangRhys: lambdaVibEv / hbarOmegaEv,
       termsUsed: sum.termsUsed,
       regime: marcusRegime(deltaG0Ev, lambdaSolventEv + lambdaVibEv),
+      couplingRegime: measures.regime,
     };
   },
 } satisfies MethodDefinition<MljInputs>;

@@ -1,6 +1,7 @@
 import seedrandom from 'seedrandom';
 import { describe, expect, it } from 'vitest';
 
+import { calculate } from '../../core/calculate';
 import { computeOk, computeRefused, numberOutput } from '../../core/testing/answers';
 
 import {
@@ -125,7 +126,7 @@ describe('transport.hopping method', () => {
     expect(warnCodes(base)).toEqual([]);
     expect(
       warnCodes({ ...base, neighbours: [{ distanceAngstrom: 5, couplingEv: 0.06, deltaG0Ev: 0 }] }),
-    ).toEqual(['hopping-band-regime']);
+    ).toEqual(['hopping-band-regime', 'coupling-large']); // J > k_BT is also B4 (SCIENCE.md §3)
   });
 
   it('warns hopping-pi-weighted-form and halves D on the chain with that form (B28)', () => {
@@ -168,5 +169,71 @@ describe('transport.hopping through the dispatcher', () => {
     });
     expect(errors).toContainEqual({ field: 'neighbors[0].distance', message });
     expect(errors).toContainEqual({ field: 'dimensions', message });
+  });
+
+  describe('the same refusals and ranges as the rate methods', () => {
+    const request = (inputs: object) => ({
+      neighbors: [{ distance: 5, coupling: 0.005 }],
+      lambda: 0.2,
+      temperature: 300,
+      dimensions: 1,
+      ...inputs,
+    });
+
+    it('refuses 2|J| ≥ λ as class III, as rate.marcus does (VALIDATION.md A5)', () => {
+      const marcus = computeRefused('rate.marcus', {
+        deltaG0: 0,
+        lambda: 0.2,
+        coupling: 0.1,
+        temperature: 300,
+      });
+      const errors = computeRefused(
+        'transport.hopping',
+        request({
+          neighbors: [
+            { distance: 5, coupling: 0.005 },
+            { distance: 5, coupling: 0.1 },
+          ],
+        }),
+      );
+      expect(errors).toContainEqual({ field: 'neighbors[1].coupling', message: marcus[0].message });
+    });
+
+    it('treats λ = 1e-300 eV as rate.marcus does (same warnings, same refusal or rate)', () => {
+      const marcus = calculate({
+        method: 'rate.marcus',
+        inputs: { deltaG0: 0, lambda: 1e-300, coupling: 0.005, temperature: 300 },
+      });
+      const hopping = calculate({
+        method: 'transport.hopping',
+        inputs: request({ lambda: 1e-300 }),
+      });
+      expect(hopping.ok).toBe(marcus.ok);
+      if (hopping.ok && marcus.ok) {
+        expect(hopping.warnings.map((w) => w.code)).toContain('lambda-below-kt');
+        expect(marcus.warnings.map((w) => w.code)).toContain('lambda-below-kt');
+        expect((hopping.outputs['log10Rates'] as number[])[0]).toBeCloseTo(
+          marcus.outputs['log10k'] as number,
+          9,
+        );
+      }
+      // Beyond the energy range the rate methods accept, both refuse on λ.
+      const tooLarge = computeRefused('transport.hopping', request({ lambda: 1e6 }));
+      expect(tooLarge.map((e) => e.field)).toContain('lambda');
+    });
+
+    it('reports couplingRegime per hop and the §3 warnings', () => {
+      const answer = computeOk(
+        'transport.hopping',
+        request({
+          neighbors: [
+            { distance: 5, coupling: 0.005 },
+            { distance: 5, coupling: 0.05 },
+          ],
+        }),
+      );
+      expect(answer.outputs['couplingRegimes']).toEqual(['nonadiabatic', 'intermediate']);
+      expect(answer.warnings.map((w) => w.code)).toContain('coupling-large');
+    });
   });
 });

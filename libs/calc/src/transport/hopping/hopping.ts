@@ -1,6 +1,11 @@
 /** Hopping transport between equivalent sites: Marcus pair rates, diffusion and mobility. */
 import { BOLTZMANN_EV_PER_K, HBAR_EV_S } from '../../core/constants';
 import type { MethodDefinition, WarningSink } from '../../core/method';
+// Transfer integrals J carry a sign by convention, so no coupling-negative note here.
+import { warnLambdaBelowKt, warnTemperatureRange } from '../../core/warnings';
+import { adiabaticityMeasures, warnAdiabaticity } from '../../rates/coupling-regime';
+import { readEnergy, readLambda, readTemperature, refuseClassIII } from '../../rates/rate-inputs';
+import { reportRate } from '../../rates/rate-log';
 
 const CM_PER_ANGSTROM = 1e-8;
 const NEIGHBOUR_MESSAGE = 'Need ≥ 1 neighbour with r > 0 and n = 1, 2 or 3.';
@@ -198,6 +203,12 @@ export const hoppingMethod = {
     { name: 'diffusionRandomWalk', unit: 'cm2 s-1', description: 'D = (1/2n) Σ r² k.' },
     { name: 'diffusionPiWeighted', unit: 'cm2 s-1', description: 'Literature P_i-weighted D.' },
     { name: 'form', unit: '', description: 'Form used for diffusion and mobility.' },
+    {
+      name: 'couplingRegimes',
+      unit: '',
+      description:
+        'couplingRegime of each hop (nonadiabatic, intermediate, adiabatic) from the Landau–Zener γ with ν_n = 1e13 s⁻¹.',
+    },
   ],
   read(reader) {
     const children = reader.objectArray('neighbors', { minLength: 1, message: NEIGHBOUR_MESSAGE });
@@ -206,17 +217,13 @@ export const hoppingMethod = {
         greaterThan: 0,
         message: NEIGHBOUR_MESSAGE,
       }),
-      couplingEv: child.quantity('coupling', 'energy'),
-      deltaG0Ev: child.optionalQuantity('deltaG0', 'energy') ?? 0,
+      couplingEv: readEnergy(child, 'coupling'),
+      deltaG0Ev: child.raw('deltaG0') === undefined ? 0 : readEnergy(child, 'deltaG0'),
     }));
-    const lambdaEv = reader.quantity('lambda', 'energy', {
-      greaterThan: 0,
-      message: 'Reorganization energy must be a positive number.',
-    });
-    const temperatureK = reader.quantity('temperature', 'temperature', {
-      greaterThan: 0,
-      message: 'Temperature must be > 0 K (absolute). Did you enter °C?',
-    });
+    // The same readers, ranges and class III refusal as rate.marcus (VALIDATION.md A1, A2, A5).
+    const lambdaEv = readLambda(reader, 'lambda');
+    const temperatureK = readTemperature(reader);
+    children.forEach((child, i) => refuseClassIII(child, neighbours[i].couplingEv, lambdaEv));
     const dimensions = reader.integer('dimensions', {
       atLeast: 1,
       atMost: 3,
@@ -231,7 +238,22 @@ export const hoppingMethod = {
   },
   compute(inputs, warnings) {
     warnHopping(inputs, warnings);
-    return { ...hoppingTransport(inputs) };
+    const { lambdaEv, temperatureK } = inputs;
+    warnLambdaBelowKt(lambdaEv, temperatureK, warnings);
+    warnTemperatureRange(temperatureK, warnings);
+    const result = hoppingTransport(inputs);
+    // Each pair rate goes through the rate methods' range check: refused beyond the double
+    // range, reported as 0 with the underflow note below it.
+    inputs.neighbours.forEach((n, i) => {
+      const lnK = logMarcusRate(n.couplingEv, n.deltaG0Ev, lambdaEv, temperatureK);
+      reportRate(lnK, n.couplingEv === 0, warnings, `neighbors[${i}].coupling`);
+    });
+    const couplingRegimes = inputs.neighbours.map((n) => {
+      const measures = adiabaticityMeasures(n.couplingEv, lambdaEv, temperatureK);
+      warnAdiabaticity(n.couplingEv, temperatureK, measures, warnings);
+      return measures.regime;
+    });
+    return { ...result, couplingRegimes };
   },
 } satisfies MethodDefinition<HoppingInputs>;
 

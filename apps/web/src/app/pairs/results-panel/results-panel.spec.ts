@@ -49,6 +49,15 @@ describe('ResultsPanel', () => {
     expect(shownText(el)).not.toContain('_');
   });
 
+  it('shows the coupling regime beside the driving-force regime', () => {
+    const el = render(0.05, { couplingRegime: 'intermediate' });
+    const chips = Array.from(el.querySelectorAll('.regime-chip'), (c) => c.textContent?.trim());
+    expect(chips).toEqual(['normal', 'intermediate']);
+    expect(el.querySelector('[data-coupling-regime="intermediate"]')).not.toBeNull();
+    // Results stored before the core reported it show only the driving-force regime.
+    expect(render(0.0056).querySelectorAll('.regime-chip').length).toBe(1);
+  });
+
   it('says so in words with subscripts when |H_AB| exceeds k_BT', () => {
     const el = render(0.05, { model: 'crossover', warnings: [] });
     const regime = el.querySelector('.regime p')!;

@@ -96,7 +96,7 @@ export class ResultsPanel {
           : adiabaticHint
             ? 'Near the adiabatic limit: see the warnings.'
             : 'Nonadiabatic: |H_AB| is well below k_BT.';
-    return { nuclearCode: r.regime, nuclear, electronic };
+    return { nuclearCode: r.regime, couplingCode: r.couplingRegime ?? null, nuclear, electronic };
   });
 
   protected readonly histogramBars = computed(() => {
