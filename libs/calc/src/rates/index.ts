@@ -1,6 +1,7 @@
 /** Rate methods of the calculation core (classical Marcus, MLJ, crossover, ruler, cross relation). */
 import type { MethodDefinition } from '../core/method';
 import { crossRelationMethod } from './cross-relation/cross-relation';
+import { crossRelationWorkMethod } from './cross-relation-work/cross-relation-work';
 import { crossoverMethod } from './crossover/crossover';
 import { marcusMethod } from './marcus/marcus';
 import { mljMethod } from './mlj/mlj';
@@ -13,4 +14,5 @@ export const rateMethods: MethodDefinition<any>[] = [
   crossoverMethod,
   rulerMethod,
   crossRelationMethod,
+  crossRelationWorkMethod,
 ];
