@@ -141,4 +141,60 @@ describe('POST /api/calc', () => {
     }
     expect(JSON.parse(lines[1]!).ok).toBe(false);
   });
+
+  it('answers the second-wave methods as the core does (reference electrodes, nm, refusal by field)', async () => {
+    const s = await registerUser(t.app, 'calc2');
+    const token = (await s.post('/api/tokens', { name: 'calc2' }).expect(201)).body.token as string;
+    const post = (body: unknown) =>
+      request(t.app)
+        .post('/api/calc')
+        .set('Authorization', `Bearer ${token}`)
+        .set('Content-Type', 'application/json')
+        .send(JSON.stringify(body));
+    const converted = await post({
+      method: 'drivingForce.reference',
+      inputs: { potential: 0.35, from: 'Fc', fromSolvent: 'MeCN', to: 'SCE' },
+    }).expect(200);
+    // Pavlishchuk & Addison 2000 (from memory): Fc⁺/Fc is +0.380 V vs SCE in MeCN.
+    expect(converted.body.outputs.potential).toBeCloseTo(0.73, 12);
+    const mixed = await post({
+      method: 'drivingForce.rehmWeller',
+      inputs: {
+        donorOxidation: { value: 1.2, unit: 'V', reference: 'SCE' },
+        acceptorReduction: { value: -1.18, unit: 'V', reference: 'Fc', solvent: 'MeCN' },
+        excitationEnergy: { value: 496, unit: 'nm' },
+        distance: 7,
+        epsilon: 35.94,
+      },
+    }).expect(200);
+    expect(mixed.body.warnings.map((w: { code: string }) => w.code)).toContain(
+      'reference-electrode',
+    );
+    const modes = await post({
+      method: 'reorg.normalModes',
+      inputs: {
+        modes: [
+          { hbarOmega: 0.2, huangRhys: 0.5 },
+          { hbarOmega: 0.1, huangRhys: 1 },
+        ],
+      },
+    }).expect(200);
+    expect(modes.body.outputs.lambdaVib).toBeCloseTo(0.2, 14);
+    const refused = await post({
+      method: 'analysis.temperature',
+      inputs: { points: [{ temperature: 300, k: 1 }] },
+    }).expect(400);
+    expect(refused.body.errors[0].field).toBe('points');
+    const nmOnEnergy = await post({
+      method: 'rate.marcus',
+      inputs: {
+        deltaG0: -0.3,
+        lambda: { value: 500, unit: 'nm' },
+        coupling: 0.01,
+        temperature: 298,
+      },
+    }).expect(400);
+    expect(nmOnEnergy.body.errors[0]).toMatchObject({ field: 'lambda' });
+    expect(nmOnEnergy.body.errors[0].message).toContain('wavelength');
+  });
 });

@@ -121,4 +121,92 @@ describe('gapwise calc', () => {
     },
     SLOW,
   );
+
+  it(
+    'answers the second-wave methods (reference electrodes, nm, Stern–Volmer, k(T) fits, work terms, absolute MHC, normal modes) as calculate() does',
+    async () => {
+      const requests = [
+        {
+          method: 'drivingForce.reference',
+          inputs: { potential: 0.35, from: 'Fc', fromSolvent: 'MeCN', to: 'SCE' },
+        },
+        {
+          method: 'drivingForce.rehmWeller',
+          inputs: {
+            donorOxidation: { value: 1.2, unit: 'V', reference: 'SCE' },
+            acceptorReduction: { value: -1.18, unit: 'V', reference: 'Fc', solvent: 'MeCN' },
+            excitationEnergy: { value: 496, unit: 'nm' },
+            distance: 7,
+            epsilon: 35.94,
+          },
+        },
+        {
+          method: 'quench.sternVolmer',
+          inputs: { lifetime: 6e-7, kq: 2e9, concentration: 1e-3 },
+        },
+        {
+          method: 'analysis.temperature',
+          inputs: {
+            points: [
+              { temperature: 280, k: 2e6 },
+              { temperature: 300, k: 6e6 },
+              { temperature: 320, k: 1.6e7 },
+            ],
+            lambda: 0.8,
+            deltaG0: -0.3,
+          },
+        },
+        {
+          method: 'rate.crossRelationWork',
+          inputs: {
+            k11: 4.2,
+            k22: 3.3e6,
+            K12: 1.2e4,
+            temperature: 298.15,
+            charge1: 2,
+            charge2: 3,
+            productCharge1: 3,
+            productCharge2: 2,
+            radius1: 3.4,
+            radius2: 6.8,
+            epsilon: 78.4,
+            ionicStrength: 0.1,
+          },
+        },
+        {
+          method: 'electrode.mhcAbsolute',
+          inputs: {
+            lambda: 0.3,
+            overpotential: -0.1,
+            temperature: 298.15,
+            coupling: 0.001,
+            densityOfStates: 0.3,
+          },
+        },
+        {
+          method: 'reorg.normalModes',
+          inputs: { modes: [{ hbarOmega: { value: 1600, unit: 'cm-1' }, huangRhys: 0.4 }] },
+        },
+      ];
+      const run = await gapwise(
+        ['calc', '--batch'],
+        requests.map((r) => JSON.stringify(r)).join('\n') + '\n',
+      );
+      const out = run.stdout.trim().split('\n');
+      expect(out).toHaveLength(requests.length);
+      for (const [i, request] of requests.entries()) {
+        expect(out[i]).toBe(serializeAnswer(calculate(request)));
+        expect(JSON.parse(out[i]!).ok).toBe(true);
+      }
+      expect(run.code).toBe(0);
+      // Mixed references are converted and flagged (VALIDATION.md B15).
+      expect(JSON.parse(out[1]!).warnings.map((w: { code: string }) => w.code)).toContain(
+        'reference-electrode',
+      );
+      const help = await gapwise(['calc', '--help'], '');
+      for (const id of requests.map((r) => r.method)) expect(help.stdout).toContain(`  ${id}\n`);
+      expect(help.stdout).toContain('nm');
+    },
+    SLOW,
+  );
 });

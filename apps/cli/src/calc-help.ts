@@ -2,7 +2,12 @@
  * `gapwise calc --help`, generated from the method registry (`methodCatalog`), so the help can
  * never list a method, input or unit the dispatcher does not know.
  */
-import { methodCatalog, type CatalogEntry } from '@gapwise/calc';
+import {
+  FERROCENE_SOLVENTS,
+  methodCatalog,
+  REFERENCE_ELECTRODES,
+  type CatalogEntry,
+} from '@gapwise/calc';
 
 function describeInput(input: CatalogEntry['inputs'][number]): string {
   const unit = input.unit === '' ? input.quantity : `${input.quantity}, ${input.unit}`;
@@ -13,13 +18,15 @@ function describeInput(input: CatalogEntry['inputs'][number]): string {
     : input.defaultValue !== undefined
       ? `optional, default ${input.defaultValue}`
       : 'optional';
-  return `      ${input.name.padEnd(20)} ${unit}${accepted}; ${need}. ${input.description}`;
+  const scale = input.referenced ? ' Accepts a reference electrode (see above).' : '';
+  return `      ${input.name.padEnd(20)} ${unit}${accepted}; ${need}. ${input.description}${scale}`;
 }
 
 function describeMethod(method: CatalogEntry): string[] {
   return [
     `  ${method.id}`,
     `    ${method.summary}`,
+    ...method.references.map((reference) => `    source: ${reference}`),
     '    inputs:',
     ...method.inputs.map(describeInput),
     '    outputs:',
@@ -40,6 +47,10 @@ export function calcHelp(): string {
     '',
     'Request: { "method": "<id>", "inputs": { "<name>": number | { "value": number, "unit": "<unit>" } } }',
     'A bare number is in the canonical unit shown below.',
+    'An energy of light (excitation energy) also accepts a wavelength: { "value": 496, "unit": "nm" }.',
+    'An electrode potential may name its reference electrode and solvent and is put on SHE:',
+    `  { "value": 0.35, "unit": "V", "reference": "Fc", "solvent": "MeCN" }; reference one of`,
+    `  ${REFERENCE_ELECTRODES.join(', ')}; Fc needs solvent ${FERROCENE_SOLVENTS.join(', ')}.`,
     '',
     'Exit codes: 0 every answer ok; 2 a request was refused, named an unknown method or was not',
     'valid JSON (in --batch: any line); 1 malformed command line.',

@@ -25,7 +25,28 @@ export {
   quantityPhrase,
   unrecognisedUnitMessage,
   differenceScale,
+  photonEnergyEvFromNm,
+  wavelengthNmFromEv,
 } from './core/units';
+// Reference electrodes: offsets with sources, for potentials typed against any of them.
+export {
+  FERROCENE_SOLVENTS,
+  REFERENCE_ELECTRODES,
+  REFERENCE_ELECTRODE_LABELS,
+  convertPotential,
+  isFerroceneSolvent,
+  isReferenceElectrode,
+  potentialScaleLabel,
+  referenceOffsetVsShe,
+  samePotentialScale,
+} from './core/reference-electrodes';
+export type {
+  FerroceneSolvent,
+  PotentialConversion,
+  PotentialScale,
+  ReferenceElectrode,
+  ReferenceOffsetResult,
+} from './core/reference-electrodes';
 export type { ConversionResult } from './core/units';
 export { RequestInputReader, WarningCollector, parseStrictNumber } from './core/inputs';
 export { WARNING_CODES, thermalEnergyEv } from './core/warnings';

@@ -186,3 +186,91 @@ export function temperatureCurve(
     pair: own !== null ? { x: 1000 / temperature, y: own } : null,
   };
 }
+
+/** A measured rate at one temperature (K, s⁻¹). */
+export interface MeasuredRate {
+  readonly temperature: number;
+  readonly k: number;
+}
+
+export interface ArrheniusFitGeometry {
+  /** Measured points on the Arrhenius axes (1000/T, log10 k). */
+  readonly measured: readonly { readonly x: number; readonly y: number }[];
+  /** The fitted straight line over `inverseTDomain` (two end points), or null when refused. */
+  readonly line: readonly { readonly x: number; readonly y: number }[] | null;
+  /** E_a and its standard error (eV), null when refused. */
+  readonly ea: { readonly value: number; readonly error: number } | null;
+  /** ΔH‡ (eV) and ΔS‡ (J mol⁻¹ K⁻¹) with standard errors, from the Eyring fit. */
+  readonly eyring: {
+    readonly enthalpy: number;
+    readonly enthalpyError: number;
+    readonly entropy: number;
+    readonly entropyError: number;
+  } | null;
+  /** The core's refusal messages (e.g. fewer than 3 distinct temperatures). */
+  readonly errors: readonly string[];
+  /** Domains widened to hold the measured points. */
+  readonly inverseTDomain: readonly [number, number];
+  readonly log10kDomain: readonly [number, number];
+}
+
+/**
+ * Measured k(T) on the Arrhenius axes with the `analysis.temperature` least-squares line, and the
+ * plot's domains widened to hold them (the fit itself comes from the calculation core).
+ */
+export function arrheniusFitGeometry(
+  points: readonly MeasuredRate[],
+  inverseTDomain: readonly [number, number],
+  log10kDomain: readonly [number, number],
+): ArrheniusFitGeometry {
+  const measured = points
+    .filter((p) => p.temperature > 0 && p.k > 0)
+    .map((p) => ({ x: 1000 / p.temperature, y: Math.log10(p.k) }));
+  const xs = [...inverseTDomain, ...measured.map((p) => p.x)];
+  const ys = [...log10kDomain, ...measured.map((p) => p.y)];
+  const xDomain: [number, number] = [Math.min(...xs), Math.max(...xs)];
+  const yDomain: [number, number] = [Math.min(...ys), Math.max(...ys)];
+  const widen = (d: [number, number], lo: number, hi: number, pad: number): [number, number] =>
+    d[0] === lo && d[1] === hi ? d : [d[0] - pad, d[1] + pad];
+  const domains = {
+    inverseTDomain: widen(
+      xDomain,
+      inverseTDomain[0],
+      inverseTDomain[1],
+      0.02 * (xDomain[1] - xDomain[0]),
+    ),
+    log10kDomain: widen(yDomain, log10kDomain[0], log10kDomain[1], 0.2),
+  };
+  const answer = calculate({ method: 'analysis.temperature', inputs: { points } });
+  if (!answer.ok) {
+    return {
+      measured,
+      line: null,
+      ea: null,
+      eyring: null,
+      errors: answer.errors.map((e) => e.message),
+      ...domains,
+    };
+  }
+  const o = answer.outputs as Record<string, unknown>;
+  const se = o['standardErrors'] as Record<string, number>;
+  const ea = o['arrheniusEa'] as number;
+  const lnA = Math.log(o['arrheniusPrefactor'] as number);
+  const at = (x: number) => ({
+    x,
+    y: (lnA - (ea * x) / (1000 * BOLTZMANN_EV_PER_K)) / Math.LN10,
+  });
+  return {
+    measured,
+    line: [at(domains.inverseTDomain[0]), at(domains.inverseTDomain[1])],
+    ea: { value: ea, error: se['arrheniusEa']! },
+    eyring: {
+      enthalpy: o['eyringEnthalpy'] as number,
+      enthalpyError: se['eyringEnthalpy']!,
+      entropy: o['eyringEntropy'] as number,
+      entropyError: se['eyringEntropy']!,
+    },
+    errors: [],
+    ...domains,
+  };
+}

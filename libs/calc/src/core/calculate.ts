@@ -130,6 +130,7 @@ export function runDefinition(method: MethodDefinition<any>, rawInputs: unknown)
   }
   if (reader.failed) return refuse([...reader.fieldErrors]);
   const warnings = new WarningCollector();
+  reader.warnMixedReferences(warnings);
   let outputs: CalcOutputs;
   try {
     outputs = method.compute(inputs, warnings);

@@ -32,3 +32,8 @@ export const KCAL_PER_MOL_PER_EV = 23.06054783;
 export const EV_PER_HARTREE = 27.211386245988;
 /** e·Å per debye: 1 D = 1e-21/c C m = 0.20819433271 e·Å (exact definition, CODATA 2018 c and e). */
 export const E_ANGSTROM_PER_DEBYE = 0.20819433271;
+/**
+ * hc in eV nm, for energies of light E = hc/λ: h (eV s, exact) × c (nm s⁻¹, exact) =
+ * 1239.84198 eV nm (SCIENCE.md §16).
+ */
+export const HC_EV_NM = PLANCK_EV_S * 2.99792458e17;

@@ -14,7 +14,16 @@ import type {
   ReadOptions,
   WarningSink,
 } from './method';
+import {
+  isReferenceElectrode,
+  potentialScaleLabel,
+  REFERENCE_ELECTRODES,
+  referenceOffsetVsShe,
+  samePotentialScale,
+  type PotentialScale,
+} from './reference-electrodes';
 import { canonicalUnit, isUnitFor, toCanonical, unrecognisedUnitMessage } from './units';
+import { WARNING_CODES } from './warnings';
 
 /** At most this many element errors are listed per array (VALIDATION.md A16 lists 20). */
 const MAX_ELEMENT_ERRORS = 20;
@@ -45,7 +54,13 @@ export function notFiniteMessage(field: string): string {
 }
 
 type Parsed =
-  { readonly ok: true; readonly value: number; readonly unit: string } | { readonly ok: false };
+  | {
+      readonly ok: true;
+      readonly value: number;
+      readonly unit: string;
+      readonly scale?: PotentialScale;
+    }
+  | { readonly ok: false };
 
 function describeBound(bound: number, unit: string): string {
   return unit === '' ? `${bound}` : `${bound} ${unit}`;
@@ -58,6 +73,7 @@ export class RequestInputReader implements InputReader {
   private readonly errors: FieldError[];
   private readonly readNames = new Set<string>();
   private readonly typedUnits = new Map<string, string>();
+  private readonly scales = new Map<string, PotentialScale>();
   private readonly children: RequestInputReader[] = [];
   private readonly source: Record<string, unknown>;
 
@@ -93,6 +109,32 @@ export class RequestInputReader implements InputReader {
     this.errors.push({ field: this.path(field), message });
   }
 
+  potentialScale(name: string): PotentialScale | undefined {
+    return this.scales.get(name);
+  }
+
+  /**
+   * VALIDATION.md B15: the potentials of one calculation given against different reference
+   * electrodes or in different solvents. They were converted to SHE with the published offsets;
+   * the warning says so, names both scales and why that is not as good as one reference.
+   */
+  warnMixedReferences(sink: WarningSink): void {
+    const entries = [...this.scales.entries()];
+    for (let i = 1; i < entries.length; i++) {
+      const [firstName, first] = entries[0]!;
+      const [name, scale] = entries[i]!;
+      if (samePotentialScale(first, scale)) continue;
+      sink.warn(
+        WARNING_CODES.referenceElectrode,
+        `${this.path(firstName)} is vs ${potentialScaleLabel(first)} but ${this.path(name)} is vs ` +
+          `${potentialScaleLabel(scale)}: potentials of one calculation must be vs the same ` +
+          'reference electrode in the same solvent. Both were put on the SHE scale with published ' +
+          'offsets, which leave a liquid-junction uncertainty of tens of mV between solvents.',
+      );
+    }
+    for (const child of this.children) child.warnMixedReferences(sink);
+  }
+
   unitOf(name: string): string {
     return this.typedUnits.get(name) ?? '';
   }
@@ -120,9 +162,10 @@ export class RequestInputReader implements InputReader {
       if (opts.defaultValue !== undefined) this.echo[this.path(name)] = opts.defaultValue;
       return undefined;
     }
-    const parsed = this.parseQuantity(raw, this.path(name), quantity);
+    const parsed = this.parseQuantity(raw, this.path(name), quantity, true, opts.referenced);
     if (!parsed.ok) return Number.NaN;
     this.typedUnits.set(name, parsed.unit);
+    if (parsed.scale) this.scales.set(name, parsed.scale);
     if (!this.checkBounds(parsed.value, name, quantity, opts)) return Number.NaN;
     this.echo[this.path(name)] = parsed.value;
     return parsed.value;
@@ -258,19 +301,51 @@ export class RequestInputReader implements InputReader {
     return unknown.concat(...this.children.map((child) => child.unknownFields()));
   }
 
-  private parseQuantity(raw: unknown, field: string, quantity: Quantity, report = true): Parsed {
+  private parseQuantity(
+    raw: unknown,
+    field: string,
+    quantity: Quantity,
+    report = true,
+    referenced = false,
+  ): Parsed {
     const failWith = (message: string): Parsed => {
       if (report) this.errors.push({ field, message });
       return { ok: false };
     };
     let value: unknown = raw;
     let unit = '';
+    let offsetV = 0;
+    let scale: PotentialScale | undefined;
     if (isPlainObject(raw)) {
-      const extra = Object.keys(raw).filter((key) => key !== 'value' && key !== 'unit');
+      const scaleKeys = quantity === 'potential' ? ['reference', 'solvent'] : [];
+      const extra = Object.keys(raw).filter(
+        (key) => key !== 'value' && key !== 'unit' && !scaleKeys.includes(key),
+      );
       if (extra.length > 0) {
         return failWith(
           `Field ${field} has unexpected key '${extra[0]}'; give a number or { value, unit }.`,
         );
+      }
+      if (raw['reference'] !== undefined || raw['solvent'] !== undefined) {
+        if (!referenced) {
+          return failWith(
+            `Field ${field} is a difference of potentials: a reference electrode does not apply.`,
+          );
+        }
+        const reference = raw['reference'];
+        const solvent = raw['solvent'];
+        if (!isReferenceElectrode(reference)) {
+          return failWith(
+            `Field ${field}: reference must be one of ${REFERENCE_ELECTRODES.join(', ')}.`,
+          );
+        }
+        if (solvent !== undefined && (typeof solvent !== 'string' || solvent.trim() === '')) {
+          return failWith(`Field ${field}: solvent must be a non-empty string.`);
+        }
+        scale = solvent === undefined ? { reference } : { reference, solvent: solvent.trim() };
+        const offset = referenceOffsetVsShe(scale);
+        if (!offset.ok) return failWith(`Field ${field}: ${offset.message}`);
+        offsetV = offset.offsetV;
       }
       value = raw['value'];
       if (raw['unit'] !== undefined) {
@@ -282,16 +357,20 @@ export class RequestInputReader implements InputReader {
     if (typeof value !== 'number' || !Number.isFinite(value))
       return failWith(notFiniteMessage(field));
     if (unit === '' || unit === canonicalUnit(quantity)) {
-      return { ok: true, value: unit === '' ? value : toCanonical(value, unit, quantity), unit };
+      const canonical = unit === '' ? value : toCanonical(value, unit, quantity);
+      return { ok: true, value: canonical + offsetV, unit, scale };
     }
     if (!isUnitFor(unit, quantity)) return failWith(unrecognisedUnitMessage(unit, quantity));
-    const converted = toCanonical(value, unit, quantity);
+    if (unit === 'nm' && quantity === 'photonEnergy' && !(value > 0)) {
+      return failWith(`Field ${field}: a wavelength must be greater than 0 nm.`);
+    }
+    const converted = toCanonical(value, unit, quantity) + offsetV;
     if (!Number.isFinite(converted)) {
       return failWith(
         `Field ${field} is out of range after conversion to ${canonicalUnit(quantity)}.`,
       );
     }
-    return { ok: true, value: converted, unit };
+    return { ok: true, value: converted, unit, scale };
   }
 
   private checkBounds(value: number, name: string, quantity: Quantity, opts: ReadOptions): boolean {

@@ -4,6 +4,8 @@
  * the one registry of `MethodDefinition`s, so there is never a second list to keep in step.
  */
 
+import type { PotentialScale } from './reference-electrodes';
+
 /** One refused field: `field` is the input's name as the request spells it (dotted for nested). */
 export interface FieldError {
   readonly field: string;
@@ -35,6 +37,7 @@ export type CalcAnswer =
 /** Physical kinds of input, each with one canonical unit (CALC-API.md). */
 export type Quantity =
   | 'energy' // eV
+  | 'photonEnergy' // eV; an energy of light, also accepted as a wavelength in nm (E = hc/λ)
   | 'distance' // Å
   | 'temperature' // K
   | 'potential' // V
@@ -65,6 +68,11 @@ export interface InputSpec {
   readonly label?: string;
   /** Default used when an optional input is absent (canonical unit). */
   readonly defaultValue?: number | string;
+  /**
+   * A potential on an electrode scale: accepts `{ value, unit, reference, solvent }` and is
+   * converted to SHE (`core/reference-electrodes.ts`). Absent for potential differences.
+   */
+  readonly referenced?: boolean;
 }
 
 /** Describes one output: canonical unit (or '' for dimensionless / classifications). */
@@ -98,6 +106,11 @@ export interface InputReader {
   raw(name: string): unknown;
   /** Records an error directly (for cross-field rules). */
   fail(field: string, message: string): void;
+  /**
+   * The reference electrode (and solvent) a potential was given against, when the request named
+   * one (only inputs read with `referenced: true`); the value read is then vs SHE.
+   */
+  potentialScale(name: string): PotentialScale | undefined;
   /** Whether any error has been recorded so far. */
   readonly failed: boolean;
   /** The typed unit of a dimensioned input, as given ('' when a bare number). */
@@ -121,6 +134,11 @@ export interface ReadOptions {
   /** Message to use when a bound fails (VALIDATION.md wording). */
   readonly message?: string;
   readonly defaultValue?: number;
+  /**
+   * For potentials on an electrode scale: accept `reference` (and `solvent`) and convert the value
+   * to SHE. Without it a `reference` is refused (the input is a potential difference).
+   */
+  readonly referenced?: boolean;
 }
 
 export interface ArrayOptions {

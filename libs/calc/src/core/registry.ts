@@ -4,6 +4,7 @@
  * Built lazily: `uncertainty.monteCarlo` imports the dispatcher, which imports this module, so the
  * family arrays must not be touched while modules are still loading.
  */
+import { analysisMethods } from '../analysis';
 import { couplingMethods } from '../coupling';
 import { drivingForceMethods } from '../driving-force';
 import { electrodeMethods } from '../electrode';
@@ -33,6 +34,7 @@ function build(): Map<string, MethodDefinition<any>> {
     transportMethods,
     quenchMethods,
     fitMethods,
+    analysisMethods,
     uncertaintyMethods,
     unitMethods,
   ];

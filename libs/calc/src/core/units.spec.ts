@@ -71,3 +71,15 @@ describe('units', () => {
     expect(() => convertUnits(1, 'eV', 'A')).toThrow(UnitError);
   });
 });
+
+describe('energies of light in nm', () => {
+  it('converts a wavelength to eV by E = 1239.84198/λ (SCIENCE.md §16) and back', async () => {
+    const { toCanonical, fromCanonical, unrecognisedUnitMessage } = await import('./units');
+    expect(toCanonical(500, 'nm', 'photonEnergy')).toBeCloseTo(1239.84198 / 500, 7);
+    // 1 eV ↔ 1239.84198 nm, exact limiting identity.
+    expect(fromCanonical(1, 'nm', 'photonEnergy')).toBeCloseTo(1239.84198, 4);
+    expect(toCanonical(2, 'eV', 'photonEnergy')).toBe(2);
+    expect(() => toCanonical(500, 'nm', 'energy')).toThrow(/wavelength/);
+    expect(unrecognisedUnitMessage('nm', 'energy')).toContain('energy of light');
+  });
+});

@@ -8,6 +8,7 @@ import {
   E_ANGSTROM_PER_DEBYE,
   EV_PER_HARTREE,
   KCAL_PER_MOL_PER_EV,
+  HC_EV_NM,
   KJ_PER_MOL_PER_EV,
 } from './constants';
 import type { Quantity } from './method';
@@ -71,6 +72,8 @@ const UNIT_TABLE: Readonly<Record<string, UnitDef>> = {
 /** Units accepted for each quantity, canonical unit first (CALC-API.md "Shapes"). */
 export const UNITS_BY_QUANTITY: Readonly<Record<Quantity, readonly string[]>> = {
   energy: ['eV', 'meV', 'kJ/mol', 'kcal/mol', 'cm-1', 'hartree'],
+  // An energy of light (E₀₀, a band maximum): also a wavelength in nm, E = hc/λ.
+  photonEnergy: ['eV', 'meV', 'kJ/mol', 'kcal/mol', 'cm-1', 'hartree', 'nm'],
   distance: ['A', 'nm', 'pm'],
   temperature: ['K', 'degC'],
   potential: ['V', 'mV'],
@@ -103,6 +106,7 @@ export function allowedUnits(quantity: Quantity): readonly string[] {
 /** Noun phrase naming a quantity in messages ("an energy"). */
 const QUANTITY_PHRASE: Readonly<Record<Quantity, string>> = {
   energy: 'an energy',
+  photonEnergy: 'an energy of light',
   distance: 'a distance',
   temperature: 'a temperature',
   potential: 'a potential',
@@ -130,9 +134,33 @@ export function isUnitFor(unit: string, quantity: Quantity): boolean {
   return UNITS_BY_QUANTITY[quantity].includes(unit);
 }
 
+/**
+ * Energy of light in eV from a wavelength in nm, E = hc/λ (hc = 1239.84198 eV nm, CODATA 2018
+ * exact h and c; SCIENCE.md §16). Only for λ > 0.
+ */
+export function photonEnergyEvFromNm(wavelengthNm: number): number {
+  return HC_EV_NM / wavelengthNm;
+}
+
+/** Wavelength in nm of light of energy E (eV), λ = hc/E. Only for E > 0. */
+export function wavelengthNmFromEv(energyEv: number): number {
+  return HC_EV_NM / energyEv;
+}
+
+/** A wavelength read as an energy of light: the one non-linear unit of the core. */
+function isWavelengthForLight(unit: string, quantity: Quantity): boolean {
+  return unit === 'nm' && quantity === 'photonEnergy';
+}
+
 /** VALIDATION.md A4 message for a unit not in the fixed list. */
 export function unrecognisedUnitMessage(unit: string, quantity: Quantity): string {
   const allowed = UNITS_BY_QUANTITY[quantity];
+  if (unit === 'nm' && quantity === 'energy') {
+    return (
+      `Unit 'nm' is a wavelength: it is accepted only for an energy of light (such as the ` +
+      `excitation energy E₀₀), not for this energy; use one of ${allowed.join(', ')}.`
+    );
+  }
   if (allowed.length === 0) {
     return `Unrecognised unit '${unit}' for ${quantityPhrase(quantity)}; give a bare number.`;
   }
@@ -160,6 +188,7 @@ function unitDef(unit: string): UnitDef | undefined {
  */
 export function toCanonical(value: number, unit: string, quantity: Quantity): number {
   if (!isUnitFor(unit, quantity)) throw new UnitError(unrecognisedUnitMessage(unit, quantity));
+  if (isWavelengthForLight(unit, quantity)) return photonEnergyEvFromNm(value);
   const from = unitDef(unit)!;
   const canonical = unitDef(canonicalUnit(quantity))!;
   return (value * from.scale + from.offset - canonical.offset) / canonical.scale;
@@ -168,6 +197,7 @@ export function toCanonical(value: number, unit: string, quantity: Quantity): nu
 /** Converts a canonical value of `quantity` to `unit`. Throws `UnitError` for a foreign unit. */
 export function fromCanonical(value: number, unit: string, quantity: Quantity): number {
   if (!isUnitFor(unit, quantity)) throw new UnitError(unrecognisedUnitMessage(unit, quantity));
+  if (isWavelengthForLight(unit, quantity)) return wavelengthNmFromEv(value);
   const to = unitDef(unit)!;
   const canonical = unitDef(canonicalUnit(quantity))!;
   return (value * canonical.scale + canonical.offset - to.offset) / to.scale;
@@ -179,6 +209,9 @@ export function fromCanonical(value: number, unit: string, quantity: Quantity): 
  */
 export function differenceScale(unit: string, quantity: Quantity): number {
   if (!isUnitFor(unit, quantity)) throw new UnitError(unrecognisedUnitMessage(unit, quantity));
+  if (isWavelengthForLight(unit, quantity)) {
+    throw new UnitError('A difference of wavelengths is not a difference of energies; use eV.');
+  }
   return unitDef(unit)!.scale / unitDef(canonicalUnit(quantity))!.scale;
 }
 

@@ -28,6 +28,7 @@ export const WARNING_CODES = {
   rulerRange: 'ruler-range', // B23
   crossRelationAsymmetric: 'cross-relation-asymmetric', // B24
   hushBandNarrow: 'hush-band-narrow', // B31
+  quenchAboveDiffusion: 'kq-above-diffusion-limit', // B33 (also quench.diffusion)
   gmhStrongMixing: 'gmh-strong-mixing', // B32
   couplingZero: 'coupling-zero', // note: H = 0 gives k = 0
   couplingNegative: 'coupling-negative', // note: sign is gauge-dependent, |H| used

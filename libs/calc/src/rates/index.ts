@@ -1,6 +1,7 @@
 /** Rate methods of the calculation core (classical Marcus, MLJ, crossover, ruler, cross relation). */
 import type { MethodDefinition } from '../core/method';
 import { crossRelationMethod } from './cross-relation/cross-relation';
+import { crossRelationWorkMethod } from './cross-relation-work/cross-relation-work';
 import { crossoverMethod } from './crossover/crossover';
 import { landauZenerMethod } from './landau-zener/landau-zener';
 import { marcusMethod } from './marcus/marcus';
@@ -17,4 +18,5 @@ export const rateMethods: MethodDefinition<any>[] = [
   landauZenerMethod,
   rulerMethod,
   crossRelationMethod,
+  crossRelationWorkMethod,
 ];

@@ -158,6 +158,7 @@ export const rehmWellerMethod = {
       required: true,
       label: 'Donor oxidation potential E_ox(D⁺/D)',
       description: 'E_ox(D⁺/D), V, same reference electrode and solvent as E_red.',
+      referenced: true,
     },
     {
       name: 'acceptorReduction',
@@ -165,10 +166,11 @@ export const rehmWellerMethod = {
       required: true,
       label: 'Acceptor reduction potential E_red(A/A⁻)',
       description: 'E_red(A/A⁻), V.',
+      referenced: true,
     },
     {
       name: 'excitationEnergy',
-      quantity: 'energy',
+      quantity: 'photonEnergy',
       required: true,
       description: '0–0 excitation energy E₀₀ (> 0).',
     },
@@ -248,9 +250,11 @@ export const rehmWellerMethod = {
     },
   ],
   read(reader) {
-    const donorOxidationV = reader.quantity('donorOxidation', 'potential');
-    const acceptorReductionV = reader.quantity('acceptorReduction', 'potential');
-    const excitationEnergyEv = reader.quantity('excitationEnergy', 'energy', {
+    const donorOxidationV = reader.quantity('donorOxidation', 'potential', { referenced: true });
+    const acceptorReductionV = reader.quantity('acceptorReduction', 'potential', {
+      referenced: true,
+    });
+    const excitationEnergyEv = reader.quantity('excitationEnergy', 'photonEnergy', {
       greaterThan: 0,
       message: 'Excitation energy E₀₀ must be > 0.',
     });
@@ -279,9 +283,14 @@ export const rehmWellerMethod = {
     };
     const chargeDonor = reader.integer('chargeDonor', chargeOptions);
     const chargeAcceptor = reader.integer('chargeAcceptor', chargeOptions);
+    // Potentials given with { reference, solvent } were put on the SHE scale by the reader, which
+    // also warns (B15) when the two scales differ; they count as stated references here.
+    const donorScale = reader.potentialScale('donorOxidation');
+    const acceptorScale = reader.potentialScale('acceptorReduction');
+    const bothOnScales = donorScale !== undefined && acceptorScale !== undefined;
     const references = {
-      donor: readOptionalText(reader, 'donorReference'),
-      acceptor: readOptionalText(reader, 'acceptorReference'),
+      donor: readOptionalText(reader, 'donorReference') ?? (bothOnScales ? 'SHE' : undefined),
+      acceptor: readOptionalText(reader, 'acceptorReference') ?? (bothOnScales ? 'SHE' : undefined),
     };
     for (const [name, value] of Object.entries({
       donorOxidation: donorOxidationV,
