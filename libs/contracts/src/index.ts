@@ -10,3 +10,5 @@ export * from './report-format';
 export * from './traces';
 export * from './screens';
 export * from './rich-text';
+export * from './plausibility';
+export * from './solvents';
