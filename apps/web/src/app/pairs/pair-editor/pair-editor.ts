@@ -280,7 +280,12 @@ export class PairEditor implements HoldsUnsavedChanges {
     for (const e of this.results().errors) {
       const kind = (e.field in PARAMETER_KINDS ? e.field : CALC_FIELD_TO_KIND[e.field]) as
         ParameterKind | undefined;
-      if (kind && !byKind[kind]) byKind[kind] = `${PARAMETER_KINDS[kind].label} ${e.message}`;
+      if (!kind || byKind[kind]) continue;
+      // "is needed" under a field the user has not touched yet reads as a mistake on a new,
+      // empty form: the results panel lists what is missing instead.
+      const text = this.form().controls.parameters.controls[kind].controls.text;
+      if (e.message.startsWith('is needed') && text.pristine && !text.touched) continue;
+      byKind[kind] = `${PARAMETER_KINDS[kind].label} ${e.message}`;
     }
     return byKind;
   });
@@ -408,7 +413,11 @@ export class PairEditor implements HoldsUnsavedChanges {
       .open<DerivationDialog, DerivationDialogData, DerivationResult>(DerivationDialog, {
         data,
         width: '640px',
+        maxWidth: 'calc(100vw - 16px)',
         autoFocus: 'first-tabbable',
+        // The helper is opened from a menu item that is gone when the dialog closes: send focus
+        // back to the field's derive button, the control that opened the menu.
+        restoreFocus: `gw-parameter-field[data-kind="${derivation.target}"] button.derive`,
       })
       .afterClosed()
       .subscribe((result) => result && this.applyDerivation(result));
