@@ -49,7 +49,7 @@ export type {
 } from './core/reference-electrodes';
 export type { ConversionResult } from './core/units';
 export { RequestInputReader, WarningCollector, parseStrictNumber } from './core/inputs';
-export { WARNING_CODES, thermalEnergyEv } from './core/warnings';
+export { PLAUSIBLE_RANGES, WARNING_CODES, thermalEnergyEv } from './core/warnings';
 export { logGamma } from './core/special/log-gamma';
 
 // Kernels a web page may call directly (plots, screens).

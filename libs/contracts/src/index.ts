@@ -11,3 +11,5 @@ export * from './traces';
 export * from './screens';
 export * from './rich-text';
 export * from './csv';
+export * from './plausibility';
+export * from './solvents';

@@ -19,6 +19,10 @@ export const PARAMETER_KINDS = {
   radiusAcceptor: { label: 'Acceptor radius', quantity: 'distance' },
   donorOxidation: { label: 'Donor oxidation potential', quantity: 'potential' },
   acceptorReduction: { label: 'Acceptor reduction potential', quantity: 'potential' },
+  epsilonMeasurement: {
+    label: 'Measurement-solvent ε (of the potentials)',
+    quantity: 'dimensionless',
+  },
   excitationEnergy: { label: 'Excitation energy E₀₀', quantity: 'energy' },
   epsilonStatic: { label: 'Static dielectric constant ε_s', quantity: 'dimensionless' },
   refractiveIndex: { label: 'Refractive index n', quantity: 'dimensionless' },

@@ -24,6 +24,7 @@ const LOWER_BOUNDS: Partial<
   radiusAcceptor: { min: 0, strict: true },
   excitationEnergy: { min: 0, strict: true },
   epsilonStatic: { min: 1, strict: false },
+  epsilonMeasurement: { min: 1, strict: false },
   refractiveIndex: { min: 1, strict: false },
 };
 

@@ -284,7 +284,8 @@ export async function parseScreenCsv(
       }
       const problems = readRow(cells, columns, row, text);
       if (problems.length > 0) {
-        bad(line, problems.join('; '));
+        // A problem may end with a full stop; joined, that read ".;".
+        bad(line, problems.map((m) => m.replace(/\.$/, '')).join('; '));
         continue;
       }
       chunk.lines.push(line);

@@ -36,6 +36,28 @@ export const WARNING_CODES = {
   degenerateStates: 'degenerate-states',
 } as const;
 
+/**
+ * The plausibility ranges of VALIDATION.md B8–B11 and B16, in one place: the core's warnings,
+ * the pair fields and the derivation helpers of the web page all read these numbers.
+ */
+export const PLAUSIBLE_RANGES = {
+  /** B8: outside this range, check that λ, ΔG°, ε_s, τ_L refer to this temperature. */
+  temperatureK: { min: 150, max: 500 },
+  /** B9: |λ| above this is unusually large. */
+  lambdaEvMax: 3,
+  /** B9: |ΔG°| above this is unusually large. */
+  deltaG0EvMax: 4,
+  /** B9: |H_AB| above this is unusually large. */
+  couplingEvMax: 0.5,
+  /** B10: λ or |ΔG°| typed in eV within this range looks like kJ/mol or cm⁻¹. */
+  energyTypedAsEvSuspect: { min: 20, max: 1000 },
+  /** B11: H_AB typed in eV above this, or in cm⁻¹ below `couplingCm1Min`, suggests a unit slip. */
+  couplingTypedEvMax: 10,
+  couplingCm1Min: 0.01,
+  /** B16: E₀₀ above this is implausible (0–0 energy, not absorption maximum). */
+  excitationEnergyEvMax: 5,
+} as const;
+
 /** Thermal energy k_BT in eV (CODATA 2018 k_B). */
 export function thermalEnergyEv(temperatureK: number): number {
   return BOLTZMANN_EV_PER_K * temperatureK;
@@ -48,7 +70,10 @@ function typedInEv(unit: string): boolean {
 
 /** B8: temperatures outside 150–500 K. */
 export function warnTemperatureRange(temperatureK: number, sink: WarningSink): void {
-  if (temperatureK < 150 || temperatureK > 500) {
+  if (
+    temperatureK < PLAUSIBLE_RANGES.temperatureK.min ||
+    temperatureK > PLAUSIBLE_RANGES.temperatureK.max
+  ) {
     sink.warn(
       WARNING_CODES.temperatureRange,
       'Check that λ, ΔG°, ε_s, τ_L refer to this temperature; classical Marcus questionable at ' +
@@ -70,14 +95,15 @@ export function warnEnergyMagnitude(
   sink: WarningSink,
 ): void {
   const magnitude = Math.abs(valueEv);
-  const limit = kind === 'lambda' ? 3 : 4;
+  const limit = kind === 'lambda' ? PLAUSIBLE_RANGES.lambdaEvMax : PLAUSIBLE_RANGES.deltaG0EvMax;
   if (magnitude > limit) {
     sink.warn(
       WARNING_CODES.valueUnusuallyLarge,
       `Unusually large value of ${field} (${valueEv} eV); check units (kJ/mol entered as eV?).`,
     );
   }
-  if (typedInEv(typedUnit) && magnitude >= 20 && magnitude <= 1000) {
+  const suspect = PLAUSIBLE_RANGES.energyTypedAsEvSuspect;
+  if (typedInEv(typedUnit) && magnitude >= suspect.min && magnitude <= suspect.max) {
     sink.warn(
       WARNING_CODES.energyUnitSuspect,
       `${field} = ${valueEv} eV looks like kJ/mol or cm⁻¹ entered as eV.`,
@@ -93,7 +119,7 @@ export function warnCouplingMagnitude(
   sink: WarningSink,
 ): void {
   const magnitude = Math.abs(couplingEv);
-  if (magnitude > 0.5) {
+  if (magnitude > PLAUSIBLE_RANGES.couplingEvMax) {
     sink.warn(
       WARNING_CODES.valueUnusuallyLarge,
       `Unusually large value of ${field} (${couplingEv} eV); check units (kJ/mol entered as eV?).`,
@@ -101,8 +127,8 @@ export function warnCouplingMagnitude(
   }
   const typedCm1 = magnitude * CM1_PER_EV;
   if (
-    (typedInEv(typedUnit) && magnitude > 10) ||
-    (typedUnit === 'cm-1' && magnitude > 0 && typedCm1 < 0.01)
+    (typedInEv(typedUnit) && magnitude > PLAUSIBLE_RANGES.couplingTypedEvMax) ||
+    (typedUnit === 'cm-1' && magnitude > 0 && typedCm1 < PLAUSIBLE_RANGES.couplingCm1Min)
   ) {
     sink.warn(WARNING_CODES.couplingUnitSuspect, `Check coupling units (${field}).`);
   }

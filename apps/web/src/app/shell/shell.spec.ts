@@ -44,4 +44,44 @@ describe('Shell', () => {
     expect(el.querySelector('.user-name')?.textContent).toContain('Ada Editor');
     expect(el.querySelector('main#gw-main')).not.toBeNull();
   });
+
+  it('folds the sections behind a menu button that opens, closes on Escape and takes focus back', async () => {
+    TestBed.configureTestingModule({
+      providers: [
+        provideRouter([]),
+        { provide: Session, useValue: { user: signal(null) } },
+        {
+          provide: WorkspaceContext,
+          useValue: {
+            workspaceId: signal('w1'),
+            workspaces: signal([]),
+            current: signal(null),
+            role: signal(null),
+          },
+        },
+      ],
+    });
+    const fixture = TestBed.createComponent(Shell);
+    fixture.detectChanges();
+    document.body.appendChild(fixture.nativeElement);
+    const el: HTMLElement = fixture.nativeElement;
+    const button = el.querySelector<HTMLButtonElement>('button.nav-button')!;
+    const nav = el.querySelector<HTMLElement>('nav#gw-sections')!;
+    expect(button.getAttribute('aria-controls')).toBe('gw-sections');
+    expect(button.getAttribute('aria-expanded')).toBe('false');
+    expect(nav.classList).not.toContain('open');
+
+    button.click();
+    fixture.detectChanges();
+    expect(button.getAttribute('aria-expanded')).toBe('true');
+    expect(button.getAttribute('aria-label')).toBe('Close the navigation');
+    expect(nav.classList).toContain('open');
+
+    nav.querySelector('a')!.focus();
+    nav.dispatchEvent(new KeyboardEvent('keydown', { key: 'Escape', bubbles: true }));
+    fixture.detectChanges();
+    expect(nav.classList).not.toContain('open');
+    expect(document.activeElement).toBe(button);
+    fixture.nativeElement.remove();
+  });
 });

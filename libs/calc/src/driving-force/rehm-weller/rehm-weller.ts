@@ -4,7 +4,7 @@
  */
 import { COULOMB_EV_ANGSTROM } from '../../core/constants';
 import type { InputReader, MethodDefinition } from '../../core/method';
-import { WARNING_CODES } from '../../core/warnings';
+import { PLAUSIBLE_RANGES, WARNING_CODES } from '../../core/warnings';
 
 const DIELECTRIC_MESSAGE = 'Dielectric constant and refractive index must be ≥ 1.';
 const RADIUS_MESSAGE = 'Radii and distances must be > 0.';
@@ -309,7 +309,8 @@ export const rehmWellerMethod = {
     if (given > 0 && given < 3) {
       reader.fail(
         given === 1 && epsilonReference !== undefined ? 'radiusDonor' : 'epsilonReference',
-        'The solvent correction needs radiusDonor, radiusAcceptor and epsilonReference together.',
+        'The Weller solvent correction needs the donor radius, the acceptor radius and ε of the ' +
+          'solvent the potentials were measured in, all three (or none).',
       );
     }
     const born =
@@ -375,7 +376,10 @@ export const rehmWellerMethod = {
       );
     }
     const redoxGapEv = Math.abs(donorOxidationV - acceptorReductionV);
-    if (excitationEnergyEv < redoxGapEv - 1 || excitationEnergyEv > 5) {
+    if (
+      excitationEnergyEv < redoxGapEv - 1 ||
+      excitationEnergyEv > PLAUSIBLE_RANGES.excitationEnergyEvMax
+    ) {
       sink.warn(
         WARNING_CODES.excitationEnergySuspect,
         'Check E₀₀ (0–0 energy, not absorption maximum).',

@@ -5,6 +5,7 @@ import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/materia
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
+import { MatCheckboxModule } from '@angular/material/checkbox';
 import {
   calculate,
   findMethod,
@@ -12,7 +13,7 @@ import {
   type InputSpec,
   type Quantity,
 } from '@gapwise/calc';
-import { PARAMETER_KINDS, plainText } from '@gapwise/contracts';
+import { PARAMETER_KINDS, parameterPlausibility, plainText } from '@gapwise/contracts';
 import { RichText } from '../../shared/rich-text/rich-text';
 import { editableText, formatSignificant, parseStrictNumber } from '../../units/number-format';
 import { displayOf, unitLabel, unitsFor } from '../../units/units';
@@ -21,7 +22,9 @@ import {
   createQuantityGroup,
   switchQuantityUnit,
   typeQuantityText,
+  type UnitChange,
 } from '../pair-form/quantity-control';
+import { UnitChangeNote } from '../unit-change-note/unit-change-note';
 import type { Derivation } from './derivations';
 
 export interface DerivationDialogData {
@@ -65,7 +68,9 @@ function labelOf(spec: InputSpec): string {
     MatFormFieldModule,
     MatInputModule,
     MatSelectModule,
+    MatCheckboxModule,
     RichText,
+    UnitChangeNote,
   ],
   templateUrl: './derivation-dialog.html',
   styleUrl: './derivation-dialog.scss',
@@ -97,6 +102,31 @@ export class DerivationDialog {
       eV: `${formatSignificant(v, 4)} eV`,
     };
   });
+  /**
+   * What looks wrong with the result, with the same ranges as the pair fields (VALIDATION.md
+   * B9–B11, B16): for the target and every further parameter this run would fill.
+   */
+  protected readonly implausible = computed(() => {
+    const a = this.answer();
+    const p = this.preview();
+    if (!a?.ok || !p) return [];
+    const found = [
+      parameterPlausibility(this.data.derivation.target, p.canonical, this.data.targetUnit),
+    ];
+    for (const extra of this.data.derivation.alsoFills ?? []) {
+      const v = a.outputs[extra.output];
+      if (typeof v === 'number') found.push(parameterPlausibility(extra.kind, v, 'eV'));
+    }
+    return found.filter((m): m is string => m !== null);
+  });
+  /** The user read the plausibility warning and takes the value anyway. */
+  protected readonly override = signal(false);
+  protected readonly canUse = computed(
+    () => this.preview() !== null && (this.implausible().length === 0 || this.override()),
+  );
+  /** The last unit change of each input (what happened, with Undo), by input name. */
+  protected readonly unitChanges = signal<Readonly<Record<string, UnitChange | null>>>({});
+
   protected readonly errors = computed(() => {
     const a = this.answer();
     return a && !a.ok ? a.errors : [];
@@ -135,6 +165,15 @@ export class DerivationDialog {
     if (row.group)
       typeQuantityText(row.group, { label: row.label, quantity: row.spec.quantity }, text);
     else row.textControl?.setValue(text);
+    this.setUnitChange(row.spec.name, null);
+    this.recompute();
+  }
+
+  protected setUnitChange(name: string, change: UnitChange | null): void {
+    this.unitChanges.update((all) => ({ ...all, [name]: change }));
+  }
+
+  protected unitUndone(): void {
     this.recompute();
   }
 
@@ -143,11 +182,17 @@ export class DerivationDialog {
     if (this.data.derivation.sharedUnit) {
       for (const r of this.rows) {
         if (r.group && r.spec.quantity === row.spec.quantity) {
-          switchQuantityUnit(r.group, { label: r.label, quantity: r.spec.quantity }, unit);
+          this.setUnitChange(
+            r.spec.name,
+            switchQuantityUnit(r.group, { label: r.label, quantity: r.spec.quantity }, unit),
+          );
         }
       }
     } else {
-      switchQuantityUnit(row.group, { label: row.label, quantity: row.spec.quantity }, unit);
+      this.setUnitChange(
+        row.spec.name,
+        switchQuantityUnit(row.group, { label: row.label, quantity: row.spec.quantity }, unit),
+      );
     }
     this.recompute();
   }
@@ -175,6 +220,8 @@ export class DerivationDialog {
   private recompute(): void {
     if (!this.method) return;
     this.answer.set(calculate({ method: this.method.id, inputs: this.typedInputs() }));
+    // A new result needs its own look before an override.
+    this.override.set(false);
   }
 
   protected errorFor(row: InputRow): string | null {
@@ -184,19 +231,34 @@ export class DerivationDialog {
       if (typeof m === 'string') return m;
     }
     const fromCore = this.errors().find((e) => e.field === row.spec.name);
-    return fromCore ? fromCore.message : null;
+    return fromCore ? this.withLabels(fromCore.message) : null;
   }
 
   protected otherErrors(): string[] {
     const names = new Set(this.rows.map((r) => r.spec.name));
     return this.errors()
       .filter((e) => !names.has(e.field))
-      .map((e) => `${e.field}: ${e.message}`);
+      .map((e) => this.withLabels(e.message));
   }
 
   protected warnings(): string[] {
     const a = this.answer();
-    return a?.ok ? a.warnings.map((w) => w.message) : [];
+    return a?.ok ? a.warnings.map((w) => this.withLabels(w.message)) : [];
+  }
+
+  /**
+   * The core names inputs by their request names (`Field radiusDonor is required.`), which suit
+   * the API and the command line; the dialog says the labels the user sees instead.
+   */
+  private withLabels(message: string): string {
+    let out = message;
+    for (const row of this.rows) {
+      const name = row.spec.name;
+      out = out
+        .replace(new RegExp(`\\bField ${name}\\b`, 'g'), row.label)
+        .replace(new RegExp(`\\b${name}\\b`, 'g'), row.label);
+    }
+    return out;
   }
 
   protected textOf(value: number | null): string {
@@ -206,7 +268,7 @@ export class DerivationDialog {
   protected useValue(): void {
     const a = this.answer();
     const preview = this.preview();
-    if (!a?.ok || !preview) return;
+    if (!a?.ok || !preview || !this.canUse()) return;
     const values: Array<{ kind: keyof typeof PARAMETER_KINDS; value: number }> = [
       { kind: this.data.derivation.target, value: preview.canonical },
     ];

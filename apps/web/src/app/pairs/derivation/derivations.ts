@@ -38,6 +38,7 @@ export const DERIVATIONS: readonly Derivation[] = [
       epsilon: 'epsilonStatic',
       radiusDonor: 'radiusDonor',
       radiusAcceptor: 'radiusAcceptor',
+      epsilonReference: 'epsilonMeasurement',
     },
   },
   {

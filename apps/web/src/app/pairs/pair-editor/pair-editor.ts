@@ -25,6 +25,7 @@ import { MatTooltipModule } from '@angular/material/tooltip';
 import { Router, RouterLink } from '@angular/router';
 import {
   PARAMETER_KINDS,
+  SOLVENTS,
   computePairResults,
   pairRateRequest,
   type Pair,
@@ -66,13 +67,17 @@ import {
 } from '../pair-form/pair-form';
 import {
   setCanonicalQuantity,
+  confirmQuantity,
+  quantityWarning,
   switchQuantityUnit,
   typeQuantityText,
+  type UnitChange,
 } from '../pair-form/quantity-control';
 import { PairsApi } from '../pairs-api';
 import { ResultsPanel } from '../results-panel/results-panel';
 import { monteCarloLog10k, type MonteCarloState } from '../results-panel/monte-carlo';
 import { applySaveErrors } from './save-errors';
+import { UnitChangeNote } from '../unit-change-note/unit-change-note';
 import type { HoldsUnsavedChanges } from './unsaved-changes-guard';
 
 const RATE_KINDS: ParameterKind[] = [
@@ -91,6 +96,7 @@ const CONTEXT_KINDS: ParameterKind[] = [
   'radiusAcceptor',
   'donorOxidation',
   'acceptorReduction',
+  'epsilonMeasurement',
   'excitationEnergy',
   'epsilonStatic',
   'refractiveIndex',
@@ -126,6 +132,7 @@ export const REDRAW_MEASURE = 'gw-keystroke-to-redraw';
     MatTooltipModule,
     MatProgressBarModule,
     ParameterField,
+    UnitChangeNote,
     ResultsPanel,
     ParabolaPlot,
     DrivingForcePlot,
@@ -273,7 +280,12 @@ export class PairEditor implements HoldsUnsavedChanges {
     for (const e of this.results().errors) {
       const kind = (e.field in PARAMETER_KINDS ? e.field : CALC_FIELD_TO_KIND[e.field]) as
         ParameterKind | undefined;
-      if (kind && !byKind[kind]) byKind[kind] = `${PARAMETER_KINDS[kind].label} ${e.message}`;
+      if (!kind || byKind[kind]) continue;
+      // "is needed" under a field the user has not touched yet reads as a mistake on a new,
+      // empty form: the results panel lists what is missing instead.
+      const text = this.form().controls.parameters.controls[kind].controls.text;
+      if (e.message.startsWith('is needed') && text.pristine && !text.touched) continue;
+      byKind[kind] = `${PARAMETER_KINDS[kind].label} ${e.message}`;
     }
     return byKind;
   });
@@ -328,13 +340,53 @@ export class PairEditor implements HoldsUnsavedChanges {
     performance.measure(REDRAW_MEASURE, EDIT_MARK);
   }
 
-  protected typeTemperature(text: string): void {
-    typeQuantityText(this.form().controls.temperature, TEMPERATURE_SPEC, text);
+  /** What the last temperature unit change did (shown for a moment, with Undo). */
+  protected readonly temperatureUnitChange = signal<UnitChange | null>(null);
+
+  protected readonly solvents = SOLVENTS;
+
+  /** The measurement solvent picked for the potentials (kept in the ε field's note). */
+  protected measurementSolvent(): string | null {
+    const note =
+      this.form().controls.parameters.controls.epsilonMeasurement.controls.provenance.controls.note
+        .value;
+    const name = /^Measurement solvent: (.+)$/.exec(note)?.[1];
+    return SOLVENTS.find((s) => s.name === name)?.key ?? null;
+  }
+
+  /** Picking a solvent fills its ε with the table's citation; the value stays editable. */
+  protected pickMeasurementSolvent(key: string): void {
+    const solvent = SOLVENTS.find((s) => s.key === key);
+    if (!solvent) return;
+    const g = this.form().controls.parameters.controls.epsilonMeasurement;
+    setCanonicalQuantity(g, parameterSpec('epsilonMeasurement'), solvent.epsilon);
+    const prov = g.controls.provenance.controls;
+    prov.kind.setValue('literature');
+    prov.citation.setValue(solvent.source);
+    prov.note.setValue(`Measurement solvent: ${solvent.name}`);
     this.markEdit();
   }
 
+  protected typeTemperature(text: string): void {
+    typeQuantityText(this.form().controls.temperature, TEMPERATURE_SPEC, text);
+    this.temperatureUnitChange.set(null);
+    this.markEdit();
+  }
+
+  protected confirmTemperature(): void {
+    confirmQuantity(this.form().controls.temperature);
+  }
+
   protected switchTemperatureUnit(unit: string): void {
-    switchQuantityUnit(this.form().controls.temperature, TEMPERATURE_SPEC, unit);
+    this.temperatureUnitChange.set(
+      switchQuantityUnit(this.form().controls.temperature, TEMPERATURE_SPEC, unit),
+    );
+    this.markEdit();
+  }
+
+  /** B8: below 150 K or above 500 K the value is kept and flagged. */
+  protected temperatureWarning(): string | null {
+    return quantityWarning(this.form().controls.temperature, TEMPERATURE_SPEC);
   }
 
   protected derivationsOf(kind: ParameterKind) {
@@ -361,7 +413,11 @@ export class PairEditor implements HoldsUnsavedChanges {
       .open<DerivationDialog, DerivationDialogData, DerivationResult>(DerivationDialog, {
         data,
         width: '640px',
+        maxWidth: 'calc(100vw - 16px)',
         autoFocus: 'first-tabbable',
+        // The helper is opened from a menu item that is gone when the dialog closes: send focus
+        // back to the field's derive button, the control that opened the menu.
+        restoreFocus: `gw-parameter-field[data-kind="${derivation.target}"] button.derive`,
       })
       .afterClosed()
       .subscribe((result) => result && this.applyDerivation(result));

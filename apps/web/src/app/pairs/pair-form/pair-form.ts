@@ -9,6 +9,7 @@ import {
   type ParameterKind,
   type ProvenanceKind,
   type RateModel,
+  temperaturePlausibility,
 } from '@gapwise/contracts';
 import type { Quantity } from '@gapwise/calc';
 import { QuantityGroup, QuantitySpec, ValueRule, createQuantityGroup } from './quantity-control';
@@ -41,6 +42,7 @@ const RULES: Partial<Record<ParameterKind, ValueRule>> = {
   radiusAcceptor: (v) => (v > 0 ? null : 'Radii and distances must be > 0.'),
   excitationEnergy: positive,
   epsilonStatic: atLeastOne,
+  epsilonMeasurement: atLeastOne,
   refractiveIndex: atLeastOne,
 };
 
@@ -57,6 +59,7 @@ export const TEMPERATURE_SPEC: QuantitySpec = {
   quantity: 'temperature',
   required: true,
   rule: (v) => (v > 0 ? null : 'Temperature must be > 0 K (absolute). Did you enter °C?'),
+  warn: temperaturePlausibility,
 };
 
 export function defaultUnit(kind: ParameterKind): string {

@@ -20,8 +20,14 @@ export type ValueRule = (canonical: number) => string | null;
 
 /**
  * A dimensioned number as the user sees it (`text` in `unit`) and as it is stored (`value`,
- * canonical). The canonical value is the truth: switching the unit rewrites the text from it,
- * so eV → kcal/mol → eV shows exactly what was typed (no drift from re-parsing rounded text).
+ * canonical). The canonical value is the truth for a *confirmed* value: switching the unit
+ * rewrites the text from it, so eV → kcal/mol → eV shows exactly what was typed.
+ *
+ * `pending` is true while the text was typed and not yet confirmed. A value is confirmed when
+ * it was loaded (a saved version, a default, a pre-filled helper input), put in by a helper, or
+ * committed with Enter. A pending value takes the unit picked next (type 25, pick °C: 25 °C);
+ * a confirmed one is converted (25 K → −248.15 °C). Either way `switchQuantityUnit` says what
+ * happened and how to undo it.
  */
 export type QuantityGroup = FormGroup<{
   text: FormControl<string>;
@@ -29,13 +35,25 @@ export type QuantityGroup = FormGroup<{
   value: FormControl<number | null>;
   uncertaintyText: FormControl<string>;
   uncertainty: FormControl<number | null>;
+  pending: FormControl<boolean>;
 }>;
 
 export interface QuantitySpec {
   readonly label: string;
   readonly quantity: Quantity;
   readonly rule?: ValueRule;
+  /** A plausibility check on the canonical value: warns, never refuses. */
+  readonly warn?: ValueRule;
   readonly required?: boolean;
+}
+
+/** What a unit change did to the field, for the note shown under it, and how to undo it. */
+export interface UnitChange {
+  /** `reread`: the typed number kept and read in the new unit; `converted`: same quantity. */
+  readonly mode: 'reread' | 'converted';
+  /** "25 K → −248.15 °C" or "25 is now read as 25 °C (= 298.15 K)". */
+  readonly message: string;
+  readonly undo: () => void;
 }
 
 function numberValidator(
@@ -88,13 +106,32 @@ export function createQuantityGroup(
       { nonNullable: true, validators: numberValidator(spec, () => unit.value, true, true) },
     ),
     uncertainty: new FormControl<number | null>(initial.uncertainty ?? null),
+    pending: new FormControl(false, { nonNullable: true }),
   });
   return group;
+}
+
+/** The user committed the value (Enter): a later unit change converts it. */
+export function confirmQuantity(group: QuantityGroup): void {
+  group.controls.pending.setValue(false);
+}
+
+/** The plausibility warning for the current value, if any (the value is still accepted). */
+export function quantityWarning(group: QuantityGroup, spec: QuantitySpec): string | null {
+  const v = group.controls.value.value;
+  if (v === null || !spec.warn || group.controls.text.invalid) return null;
+  return spec.warn(v);
+}
+
+function shown(text: string, unit: string): string {
+  const label = unitLabel(unit);
+  return `${text.trim().replace(/^-/, '−')}${label ? ' ' + label : ''}`;
 }
 
 /** The user typed `text`: keep it, and store its canonical value (null when empty or invalid). */
 export function typeQuantityText(group: QuantityGroup, spec: QuantitySpec, text: string): void {
   group.controls.text.setValue(text);
+  group.controls.pending.setValue(true);
   const parsed = group.controls.text.valid ? parseStrictNumber(text) : null;
   group.controls.value.setValue(
     parsed === null ? null : canonicalOf(parsed, group.controls.unit.value, spec.quantity),
@@ -112,22 +149,63 @@ export function typeUncertaintyText(group: QuantityGroup, spec: QuantitySpec, te
 }
 
 /**
- * Shows the same canonical value in another unit. Invalid text is left as typed (its meaning
- * in the new unit is re-read, so the error message stays honest).
+ * Picks another unit. A pending (typed, unconfirmed) value keeps its number and is read in the
+ * new unit; a confirmed value is converted. Invalid text is left as typed (its meaning in the
+ * new unit is re-read, so the error message stays honest). Returns what happened, or null when
+ * the field is empty or the unit did not change.
  */
-export function switchQuantityUnit(group: QuantityGroup, spec: QuantitySpec, unit: string): void {
-  const { value, uncertainty, text, uncertaintyText } = group.controls;
+export function switchQuantityUnit(
+  group: QuantityGroup,
+  spec: QuantitySpec,
+  unit: string,
+): UnitChange | null {
+  const { value, uncertainty, text, uncertaintyText, pending } = group.controls;
+  const before = {
+    unit: group.controls.unit.value,
+    text: text.value,
+    value: value.value,
+    uncertaintyText: uncertaintyText.value,
+    uncertainty: uncertainty.value,
+    pending: pending.value,
+  };
+  if (before.unit === unit) return null;
   group.controls.unit.setValue(unit);
-  if (value.value !== null) {
-    text.setValue(editableText(displayOf(value.value, unit, spec.quantity)));
-  } else {
-    text.updateValueAndValidity();
+  const undo = () => {
+    group.controls.unit.setValue(before.unit);
+    text.setValue(before.text);
+    value.setValue(before.value);
+    uncertaintyText.setValue(before.uncertaintyText);
+    uncertainty.setValue(before.uncertainty);
+    pending.setValue(before.pending);
+  };
+  if (before.pending || value.value === null) {
+    // Re-read the typed text (and its uncertainty) in the new unit.
+    typeQuantityText(group, spec, text.value);
+    typeUncertaintyText(group, spec, uncertaintyText.value);
+    pending.setValue(before.pending);
+    if (value.value === null || text.value.trim() === '') return null;
+    const canonicalUnit = spec.quantity === 'temperature' ? 'K' : '';
+    const echo =
+      canonicalUnit && canonicalUnit !== unit
+        ? ` (= ${shown(editableText(Number(value.value.toPrecision(10))), canonicalUnit)})`
+        : '';
+    return {
+      mode: 'reread',
+      message: `${text.value.trim().replace(/^-/, '−')} is now read as ${shown(text.value, unit)}${echo}`,
+      undo,
+    };
   }
+  text.setValue(editableText(displayOf(value.value, unit, spec.quantity)));
   if (uncertainty.value !== null) {
     uncertaintyText.setValue(
       editableText(displayDifference(uncertainty.value, unit, spec.quantity)),
     );
   }
+  return {
+    mode: 'converted',
+    message: `${shown(before.text, before.unit)} → ${shown(text.value, unit)}`,
+    undo,
+  };
 }
 
 /** Puts a canonical value (e.g. from a derivation) into the group, shown in its current unit. */
@@ -137,6 +215,7 @@ export function setCanonicalQuantity(
   canonical: number,
 ): void {
   group.controls.value.setValue(canonical);
+  group.controls.pending.setValue(false);
   group.controls.text.setValue(
     editableText(displayOf(canonical, group.controls.unit.value, spec.quantity)),
   );

@@ -27,10 +27,11 @@ async function setup() {
 }
 
 describe('ParameterField', () => {
-  it('keeps the typed value exactly through eV → kcal/mol → eV', async () => {
+  it('keeps a confirmed value exactly through eV → kcal/mol → eV', async () => {
     const { host, lambda } = await setup();
     expect(await lambda.getUnit()).toBe('eV');
     await lambda.setValue('0.85');
+    await lambda.confirm();
     expect(host.lambda.controls.value.value).toBe(0.85);
 
     await lambda.selectUnit('kcal/mol');
@@ -50,6 +51,7 @@ describe('ParameterField', () => {
     expect(await coupling.getUnit()).toBe('cm⁻¹');
     await coupling.setValue('1.2e2');
     await coupling.setUncertainty('30');
+    await coupling.confirm();
     // 120 cm⁻¹ / 8065.543937 cm⁻¹ per eV.
     expect(host.coupling.controls.value.value).toBeCloseTo(120 / 8065.543937, 15);
     expect(host.coupling.controls.uncertainty.value).toBeCloseTo(30 / 8065.543937, 15);
@@ -59,6 +61,59 @@ describe('ParameterField', () => {
       9,
     );
     expect(Number(await coupling.getUncertainty())).toBeCloseTo((30 / 8065.543937) * 1000, 9);
+  });
+
+  it('reads a typed, unconfirmed value in the unit picked next and says so, with Undo', async () => {
+    const { host, lambda } = await setup();
+    await lambda.setValue('20');
+    await lambda.selectUnit('kcal/mol');
+    // 20 kcal/mol ÷ 23.06054783 kcal/mol per eV (CODATA 2018, SCIENCE.md §16).
+    expect(await lambda.getValue()).toBe('20');
+    expect(host.lambda.controls.value.value).toBeCloseTo(20 / KCAL_PER_MOL_PER_EV, 12);
+    expect(await lambda.getUnitChange()).toBe('20 is now read as 20 kcal/mol');
+
+    await lambda.undoUnitChange();
+    expect(await lambda.getUnit()).toBe('eV');
+    expect(host.lambda.controls.value.value).toBe(20);
+    expect(await lambda.getUnitChange()).toBeNull();
+  });
+
+  it('converts a confirmed value, shows "old → new" and undoes it', async () => {
+    const { host, lambda } = await setup();
+    await lambda.setValue('1');
+    await lambda.confirm();
+    await lambda.selectUnit('kcal/mol');
+    expect(await lambda.getUnitChange()).toBe(
+      `1 eV → ${Number((1 * KCAL_PER_MOL_PER_EV).toPrecision(12))} kcal/mol`,
+    );
+    expect(host.lambda.controls.value.value).toBe(1);
+    await lambda.undoUnitChange();
+    expect(await lambda.getValue()).toBe('1');
+    expect(await lambda.getUnit()).toBe('eV');
+  });
+
+  it('converts a value loaded from a saved version at once', async () => {
+    const fixture = TestBed.createComponent(Host);
+    fixture.componentInstance.lambda.controls.value.setValue(0.5);
+    fixture.componentInstance.lambda.controls.text.setValue('0.5');
+    fixture.detectChanges();
+    const loader = TestbedHarnessEnvironment.loader(fixture);
+    const lambda = await loader.getHarness(ParameterFieldHarness.with({ kind: 'lambdaOuter' }));
+    await lambda.selectUnit('meV');
+    expect(await lambda.getValue()).toBe('500');
+    expect(await lambda.getUnitChange()).toBe('0.5 eV → 500 meV');
+  });
+
+  it('warns about an implausible value without refusing it (kJ/mol typed as eV)', async () => {
+    const { host, lambda } = await setup();
+    await lambda.setValue('0.8');
+    expect(await lambda.getWarning()).toBeNull();
+    await lambda.setValue('96');
+    expect(await lambda.getWarning()).toMatch(
+      /Outer reorganization energy λₒ = 96 eV looks like kJ\/mol or cm⁻¹ entered as eV/,
+    );
+    expect(await lambda.getErrorMessages()).toEqual([]);
+    expect(host.lambda.controls.value.value).toBe(96);
   });
 
   it('accepts scientific notation', async () => {

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input, output, signal } from '@angular/core';
 import { FormControl, FormGroupDirective, NgForm, ReactiveFormsModule } from '@angular/forms';
 import { ErrorStateMatcher } from '@angular/material/core';
 import { MatButtonModule } from '@angular/material/button';
@@ -11,6 +11,7 @@ import { MatTooltipModule } from '@angular/material/tooltip';
 import {
   PARAMETER_KINDS,
   PROVENANCE_KINDS,
+  parameterPlausibility,
   plainText,
   type ParameterKind,
 } from '@gapwise/contracts';
@@ -20,10 +21,13 @@ import { unitLabel, unitsFor } from '../../units/units';
 import type { ParameterGroup } from '../pair-form/pair-form';
 import { parameterSpec } from '../pair-form/pair-form';
 import {
+  confirmQuantity,
   switchQuantityUnit,
   typeQuantityText,
   typeUncertaintyText,
+  type UnitChange,
 } from '../pair-form/quantity-control';
+import { UnitChangeNote } from '../unit-change-note/unit-change-note';
 
 /** Shows a field's error as soon as it is edited, not only after leaving it. */
 class EditedErrorMatcher implements ErrorStateMatcher {
@@ -47,7 +51,8 @@ const PROVENANCE_WORDS: Record<string, string> = {
 
 /**
  * One pair parameter: value in a unit of its quantity, uncertainty, provenance with citation
- * and note. Keeps the canonical value; switching the unit converts the shown text from it.
+ * and note. A typed value not yet confirmed (Enter, a save, a helper) takes the unit picked
+ * next; a confirmed one is converted; either way a note says what happened, with Undo.
  */
 @Component({
   selector: 'gw-parameter-field',
@@ -61,6 +66,7 @@ const PROVENANCE_WORDS: Record<string, string> = {
     MatMenuModule,
     MatTooltipModule,
     RichText,
+    UnitChangeNote,
   ],
   templateUrl: './parameter-field.html',
   styleUrl: './parameter-field.scss',
@@ -93,9 +99,30 @@ export class ParameterField {
   );
   protected readonly fieldId = computed(() => `param-${this.kind()}`);
 
+  /** What the last unit change did, shown for a moment under the field. */
+  protected readonly unitChange = signal<UnitChange | null>(null);
+
   protected typeValue(text: string): void {
     typeQuantityText(this.group(), this.spec(), text);
+    this.unitChange.set(null);
     this.edited.emit();
+  }
+
+  /** Enter commits the typed value: a later unit change converts it. */
+  protected confirmValue(): void {
+    confirmQuantity(this.group());
+  }
+
+  protected unitUndone(): void {
+    this.edited.emit();
+  }
+
+  /** VALIDATION.md B9–B11/B16: an unusual value is kept and flagged, never refused. */
+  protected warning(): string | null {
+    const g = this.group();
+    const v = g.controls.value.value;
+    if (v === null || g.controls.text.invalid) return null;
+    return parameterPlausibility(this.kind(), v, g.controls.unit.value);
   }
 
   protected typeUncertainty(text: string): void {
@@ -104,7 +131,7 @@ export class ParameterField {
   }
 
   protected switchUnit(unit: string): void {
-    switchQuantityUnit(this.group(), this.spec(), unit);
+    this.unitChange.set(switchQuantityUnit(this.group(), this.spec(), unit));
     this.edited.emit();
   }
 

@@ -43,6 +43,12 @@ const FIELD_LABELS: Record<string, string> = {
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ResultsPanel {
+  /** Every problem is an input not given yet (`is needed …`), so the list is shown neutrally. */
+  protected onlyMissing(): boolean {
+    const errors = this.results().errors;
+    return errors.length > 0 && errors.every((e) => e.message.startsWith('is needed'));
+  }
+
   private readonly clipboard = inject(Clipboard);
   private readonly snackBar = inject(MatSnackBar);
 

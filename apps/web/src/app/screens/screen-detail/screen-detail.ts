@@ -204,7 +204,12 @@ export class ScreenDetail {
 
   /** The same as plain text (for the aria-label). */
   protected warningText(row: ScreenResultRow): string {
-    return plainText(this.warningLines(row).join('; '));
+    // Each warning may end with a full stop; joined, that read ".;".
+    return plainText(
+      this.warningLines(row)
+        .map((w) => w.replace(/\.$/, ''))
+        .join('; '),
+    );
   }
 
   protected choiceText(s: Screen): string {

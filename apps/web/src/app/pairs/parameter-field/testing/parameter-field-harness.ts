@@ -36,6 +36,10 @@ export class ParameterFieldHarness extends ComponentHarness {
   private readonly valueErrors = this.locatorForAll('.value-error');
   private readonly calcErrors = this.locatorForAll('.calc-error');
   private readonly labelEl = this.locatorFor('.label');
+  private readonly valueInputEl = this.locatorFor('.value-input');
+  private readonly unitChangeText = this.locatorForOptional('.unit-change-text');
+  private readonly unitChangeUndo = this.locatorForOptional('.unit-change-undo');
+  private readonly plausibilityEl = this.locatorForOptional('.plausibility');
   private readonly labelSubs = this.locatorForAll('.label sub');
   private readonly badge = this.locatorForOptional('.derived-badge');
   private readonly deriveMenu = this.locatorForOptional(
@@ -80,6 +84,29 @@ export class ParameterFieldHarness extends ComponentHarness {
     if (!select) throw new Error('This parameter has no unit.');
     await select.open();
     await select.clickOptions({ text: shown });
+  }
+
+  /** Commits the typed value with Enter, so a later unit change converts it. */
+  async confirm(): Promise<void> {
+    await (await this.valueInputEl()).dispatchEvent('keydown', { key: 'Enter' });
+  }
+
+  /** The note shown after a unit change ("25 K → −248.15 °C"), or null. */
+  async getUnitChange(): Promise<string | null> {
+    const el = await this.unitChangeText();
+    return el ? el.text() : null;
+  }
+
+  async undoUnitChange(): Promise<void> {
+    const button = await this.unitChangeUndo();
+    if (!button) throw new Error('No unit change to undo.');
+    await button.click();
+  }
+
+  /** The plausibility warning under the field (VALIDATION.md B9–B11), or null. */
+  async getWarning(): Promise<string | null> {
+    const el = await this.plausibilityEl();
+    return el ? el.text() : null;
   }
 
   async getProvenance(): Promise<string> {
