@@ -1,4 +1,5 @@
 import {
+  Check,
   Column,
   CreateDateColumn,
   Entity,
@@ -12,6 +13,7 @@ import { UserEntity } from './user';
 
 /** A personal API token for scripts (`gw_…`); only its SHA-256 is stored. */
 @Entity({ name: 'api_tokens' })
+@Check('CHK_api_tokens_scope', `"scope" IN ('read', 'read-write')`)
 @Index('idx_api_tokens_user', ['userId'])
 export class ApiTokenEntity {
   @PrimaryGeneratedColumn('uuid')

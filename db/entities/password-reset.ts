@@ -31,6 +31,6 @@ export class PasswordResetEntity {
   createdAt: Date;
 
   @ManyToOne(() => UserEntity, { onDelete: 'CASCADE' })
-  @JoinColumn({ name: 'user_id' })
+  @JoinColumn({ name: 'user_id', foreignKeyConstraintName: 'FK_password_resets_user' })
   user: Relation<UserEntity>;
 }

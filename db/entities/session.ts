@@ -44,6 +44,6 @@ export class SessionEntity {
   createdAt: Date;
 
   @ManyToOne(() => UserEntity, { onDelete: 'CASCADE' })
-  @JoinColumn({ name: 'user_id' })
+  @JoinColumn({ name: 'user_id', foreignKeyConstraintName: 'FK_sessions_user' })
   user: Relation<UserEntity>;
 }
