@@ -3,11 +3,11 @@ export * from './core/constants';
 export * from './core/method';
 
 // Dispatcher, registry and serialisation shared by the web pages, the API and the command line.
-export { calculate, runMethod, serializeAnswer, canonicalInputs } from './core/calculate';
-export type { Answer } from './core/calculate';
-export type { MethodOutputs, TypedMethodId } from './method-outputs';
-export { allMethods, findMethod, inputLabel, methodCatalog } from './core/registry';
-export type { CatalogEntry, CatalogInput } from './core/registry';
+export { calculate, runMethod, serializeAnswer, canonicalInputs } from './methods/calculate';
+export type { Answer } from './methods/calculate';
+export type { MethodOutputs, TypedMethodId } from './methods/method-outputs';
+export { allMethods, findMethod, inputLabel, methodCatalog } from './methods/registry';
+export type { CatalogEntry, CatalogInput } from './methods/registry';
 
 // Units (the one units module) and strict input reading.
 export {

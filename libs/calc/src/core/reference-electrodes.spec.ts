@@ -1,6 +1,6 @@
 import { evaluate } from 'mathjs';
 import { describe, expect, it } from 'vitest';
-import { calculate } from './calculate';
+import { calculate } from '../methods/calculate';
 import {
   convertPotential,
   REFERENCE_ELECTRODES,

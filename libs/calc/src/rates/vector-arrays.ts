@@ -7,12 +7,8 @@
  */
 import { BOLTZMANN_EV_PER_K } from '../core/constants';
 import { LN_TWO_PI_OVER_HBAR } from './marcus/marcus';
-import { MLJ_MAX_TERMS, MLJ_RELATIVE_TOLERANCE, mljMinimumTerms } from './mlj/mlj';
-
-/** ln n for the first terms of the Poisson recurrence (shared by every pair and call). */
-const LN_N_TABLE_SIZE = 512;
-const LN_N = new Float64Array(LN_N_TABLE_SIZE);
-for (let n = 1; n < LN_N_TABLE_SIZE; n++) LN_N[n] = Math.log(n);
+import { MLJ_MAX_TERMS, mljMinimumTerms } from './mlj/mlj';
+import { mljTermSum, mljTermSumSlot } from './mlj/mlj-term-sum';
 
 function checkArrays(out: Float64Array, n: number, inputs: readonly ArrayLike<number>[]): void {
   if (out.length < n) throw new RangeError(`out has ${out.length} slots for ${n} pairs.`);
@@ -54,9 +50,7 @@ export function marcusLog10kIntoArrays(
 /**
  * log10 k of the Marcus–Levich–Jortner rate (T = 0 form of the mode; SCIENCE.md §2; J. Jortner,
  * J. Chem. Phys. 1976, 64, 4860) for pair i with its own ΔG°, λ_s, λ_v, ħω, H and T. Same
- * convergence rule as `mljRateLog` (past max(S, n*) + 5, then until a term is < 1e-15 of the
- * running sum); Poisson log-weights by the recurrence ln P_n = ln P_(n−1) + ln S − ln n with
- * ln n tabulated once. A pair whose λ_s, ħω or T is not > 0, or any input NaN, gets NaN (and 0
+ * term sum as `mljRateLog` (`mljTermSum`). A pair whose λ_s, ħω or T is not > 0, or any input NaN, gets NaN (and 0
  * terms) instead of a runaway sum. Optionally records the terms used per pair in `termsOut`.
  */
 export function mljLog10kIntoArrays(
@@ -72,6 +66,7 @@ export function mljLog10kIntoArrays(
   const n = deltaG0Ev.length;
   checkArrays(out, n, [lambdaSolventEv, lambdaVibEv, hbarOmegaEv, couplingEv, temperatureK]);
   const halfLnPi = 0.5 * Math.log(Math.PI);
+  const sum = mljTermSumSlot();
   for (let i = 0; i < n; i++) {
     const lambdaS = lambdaSolventEv[i];
     const hbarOmega = hbarOmegaEv[i];
@@ -96,32 +91,19 @@ export function mljLog10kIntoArrays(
       if (termsOut) termsOut[i] = 1;
       continue;
     }
-    const lnS = Math.log(huangRhys);
     const minTerms = mljMinimumTerms(dG, lambdaS, huangRhys, hbarOmega);
-    let lnPoisson = -huangRhys;
-    let maxLn = Number.NEGATIVE_INFINITY;
-    let sumRelative = 0;
-    let k = 0;
-    for (; k < MLJ_MAX_TERMS; k++) {
-      if (k > 0) lnPoisson += lnS - (k < LN_N_TABLE_SIZE ? LN_N[k] : Math.log(k));
-      const energyEv = offsetEv + k * hbarOmega;
-      const lnTerm = lnPoisson - energyEv * energyEv * inverseWidth;
-      let relative: number;
-      if (lnTerm > maxLn) {
-        sumRelative = sumRelative * Math.exp(maxLn - lnTerm) + 1;
-        relative = 1;
-        maxLn = lnTerm;
-      } else {
-        relative = Math.exp(lnTerm - maxLn);
-        sumRelative += relative;
-      }
-      if (k + 1 >= minTerms && relative < MLJ_RELATIVE_TOLERANCE * sumRelative) {
-        k++;
-        break;
-      }
-    }
-    out[i] = (lnPrefactor + maxLn + Math.log(sumRelative)) * Math.LOG10E;
-    if (termsOut) termsOut[i] = k;
+    mljTermSum(
+      sum,
+      lnPrefactor,
+      offsetEv,
+      hbarOmega,
+      huangRhys,
+      inverseWidth,
+      minTerms,
+      MLJ_MAX_TERMS,
+    );
+    out[i] = sum.lnK * Math.LOG10E;
+    if (termsOut) termsOut[i] = sum.termsUsed;
   }
   return out;
 }

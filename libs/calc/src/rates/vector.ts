@@ -5,10 +5,8 @@
  */
 import { BOLTZMANN_EV_PER_K } from '../core/constants';
 import { LN_TWO_PI_OVER_HBAR } from './marcus/marcus';
-import { MLJ_MAX_TERMS, MLJ_RELATIVE_TOLERANCE, mljMinimumTerms } from './mlj/mlj';
-
-/** Terms whose Poisson step ln S − ln n is tabulated per call (covers S and n* up to ~250). */
-const LN_STEP_TABLE_SIZE = 256;
+import { MLJ_MAX_TERMS, mljMinimumTerms } from './mlj/mlj';
+import { mljTermSum, mljTermSumSlot } from './mlj/mlj-term-sum';
 
 function checkLengths(out: Float64Array, deltaG0Ev: Float64Array): void {
   if (out.length < deltaG0Ev.length) {
@@ -44,8 +42,7 @@ export function marcusLog10kInto(
 /**
  * log10 k of the Marcus–Levich–Jortner rate (T = 0 form; SCIENCE.md §2; Jortner, J. Chem. Phys.
  * 1976, 64, 4860) for each ΔG°, with common λ_s, λ_v, ħω, H and T. Same convergence rule as
- * `mljRateLog` (past max(S, n*) + 5, then until a term is < 1e-15 of the running sum); the
- * Poisson log-weights use the recurrence ln P_n = ln P_(n−1) + ln S − ln n instead of ln Γ.
+ * `mljRateLog`, whose term sum (`mljTermSum`) it shares.
  * Optionally records the number of terms used per pair in `termsOut`.
  */
 export function mljLog10kInto(
@@ -64,10 +61,7 @@ export function mljLog10kInto(
   const lnPrefactor =
     LN_TWO_PI_OVER_HBAR + 2 * Math.log(Math.abs(couplingEv)) - 0.5 * Math.log(Math.PI * widthEv);
   const huangRhys = lambdaVibEv / hbarOmegaEv;
-  const lnS = Math.log(huangRhys);
-  // ln S − ln n for the first terms, computed once per call instead of once per term and pair.
-  const poissonSteps = new Float64Array(LN_STEP_TABLE_SIZE);
-  for (let n = 1; n < LN_STEP_TABLE_SIZE; n++) poissonSteps[n] = lnS - Math.log(n);
+  const sum = mljTermSumSlot();
   for (let i = 0; i < deltaG0Ev.length; i++) {
     const offsetEv = deltaG0Ev[i] + lambdaSolventEv;
     if (huangRhys === 0) {
@@ -76,30 +70,18 @@ export function mljLog10kInto(
       continue;
     }
     const minTerms = mljMinimumTerms(deltaG0Ev[i], lambdaSolventEv, huangRhys, hbarOmegaEv);
-    let lnPoisson = -huangRhys;
-    let maxLn = Number.NEGATIVE_INFINITY;
-    let sumRelative = 0;
-    let n = 0;
-    for (; n < MLJ_MAX_TERMS; n++) {
-      if (n > 0) lnPoisson += n < LN_STEP_TABLE_SIZE ? poissonSteps[n] : lnS - Math.log(n);
-      const energyEv = offsetEv + n * hbarOmegaEv;
-      const lnTerm = lnPoisson - energyEv * energyEv * inverseWidth;
-      let relative: number;
-      if (lnTerm > maxLn) {
-        sumRelative = sumRelative * Math.exp(maxLn - lnTerm) + 1;
-        relative = 1;
-        maxLn = lnTerm;
-      } else {
-        relative = Math.exp(lnTerm - maxLn);
-        sumRelative += relative;
-      }
-      if (n + 1 >= minTerms && relative < MLJ_RELATIVE_TOLERANCE * sumRelative) {
-        n++;
-        break;
-      }
-    }
-    out[i] = (lnPrefactor + maxLn + Math.log(sumRelative)) * Math.LOG10E;
-    if (termsOut) termsOut[i] = n;
+    mljTermSum(
+      sum,
+      lnPrefactor,
+      offsetEv,
+      hbarOmegaEv,
+      huangRhys,
+      inverseWidth,
+      minTerms,
+      MLJ_MAX_TERMS,
+    );
+    out[i] = sum.lnK * Math.LOG10E;
+    if (termsOut) termsOut[i] = sum.termsUsed;
   }
   return out;
 }

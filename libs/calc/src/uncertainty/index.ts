@@ -1,10 +1,10 @@
 /** Public API of the uncertainty family of the calculation core. */
 import type { MethodDefinition } from '../core/method';
-import { monteCarloMethod } from './monte-carlo/monte-carlo';
+import { createMonteCarloMethod, type MethodLookup } from './monte-carlo/monte-carlo';
 
 export {
   extractDistributions,
-  monteCarloMethod,
+  createMonteCarloMethod,
   numericOutputs,
   runMonteCarlo,
   SeededSampler,
@@ -12,10 +12,13 @@ export {
 } from './monte-carlo/monte-carlo';
 export type {
   Distribution,
+  MethodLookup,
   MonteCarloInputs,
   OutputSummary,
   UncertainInput,
 } from './monte-carlo/monte-carlo';
 
-/** Every `uncertainty.*` method, for the registry. */
-export const uncertaintyMethods: MethodDefinition<any>[] = [monteCarloMethod];
+/** Every `uncertainty.*` method, for the registry, which passes its lookup of the sampled methods. */
+export const uncertaintyMethods = (findMethod: MethodLookup): MethodDefinition<any>[] => [
+  createMonteCarloMethod(findMethod),
+];

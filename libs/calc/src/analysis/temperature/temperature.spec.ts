@@ -1,6 +1,6 @@
 import { evaluate, inv, matrix, multiply, transpose } from 'mathjs';
 import { describe, expect, it } from 'vitest';
-import { computeOk, computeRefused, numberOutput } from '../../core/testing/answers';
+import { computeOk, computeRefused, numberOutput } from '../../methods/testing/answers';
 import { marcusRate } from '../../rates/marcus/marcus';
 
 const KB = 8.617333262e-5;

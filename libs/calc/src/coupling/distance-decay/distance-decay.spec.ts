@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { computeOk, computeRefused, numberOutput } from '../../core/testing/answers';
+import { computeOk, computeRefused, numberOutput } from '../../methods/testing/answers';
 
 describe('coupling.distanceDecay', () => {
   it('halves H at R − R₀ = 2 ln2/β (exact, H ∝ e^(−βR/2))', () => {

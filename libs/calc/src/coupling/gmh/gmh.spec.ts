@@ -7,7 +7,7 @@ import {
   numberOutput,
   relativeError,
   warningCodes,
-} from '../../core/testing/answers';
+} from '../../methods/testing/answers';
 
 /**
  * Adiabatic data from a two-state diabatic model, diagonalised with mathjs `eigs` (an outside

@@ -5,7 +5,7 @@ import {
   numberOutput,
   relativeError,
   warningCodes,
-} from '../../core/testing/answers';
+} from '../../methods/testing/answers';
 
 describe('coupling.hush', () => {
   it('applies the published 2.06e-2 (Hush 1967; Creutz 1983, from memory), worked by hand', () => {

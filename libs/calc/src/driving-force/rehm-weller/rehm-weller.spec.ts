@@ -1,6 +1,11 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { computeOk, computeRefused, numberOutput, warningCodes } from '../../core/testing/answers';
+import {
+  computeOk,
+  computeRefused,
+  numberOutput,
+  warningCodes,
+} from '../../methods/testing/answers';
 
 // e²/(4πε₀) in eV Å from CODATA 2018 SI values (e = 1.602176634e-19 C, ε₀ = 8.8541878128e-12 F/m),
 // computed here rather than taken from constants.ts.

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 
-import { computeRefused } from '../../core/testing/answers';
+import { computeRefused } from '../../methods/testing/answers';
 
 import { CalcRefusal } from '../../core/method';
 import { butlerVolmerMethod, butlerVolmerRates } from './butler-volmer';

@@ -1,6 +1,6 @@
 import { evaluate } from 'mathjs';
 import { describe, expect, it } from 'vitest';
-import { computeOk, computeRefused, numberOutput } from '../../core/testing/answers';
+import { computeOk, computeRefused, numberOutput } from '../../methods/testing/answers';
 
 const KB = 8.617333262e-5;
 const T = 298.15;

@@ -1,8 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 
-import { computeOk, computeRefused, numberOutput } from '../../core/testing/answers';
-import { calculate } from '../../core/calculate';
+import { computeOk, computeRefused, numberOutput } from '../../methods/testing/answers';
+import { calculate } from '../../methods/calculate';
 
 import { integrateAdaptive } from './adaptive-gauss-kronrod';
 import { logErfc, logMhcClosedForm, logMhcIntegral, mhcMethod, mhcRates, softplus } from './mhc';

@@ -5,7 +5,7 @@ import {
   numberOutput,
   relativeError,
   warningCodes,
-} from '../../core/testing/answers';
+} from '../../methods/testing/answers';
 
 const KB_EV = 8.617333262e-5; // CODATA 2018, typed here independently of constants.ts
 

@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { eigs } from 'mathjs';
 import { describe, expect, it } from 'vitest';
-import { computeOk, computeRefused } from '../../core/testing/answers';
+import { computeOk, computeRefused } from '../../methods/testing/answers';
 
 /** Tridiagonal Toeplitz matrix a on the diagonal, b beside it. */
 function chain(n: number, a: number, b: number): number[][] {

@@ -1,7 +1,7 @@
 import { eigs } from 'mathjs';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { computeOk, numberOutput, warningCodes } from '../../core/testing/answers';
+import { computeOk, numberOutput, warningCodes } from '../../methods/testing/answers';
 import { twoStateMixing } from './two-state';
 
 /** Ground energy of the two-state model at reaction coordinate x (SCIENCE.md §3 parabolas). */

@@ -1,7 +1,7 @@
 import seedrandom from 'seedrandom';
 import { describe, expect, it } from 'vitest';
 
-import { computeOk, computeRefused, numberOutput } from '../../core/testing/answers';
+import { computeOk, computeRefused, numberOutput } from '../../methods/testing/answers';
 
 import { CalcRefusal } from '../../core/method';
 import { analyseGapSamples, fitParabola } from './gap-samples';

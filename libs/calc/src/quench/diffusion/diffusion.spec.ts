@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 
-import { computeOk, computeRefused, numberOutput } from '../../core/testing/answers';
+import { computeOk, computeRefused, numberOutput } from '../../methods/testing/answers';
 
 import {
   debyeFactor,

@@ -1,7 +1,7 @@
 import { evaluate } from 'mathjs';
 import { describe, expect, it } from 'vitest';
-import { calculate } from '../../core/calculate';
-import { computeRefused } from '../../core/testing/answers';
+import { calculate } from '../../methods/calculate';
+import { computeRefused } from '../../methods/testing/answers';
 
 const expectRefusal = (inputs: Record<string, unknown>, field: string) =>
   expect(computeRefused('quench.sternVolmer', inputs).map((e) => e.field)).toContain(field);

@@ -1,6 +1,6 @@
 import { evaluate } from 'mathjs';
 import { describe, expect, it } from 'vitest';
-import { computeOk, computeRefused, numberOutput } from '../../core/testing/answers';
+import { computeOk, computeRefused, numberOutput } from '../../methods/testing/answers';
 import { debyeKappaPerAngstrom } from './cross-relation-work';
 
 const base = { k11: 4.2, k22: 3.3e6, K12: 1.2e4, temperature: 298.15 };

@@ -6,7 +6,7 @@ import {
   numberOutput,
   relativeError,
   warningCodes,
-} from '../../core/testing/answers';
+} from '../../methods/testing/answers';
 
 // Faraday and gas constants (exact in the 2019 SI; CODATA 2018) for K12 = exp(FΔE/RT).
 const FARADAY = 96485.33212;

@@ -5,7 +5,7 @@ import {
   numberOutput,
   relativeError,
   warningCodes,
-} from '../../core/testing/answers';
+} from '../../methods/testing/answers';
 
 // CODATA 2018 in SI (Tiesinga et al. 2021), independent of constants.ts.
 const HBAR_J_S = 1.054571817e-34;

@@ -5,7 +5,7 @@ import {
   numberOutput,
   relativeError,
   warningCodes,
-} from '../../core/testing/answers';
+} from '../../methods/testing/answers';
 
 // CODATA 2018 in SI (Tiesinga et al. 2021), independent of constants.ts.
 const H_J_S = 6.62607015e-34;

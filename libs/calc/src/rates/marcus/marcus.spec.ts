@@ -6,7 +6,7 @@ import {
   numberOutput,
   relativeError,
   warningCodes,
-} from '../../core/testing/answers';
+} from '../../methods/testing/answers';
 import { marcusActivationEv, marcusRateLog } from './marcus';
 
 // SI constants typed here from CODATA 2018 (Tiesinga et al., Rev. Mod. Phys. 2021, 93, 025010),

@@ -6,7 +6,7 @@ import {
   numberOutput,
   relativeError,
   warningCodes,
-} from '../../core/testing/answers';
+} from '../../methods/testing/answers';
 import { logScaledBesselI } from './mlj-thermal';
 
 // CODATA 2018 (Tiesinga et al. 2021), typed here independently of constants.ts.

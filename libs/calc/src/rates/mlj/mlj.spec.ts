@@ -6,7 +6,7 @@ import {
   numberOutput,
   relativeError,
   warningCodes,
-} from '../../core/testing/answers';
+} from '../../methods/testing/answers';
 import { marcusRateLog } from '../marcus/marcus';
 import { mljMinimumTerms, mljRateLog } from './mlj';
 

@@ -4,7 +4,6 @@
  */
 import { BOLTZMANN_EV_PER_K } from '../../core/constants';
 import type { MethodDefinition } from '../../core/method';
-import { logGamma } from '../../core/special/log-gamma';
 import {
   noteCouplingSign,
   warnBarrierLowering,
@@ -26,9 +25,8 @@ import {
   refuseClassIII,
 } from '../rate-inputs';
 import { reportRate } from '../rate-log';
+import { mljTermSum, mljTermSumSlot } from './mlj-term-sum';
 
-/** The sum stops once a term is below this fraction of the running sum (SCIENCE.md §2). */
-export const MLJ_RELATIVE_TOLERANCE = 1e-15;
 /** Terms summed past max(S, n*) before the tolerance test may stop the sum (SCIENCE.md §2). */
 export const MLJ_MIN_EXTRA_TERMS = 5;
 /** Hard cap on the number of terms; reaching it is reported as non-convergence (B7). */
@@ -98,8 +96,8 @@ export function mljMinimumTerms(
 /**
  * ln k of the Marcus–Levich–Jortner rate (T = 0 form for the quantum mode):
  * k = (2π/ħ)|H|² (4πλ_s k_BT)^(−1/2) Σ_n e^(−S) Sⁿ/n! exp[−(ΔG° + λ_s + nħω)²/(4λ_s k_BT)],
- * S = λ_v/ħω. Poisson weights in log space, n ln S − ln Γ(n + 1); the sum runs past max(S, n*) + 5
- * and stops when a term is below 1e-15 of the running sum (log-sum-exp, so it never underflows).
+ * S = λ_v/ħω, summed by `mljTermSum` (Poisson log-weights by recurrence; past max(S, n*) + 5,
+ * then until a term is below 1e-15 of the running sum; log-sum-exp, so it never underflows).
  * S = 0 gives exactly the classical Marcus rate with λ_s.
  *
  * Notes: valid for ħω ≳ 4k_BT (only v = 0 of the mode populated); the prefactor and the Gaussian
@@ -126,35 +124,18 @@ export function mljRateLog(
     // Only n = 0 carries weight (0⁰ = 1): classical Marcus with λ_s.
     return { lnK: lnPrefactor - (offsetEv * offsetEv) / widthEv, termsUsed: 1, converged: true };
   }
-  const lnS = Math.log(huangRhys);
   const minTerms = mljMinimumTerms(deltaG0Ev, lambdaSolventEv, huangRhys, hbarOmegaEv);
-  let maxLn = Number.NEGATIVE_INFINITY;
-  let sumRelative = 0; // Σ exp(lnTerm − maxLn)
-  for (let n = 0; n < maxTerms; n++) {
-    const energyEv = offsetEv + n * hbarOmegaEv;
-    const lnTerm = -huangRhys + n * lnS - logGamma(n + 1) - (energyEv * energyEv) / widthEv;
-    let relative: number;
-    if (lnTerm > maxLn) {
-      sumRelative = sumRelative * Math.exp(maxLn - lnTerm) + 1;
-      relative = 1;
-      maxLn = lnTerm;
-    } else {
-      relative = Math.exp(lnTerm - maxLn);
-      sumRelative += relative;
-    }
-    if (n + 1 >= minTerms && relative < MLJ_RELATIVE_TOLERANCE * sumRelative) {
-      return {
-        lnK: lnPrefactor + maxLn + Math.log(sumRelative),
-        termsUsed: n + 1,
-        converged: true,
-      };
-    }
-  }
-  return {
-    lnK: lnPrefactor + maxLn + Math.log(sumRelative),
-    termsUsed: maxTerms,
-    converged: false,
-  };
+  const { lnK, termsUsed, converged } = mljTermSum(
+    mljTermSumSlot(),
+    lnPrefactor,
+    offsetEv,
+    hbarOmegaEv,
+    huangRhys,
+    1 / widthEv,
+    minTerms,
+    maxTerms,
+  );
+  return { lnK, termsUsed, converged };
 }
 
 export interface MljInputs {

@@ -1,5 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { computeOk, computeRefused, numberOutput, warningCodes } from '../../core/testing/answers';
+import {
+  computeOk,
+  computeRefused,
+  numberOutput,
+  warningCodes,
+} from '../../methods/testing/answers';
 
 describe('rate.ruler', () => {
   it('reproduces the SCIENCE.md §9 examples (Moser et al. 1992, from memory)', () => {

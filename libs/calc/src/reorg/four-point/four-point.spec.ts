@@ -1,5 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { computeOk, computeRefused, numberOutput, warningCodes } from '../../core/testing/answers';
+import {
+  computeOk,
+  computeRefused,
+  numberOutput,
+  warningCodes,
+} from '../../methods/testing/answers';
 
 /**
  * Independent model: one harmonic mode, E_N(q) = ½kq², E_C(q) = ½k(q − Δ)² + E₀, with the neutral

@@ -1,6 +1,6 @@
 import { evaluate } from 'mathjs';
 import { describe, expect, it } from 'vitest';
-import { computeOk, computeRefused, numberOutput } from '../../core/testing/answers';
+import { computeOk, computeRefused, numberOutput } from '../../methods/testing/answers';
 
 const CM1_PER_EV = 8065.543937;
 

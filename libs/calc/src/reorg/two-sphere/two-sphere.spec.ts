@@ -5,7 +5,7 @@ import {
   numberOutput,
   relativeError,
   warningCodes,
-} from '../../core/testing/answers';
+} from '../../methods/testing/answers';
 
 /** Independent SI evaluation: e²/(4πε₀) in J m with CODATA 2018 e and ε₀, then J → eV, m → Å. */
 function twoSphereSi(aD: number, aA: number, r: number, eps: number, n: number): number {

@@ -1,8 +1,8 @@
 import seedrandom from 'seedrandom';
 import { describe, expect, it } from 'vitest';
 
-import { calculate } from '../../core/calculate';
-import { computeOk, computeRefused, numberOutput } from '../../core/testing/answers';
+import { calculate } from '../../methods/calculate';
+import { computeOk, computeRefused, numberOutput } from '../../methods/testing/answers';
 
 import {
   einsteinMobilityCm2PerVS,

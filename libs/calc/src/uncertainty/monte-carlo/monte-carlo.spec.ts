@@ -1,5 +1,4 @@
-// The dispatcher first: it loads the registry, which loads this family (see monte-carlo.ts).
-import { calculate } from '../../core/calculate';
+import { calculate } from '../../methods/calculate';
 
 import { describe, expect, it } from 'vitest';
 

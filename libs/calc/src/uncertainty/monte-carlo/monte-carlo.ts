@@ -4,17 +4,16 @@
  */
 import seedrandom from 'seedrandom';
 
-// The dispatcher imports the registry, which imports this family: only call it at run time.
-import { runMethod } from '../../core/calculate';
 import { isPlainObject } from '../../core/inputs';
 import {
   CalcRefusal,
+  type CalcAnswer,
   type CalcOutputs,
   type InputReader,
   type MethodDefinition,
   type WarningSink,
 } from '../../core/method';
-import { findMethod } from '../../core/registry';
+import { internalError, runDefinition } from '../../core/run-definition';
 import {
   freedmanDiaconisHistogram,
   percentileSorted,
@@ -47,8 +46,16 @@ export interface UncertainInput {
   readonly unit: string;
 }
 
+/**
+ * How Monte Carlo finds the method it samples. The registry passes its own lookup in, so this
+ * module imports neither the registry nor the dispatcher (no import cycle through the families).
+ */
+export type MethodLookup = (id: string) => MethodDefinition<any> | undefined;
+
 export interface MonteCarloInputs {
   readonly method: string;
+  /** The definition of `method`, found by the lookup when the request was read. */
+  readonly definition: MethodDefinition<any> | undefined;
   /** The inner inputs with every distribution replaced by its centre (nominal request). */
   readonly nominalInputs: unknown;
   readonly uncertain: readonly UncertainInput[];
@@ -230,7 +237,7 @@ export function extractDistributions(
   return { nominal, uncertain };
 }
 
-function readMonteCarlo(reader: InputReader): MonteCarloInputs {
+function readMonteCarlo(reader: InputReader, findMethod: MethodLookup): MonteCarloInputs {
   const method = reader.raw('method');
   let methodId = '';
   if (typeof method !== 'string') {
@@ -262,7 +269,8 @@ function readMonteCarlo(reader: InputReader): MonteCarloInputs {
       message: `Samples must be an integer from 10 to ${MAX_SAMPLES}.`,
     }) ?? DEFAULT_SAMPLES;
   const seed = reader.optionalInteger('seed') ?? 1;
-  return { method: methodId, nominalInputs, uncertain, samples, seed };
+  const definition = methodId === '' ? undefined : findMethod(methodId);
+  return { method: methodId, definition, nominalInputs, uncertain, samples, seed };
 }
 
 /**
@@ -290,8 +298,21 @@ export type MonteCarloOutputs = {
   readonly samplesRefused: number;
 } & { readonly [output: string]: OutputSummary | unknown };
 
+/** Runs the sampled method on one request; never throws (as the dispatcher). */
+function runInner(definition: MethodDefinition<any>, rawInputs: unknown): CalcAnswer {
+  try {
+    return runDefinition(definition, rawInputs);
+  } catch (thrown) {
+    return internalError('method', thrown);
+  }
+}
+
 export function runMonteCarlo(inputs: MonteCarloInputs, warnings: WarningSink): MonteCarloOutputs {
-  const nominal = runMethod(inputs.method, inputs.nominalInputs);
+  const definition = inputs.definition;
+  if (definition === undefined) {
+    throw new CalcRefusal([{ field: 'method', message: `Unknown method '${inputs.method}'.` }]);
+  }
+  const nominal = runInner(definition, inputs.nominalInputs);
   if (!nominal.ok) {
     throw new CalcRefusal(
       nominal.errors.map((e) => ({ field: `inputs.${e.field}`, message: e.message })),
@@ -331,7 +352,7 @@ export function runMonteCarlo(inputs: MonteCarloInputs, warnings: WarningSink): 
       const value = sampler.draw(input.distribution);
       setAtPath(request, input.path, input.unit === '' ? value : { value, unit: input.unit });
     }
-    const answer = runMethod(inputs.method, request);
+    const answer = runInner(definition, request);
     if (!answer.ok) {
       refused++;
       firstReason ||= `${answer.errors[0]?.field}: ${answer.errors[0]?.message}`;
@@ -378,7 +399,13 @@ export function runMonteCarlo(inputs: MonteCarloInputs, warnings: WarningSink): 
   return { ...outputs, histograms, samplesUsed: used, samplesRefused: refused };
 }
 
-export const monteCarloMethod: MethodDefinition<MonteCarloInputs> = {
+/**
+ * The `uncertainty.monteCarlo` method, sampling methods found by `findMethod` (the registry's
+ * lookup; see `methods/registry.ts`).
+ */
+export const createMonteCarloMethod = (
+  findMethod: MethodLookup,
+): MethodDefinition<MonteCarloInputs> => ({
   id: SELF_ID,
   summary:
     'Seeded Monte Carlo propagation of { value, sigma } and { low, high } inputs through another ' +
@@ -430,6 +457,6 @@ export const monteCarloMethod: MethodDefinition<MonteCarloInputs> = {
     { name: 'samplesUsed', unit: '', description: 'Samples the inner method accepted.' },
     { name: 'samplesRefused', unit: '', description: 'Samples it refused (left out).' },
   ],
-  read: readMonteCarlo,
+  read: (reader) => readMonteCarlo(reader, findMethod),
   compute: runMonteCarlo,
-};
+});

@@ -1,5 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { computeOk, computeRefused, numberOutput, relativeError } from '../../core/testing/answers';
+import {
+  computeOk,
+  computeRefused,
+  numberOutput,
+  relativeError,
+} from '../../methods/testing/answers';
 
 describe('units.convert', () => {
   it('converts energies by the CODATA 2018 table (SCIENCE.md §16)', () => {

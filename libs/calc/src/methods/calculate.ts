@@ -4,27 +4,13 @@
  * is given, and never returns NaN or ±Infinity: a non-finite output for valid input is refused
  * as an internal error rather than shown as a number.
  */
-import { isPlainObject, RequestInputReader, WarningCollector } from './inputs';
-import {
-  CalcRefusal,
-  type CalcAnswer,
-  type CalcOutputs,
-  type CalcWarning,
-  type FieldError,
-  type MethodDefinition,
-} from './method';
+import { isPlainObject, RequestInputReader } from '../core/inputs';
+import type { CalcAnswer, CalcWarning, FieldError } from '../core/method';
+import { internalError, refuse, runDefinition } from '../core/run-definition';
+import type { MethodOutputs, TypedMethodId } from './method-outputs';
 import { allMethods, findMethod } from './registry';
-import type { MethodOutputs, TypedMethodId } from '../method-outputs';
 
 const REQUEST_KEYS = new Set(['method', 'inputs']);
-
-function refuse(errors: FieldError[]): CalcAnswer {
-  return { ok: false, errors };
-}
-
-function describeThrown(thrown: unknown): string {
-  return thrown instanceof Error ? thrown.message : String(thrown);
-}
 
 /** An answer whose outputs have the type `O` (see `MethodOutputs`). */
 export type Answer<O> =
@@ -106,91 +92,6 @@ function unknownMethodMessage(methodId: string): string {
     .map((m) => m.id)
     .join(', ');
   return `Unknown method '${methodId}'; known methods: ${known}.`;
-}
-
-function internalError(field: string, thrown: unknown): CalcAnswer {
-  return refuse([
-    {
-      field,
-      message: `Internal error (${describeThrown(thrown)}); this is a bug, please report it.`,
-    },
-  ]);
-}
-
-/** Runs a method definition on raw inputs (the registry-free core of `calculate`). */
-export function runDefinition(method: MethodDefinition<any>, rawInputs: unknown): CalcAnswer {
-  const reader = new RequestInputReader(rawInputs);
-  const inputs = method.read(reader);
-  const unknown = reader.unknownFields();
-  if (unknown.length > 0) {
-    const names = method.inputs.map((input) => input.name).join(', ');
-    for (const field of unknown) {
-      reader.fail(field, `Unknown input '${field}' for ${method.id}; its inputs are ${names}.`);
-    }
-  }
-  if (reader.failed) return refuse([...reader.fieldErrors]);
-  const warnings = new WarningCollector();
-  reader.warnMixedReferences(warnings);
-  let outputs: CalcOutputs;
-  try {
-    outputs = method.compute(inputs, warnings);
-  } catch (thrown) {
-    if (thrown instanceof CalcRefusal) return refuse(thrown.errors);
-    return internalError('method', thrown);
-  }
-  const checked = finiteOutputs(outputs, 'outputs');
-  if (!checked.ok) {
-    return refuse([
-      {
-        field: checked.path,
-        message:
-          'Internal error: a non-finite output for valid input; this is a bug, please report it.',
-      },
-    ]);
-  }
-  return {
-    ok: true,
-    method: method.id,
-    outputs: checked.value as CalcOutputs,
-    warnings: warnings.list(),
-  };
-}
-
-type Checked = { ok: true; value: unknown } | { ok: false; path: string };
-
-/**
- * Copies outputs into plain JSON values (typed arrays become arrays) and rejects any NaN, ±∞,
- * function or other value JSON cannot carry. `null` is allowed (log10 k when k is exactly 0).
- */
-function finiteOutputs(value: unknown, path: string): Checked {
-  if (value === null || typeof value === 'string' || typeof value === 'boolean') {
-    return { ok: true, value };
-  }
-  if (typeof value === 'number')
-    return Number.isFinite(value) ? { ok: true, value } : { ok: false, path };
-  if (ArrayBuffer.isView(value) && !(value instanceof DataView)) {
-    return finiteOutputs(Array.from(value as unknown as ArrayLike<number>), path);
-  }
-  if (Array.isArray(value)) {
-    const out: unknown[] = new Array(value.length);
-    for (let i = 0; i < value.length; i++) {
-      const item = finiteOutputs(value[i], `${path}[${i}]`);
-      if (!item.ok) return item;
-      out[i] = item.value;
-    }
-    return { ok: true, value: out };
-  }
-  if (isPlainObject(value)) {
-    const out: Record<string, unknown> = {};
-    for (const [key, item] of Object.entries(value)) {
-      if (item === undefined) continue;
-      const checked = finiteOutputs(item, `${path}.${key}`);
-      if (!checked.ok) return checked;
-      out[key] = checked.value;
-    }
-    return { ok: true, value: out };
-  }
-  return { ok: false, path };
 }
 
 /**

@@ -1,8 +1,9 @@
 /**
  * The one registry of calculation methods. The dispatcher, `gapwise calc --help`, the API
  * documentation and the web forms all read it, so there is no second list to keep in step.
- * Built lazily: `uncertainty.monteCarlo` imports the dispatcher, which imports this module, so the
- * family arrays must not be touched while modules are still loading.
+ * It sits above every family (`core/` below them holds only what the families share), and hands
+ * `uncertainty.monteCarlo` its lookup instead of being imported by it, so no import cycle runs
+ * through the library (`test/lint/import-cycles.spec.ts`). Built on first use.
  */
 import { analysisMethods } from '../analysis';
 import { couplingMethods } from '../coupling';
@@ -17,8 +18,8 @@ import { reorgMethods } from '../reorg';
 import { transportMethods } from '../transport';
 import { uncertaintyMethods } from '../uncertainty';
 import { unitMethods } from '../units';
-import type { InputSpec, MethodDefinition, OutputSpec, Quantity } from './method';
-import { allowedUnits, canonicalUnit } from './units';
+import type { InputSpec, MethodDefinition, OutputSpec, Quantity } from '../core/method';
+import { allowedUnits, canonicalUnit } from '../core/units';
 
 let byId: Map<string, MethodDefinition<any>> | undefined;
 
@@ -35,12 +36,12 @@ function build(): Map<string, MethodDefinition<any>> {
     quenchMethods,
     fitMethods,
     analysisMethods,
-    uncertaintyMethods,
+    uncertaintyMethods(findMethod),
     unitMethods,
   ];
   const map = new Map<string, MethodDefinition<any>>();
   for (const family of families) {
-    for (const method of family ?? []) {
+    for (const method of family) {
       if (map.has(method.id)) throw new Error(`Duplicate calculation method id '${method.id}'.`);
       map.set(method.id, method);
     }

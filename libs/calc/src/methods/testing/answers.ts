@@ -3,7 +3,7 @@
  * unwrap the answer, failing with the refusal's messages when it was not what the test expects.
  */
 import { calculate } from '../calculate';
-import type { CalcAnswer, CalcWarning, FieldError } from '../method';
+import type { CalcAnswer, CalcWarning, FieldError } from '../../core/method';
 
 export type OkAnswer = Extract<CalcAnswer, { ok: true }>;
 

@@ -1,7 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { calculate, canonicalInputs, runDefinition, runMethod, serializeAnswer } from './calculate';
-import { CalcRefusal, type MethodDefinition } from './method';
+import { runDefinition } from '../core/run-definition';
+import { calculate, canonicalInputs, runMethod, serializeAnswer } from './calculate';
+import { CalcRefusal, type MethodDefinition } from '../core/method';
 import { allMethods, methodCatalog } from './registry';
 
 /** A valid request for every method this half of the core owns (CALC-API.md examples). */

@@ -1,4 +1,3 @@
-// The dispatcher first: it loads the registry (see uncertainty/monte-carlo/monte-carlo.ts).
 import { calculate } from './calculate';
 
 import { describe, expect, it } from 'vitest';
