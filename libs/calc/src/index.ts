@@ -3,9 +3,40 @@ export * from './core/constants';
 export * from './core/method';
 
 // Dispatcher, registry and serialisation shared by the web pages, the API and the command line.
-export { calculate, runMethod, serializeAnswer, canonicalInputs } from './methods/calculate';
+export { calculate, serializeAnswer } from './methods/calculate';
 export type { Answer } from './methods/calculate';
 export type { MethodOutputs, TypedMethodId } from './methods/method-outputs';
+// The output type of every method (what `calculate` answers for its id).
+export type { TemperatureOutputs } from './analysis/temperature/temperature';
+export type { ReferenceOutputs } from './driving-force/reference/reference';
+export type { MhcAbsoluteOutputs } from './electrode/mhc-absolute/mhc-absolute';
+export type { AdiabaticBarrierOutputs } from './evb/adiabatic-barrier/adiabatic-barrier';
+export type { SternVolmerOutputs } from './quench/stern-volmer/stern-volmer';
+export type { CrossRelationWorkOutputs } from './rates/cross-relation-work/cross-relation-work';
+export type { LandauZenerOutputs } from './rates/landau-zener/landau-zener';
+export type { MljThermalOutputs } from './rates/mlj-thermal/mlj-thermal';
+export type { NormalModesOutputs } from './reorg/normal-modes/normal-modes';
+export type { DistanceDecayOutputs } from './coupling/distance-decay/distance-decay';
+export type { GmhOutputs } from './coupling/gmh/gmh';
+export type { HushOutputs } from './coupling/hush/hush';
+export type { RehmWellerOutputs } from './driving-force/rehm-weller/rehm-weller';
+export type { ButlerVolmerOutputs } from './electrode/butler-volmer/butler-volmer';
+export type { MhcOutputs } from './electrode/mhc/mhc';
+export type { MultiStateOutputs } from './evb/multi-state/multi-state';
+export type { TwoStateOutputs } from './evb/two-state/two-state';
+export type { DrivingForceSeriesOutputs } from './fit/driving-force-series/driving-force-series';
+export type { GapSamplesOutputs } from './gap/gap-samples/gap-samples';
+export type { DiffusionOutputs } from './quench/diffusion/diffusion';
+export type { CrossRelationOutputs } from './rates/cross-relation/cross-relation';
+export type { CrossoverOutputs } from './rates/crossover/crossover';
+export type { MarcusOutputs } from './rates/marcus/marcus';
+export type { MljOutputs } from './rates/mlj/mlj';
+export type { RulerOutputs } from './rates/ruler/ruler';
+export type { FourPointOutputs } from './reorg/four-point/four-point';
+export type { TwoSphereOutputs } from './reorg/two-sphere/two-sphere';
+export type { HoppingOutputs } from './transport/hopping/hopping';
+export type { MonteCarloOutputs } from './uncertainty/monte-carlo/monte-carlo';
+export type { ConvertOutputs } from './units/convert/convert';
 export { allMethods, findMethod, inputLabel, methodCatalog } from './methods/registry';
 export type { CatalogEntry, CatalogInput } from './methods/registry';
 
@@ -53,19 +84,10 @@ export { PLAUSIBLE_RANGES, WARNING_CODES, thermalEnergyEv } from './core/warning
 export { logGamma } from './core/special/log-gamma';
 
 // Kernels a web page may call directly (plots, screens).
-export {
-  LN_TWO_PI_OVER_HBAR,
-  marcusActivationEv,
-  marcusRate,
-  marcusRateLog,
-} from './rates/marcus/marcus';
+export { LN_TWO_PI_OVER_HBAR, marcusActivationEv, marcusRateLog } from './rates/marcus/marcus';
 export { mljMinimumTerms, mljRateLog } from './rates/mlj/mlj';
 export type { MljSum } from './rates/mlj/mlj';
-export {
-  adiabaticityParameter,
-  crossoverRateLog,
-  solventControlledRateLog,
-} from './rates/crossover/crossover';
+export { adiabaticityParameter, solventControlledRateLog } from './rates/crossover/crossover';
 export { rulerLog10Rate, rulerSlopePerAngstrom } from './rates/ruler/ruler';
 export { crossRelationLnF, crossRelationRateLog } from './rates/cross-relation/cross-relation';
 export { marcusRegime } from './rates/rate-inputs';
@@ -78,7 +100,6 @@ export {
   ionPairCoulombTermEv,
   rehmWellerChargeRecombinationEv,
   rehmWellerChargeSeparationEv,
-  wellerSolventCorrectionEv,
 } from './driving-force/rehm-weller/rehm-weller';
 export { pekarFactor, twoSphereLambdaEv } from './reorg/two-sphere/two-sphere';
 export { fourPointLambdas } from './reorg/four-point/four-point';
@@ -107,6 +128,7 @@ export type {
   GapHistogramCounts,
   GapHistogramPlan,
   GapStateSummary,
+  GapOutputs,
   GapStatistics,
   MergedFreeEnergyCurve,
 } from './gap/index';

@@ -2,6 +2,7 @@
  * Energy-gap traces and their analyses, as the API sends them and the command line prints them.
  * Energies are in eV (canonical); `unit` is the unit the file was written in.
  */
+import type { GapOutputs } from '@gapwise/calc';
 
 export const TRACE_STATES = ['reactant', 'product'] as const;
 export type TraceState = (typeof TRACE_STATES)[number];
@@ -69,13 +70,13 @@ export interface TraceSourceInfo {
 
 /**
  * The JSON of a finished analysis; the command line prints the same object for the same files.
- * `outputs` holds the `reorg.gapSamples` outputs (CALC-API.md) and the streaming extras.
+ * `outputs` holds the `reorg.gapSamples` outputs (CALC-API.md), typed by the calculation core.
  */
 export interface TraceAnalysisResult {
   readonly method: 'reorg.gapSamples';
   readonly temperatureK: number;
   readonly sources: { readonly reactant: TraceSourceInfo; readonly product: TraceSourceInfo };
-  readonly outputs: Record<string, unknown>;
+  readonly outputs: GapOutputs;
   readonly warnings: ReadonlyArray<{ readonly code: string; readonly message: string }>;
 }
 

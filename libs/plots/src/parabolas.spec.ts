@@ -1,14 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import {
-  adiabaticSurfaces,
-  parabolaGeometry,
-  productFreeEnergy,
-  reactantFreeEnergy,
-} from './parabolas';
+import { adiabaticSurfaces, parabolaGeometry, reactantFreeEnergy } from './parabolas';
 import { linearScale, linePath, niceTicks } from './scale';
 
 // Expected values follow from the two-state model of SCIENCE.md §3 and the linear free-energy
 // relation of §7, worked by hand: λ = 0.8 eV, ΔG° = −0.3 eV gives ΔG‡ = 0.25/3.2 = 0.078125 eV.
+/** G_P(x) = G_R(x) + x, the linear free-energy relation (SCIENCE.md §7). */
+const productFreeEnergy = (gap: number, deltaG0: number, lambda: number) =>
+  reactantFreeEnergy(gap, deltaG0, lambda) + gap;
 describe('parabola geometry', () => {
   const g = parabolaGeometry({ deltaG0: -0.3, lambda: 0.8, coupling: 0.05 });
 

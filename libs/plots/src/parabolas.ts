@@ -59,10 +59,6 @@ export function reactantFreeEnergy(gap: number, deltaG0: number, lambda: number)
   return (gap - deltaG0 - lambda) ** 2 / (4 * lambda);
 }
 
-export function productFreeEnergy(gap: number, deltaG0: number, lambda: number): number {
-  return reactantFreeEnergy(gap, deltaG0, lambda) + gap;
-}
-
 /** Lower and upper adiabatic surfaces at one gap value. */
 export function adiabaticSurfaces(gap: number, deltaG0: number, lambda: number, coupling: number) {
   const r = reactantFreeEnergy(gap, deltaG0, lambda);

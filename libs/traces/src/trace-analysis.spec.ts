@@ -113,7 +113,7 @@ describe('streaming trace analysis', () => {
       input(f.pp, { unit: 'eV' }, f.ps),
       T,
     );
-    const o = res.outputs as Record<string, number> & { standardErrors: Record<string, number> };
+    const o = res.outputs;
     const se = o.standardErrors.lambdaFromMeans;
     expect(Math.abs(o.lambdaFromMeans - LAMBDA)).toBeLessThan(4 * se);
     expect(Math.abs(o.deltaG0FromMeans - DG0)).toBeLessThan(4 * se);
@@ -186,8 +186,8 @@ describe('streaming trace analysis', () => {
       input(kcal.pp, { unit: 'kcal/mol' }, kcal.ps),
       T,
     );
-    const la = (a.outputs as Record<string, number>).lambdaFromMeans;
-    const lb = (b.outputs as Record<string, number>).lambdaFromMeans;
+    const la = a.outputs.lambdaFromMeans;
+    const lb = b.outputs.lambdaFromMeans;
     expect(Math.abs(lb / la - 1)).toBeLessThan(1e-9);
     // Read as eV, the kcal/mol file would be off by the factor 23.06 (a guard that units matter).
     const wrong = await analyzeTraces(
@@ -195,10 +195,7 @@ describe('streaming trace analysis', () => {
       input(kcal.pp, { unit: 'eV' }, kcal.ps),
       T,
     );
-    expect((wrong.outputs as Record<string, number>).lambdaFromMeans / la).toBeCloseTo(
-      KCAL_PER_EV,
-      6,
-    );
+    expect(wrong.outputs.lambdaFromMeans / la).toBeCloseTo(KCAL_PER_EV, 6);
   });
 
   it('refuses swapped files (λ from means ≤ 0) and constant data', async () => {

@@ -20,6 +20,7 @@ import {
   gapOutputsFromCounts,
   planGapHistograms,
   type CalcWarning,
+  type GapOutputs,
   type GapStateSummary,
 } from '@gapwise/calc';
 import type { TraceAnalysisResult, TraceSourceInfo } from '@gapwise/contracts';
@@ -108,7 +109,7 @@ export async function analyzeTraces(
     ]);
     const warnings: CalcWarning[] = [];
     const sink = { warn: (code: string, message: string) => warnings.push({ code, message }) };
-    let outputs: Record<string, unknown>;
+    let outputs: GapOutputs;
     try {
       const plan = planGapHistograms(r.summary, p.summary);
       const own = {

@@ -127,9 +127,7 @@ describe('trace analysis jobs', () => {
       expect(body.trim().split('\n\n').at(-1)).toMatch(/^event: done/);
       const done = await analysisOf(queued.id);
       expect(done).toMatchObject({ status: 'done', progress: 1, attempts: 1 });
-      const out = done.result!.outputs as Record<string, number> & {
-        standardErrors: Record<string, number>;
-      };
+      const out = done.result!.outputs;
       expect(Math.abs(out.lambdaFromMeans - LAMBDA)).toBeLessThan(
         4 * out.standardErrors.lambdaFromMeans,
       );
@@ -278,9 +276,7 @@ describe('trace analysis jobs', () => {
       .expect(200);
     const updated = res.body as Pair;
     expect(updated.version).toBe(pair.version + 1);
-    const out = full.result!.outputs as Record<string, number> & {
-      standardErrors: Record<string, number>;
-    };
+    const out = full.result!.outputs;
     const lambda = updated.parameters.find((p) => p.kind === 'lambdaOuter')!;
     expect(lambda).toMatchObject({
       value: out.lambdaFromMeans,

@@ -388,9 +388,10 @@ export async function attachAnalysis(
   }
   const result = analysis.result;
   const out = result.outputs;
-  const lambda = num(out['lambdaFromMeans']);
-  const deltaG0 = num(out['deltaG0FromMeans']);
-  const se = (out['standardErrors'] ?? {}) as Record<string, unknown>;
+  // Stored JSON: still checked, since a value may be missing from a result written long ago.
+  const lambda = num(out.lambdaFromMeans);
+  const deltaG0 = num(out.deltaG0FromMeans);
+  const se = out.standardErrors;
   if (lambda === null || deltaG0 === null)
     throw new AppError(409, 'analysis-incomplete', 'The analysis result lacks λ or ΔG°.');
   const skipped =
@@ -431,7 +432,7 @@ export async function attachAnalysis(
       kind,
       value: lambda,
       unit: 'eV',
-      uncertainty: num(se['lambdaFromMeans']),
+      uncertainty: num(se?.lambdaFromMeans),
       provenance: provenance('lambdaFromMeans'),
     });
   }
@@ -441,7 +442,7 @@ export async function attachAnalysis(
       kind: 'deltaG0',
       value: deltaG0,
       unit: 'eV',
-      uncertainty: num(se['deltaG0FromMeans']),
+      uncertainty: num(se?.deltaG0FromMeans),
       provenance: provenance('deltaG0FromMeans'),
     });
   }

@@ -159,27 +159,6 @@ export function warnInvertedRegion(deltaG0Ev: number, lambdaEv: number, sink: Wa
   }
 }
 
-/**
- * B4: the golden-rule (nonadiabatic) formula overestimates when |H| > k_BT or the solvent
- * adiabaticity κ_A = 4π|H|²τ_L/(ħλ) exceeds 0.1 (Zusman 1980; Rips & Jortner 1987).
- */
-export function warnCouplingLarge(
-  couplingEv: number,
-  temperatureK: number,
-  sink: WarningSink,
-  adiabaticity?: number,
-): void {
-  const overKt = Math.abs(couplingEv) > thermalEnergyEv(temperatureK);
-  const overKappa = adiabaticity !== undefined && adiabaticity > 0.1;
-  if (overKt || overKappa) {
-    sink.warn(
-      WARNING_CODES.couplingLarge,
-      'Nonadiabatic (golden-rule) formula overestimates; adiabatic/solvent-controlled correction ' +
-        'needed (try the crossover model with the solvent relaxation time τ_L).',
-    );
-  }
-}
-
 /** B5: |H| > λ/10 lowers the barrier by about |H|, which the diabatic rate leaves out. */
 export function warnBarrierLowering(couplingEv: number, lambdaEv: number, sink: WarningSink): void {
   if (Math.abs(couplingEv) > lambdaEv / 10) {

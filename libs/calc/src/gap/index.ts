@@ -19,6 +19,7 @@ export {
 } from './gap-samples/gap-samples';
 export type {
   GapHistogramCounts,
+  GapOutputs,
   GapHistogramPlan,
   GapSampleInputs,
   GapStateSummary,

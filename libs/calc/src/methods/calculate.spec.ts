@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { runDefinition } from '../core/run-definition';
-import { calculate, canonicalInputs, runMethod, serializeAnswer } from './calculate';
+import { calculate, serializeAnswer } from './calculate';
 import { CalcRefusal, type MethodDefinition } from '../core/method';
 import { allMethods, methodCatalog } from './registry';
 
@@ -214,27 +214,11 @@ describe('calculate', () => {
     });
   });
 
-  it('runMethod is calculate without the envelope', () => {
-    const inputs = VALID['rate.marcus'];
-    expect(runMethod('rate.marcus', inputs)).toEqual(calculate({ method: 'rate.marcus', inputs }));
-    expect(runMethod('nope', {})).toMatchObject({ ok: false, errors: [{ field: 'method' }] });
-  });
-
   it('serializes as plain JSON that parses back to the same answer', () => {
     const answer = calculate({ method: 'rate.marcus', inputs: VALID['rate.marcus'] });
     const text = serializeAnswer(answer);
     expect(text).toBe(JSON.stringify(answer));
     expect(JSON.parse(text)).toEqual(answer);
-  });
-
-  it('echoes canonical input values', () => {
-    expect(
-      canonicalInputs({
-        method: 'rate.marcus',
-        inputs: { ...VALID['rate.marcus'], temperature: { value: 25, unit: 'degC' } },
-      }),
-    ).toEqual({ deltaG0: -0.3, lambda: 0.8, coupling: 0.01, temperature: 298.15 });
-    expect(canonicalInputs({ method: 'rate.marcus', inputs: {} })).toBeUndefined();
   });
 });
 

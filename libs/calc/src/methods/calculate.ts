@@ -4,7 +4,7 @@
  * is given, and never returns NaN or ±Infinity: a non-finite output for valid input is refused
  * as an internal error rather than shown as a number.
  */
-import { isPlainObject, RequestInputReader } from '../core/inputs';
+import { isPlainObject } from '../core/inputs';
 import type { CalcAnswer, CalcWarning, FieldError } from '../core/method';
 import { internalError, refuse, runDefinition } from '../core/run-definition';
 import type { MethodOutputs, TypedMethodId } from './method-outputs';
@@ -73,20 +73,6 @@ export function calculate(request: unknown): CalcAnswer {
   }
 }
 
-/**
- * Runs one method on raw inputs (bare numbers or `{ value, unit }`), as `calculate` does, for
- * callers that dispatch themselves (e.g. `uncertainty.monteCarlo`). Never throws.
- */
-export function runMethod(methodId: string, rawInputs: unknown): CalcAnswer {
-  try {
-    const method = findMethod(methodId);
-    if (!method) return refuse([{ field: 'method', message: unknownMethodMessage(methodId) }]);
-    return runDefinition(method, rawInputs);
-  } catch (thrown) {
-    return internalError('method', thrown);
-  }
-}
-
 function unknownMethodMessage(methodId: string): string {
   const known = allMethods()
     .map((m) => m.id)
@@ -100,21 +86,4 @@ function unknownMethodMessage(methodId: string): string {
  */
 export function serializeAnswer(answer: CalcAnswer): string {
   return JSON.stringify(answer);
-}
-
-/**
- * The canonical (converted) values of a request's scalar inputs, for echoing back to the user
- * (VALIDATION.md general rules). Undefined when the request is refused.
- */
-export function canonicalInputs(request: unknown): Record<string, number | string> | undefined {
-  try {
-    if (!isPlainObject(request) || typeof request['method'] !== 'string') return undefined;
-    const method = findMethod(request['method']);
-    if (!method) return undefined;
-    const reader = new RequestInputReader(request['inputs']);
-    method.read(reader);
-    return reader.failed || reader.unknownFields().length > 0 ? undefined : { ...reader.echo };
-  } catch {
-    return undefined;
-  }
 }

@@ -1,10 +1,19 @@
 /**
  * The output type of every registered method, keyed by its CALC-API id, so that
  * `calculate({ method: 'reorg.gapSamples', … })` answers `outputs.lambdaFromMeans` as a number the
- * compiler checks. A method missing here still runs: `calculate` falls back to the untyped
- * `CalcOutputs` for any id it does not know (DEVELOPERS.md, "Adding a calculation method").
+ * compiler checks. Every registered method has its row (`registry.spec.ts` fails on a missing
+ * one); an id the compiler cannot see as a literal answers the untyped `CalcOutputs`.
  * Type-only imports: no module is loaded through this file.
  */
+import type { TemperatureOutputs } from '../analysis/temperature/temperature';
+import type { ReferenceOutputs } from '../driving-force/reference/reference';
+import type { MhcAbsoluteOutputs } from '../electrode/mhc-absolute/mhc-absolute';
+import type { AdiabaticBarrierOutputs } from '../evb/adiabatic-barrier/adiabatic-barrier';
+import type { SternVolmerOutputs } from '../quench/stern-volmer/stern-volmer';
+import type { CrossRelationWorkOutputs } from '../rates/cross-relation-work/cross-relation-work';
+import type { LandauZenerOutputs } from '../rates/landau-zener/landau-zener';
+import type { MljThermalOutputs } from '../rates/mlj-thermal/mlj-thermal';
+import type { NormalModesOutputs } from '../reorg/normal-modes/normal-modes';
 import type { DistanceDecayOutputs } from '../coupling/distance-decay/distance-decay';
 import type { GmhOutputs } from '../coupling/gmh/gmh';
 import type { HushOutputs } from '../coupling/hush/hush';
@@ -33,19 +42,28 @@ export interface MethodOutputs {
   'rate.crossover': CrossoverOutputs;
   'rate.ruler': RulerOutputs;
   'rate.crossRelation': CrossRelationOutputs;
+  'rate.crossRelationWork': CrossRelationWorkOutputs;
+  'rate.landauZener': LandauZenerOutputs;
+  'rate.mljThermal': MljThermalOutputs;
   'drivingForce.rehmWeller': RehmWellerOutputs;
+  'drivingForce.reference': ReferenceOutputs;
   'reorg.twoSphere': TwoSphereOutputs;
   'reorg.fourPoint': FourPointOutputs;
   'reorg.gapSamples': GapSamplesOutputs;
+  'reorg.normalModes': NormalModesOutputs;
   'coupling.gmh': GmhOutputs;
   'coupling.hush': HushOutputs;
   'coupling.distanceDecay': DistanceDecayOutputs;
   'evb.twoState': TwoStateOutputs;
   'evb.multiState': MultiStateOutputs;
+  'evb.adiabaticBarrier': AdiabaticBarrierOutputs;
   'electrode.mhc': MhcOutputs;
   'electrode.butlerVolmer': ButlerVolmerOutputs;
+  'electrode.mhcAbsolute': MhcAbsoluteOutputs;
   'transport.hopping': HoppingOutputs;
   'quench.diffusion': DiffusionOutputs;
+  'quench.sternVolmer': SternVolmerOutputs;
+  'analysis.temperature': TemperatureOutputs;
   'fit.drivingForceSeries': DrivingForceSeriesOutputs;
   'uncertainty.monteCarlo': MonteCarloOutputs;
   'units.convert': ConvertOutputs;

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { inputLabel, methodCatalog } from './registry';
+import type { TypedMethodId } from './method-outputs';
+import { allMethods, inputLabel, methodCatalog } from './registry';
 
 describe('input labels', () => {
   it('give every input of every method a short name a report can print', () => {
@@ -42,5 +43,49 @@ describe('input labels', () => {
         description: 'Anything (ignored).',
       }),
     ).toBe('Own label');
+  });
+});
+
+describe('typed outputs', () => {
+  it('cover every registered method', () => {
+    // The type makes this list equal MethodOutputs' keys (a missing or extra id does not compile);
+    // the assertion makes it equal the registry's ids.
+    const typed: Record<TypedMethodId, true> = {
+      'rate.marcus': true,
+      'rate.mlj': true,
+      'rate.crossover': true,
+      'rate.ruler': true,
+      'rate.crossRelation': true,
+      'rate.crossRelationWork': true,
+      'rate.landauZener': true,
+      'rate.mljThermal': true,
+      'drivingForce.rehmWeller': true,
+      'drivingForce.reference': true,
+      'reorg.twoSphere': true,
+      'reorg.fourPoint': true,
+      'reorg.gapSamples': true,
+      'reorg.normalModes': true,
+      'coupling.gmh': true,
+      'coupling.hush': true,
+      'coupling.distanceDecay': true,
+      'evb.twoState': true,
+      'evb.multiState': true,
+      'evb.adiabaticBarrier': true,
+      'electrode.mhc': true,
+      'electrode.butlerVolmer': true,
+      'electrode.mhcAbsolute': true,
+      'transport.hopping': true,
+      'quench.diffusion': true,
+      'quench.sternVolmer': true,
+      'analysis.temperature': true,
+      'fit.drivingForceSeries': true,
+      'uncertainty.monteCarlo': true,
+      'units.convert': true,
+    };
+    expect(Object.keys(typed).sort()).toEqual(
+      allMethods()
+        .map((method) => method.id)
+        .sort(),
+    );
   });
 });

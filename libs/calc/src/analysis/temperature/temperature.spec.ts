@@ -1,7 +1,7 @@
 import { evaluate, inv, matrix, multiply, transpose } from 'mathjs';
 import { describe, expect, it } from 'vitest';
 import { computeOk, computeRefused, numberOutput } from '../../methods/testing/answers';
-import { marcusRate } from '../../rates/marcus/marcus';
+import { marcusRateLog } from '../../rates/marcus/marcus';
 
 const KB = 8.617333262e-5;
 const H = 4.135667696e-15;
@@ -80,7 +80,7 @@ describe('analysis.temperature', () => {
     const deltaG0 = -0.3;
     const marcusPoints = [290, 295, 300, 305, 310].map((t) => ({
       temperature: t,
-      k: marcusRate(deltaG0, lambda, 0.01, t),
+      k: Math.exp(marcusRateLog(deltaG0, lambda, 0.01, t)),
     }));
     const answer = computeOk('analysis.temperature', { points: marcusPoints, lambda, deltaG0 });
     const tm = numberOutput(answer, 'meanTemperature');

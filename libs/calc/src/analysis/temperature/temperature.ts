@@ -138,7 +138,7 @@ function warnApparentEntropy(entropyJPerMolK: number, sink: WarningSink): void {
   }
 }
 
-export const temperatureMethod: MethodDefinition<TemperatureInputs> = {
+export const temperatureMethod = {
   id: 'analysis.temperature',
   summary:
     'Arrhenius and Eyring fits of measured k(T) (≥ 3 points) with standard errors and residuals, and the Marcus apparent E_a beside them.',
@@ -276,4 +276,7 @@ export const temperatureMethod: MethodDefinition<TemperatureInputs> = {
         : {}),
     };
   },
-};
+} satisfies MethodDefinition<TemperatureInputs>;
+
+/** What `analysis.temperature` answers (the compiler reads it through `MethodOutputs`). */
+export type TemperatureOutputs = ReturnType<(typeof temperatureMethod)['compute']>;

@@ -28,7 +28,7 @@ function readSolvent(reader: InputReader, name: string): string | undefined {
   return raw.trim();
 }
 
-export const referenceMethod: MethodDefinition<ReferenceInputs> = {
+export const referenceMethod = {
   id: 'drivingForce.reference',
   summary:
     'A potential vs one reference electrode expressed vs another (SHE, NHE, SCE, Ag/AgCl, Fc⁺/Fc), with the offset and its source.',
@@ -102,4 +102,7 @@ export const referenceMethod: MethodDefinition<ReferenceInputs> = {
       source: result.sources.join('; '),
     };
   },
-};
+} satisfies MethodDefinition<ReferenceInputs>;
+
+/** What `drivingForce.reference` answers (the compiler reads it through `MethodOutputs`). */
+export type ReferenceOutputs = ReturnType<(typeof referenceMethod)['compute']>;

@@ -69,24 +69,6 @@ export function bornSolventCorrectionEv(
 }
 
 /**
- * Weller's Born correction for neutral D and A (`bornSolventCorrectionEv` with z_D = z_A = 0).
- * Reference: A. Weller, Z. Phys. Chem. (Neue Folge) 1982, 133, 93 (from memory).
- */
-export function wellerSolventCorrectionEv(
-  radiusDonorAngstrom: number,
-  radiusAcceptorAngstrom: number,
-  epsilonReference: number,
-  epsilon: number,
-): number {
-  return bornSolventCorrectionEv(
-    radiusDonorAngstrom,
-    radiusAcceptorAngstrom,
-    epsilonReference,
-    epsilon,
-  );
-}
-
-/**
  * Rehm–Weller driving force of photoinduced charge separation, eV:
  * ΔG°_CS = e[E_ox(D⁺/D) − E_red(A/A⁻)] − E₀₀ + [w(D⁺A⁻) − w(DA)] + Born correction.
  * References: D. Rehm, A. Weller, Isr. J. Chem. 1970, 8, 259 (doi 10.1002/ijch.197000029);

@@ -83,7 +83,7 @@ export const CM_PER_S_CONVENTION =
   'k (cm s⁻¹) = k (s⁻¹) × δr, δr = reaction-layer thickness (default 1 Å = 1e-8 cm): the rate ' +
   'per electrode atom of a reactant within δr of the surface (Gosavi & Marcus 2000, from memory).';
 
-export const mhcAbsoluteMethod: MethodDefinition<MhcAbsoluteInputs> = {
+export const mhcAbsoluteMethod = {
   id: 'electrode.mhcAbsolute',
   summary:
     'Absolute Marcus–Hush–Chidsey rate from |H| and the electrode density of states: k_red, k_ox, k⁰ in s⁻¹ and cm s⁻¹, Tafel slope at η.',
@@ -205,4 +205,7 @@ export const mhcAbsoluteMethod: MethodDefinition<MhcAbsoluteInputs> = {
       ),
     };
   },
-};
+} satisfies MethodDefinition<MhcAbsoluteInputs>;
+
+/** What `electrode.mhcAbsolute` answers (the compiler reads it through `MethodOutputs`). */
+export type MhcAbsoluteOutputs = ReturnType<(typeof mhcAbsoluteMethod)['compute']>;

@@ -138,7 +138,7 @@ export interface AdiabaticBarrierInputs extends MarcusInputs {
   readonly nuclearFrequencyPerS: number;
 }
 
-export const adiabaticBarrierMethod: MethodDefinition<AdiabaticBarrierInputs> = {
+export const adiabaticBarrierMethod = {
   id: 'evb.adiabaticBarrier',
   summary:
     'Exact barrier of the two-state adiabatic ground surface (numerical), the Brunschwig–Sutin approximation, and k = ν_n exp(−ΔG‡_ad/k_BT).',
@@ -252,4 +252,7 @@ export const adiabaticBarrierMethod: MethodDefinition<AdiabaticBarrierInputs> = 
       couplingRegime: measures.regime,
     };
   },
-};
+} satisfies MethodDefinition<AdiabaticBarrierInputs>;
+
+/** What `evb.adiabaticBarrier` answers (the compiler reads it through `MethodOutputs`). */
+export type AdiabaticBarrierOutputs = ReturnType<(typeof adiabaticBarrierMethod)['compute']>;

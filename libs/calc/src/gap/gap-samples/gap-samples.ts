@@ -4,7 +4,7 @@
  */
 import { BOLTZMANN_EV_PER_K } from '../../core/constants';
 import { CalcRefusal } from '../../core/method';
-import type { CalcOutputs, FieldError, MethodDefinition, WarningSink } from '../../core/method';
+import type { FieldError, MethodDefinition, WarningSink } from '../../core/method';
 import {
   GapSampleAccumulator,
   type BlockLevel,
@@ -262,7 +262,7 @@ function blockTable(levels: readonly BlockLevel[]) {
  * (doi 10.1021/acs.chemrev.5b00298); H. Flyvbjerg, H. G. Petersen, J. Chem. Phys. 1989, 91, 461;
  * D. Freedman, P. Diaconis, Z. Wahrscheinlichkeitstheorie verw. Geb. 1981, 57, 453.
  */
-export function analyseGapSamples(inputs: GapSampleInputs, warnings: WarningSink): CalcOutputs {
+export function analyseGapSamples(inputs: GapSampleInputs, warnings: WarningSink): GapOutputs {
   const reactant = summarise(inputs.reactant);
   const product = summarise(inputs.product);
   const plan = planGapHistograms(reactant, product, inputs.bins);
@@ -331,7 +331,7 @@ export function gapOutputsFromCounts(
   counts: GapHistogramCounts,
   temperatureK: number,
   warnings: WarningSink,
-): CalcOutputs {
+) {
   const thermalEv = BOLTZMANN_EV_PER_K * temperatureK;
   const r = reactant.stats;
   const p = product.stats;
@@ -439,6 +439,9 @@ export function gapOutputsFromCounts(
     histograms,
   };
 }
+
+/** The outputs of `reorg.gapSamples`, in memory or streamed (`gapOutputsFromCounts`). */
+export type GapOutputs = ReturnType<typeof gapOutputsFromCounts>;
 
 function mean(values: number[]): number {
   return values.reduce((s, v) => s + v, 0) / values.length;

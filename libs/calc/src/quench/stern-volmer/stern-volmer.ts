@@ -115,7 +115,7 @@ function readSeries(reader: InputReader): SternVolmerInputs['series'] {
   return { deltaG0Ev, temperatureK, ratio, intrinsicBarrierEv };
 }
 
-export const sternVolmerMethod: MethodDefinition<SternVolmerInputs> = {
+export const sternVolmerMethod = {
   id: 'quench.sternVolmer',
   summary:
     'Stern–Volmer K_SV = k_q τ₀ (from k_q, or k_q from I₀/I at [Q]), I₀/I at a concentration, and the Rehm–Weller k_q(ΔG°) curve.',
@@ -286,4 +286,7 @@ export const sternVolmerMethod: MethodDefinition<SternVolmerInputs> = {
     }
     return outputs;
   },
-};
+} satisfies MethodDefinition<SternVolmerInputs>;
+
+/** What `quench.sternVolmer` answers (the compiler reads it through `MethodOutputs`). */
+export type SternVolmerOutputs = ReturnType<(typeof sternVolmerMethod)['compute']>;

@@ -117,7 +117,7 @@ export function crossRelationWorkTerms(inputs: CrossRelationWorkInputs): WorkTer
 
 const RADIUS_MESSAGE = 'Radii and distances must be > 0.';
 
-export const crossRelationWorkMethod: MethodDefinition<CrossRelationWorkInputs> = {
+export const crossRelationWorkMethod = {
   id: 'rate.crossRelationWork',
   summary:
     'Marcus cross relation with Coulomb work terms for charged reactants (Marcus & Sutin 1985), screened at ionic strength μ.',
@@ -338,4 +338,7 @@ export const crossRelationWorkMethod: MethodDefinition<CrossRelationWorkInputs> 
       workTerms: { ...work },
     };
   },
-};
+} satisfies MethodDefinition<CrossRelationWorkInputs>;
+
+/** What `rate.crossRelationWork` answers (the compiler reads it through `MethodOutputs`). */
+export type CrossRelationWorkOutputs = ReturnType<(typeof crossRelationWorkMethod)['compute']>;

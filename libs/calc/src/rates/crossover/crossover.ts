@@ -46,21 +46,6 @@ export function solventControlledRateLog(
   );
 }
 
-/**
- * ln of the interpolated rate k = k_NA/(1 + κ_A) (Zusman 1980; Rips & Jortner 1987), s⁻¹.
- * Tends to the golden-rule rate as κ_A → 0 and to the solvent-controlled limit as κ_A ≫ 1.
- */
-export function crossoverRateLog(
-  deltaG0Ev: number,
-  lambdaEv: number,
-  couplingEv: number,
-  temperatureK: number,
-  tauLS: number,
-): number {
-  const kappa = adiabaticityParameter(couplingEv, lambdaEv, tauLS);
-  return marcusRateLog(deltaG0Ev, lambdaEv, couplingEv, temperatureK) - Math.log1p(kappa);
-}
-
 export interface CrossoverInputs extends MarcusInputs {
   readonly tauLS: number;
 }

@@ -80,7 +80,7 @@ export const NUCLEAR_FREQUENCY_INPUT = {
   defaultValue: DEFAULT_NUCLEAR_FREQUENCY_PER_S,
 } as const;
 
-export const landauZenerMethod: MethodDefinition<LandauZenerInputs> = {
+export const landauZenerMethod = {
   id: 'rate.landauZener',
   summary:
     'Landau–Zener transmission coefficient κ_el and k = κ_el ν_n exp(−ΔG‡/k_BT), from the nonadiabatic to the adiabatic limit.',
@@ -182,4 +182,7 @@ export const landauZenerMethod: MethodDefinition<LandauZenerInputs> = {
       couplingRegime: measures.regime,
     };
   },
-};
+} satisfies MethodDefinition<LandauZenerInputs>;
+
+/** What `rate.landauZener` answers (the compiler reads it through `MethodOutputs`). */
+export type LandauZenerOutputs = ReturnType<(typeof landauZenerMethod)['compute']>;

@@ -67,16 +67,6 @@ export function marcusRateLog(
   );
 }
 
-/** The Marcus rate k in s⁻¹ (0 when it underflows; prefer `marcusRateLog` for screening). */
-export function marcusRate(
-  deltaG0Ev: number,
-  lambdaEv: number,
-  couplingEv: number,
-  temperatureK: number,
-): number {
-  return Math.exp(marcusRateLog(deltaG0Ev, lambdaEv, couplingEv, temperatureK));
-}
-
 export interface MarcusInputs {
   readonly deltaG0Ev: number;
   readonly lambdaEv: number;

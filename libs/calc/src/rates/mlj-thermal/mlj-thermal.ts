@@ -158,7 +158,7 @@ export function mljThermalRateLog(
   return { lnK: lnPrefactor + maxLn + Math.log(sumRelative), termsUsed };
 }
 
-export const mljThermalMethod: MethodDefinition<MljInputs> = {
+export const mljThermalMethod = {
   id: 'rate.mljThermal',
   summary:
     'Marcus–Levich–Jortner rate with the quantum mode at finite temperature (Bessel form); for ħω < 4 k_BT.',
@@ -222,4 +222,7 @@ export const mljThermalMethod: MethodDefinition<MljInputs> = {
       couplingRegime: measures.regime,
     };
   },
-};
+} satisfies MethodDefinition<MljInputs>;
+
+/** What `rate.mljThermal` answers (the compiler reads it through `MethodOutputs`). */
+export type MljThermalOutputs = ReturnType<(typeof mljThermalMethod)['compute']>;

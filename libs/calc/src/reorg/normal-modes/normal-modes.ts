@@ -89,7 +89,7 @@ function readMode(child: InputReader): NormalMode {
   return { hbarOmegaEv, huangRhys };
 }
 
-export const normalModesMethod: MethodDefinition<NormalModesInputs> = {
+export const normalModesMethod = {
   id: 'reorg.normalModes',
   summary:
     'Vibrational λ_v = Σ S_j ħω_j, λ-weighted effective ħω and total Huang–Rhys factor from normal modes (S_j or displacements Δ_j).',
@@ -168,4 +168,7 @@ export const normalModesMethod: MethodDefinition<NormalModesInputs> = {
       modeLambdas: summary.modeLambdasEv,
     };
   },
-};
+} satisfies MethodDefinition<NormalModesInputs>;
+
+/** What `reorg.normalModes` answers (the compiler reads it through `MethodOutputs`). */
+export type NormalModesOutputs = ReturnType<(typeof normalModesMethod)['compute']>;
