@@ -18,7 +18,7 @@ import { seedDemoReport } from '../../apps/api/src/reports/demo-report-seed';
 import { seedDemoScreensAndSeries } from '../../apps/api/src/screens/demo-screen-seed';
 import { seedDemoTraces } from '../../apps/api/src/traces/demo-trace-seed';
 import { TraceObjectStore } from '../../apps/api/src/traces/trace-object-store';
-import { traceStoreConfigFromEnv } from '../../apps/api/src/traces/trace-services';
+import { loadObjectStoreConfig } from '../../apps/api/src/config';
 import { startMailCapture } from '../../docker-free-scripts/mail/mail-capture-server';
 import { startObjectStore } from '../../docker-free-scripts/s3/object-store';
 import { createTestDatabase } from '../api/support/test-database';
@@ -129,7 +129,7 @@ export default async function setup(project: TestProject) {
       });
       // The demo traces go into this run's S3 store (started above), as npm start's seed does.
       const traceStore = new TraceObjectStore(
-        traceStoreConfigFromEnv({ S3_ENDPOINT: store.endpoint, S3_BUCKET: store.bucket }),
+        loadObjectStoreConfig({ S3_ENDPOINT: store.endpoint, S3_BUCKET: store.bucket }),
       );
       try {
         await seedDemoTraces(dataSource, traceStore, {

@@ -78,6 +78,51 @@ export interface Config {
   readonly calcBudgetMs: number;
   /** Budget (ms) of background calculations: screen chunks of the in-server worker. */
   readonly backgroundCalcBudgetMs: number;
+  /** Apply pending migrations at start (MIGRATE_ON_START; workers never do). */
+  readonly migrateOnStart: boolean;
+  /** The S3-API object store of trace files and report PDFs. */
+  readonly objectStore: ObjectStoreConfig;
+  /** Screens: the `screen-chunk` queue and this process's worker. */
+  readonly screens: ScreenSettings;
+  /** Energy-gap traces: the `trace-analysis` queue and this process's worker. */
+  readonly traces: TraceSettings;
+}
+
+/** S3_*: where trace files and report PDFs are stored (default: the local fake, `npm run s3:start`). */
+export interface ObjectStoreConfig {
+  readonly endpoint: string;
+  readonly region: string;
+  readonly bucket: string;
+  readonly accessKeyId: string;
+  readonly secretAccessKey: string;
+  /** Path-style URLs (required by s3rver and most self-hosted stores). */
+  readonly forcePathStyle: boolean;
+  /**
+   * S3_ENDPOINT was set: report PDFs are kept in the store. Unset, they are regenerated on each
+   * download (traces still use the default endpoint).
+   */
+  readonly endpointSet: boolean;
+}
+
+/** GAPWISE_SCREEN_*: undefined numbers take the queue's defaults (screens/screen-queue.ts). */
+export interface ScreenSettings {
+  /** GAPWISE_SCREEN_WORKER: a worker inside this process (default true). */
+  readonly runWorker: boolean;
+  readonly jobExpireSeconds: number | undefined;
+  /** How often pg-boss expires lost jobs (default 60 s). */
+  readonly maintenanceSeconds: number;
+  /** GAPWISE_SCREEN_TEST_CHUNK_DELAY_MS: a pause per chunk, for tests of running screens. */
+  readonly testChunkDelayMs: number | undefined;
+}
+
+/** GAPWISE_TRACE_* and TRACE_JOB_*: undefined numbers take the queue's defaults. */
+export interface TraceSettings {
+  /** GAPWISE_TRACE_WORKER: a worker inside this process (default true). */
+  readonly runWorker: boolean;
+  readonly jobExpireSeconds: number | undefined;
+  readonly jobRetryLimit: number | undefined;
+  /** How often pg-boss expires lost jobs (pg-boss's default when undefined). */
+  readonly maintenanceSeconds: number | undefined;
 }
 
 export class ConfigError extends Error {
@@ -95,35 +140,8 @@ type Env = Record<string, string | undefined>;
  * first start into `.data/secrets/jwt-secret` (git-ignored) and reused afterwards.
  */
 export function loadConfig(env: Env = process.env, overrides: Partial<Config> = {}): Config {
-  const problems: string[] = [];
-  const int = (name: string, fallback: number, min: number, max: number): number => {
-    const raw = env[name];
-    if (raw === undefined || raw === '') return fallback;
-    const value = Number(raw);
-    if (!Number.isInteger(value) || value < min || value > max) {
-      problems.push(`${name} must be an integer from ${min} to ${max} (got "${raw}")`);
-      return fallback;
-    }
-    return value;
-  };
-  const bool = (name: string, fallback: boolean): boolean => {
-    const raw = env[name];
-    if (raw === undefined || raw === '') return fallback;
-    if (['1', 'true', 'yes'].includes(raw.toLowerCase())) return true;
-    if (['0', 'false', 'no'].includes(raw.toLowerCase())) return false;
-    problems.push(`${name} must be true or false (got "${raw}")`);
-    return fallback;
-  };
-  const url = (name: string, fallback: string, protocols: string[]): string => {
-    const raw = env[name] || fallback;
-    try {
-      const parsed = new URL(raw);
-      if (!protocols.includes(parsed.protocol)) throw new Error();
-    } catch {
-      problems.push(`${name} must be a ${protocols.join(' or ')} URL`);
-    }
-    return raw.replace(/\/+$/, '');
-  };
+  const read = envReader(env);
+  const { int, bool, url, problems } = read;
 
   const port = int('PORT', 4280, 0, 65535);
   const host = env['HOST'] || '127.0.0.1';
@@ -168,6 +186,10 @@ export function loadConfig(env: Env = process.env, overrides: Partial<Config> = 
     calcQueue: int('CALC_QUEUE', 64, 0, 100_000),
     calcBudgetMs: int('CALC_BUDGET_MS', 10_000, 10, 3_600_000),
     backgroundCalcBudgetMs: int('BACKGROUND_CALC_BUDGET_MS', 300_000, 10, 24 * 3_600_000),
+    migrateOnStart: bool('MIGRATE_ON_START', true),
+    objectStore: readObjectStore(read),
+    screens: readScreenSettings(read, true),
+    traces: readTraceSettings(read),
     ...overrides,
   };
   if (problems.length > 0) throw new ConfigError(problems);
@@ -176,6 +198,111 @@ export function loadConfig(env: Env = process.env, overrides: Partial<Config> = 
     return { ...config, jwtSecret };
   }
   return config;
+}
+
+interface EnvReader {
+  readonly env: Env;
+  /** Every problem found so far ("NAME must be …"), reported together. */
+  readonly problems: string[];
+  int(name: string, fallback: number, min: number, max: number): number;
+  /** An integer, or undefined when the variable is unset (the consumer's default applies). */
+  optionalInt(name: string, min: number, max: number): number | undefined;
+  bool(name: string, fallback: boolean): boolean;
+  url(name: string, fallback: string, protocols: string[]): string;
+}
+
+/** The one set of parsers for environment variables; each refusal names the variable. */
+function envReader(env: Env): EnvReader {
+  const problems: string[] = [];
+  const optionalInt = (name: string, min: number, max: number): number | undefined => {
+    const raw = env[name];
+    if (raw === undefined || raw === '') return undefined;
+    const value = Number(raw);
+    if (!Number.isInteger(value) || value < min || value > max) {
+      problems.push(`${name} must be an integer from ${min} to ${max} (got "${raw}")`);
+      return undefined;
+    }
+    return value;
+  };
+  return {
+    env,
+    problems,
+    optionalInt,
+    int: (name, fallback, min, max) => optionalInt(name, min, max) ?? fallback,
+    bool: (name, fallback) => {
+      const raw = env[name];
+      if (raw === undefined || raw === '') return fallback;
+      if (['1', 'true', 'yes'].includes(raw.toLowerCase())) return true;
+      if (['0', 'false', 'no'].includes(raw.toLowerCase())) return false;
+      problems.push(`${name} must be true or false (got "${raw}")`);
+      return fallback;
+    },
+    url: (name, fallback, protocols) => {
+      const raw = env[name] || fallback;
+      try {
+        const parsed = new URL(raw);
+        if (!protocols.includes(parsed.protocol)) throw new Error();
+      } catch {
+        problems.push(`${name} must be a ${protocols.join(' or ')} URL`);
+      }
+      return raw.replace(/\/+$/, '');
+    },
+  };
+}
+
+function readObjectStore(read: EnvReader): ObjectStoreConfig {
+  const { env } = read;
+  const port = read.int('S3_PORT', 4568, 1, 65535);
+  return {
+    endpoint: read.url('S3_ENDPOINT', `http://127.0.0.1:${port}`, ['http:', 'https:']),
+    region: env['S3_REGION'] || 'us-east-1',
+    bucket: env['S3_BUCKET'] || 'gapwise',
+    accessKeyId: env['S3_ACCESS_KEY_ID'] || 'S3RVER',
+    secretAccessKey: env['S3_SECRET_ACCESS_KEY'] || 'S3RVER',
+    forcePathStyle: read.bool('S3_FORCE_PATH_STYLE', true),
+    endpointSet: Boolean(env['S3_ENDPOINT']),
+  };
+}
+
+function readScreenSettings(read: EnvReader, runWorkerDefault: boolean): ScreenSettings {
+  return {
+    runWorker: read.bool('GAPWISE_SCREEN_WORKER', runWorkerDefault),
+    jobExpireSeconds: read.optionalInt('GAPWISE_SCREEN_JOB_EXPIRE_SECONDS', 1, 86_400),
+    maintenanceSeconds: read.int('GAPWISE_SCREEN_MAINTENANCE_SECONDS', 60, 1, 86_400),
+    testChunkDelayMs: read.optionalInt('GAPWISE_SCREEN_TEST_CHUNK_DELAY_MS', 0, 60_000),
+  };
+}
+
+function readTraceSettings(read: EnvReader): TraceSettings {
+  return {
+    runWorker: read.bool('GAPWISE_TRACE_WORKER', true),
+    jobExpireSeconds: read.optionalInt('TRACE_JOB_EXPIRE_SECONDS', 1, 24 * 3600),
+    jobRetryLimit: read.optionalInt('TRACE_JOB_RETRY_LIMIT', 0, 100),
+    maintenanceSeconds: read.optionalInt('GAPWISE_TRACE_MAINTENANCE_SECONDS', 1, 86_400),
+  };
+}
+
+/** The object-store settings alone (the demo seed and the browser tests' set-up). */
+export function loadObjectStoreConfig(env: Env = process.env): ObjectStoreConfig {
+  const read = envReader(env);
+  const store = readObjectStore(read);
+  if (read.problems.length > 0) throw new ConfigError(read.problems);
+  return store;
+}
+
+/**
+ * The configuration of a standalone screen worker (`npm run worker`): DATABASE_URL and the
+ * GAPWISE_SCREEN_* settings, its worker always on.
+ */
+export function loadWorkerConfig(env: Env = process.env): {
+  readonly databaseUrl: string;
+  readonly screens: ScreenSettings;
+} {
+  const read = envReader(env);
+  const databaseUrl = read.url('DATABASE_URL', DEFAULT_DATABASE_URL, ['postgres:', 'postgresql:']);
+  const screens = { ...readScreenSettings(read, true), runWorker: true };
+  if (read.problems.length > 0) throw new ConfigError(read.problems);
+  return { databaseUrl, screens };
 }
 
 const PROXY_NAMES = new Set(['loopback', 'linklocal', 'uniquelocal']);

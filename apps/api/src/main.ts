@@ -17,7 +17,7 @@ try {
 }
 
 const runtime = await startRuntime(config, {
-  migrate: process.env['MIGRATE_ON_START'] !== 'false',
+  migrate: config.migrateOnStart,
 }).catch((error: Error) => {
   console.error(`cannot start: ${error.message}`);
   console.error(`(is PostgreSQL running? DATABASE_URL host ${new URL(config.databaseUrl).host})`);

@@ -6,10 +6,10 @@ import { ComputePool } from './compute/compute-pool';
 import { createSmtpMailer, type Mailer } from './mail/mailer';
 import { resendPending, startMailQueue, type MailQueue } from './mail/mail-queue';
 import { provideScreenService } from './screens/routes';
-import { reportPdfStoreFromEnv } from './reports/report-pdf-store';
-import { screenServiceOptionsFromEnv, startScreenService } from './screens/screen-queue';
+import { reportPdfStoreFor } from './reports/report-pdf-store';
+import { screenServiceOptions, startScreenService } from './screens/screen-queue';
 import { provideTraceServices } from './traces/routes';
-import { startTraceServices, traceServicesOptionsFromEnv } from './traces/trace-services';
+import { startTraceServices, traceServicesOptions } from './traces/trace-services';
 
 export interface Runtime extends AppDeps {
   readonly dataSource: DataSource;
@@ -56,14 +56,14 @@ export async function startRuntime(
     // Screens: pg-boss queue `screen-chunk`, with one worker in this process unless
     // GAPWISE_SCREEN_WORKER=false (apps/api/src/screens/README.md).
     const screens = await startScreenService(dataSource, {
-      ...screenServiceOptionsFromEnv(process.env, config.databaseUrl),
+      ...screenServiceOptions(config.databaseUrl, config.screens),
       log,
       compute,
     });
     // Traces: object store (S3_*) and pg-boss queue `trace-analysis`, with one worker in this
     // process unless GAPWISE_TRACE_WORKER=false (apps/api/src/traces/README.md).
     const traces = await startTraceServices(dataSource, {
-      ...traceServicesOptionsFromEnv(process.env, config.databaseUrl),
+      ...traceServicesOptions(config),
       log,
     });
     const runtime: Runtime = {
@@ -74,7 +74,7 @@ export async function startRuntime(
       queue,
       log,
       // Report PDFs in the S3-API object store named by S3_ENDPOINT (reports/report-pdf-store.ts).
-      reportPdfStore: reportPdfStoreFromEnv(process.env),
+      reportPdfStore: reportPdfStoreFor(config.objectStore),
       async close() {
         // The pool first: its threads are ended at once, running calculations included, so the
         // queues below are not kept waiting for them (SIGTERM stops the server within 10 s).

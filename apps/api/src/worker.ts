@@ -4,15 +4,23 @@
  * SIGINT/SIGTERM. Run any number of these, on this machine or others, to share the load; see
  * apps/api/src/screens/README.md. Migrations are the server's job: the worker never runs them.
  */
-import { createDataSource, DEFAULT_DATABASE_URL } from '@gapwise/db';
-import { screenServiceOptionsFromEnv, startScreenService } from './screens/screen-queue';
+import { createDataSource } from '@gapwise/db';
+import { ConfigError, loadWorkerConfig } from './config';
+import { screenServiceOptions, startScreenService } from './screens/screen-queue';
 
-const url = process.env['DATABASE_URL'] || DEFAULT_DATABASE_URL;
+let config;
+try {
+  config = loadWorkerConfig();
+} catch (error) {
+  console.error(error instanceof ConfigError ? error.message : error);
+  process.exit(1);
+}
+const url = config.databaseUrl;
 const log = (m: string) => console.error(m);
 const dataSource = createDataSource({ url, poolSize: 4 });
 await dataSource.initialize();
 const service = await startScreenService(dataSource, {
-  ...screenServiceOptionsFromEnv(process.env, url, true),
+  ...screenServiceOptions(url, config.screens),
   runWorker: true,
   log,
 }).catch(async (error: Error) => {

@@ -24,6 +24,17 @@ export interface TestApp {
 /** The test app of each Express app, so `registerUser(t.app)` can read its captured e-mail. */
 const running = new WeakMap<Express, TestApp>();
 
+const SERVICE_VARIABLE = /^(S3_|GAPWISE_SCREEN_|GAPWISE_TRACE_|TRACE_JOB_)/;
+
+function serviceSettings(env: NodeJS.ProcessEnv): Record<string, string> {
+  return Object.fromEntries(
+    Object.entries(env).filter(
+      (entry): entry is [string, string] =>
+        SERVICE_VARIABLE.test(entry[0]) && entry[1] !== undefined,
+    ),
+  );
+}
+
 /**
  * A fresh database (migrated), a real SMTP capture on a free port, the pg-boss mail queue and the
  * Express app, configured for tests (bcrypt cost 4, no sign-in throttling unless asked).
@@ -38,6 +49,9 @@ export async function startTestApp(
   try {
     const config = loadConfig(
       {
+        // The service settings a test file sets in process.env before starting (S3_ENDPOINT of
+        // its S3 fake, GAPWISE_SCREEN_WORKER=false, …): the server reads them the same way.
+        ...serviceSettings(process.env),
         DATABASE_URL: database.url,
         JWT_SECRET: 'test-secret-test-secret-test-secret-0123456789',
         PUBLIC_URL: 'http://127.0.0.1:4280',

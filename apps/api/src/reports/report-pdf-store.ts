@@ -8,6 +8,7 @@
  * date, no random ids), so without a configured store the same bytes are regenerated.
  */
 import { GetObjectCommand, NoSuchKey, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+import type { ObjectStoreConfig } from '../config';
 
 export interface ReportPdfStore {
   get(key: string): Promise<Buffer | null>;
@@ -65,20 +66,10 @@ export class S3ReportPdfStore implements ReportPdfStore {
 }
 
 /**
- * The store named by the environment: `S3_ENDPOINT` (e.g. http://127.0.0.1:4568), `S3_BUCKET`
- * (gapwise), `S3_REGION` (us-east-1), `S3_ACCESS_KEY_ID` and `S3_SECRET_ACCESS_KEY` (S3RVER for
- * the local fake). Null when `S3_ENDPOINT` is unset: PDFs are then regenerated on download.
+ * The store of the configuration's object store (S3_* variables, config.ts). Null when
+ * S3_ENDPOINT is unset: PDFs are then regenerated on download.
  */
-export function reportPdfStoreFromEnv(
-  env: Record<string, string | undefined> = process.env,
-): ReportPdfStore | null {
-  const endpoint = env['S3_ENDPOINT'];
-  if (!endpoint) return null;
-  return new S3ReportPdfStore({
-    endpoint,
-    region: env['S3_REGION'] ?? 'us-east-1',
-    bucket: env['S3_BUCKET'] ?? 'gapwise',
-    accessKeyId: env['S3_ACCESS_KEY_ID'] ?? 'S3RVER',
-    secretAccessKey: env['S3_SECRET_ACCESS_KEY'] ?? 'S3RVER',
-  });
+export function reportPdfStoreFor(objectStore: ObjectStoreConfig): ReportPdfStore | null {
+  if (!objectStore.endpointSet) return null;
+  return new S3ReportPdfStore(objectStore);
 }

@@ -21,7 +21,7 @@ import { isUuid, queryInt, queryString } from '../http/validate';
 import { requireRole } from '../workspaces/workspace-access';
 import { SCREEN_WARNINGS, warningBit } from './chunk-computer';
 import { templateCsv } from './screen-columns';
-import { startScreenService, type ScreenService } from './screen-queue';
+import { screenServiceOptions, startScreenService, type ScreenService } from './screen-queue';
 import {
   findScreen,
   listScreens,
@@ -56,7 +56,7 @@ function serviceFor(deps: AppDeps): Promise<ScreenService> {
   if (!service) {
     // No worker here: only the queue for sending jobs (a worker runs elsewhere).
     service = startScreenService(deps.dataSource, {
-      connectionString: deps.config.databaseUrl,
+      ...screenServiceOptions(deps.config.databaseUrl, deps.config.screens),
       runWorker: false,
       log: deps.log,
     });

@@ -9,6 +9,7 @@ import { hostname } from 'node:os';
 import PgBoss from 'pg-boss';
 import type { DataSource, EntityManager } from 'typeorm';
 import type { ComputeRunner } from '../compute/compute-tasks';
+import type { ScreenSettings } from '../config';
 import { processChunk } from './screen-results-writer';
 
 export const SCREEN_QUEUE = 'screen-chunk';
@@ -224,45 +225,21 @@ export async function startScreenService(
   };
 }
 
-/**
- * Screen settings from the environment (validated; a bad value stops the process):
- * GAPWISE_SCREEN_WORKER (true/false, default true: a worker inside the server),
- * GAPWISE_SCREEN_JOB_EXPIRE_SECONDS (default 120), GAPWISE_SCREEN_MAINTENANCE_SECONDS (default 60).
- */
-export function screenServiceOptionsFromEnv(
-  env: Record<string, string | undefined>,
-  connectionString: string,
-  runWorkerDefault = true,
+/** The screen service's options from the validated configuration (config.ts, read once at start). */
+export function screenServiceOptions(
+  databaseUrl: string,
+  screens: ScreenSettings,
 ): ScreenServiceOptions {
-  const problems: string[] = [];
-  const int = (name: string, fallback: number) => {
-    const raw = env[name];
-    if (raw === undefined || raw === '') return fallback;
-    const n = Number(raw);
-    if (!Number.isInteger(n) || n < 1 || n > 86_400)
-      problems.push(`${name} must be an integer from 1 to 86400`);
-    return n;
-  };
-  const flag = env['GAPWISE_SCREEN_WORKER'];
-  let runWorker = runWorkerDefault;
-  if (flag !== undefined && flag !== '') {
-    if (['1', 'true', 'yes'].includes(flag.toLowerCase())) runWorker = true;
-    else if (['0', 'false', 'no'].includes(flag.toLowerCase())) runWorker = false;
-    else problems.push('GAPWISE_SCREEN_WORKER must be true or false');
-  }
-  const expireInSeconds = int(
-    'GAPWISE_SCREEN_JOB_EXPIRE_SECONDS',
-    DEFAULT_SCREEN_QUEUE_OPTIONS.expireInSeconds,
-  );
-  const maintenanceIntervalSeconds = int('GAPWISE_SCREEN_MAINTENANCE_SECONDS', 60);
-  const delayRaw = env['GAPWISE_SCREEN_TEST_CHUNK_DELAY_MS'];
-  const chunkDelayMs = delayRaw ? Number(delayRaw) : undefined;
-  if (problems.length) throw new Error(`invalid screen settings:\n  ${problems.join('\n  ')}`);
   return {
-    connectionString,
-    runWorker,
-    queueOptions: { ...DEFAULT_SCREEN_QUEUE_OPTIONS, expireInSeconds },
-    maintenanceIntervalSeconds,
-    chunkDelayMs,
+    connectionString: databaseUrl,
+    runWorker: screens.runWorker,
+    queueOptions: {
+      ...DEFAULT_SCREEN_QUEUE_OPTIONS,
+      ...(screens.jobExpireSeconds !== undefined
+        ? { expireInSeconds: screens.jobExpireSeconds }
+        : {}),
+    },
+    maintenanceIntervalSeconds: screens.maintenanceSeconds,
+    chunkDelayMs: screens.testChunkDelayMs,
   };
 }

@@ -4,25 +4,23 @@
  * The four demo accounts share the password `gapwise-demo`: change or drop them for real use.
  * Applies pending migrations first. DATABASE_URL defaults to the development cluster.
  */
-import { createDataSource, DEFAULT_DATABASE_URL } from '@gapwise/db';
+import { createDataSource } from '@gapwise/db';
 import { DEMO_ACCOUNTS, DEMO_LAB, DEMO_MEDIATORS, DEMO_PASSWORD, seedDemo } from './demo-data';
 import { seedDemoReport } from '../reports/demo-report-seed';
 import { seedDemoScreensAndSeries } from '../screens/demo-screen-seed';
 import { seedDemoTraces } from '../traces/demo-trace-seed';
 import { TraceObjectStore } from '../traces/trace-object-store';
-import { traceStoreConfigFromEnv } from '../traces/trace-services';
 import { loadConfig } from '../config';
 
-const dataSource = createDataSource({
-  url: process.env['DATABASE_URL'] || DEFAULT_DATABASE_URL,
-  poolSize: 2,
-});
+// The server's configuration, validated the same way (a bad variable stops the seed, named).
+const config = loadConfig();
+const dataSource = createDataSource({ url: config.databaseUrl, poolSize: 2 });
 try {
   await dataSource.initialize();
   await dataSource.runMigrations({ transaction: 'each' });
   // The server's configured bcrypt cost (BCRYPT_COST), so a demo account takes as long to check
   // as any other account and as an unknown address.
-  const report = await seedDemo(dataSource, { bcryptCost: loadConfig().bcryptCost });
+  const report = await seedDemo(dataSource, { bcryptCost: config.bcryptCost });
   console.log(
     `demo seed: ${report.users} user(s), ${report.workspaces} workspace(s), ${report.pairs} pair(s) added`,
   );
@@ -31,7 +29,7 @@ try {
     await seedDemoReport(dataSource, {
       labName: DEMO_LAB,
       editorEmail: 'editor@gapwise.test',
-      publicUrl: process.env['PUBLIC_URL'],
+      publicUrl: config.publicUrl,
     })
   ) {
     console.log('demo seed: 1 submitted report added');
@@ -48,8 +46,8 @@ try {
       `demo seed: ${added.screen ? '1 screen' : ''}${added.screen && added.series ? ' and ' : ''}${added.series ? '1 series' : ''} added`,
     );
   // Demo energy-gap traces (lab) in object storage with a finished analysis: needs the S3 store.
-  if (process.env['S3_ENDPOINT']) {
-    const store = new TraceObjectStore(traceStoreConfigFromEnv());
+  if (config.objectStore.endpointSet) {
+    const store = new TraceObjectStore(config.objectStore);
     try {
       const t = await seedDemoTraces(dataSource, store, {
         labName: DEMO_LAB,

@@ -13,11 +13,7 @@ import { multipartError } from '../http/multipart';
 import { isUuid } from '../http/validate';
 import { requireRole } from '../workspaces/workspace-access';
 import type { IngestedTrace } from './trace-ingest';
-import {
-  startTraceServices,
-  traceServicesOptionsFromEnv,
-  type TraceServices,
-} from './trace-services';
+import { startTraceServices, traceServicesOptions, type TraceServices } from './trace-services';
 import {
   attachAnalysis,
   cleanFileName,
@@ -108,12 +104,12 @@ export function provideTraceServices(deps: AppDeps, services: TraceServices): vo
   provided.set(deps, Promise.resolve(services));
 }
 
-/** The provided services, else (an app built without them) a queue-only instance from the environment. */
+/** The provided services, else (an app built without them) a queue-only instance from the configuration. */
 function servicesFor(deps: AppDeps): Promise<TraceServices> {
   let services = provided.get(deps);
   if (!services) {
     services = startTraceServices(deps.dataSource, {
-      ...traceServicesOptionsFromEnv(process.env, deps.config.databaseUrl),
+      ...traceServicesOptions(deps.config),
       runWorker: false,
       log: deps.log,
     });

@@ -5,7 +5,7 @@
  */
 import PgBoss from 'pg-boss';
 import type { DataSource, EntityManager } from 'typeorm';
-import { ConfigError } from '../config';
+import type { Config } from '../config';
 import {
   DEFAULT_TRACE_QUEUE_OPTIONS,
   enqueueTraceAnalysis,
@@ -40,76 +40,23 @@ export interface TraceServicesOptions {
   readonly log?: (message: string) => void;
 }
 
-/** Object-store settings from the environment (defaults: the local fake of `npm run s3:start`). */
-export function traceStoreConfigFromEnv(
-  env: Record<string, string | undefined> = process.env,
-): TraceStoreConfig {
-  const endpoint = env['S3_ENDPOINT'] || `http://127.0.0.1:${env['S3_PORT'] || '4568'}`;
-  try {
-    const url = new URL(endpoint);
-    if (url.protocol !== 'http:' && url.protocol !== 'https:') throw new Error();
-  } catch {
-    throw new ConfigError([`S3_ENDPOINT must be an http or https URL (got "${endpoint}")`]);
-  }
-  return {
-    endpoint,
-    region: env['S3_REGION'] || 'us-east-1',
-    bucket: env['S3_BUCKET'] || 'gapwise',
-    accessKeyId: env['S3_ACCESS_KEY_ID'] || 'S3RVER',
-    secretAccessKey: env['S3_SECRET_ACCESS_KEY'] || 'S3RVER',
-    forcePathStyle: (env['S3_FORCE_PATH_STYLE'] ?? 'true') !== 'false',
-  };
-}
-
-/** Queue timings from the environment (TRACE_JOB_EXPIRE_SECONDS, TRACE_JOB_RETRY_LIMIT). */
-export function traceQueueOptionsFromEnv(
-  env: Record<string, string | undefined> = process.env,
-): TraceQueueOptions {
-  const int = (name: string, fallback: number, min: number, max: number) => {
-    const raw = env[name];
-    if (raw === undefined || raw === '') return fallback;
-    const n = Number(raw);
-    if (!Number.isInteger(n) || n < min || n > max)
-      throw new ConfigError([`${name} must be an integer from ${min} to ${max}`]);
-    return n;
-  };
-  return {
-    expireInSeconds: int(
-      'TRACE_JOB_EXPIRE_SECONDS',
-      DEFAULT_TRACE_QUEUE_OPTIONS.expireInSeconds,
-      1,
-      24 * 3600,
-    ),
-    retryLimit: int('TRACE_JOB_RETRY_LIMIT', DEFAULT_TRACE_QUEUE_OPTIONS.retryLimit, 0, 100),
-    retryDelaySeconds: DEFAULT_TRACE_QUEUE_OPTIONS.retryDelaySeconds,
-  };
-}
-
-/**
- * Everything the server's trace services take from the environment: S3_* (object store),
- * TRACE_JOB_EXPIRE_SECONDS / TRACE_JOB_RETRY_LIMIT (queue), GAPWISE_TRACE_WORKER=false (no worker
- * in this process), GAPWISE_TRACE_MAINTENANCE_SECONDS (how often lost jobs are expired).
- */
-export function traceServicesOptionsFromEnv(
-  env: Record<string, string | undefined>,
-  connectionString: string,
+/** The trace services' options from the validated configuration (config.ts, read once at start). */
+export function traceServicesOptions(
+  config: Pick<Config, 'databaseUrl' | 'objectStore' | 'traces'>,
 ): TraceServicesOptions {
-  const maintenance = env['GAPWISE_TRACE_MAINTENANCE_SECONDS'];
-  if (
-    maintenance !== undefined &&
-    maintenance !== '' &&
-    !(Number.isInteger(Number(maintenance)) && Number(maintenance) >= 1)
-  ) {
-    throw new ConfigError([
-      'GAPWISE_TRACE_MAINTENANCE_SECONDS must be a whole number of seconds ≥ 1',
-    ]);
-  }
+  const { traces, objectStore } = config;
   return {
-    connectionString,
-    store: traceStoreConfigFromEnv(env),
-    queueOptions: traceQueueOptionsFromEnv(env),
-    runWorker: env['GAPWISE_TRACE_WORKER'] !== 'false',
-    maintenanceIntervalSeconds: maintenance ? Number(maintenance) : undefined,
+    connectionString: config.databaseUrl,
+    store: objectStore,
+    queueOptions: {
+      ...DEFAULT_TRACE_QUEUE_OPTIONS,
+      ...(traces.jobExpireSeconds !== undefined
+        ? { expireInSeconds: traces.jobExpireSeconds }
+        : {}),
+      ...(traces.jobRetryLimit !== undefined ? { retryLimit: traces.jobRetryLimit } : {}),
+    },
+    runWorker: traces.runWorker,
+    maintenanceIntervalSeconds: traces.maintenanceSeconds,
   };
 }
 
