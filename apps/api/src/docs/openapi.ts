@@ -9,23 +9,8 @@ import { ROUTE_DOCS } from './route-docs';
 import { REPORT_SCHEMAS } from '../reports/report-route-docs';
 import { TRACE_SCHEMAS } from '../traces/trace-route-docs';
 import { SCREEN_SCHEMAS } from '../screens/screen-route-docs';
+import { nullable, num, obj, ref, str, type Schema } from './schema';
 
-type Schema = Record<string, unknown>;
-const str = { type: 'string' };
-const num = { type: 'number' };
-const nullable = (s: Schema) => ({ anyOf: [s, { type: 'null' }] });
-const ref = (name: string): Schema =>
-  name.endsWith('[]')
-    ? { type: 'array', items: ref(name.slice(0, -2)) }
-    : { $ref: `#/components/schemas/${name}` };
-const obj = (
-  properties: Record<string, Schema>,
-  required: string[] = Object.keys(properties),
-): Schema => ({
-  type: 'object',
-  properties,
-  required,
-});
 const role = { type: 'string', enum: [...ROLES] };
 
 const parameter = obj(

@@ -1,6 +1,7 @@
 /** OpenAPI rows and schemas of the report routes (spread into ROUTE_DOCS and the schemas). */
 import { REPORT_STATUSES } from '@gapwise/contracts';
 import type { RouteDoc } from '../docs/route-docs';
+import { nullable, num, obj, str, type Schema } from '../docs/schema';
 
 const member = 'any member of the workspace (non-members get 404)';
 const editor = 'owner or editor (reviewer, viewer: 403; non-members: 404)';
@@ -148,18 +149,6 @@ export const REPORT_ROUTE_DOCS: readonly RouteDoc[] = [
   },
 ];
 
-type Schema = Record<string, unknown>;
-const str = { type: 'string' };
-const num = { type: 'number' };
-const nullable = (s: Schema) => ({ anyOf: [s, { type: 'null' }] });
-const obj = (
-  properties: Record<string, Schema>,
-  required: string[] = Object.keys(properties),
-): Schema => ({
-  type: 'object',
-  properties,
-  required,
-});
 const who = obj({ id: str, displayName: str });
 const status = { type: 'string', enum: [...REPORT_STATUSES] };
 

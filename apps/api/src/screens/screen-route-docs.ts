@@ -5,6 +5,7 @@
 import { SCREEN_NUMERIC_COLUMNS, SCREEN_SCORE_KINDS, SCREEN_STATUSES } from '@gapwise/contracts';
 import type { RouteDoc } from '../docs/route-docs';
 import { SCREEN_WARNINGS } from './chunk-computer';
+import { arr, bool, int, nullable, num, obj, ref, str, type Schema } from '../docs/schema';
 
 const member = 'any member of the workspace (non-members get 404)';
 const editor = 'owner or editor (reviewer, viewer: 403; non-members: 404)';
@@ -242,22 +243,6 @@ export const SCREEN_ROUTE_DOCS: readonly RouteDoc[] = [
   },
 ];
 
-type Schema = Record<string, unknown>;
-const str = { type: 'string' };
-const num = { type: 'number' };
-const int = { type: 'integer' };
-const bool = { type: 'boolean' };
-const nullable = (s: Schema) => ({ anyOf: [s, { type: 'null' }] });
-const obj = (
-  properties: Record<string, Schema>,
-  required: string[] = Object.keys(properties),
-): Schema => ({
-  type: 'object',
-  properties,
-  required,
-});
-const arr = (items: Schema) => ({ type: 'array', items });
-const ref = (name: string) => ({ $ref: `#/components/schemas/${name}` });
 const regime = nullable({ type: 'string', enum: ['normal', 'activationless', 'inverted'] });
 
 const seriesPointIn = obj(

@@ -1,6 +1,7 @@
 /** OpenAPI rows and schemas of the trace routes (spread into ROUTE_DOCS and the schemas). */
 import { TRACE_ANALYSIS_STATUSES, TRACE_FILE_UNITS, TRACE_STATES } from '@gapwise/contracts';
 import type { RouteDoc } from '../docs/route-docs';
+import { bool, int, nullable, num, obj, str, type Schema } from '../docs/schema';
 
 const member = 'any member of the workspace (non-members get 404)';
 const editor = 'owner or editor (reviewer, viewer: 403; non-members: 404)';
@@ -97,20 +98,6 @@ export const TRACE_ROUTE_DOCS: readonly RouteDoc[] = [
   },
 ];
 
-type Schema = Record<string, unknown>;
-const str = { type: 'string' };
-const num = { type: 'number' };
-const int = { type: 'integer' };
-const bool = { type: 'boolean' };
-const nullable = (s: Schema) => ({ anyOf: [s, { type: 'null' }] });
-const obj = (
-  properties: Record<string, Schema>,
-  required: string[] = Object.keys(properties),
-): Schema => ({
-  type: 'object',
-  properties,
-  required,
-});
 const badLine = obj({ line: int, message: str });
 
 export const TRACE_SCHEMAS: Record<string, Schema> = {
