@@ -20,6 +20,7 @@ import pg from 'pg';
 import { startObjectStore } from '../../../docker-free-scripts/s3/object-store';
 import { createTestDatabase } from '../../../test/api/support/test-database';
 import { marcusGapMoments, writeSyntheticTrace } from '@gapwise/traces';
+import type { TraceAnalysisResult } from '@gapwise/contracts';
 
 const samples = Number(process.argv[2] ?? 10_000_000);
 const LAMBDA = 0.5;
@@ -230,7 +231,7 @@ try {
   ).json()) as { id: string };
   let analysis: {
     status: string;
-    result: { outputs: Record<string, unknown>; warnings: Array<{ code: string }> } | null;
+    result: Pick<TraceAnalysisResult, 'outputs' | 'warnings'> | null;
     error: unknown;
   };
   for (;;) {
@@ -246,12 +247,7 @@ try {
   const end = status(pid);
   if (analysis.status !== 'done')
     throw new Error(`analysis failed: ${JSON.stringify(analysis.error)}`);
-  const out = analysis.result!.outputs as {
-    lambdaFromMeans: number;
-    deltaG0FromMeans: number;
-    standardErrors: { lambdaFromMeans: number };
-    statisticalInefficiency: { reactant: number };
-  };
+  const out = analysis.result!.outputs;
   const mb = (kb: number) => (kb / 1024).toFixed(0);
   const totalS = totalMs / 1000;
   const peakMb = end.hwmKb / 1024;

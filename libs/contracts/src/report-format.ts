@@ -3,12 +3,14 @@ import type { Provenance } from './pairs';
 import type { ReportModelResult } from './reports';
 
 /**
- * Number and unit formatting for reports: one module, so the PDF and the report page print the
- * very same strings. Negative numbers use the minus sign U+2212; exponents use Unicode
- * superscripts (8.98 × 10¹⁰ s⁻¹).
+ * The one number formatter of Gapwise (reports, PDFs and every web page), so a number reads the
+ * same wherever it is shown. Negative numbers use the minus sign U+2212; exponents use Unicode
+ * superscripts (8.98 × 10¹⁰ s⁻¹); a missing value (null, undefined, NaN) is a dash.
  */
 
 const MINUS = '\u2212';
+/** What a missing value (null, undefined, NaN) prints as. */
+export const NO_VALUE = '—';
 const SUPERSCRIPT: Readonly<Record<string, string>> = {
   '0': '⁰',
   '1': '¹',
@@ -48,8 +50,9 @@ function trimZeros(text: string): string {
  * Scientific notation with `sig` significant figures: 8.98 × 10¹⁰. Mantissa keeps trailing
  * zeros (they are significant): 1.00 × 10⁹.
  */
-export function formatScientific(x: number, sig = 3): string {
-  if (!Number.isFinite(x)) return x > 0 ? '∞' : x < 0 ? `${MINUS}∞` : 'NaN';
+export function formatScientific(x: number | null | undefined, sig = 3): string {
+  if (x === null || x === undefined || Number.isNaN(x)) return NO_VALUE;
+  if (!Number.isFinite(x)) return x > 0 ? '∞' : `${MINUS}∞`;
   if (x === 0) return '0';
   const [mantissa, exp] = x.toExponential(sig - 1).split('e');
   const exponent = Number(exp);
@@ -61,8 +64,8 @@ export function formatScientific(x: number, sig = 3): string {
  * A plain number with `sig` significant figures, trailing zeros dropped unless `keepZeros`;
  * switches to scientific notation outside 10⁻³ ≤ |x| < 10⁵.
  */
-export function formatNumber(x: number, sig = 4, keepZeros = false): string {
-  if (!Number.isFinite(x)) return formatScientific(x, sig);
+export function formatNumber(x: number | null | undefined, sig = 4, keepZeros = false): string {
+  if (x === null || x === undefined || !Number.isFinite(x)) return formatScientific(x, sig);
   if (x === 0) return '0';
   const abs = Math.abs(x);
   if (abs < 1e-3 || abs >= 1e5) return formatScientific(x, sig);
@@ -73,8 +76,8 @@ export function formatNumber(x: number, sig = 4, keepZeros = false): string {
 }
 
 /** Fixed decimals with U+2212: log10 k = 10.95. */
-export function formatFixed(x: number, decimals = 2): string {
-  if (!Number.isFinite(x)) return formatScientific(x);
+export function formatFixed(x: number | null | undefined, decimals = 2): string {
+  if (x === null || x === undefined || !Number.isFinite(x)) return formatScientific(x);
   const text = x.toFixed(decimals);
   // Avoid "−0.00".
   if (Number(text) === 0) return (0).toFixed(decimals);

@@ -252,10 +252,10 @@ export function arrheniusFitGeometry(
       ...domains,
     };
   }
-  const o = answer.outputs as Record<string, unknown>;
-  const se = o['standardErrors'] as Record<string, number>;
-  const ea = o['arrheniusEa'] as number;
-  const lnA = Math.log(o['arrheniusPrefactor'] as number);
+  const o = answer.outputs;
+  const se = o.standardErrors;
+  const ea = o.arrheniusEa;
+  const lnA = Math.log(o.arrheniusPrefactor);
   const at = (x: number) => ({
     x,
     y: (lnA - (ea * x) / (1000 * BOLTZMANN_EV_PER_K)) / Math.LN10,
@@ -263,12 +263,12 @@ export function arrheniusFitGeometry(
   return {
     measured,
     line: [at(domains.inverseTDomain[0]), at(domains.inverseTDomain[1])],
-    ea: { value: ea, error: se['arrheniusEa']! },
+    ea: { value: ea, error: se.arrheniusEa },
     eyring: {
-      enthalpy: o['eyringEnthalpy'] as number,
-      enthalpyError: se['eyringEnthalpy']!,
-      entropy: o['eyringEntropy'] as number,
-      entropyError: se['eyringEntropy']!,
+      enthalpy: o.eyringEnthalpy,
+      enthalpyError: se.eyringEnthalpy,
+      entropy: o.eyringEntropy,
+      entropyError: se.eyringEntropy,
     },
     errors: [],
     ...domains,

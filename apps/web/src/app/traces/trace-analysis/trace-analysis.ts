@@ -77,8 +77,8 @@ export class TraceAnalysisPage {
   protected readonly loadError = signal<string | null>(null);
   protected readonly attachedPair = signal<Pair | null>(null);
 
-  protected readonly outputs = computed(
-    () => (this.analysis()?.result?.outputs ?? null) as GapOutputs | null,
+  protected readonly outputs = computed<GapOutputs | null>(
+    () => this.analysis()?.result?.outputs ?? null,
   );
   protected readonly result = computed(() => this.analysis()?.result ?? null);
   protected readonly fileOf = computed(() => new Map(this.traces().map((t) => [t.id, t])));
