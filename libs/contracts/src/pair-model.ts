@@ -65,8 +65,15 @@ export interface LambdaParts {
 }
 
 /**
- * Total reorganization energy λ = λᵢ + λₒ (Marcus 1956; SCIENCE.md §2), the one place it is
- * summed. An entered total (kind `lambdaTotal`) wins over the parts; with a total and one part the
+ * Total reorganization energy λ = λᵢ + λₒ (Marcus 1956; SCIENCE.md §2): the one place the parts
+ * are summed (screens call it per row, `lambdaParts` per pair).
+ */
+export function lambdaTotalOfPartsEv(innerEv: number, outerEv: number): number {
+  return innerEv + outerEv;
+}
+
+/**
+ * How a pair's λ is known. An entered total (kind `lambdaTotal`) wins over the parts; with a total and one part the
  * other part is their difference (the split the MLJ rate needs).
  */
 export function lambdaParts(parameters: ReadonlyArray<PairModelParameter>): LambdaParts {
@@ -88,7 +95,7 @@ export function lambdaParts(parameters: ReadonlyArray<PairModelParameter>): Lamb
   const si = parameterSigma(parameters, 'lambdaInner');
   const so = parameterSigma(parameters, 'lambdaOuter');
   return {
-    total: (inner ?? 0) + (outer ?? 0),
+    total: lambdaTotalOfPartsEv(inner ?? 0, outer ?? 0),
     // Independent parts: σ(λᵢ + λₒ) = √(σᵢ² + σₒ²).
     sigmaTotal: si === null && so === null ? null : Math.hypot(si ?? 0, so ?? 0),
     inner: inner ?? null,
