@@ -1,5 +1,6 @@
 import { calculate, marcusRegime, type CalcRequest } from '@gapwise/calc';
 import type { PairResults, ParameterKind, RateModel } from './pairs';
+import type { ReportPairSnapshot } from './reports';
 import {
   displayUnit,
   formatFixed,
@@ -577,4 +578,33 @@ export function pairRatesView(results: PairResults | null | undefined): PairRate
     recombination: cr ? { ...stepView(cr), note: cr.note } : null,
     ratio: ratioText(results.log10Ratio),
   };
+}
+
+/** The pair model's source for a pair frozen in a report snapshot (canonical inputs with σ). */
+export function snapshotSource(pair: ReportPairSnapshot): PairRateSource {
+  return {
+    temperature: pair.temperatureK,
+    model: pair.model,
+    parameters: pair.inputs.filter((i) => i.kind !== 'temperature'),
+  };
+}
+
+/**
+ * Both steps of a frozen pair as the report page and the PDF print them (the chosen model's
+ * separation result and the stored recombination); null when the snapshot has no recombination.
+ */
+export function snapshotRatesView(pair: ReportPairSnapshot): PairRatesView | null {
+  if (!pair.recombination) return null;
+  const r = pair.results.find((x) => x.primary) ?? null;
+  return pairRatesView({
+    model: pair.model,
+    k: r?.k ?? null,
+    log10k: r?.log10k ?? null,
+    activationFreeEnergy: r?.activationFreeEnergy ?? null,
+    regime: r?.regime ?? null,
+    warnings: [],
+    errors: [],
+    recombination: pair.recombination,
+    log10Ratio: pair.log10Ratio ?? null,
+  });
 }

@@ -13,10 +13,10 @@ import {
   formatUncertainty,
   intervalText,
   modelName,
-  pairRatesView,
   provenanceText,
+  snapshotRatesView,
+  snapshotSource,
   totalLambdaEv,
-  type PairRateSource,
   type PairStepView,
   type ReportInput,
   type ReportModelResult,
@@ -81,14 +81,7 @@ export function totalLambda(pair: ReportPairSnapshot): number | null {
   return totalLambdaEv(pair.inputs);
 }
 
-/** The pair model's source for a frozen pair: canonical inputs with their σ. */
-export function sourceOf(pair: ReportPairSnapshot): PairRateSource {
-  return {
-    temperature: pair.temperatureK,
-    model: pair.model,
-    parameters: pair.inputs.filter((i) => i.kind !== 'temperature'),
-  };
-}
+export { snapshotSource as sourceOf };
 
 /**
  * Charge separation beside charge recombination (rows: step, model, k, log10 k, regime) and the
@@ -99,20 +92,8 @@ export function stepsText(
   pair: ReportPairSnapshot,
 ): { rows: string[][]; ratio: string | null; note: string } | null {
   const cr = pair.recombination;
-  if (!cr) return null;
-  const r = primaryResult(pair);
-  const view = pairRatesView({
-    model: pair.model,
-    k: r?.k ?? null,
-    log10k: r?.log10k ?? null,
-    activationFreeEnergy: r?.activationFreeEnergy ?? null,
-    regime: r?.regime ?? null,
-    couplingRegime: null,
-    warnings: [],
-    errors: [],
-    recombination: cr,
-    log10Ratio: pair.log10Ratio ?? null,
-  });
+  const view = snapshotRatesView(pair);
+  if (!cr || !view) return null;
   const row = (step: string, v: PairStepView) => [step, v.model, v.rate, v.log10k, v.regime];
   return {
     rows: [
