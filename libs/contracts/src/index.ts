@@ -4,7 +4,7 @@ export * from './errors';
 export * from './pairs';
 export * from './roles';
 export * from './workspaces';
-export * from './pair-calc';
+export * from './pair-model';
 export * from './reports';
 export * from './report-format';
 export * from './traces';

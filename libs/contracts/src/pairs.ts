@@ -8,6 +8,7 @@
 export const PARAMETER_KINDS = {
   deltaG0: { label: 'Driving force ΔG°', quantity: 'energy' },
   deltaG0Recombination: { label: 'Recombination ΔG°', quantity: 'energy' },
+  lambdaTotal: { label: 'Total reorganization energy λ', quantity: 'energy' },
   lambdaInner: { label: 'Inner reorganization energy λᵢ', quantity: 'energy' },
   lambdaOuter: { label: 'Outer reorganization energy λₒ', quantity: 'energy' },
   coupling: { label: 'Electronic coupling |H_AB|', quantity: 'energy' },
@@ -102,6 +103,27 @@ export interface PairResults {
   readonly couplingRegime?: string | null;
   readonly warnings: ReadonlyArray<{ readonly code: string; readonly message: string }>;
   readonly errors: ReadonlyArray<{ readonly field: string; readonly message: string }>;
+  /**
+   * Charge recombination (ΔG°_CR with the same λ and |H_AB|), null when the pair states no
+   * recombination ΔG°; absent in results stored before it was computed. `note` says which model
+   * recombination used and why (pair-model.ts `recombinationModel`).
+   */
+  readonly recombination?: PairStepResults | null;
+  /** log10(k_CS / k_CR): positive when separation outpaces recombination. */
+  readonly log10Ratio?: number | null;
+}
+
+/** One step's results (used for charge recombination). */
+export interface PairStepResults {
+  readonly model: RateModel;
+  readonly note: string;
+  readonly k: number | null;
+  readonly log10k: number | null;
+  readonly activationFreeEnergy: number | null;
+  readonly regime: string | null;
+  readonly couplingRegime: string | null;
+  readonly warnings: ReadonlyArray<{ readonly code: string; readonly message: string }>;
+  readonly errors: ReadonlyArray<{ readonly field: string; readonly message: string }>;
 }
 
 export interface Pair extends PairInput {
@@ -130,6 +152,11 @@ export interface PairListItem {
   readonly coupling: number | null;
   readonly log10k: number | null;
   readonly regime: string | null;
+  /** Charge recombination log10 k_CR and regime, when the pair states ΔG°_CR. */
+  readonly log10kCr?: number | null;
+  readonly regimeCr?: string | null;
+  /** log10(k_CS / k_CR). */
+  readonly log10Ratio?: number | null;
   readonly version: number;
   readonly updatedAt: string;
   readonly updatedBy: string | null;

@@ -6,7 +6,7 @@
  * version. It never changes afterwards; its id is a content hash (`snapshotId`). The review state
  * (status, comments, decisions) lives beside it and is passed to the renderer separately.
  */
-import type { ParameterKind, Provenance, RateModel } from './pairs';
+import type { PairStepResults, ParameterKind, Provenance, RateModel } from './pairs';
 
 export const REPORT_STATUSES = ['draft', 'submitted', 'changes-requested', 'approved'] as const;
 export type ReportStatus = (typeof REPORT_STATUSES)[number];
@@ -92,6 +92,13 @@ export interface ReportPairSnapshot {
   readonly results: readonly ReportModelResult[];
   /** Warnings of the pair as a whole, de-duplicated across models. */
   readonly warnings: ReadonlyArray<{ readonly code: string; readonly message: string }>;
+  /**
+   * Charge recombination as the pair model computes it (null without ΔG°_CR; absent in
+   * snapshots frozen before it was reported).
+   */
+  readonly recombination?: PairStepResults | null;
+  /** log10(k_CS / k_CR) of the chosen model. */
+  readonly log10Ratio?: number | null;
 }
 
 export interface ReportSnapshot {

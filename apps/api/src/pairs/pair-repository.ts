@@ -12,6 +12,7 @@ import type {
   RateModel,
 } from '@gapwise/contracts';
 import { isUuid } from '../http/validate';
+import { parameterValue, totalLambdaEv } from '@gapwise/contracts';
 
 type Row = Record<string, unknown>;
 const iso = (d: unknown) => (d instanceof Date ? d.toISOString() : String(d));
@@ -90,13 +91,10 @@ export async function findPair(
 
 /** Values repeated in columns so that the list can sort and filter in SQL. */
 function listColumns(input: Required<PairInput>, results: PairResults) {
-  const value = (kind: ParameterKind) => input.parameters.find((p) => p.kind === kind)?.value;
-  const inner = value('lambdaInner');
-  const outer = value('lambdaOuter');
-  const coupling = value('coupling');
+  const coupling = parameterValue(input.parameters, 'coupling');
   return {
-    deltaG0: value('deltaG0') ?? null,
-    lambda: inner === undefined && outer === undefined ? null : (inner ?? 0) + (outer ?? 0),
+    deltaG0: parameterValue(input.parameters, 'deltaG0') ?? null,
+    lambda: totalLambdaEv(input.parameters),
     coupling: coupling === undefined ? null : Math.abs(coupling),
     log10k: results.log10k,
     regime: results.regime,
@@ -304,7 +302,12 @@ export async function listPairs(
   const order = `${SORT_COLUMNS[q.sort]} ${q.descending ? 'DESC' : 'ASC'} NULLS LAST, p.id`;
   const rows: Row[] = await db.query(
     `SELECT p.id, p.name, p.donor, p.acceptor, p.status, p.tags, p.delta_g0, p.lambda_total,
-            p.coupling_abs, p.log10k, p.regime, p.version, p.updated_at, u.display_name
+            p.coupling_abs, p.log10k, p.regime, p.version, p.updated_at, u.display_name,
+            -- Recombination is read from the stored results (pair-model.ts computed them on save):
+            -- the table shows k_CR without a column of its own to keep in step.
+            (p.results->'recombination'->>'log10k')::float8 AS log10k_cr,
+            p.results->'recombination'->>'regime' AS regime_cr,
+            (p.results->>'log10Ratio')::float8 AS log10_ratio
        FROM pairs p LEFT JOIN users u ON u.id = p.updated_by
       WHERE ${sqlWhere} ORDER BY ${order}
       OFFSET $${params.length + 1} LIMIT $${params.length + 2}`,
@@ -323,6 +326,9 @@ export async function listPairs(
       coupling: (r['coupling_abs'] as number | null) ?? null,
       log10k: (r['log10k'] as number | null) ?? null,
       regime: (r['regime'] as string | null) ?? null,
+      log10kCr: (r['log10k_cr'] as number | null) ?? null,
+      regimeCr: (r['regime_cr'] as string | null) ?? null,
+      log10Ratio: (r['log10_ratio'] as number | null) ?? null,
       version: r['version'] as number,
       updatedAt: iso(r['updated_at']),
       updatedBy: (r['display_name'] as string | null) ?? null,

@@ -1,7 +1,10 @@
 import { allowedUnits, canonicalUnit, isUnitFor, type Quantity } from '@gapwise/calc';
 import {
+  lambdaParts,
   magnitudeProblem,
   PARAMETER_KINDS,
+  PARAMETER_LOWER_BOUNDS,
+  withinLowerBound,
   type PairInput,
   type PairParameter,
   type Provenance,
@@ -9,24 +12,6 @@ import {
 import type { ParameterDto, PairInputDto } from './pair-dto';
 
 type FieldError = { field: string; message: string };
-
-/** Physical lower bounds of parameter values (canonical units); anything else is only warned about. */
-const LOWER_BOUNDS: Partial<
-  Record<keyof typeof PARAMETER_KINDS, { min: number; strict: boolean }>
-> = {
-  lambdaInner: { min: 0, strict: false },
-  lambdaOuter: { min: 0, strict: false },
-  hbarOmega: { min: 0, strict: true },
-  tauL: { min: 0, strict: true },
-  distance: { min: 0, strict: true },
-  edgeDistance: { min: 0, strict: false },
-  radiusDonor: { min: 0, strict: true },
-  radiusAcceptor: { min: 0, strict: true },
-  excitationEnergy: { min: 0, strict: true },
-  epsilonStatic: { min: 1, strict: false },
-  epsilonMeasurement: { min: 1, strict: false },
-  refractiveIndex: { min: 1, strict: false },
-};
 
 /** Units a parameter kind accepts; dimensionless kinds take the empty unit. */
 export function unitsForKind(kind: keyof typeof PARAMETER_KINDS): readonly string[] {
@@ -47,8 +32,8 @@ function checkParameter(p: ParameterDto, i: number, errors: FieldError[]): void 
         .join(', ')} for ${p.kind}`,
     });
   }
-  const bound = LOWER_BOUNDS[p.kind];
-  if (bound && (bound.strict ? !(p.value > bound.min) : !(p.value >= bound.min))) {
+  const bound = PARAMETER_LOWER_BOUNDS[p.kind];
+  if (bound && !withinLowerBound(p.kind, p.value)) {
     const unit = canonicalUnit(quantity);
     errors.push({
       field: at('value'),
@@ -84,6 +69,18 @@ export function pairInputProblems(input: PairInputDto): FieldError[] {
     } else seen.set(p.kind, i);
     checkParameter(p, i, errors);
   });
+  // λ entered as a total and as both parts must agree (the pair model would use the total).
+  const total = input.parameters.findIndex((p) => p.kind === 'lambdaTotal');
+  const parts = lambdaParts(input.parameters.filter((p) => p.kind !== 'lambdaTotal'));
+  if (total >= 0 && parts.inner !== null && parts.outer !== null) {
+    const given = input.parameters[total].value;
+    if (Math.abs(given - (parts.total ?? 0)) > 1e-9 * Math.max(1, Math.abs(given))) {
+      errors.push({
+        field: `parameters.${total}.value`,
+        message: `must equal inner λᵢ + outer λₒ (${parts.total} eV) when all three are given; clear the total or one part`,
+      });
+    }
+  }
   return errors;
 }
 

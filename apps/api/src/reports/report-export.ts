@@ -101,6 +101,32 @@ export function reportCsv(view: ReportView): string {
           '',
         ]);
     }
+    const cr = p.recombination;
+    if (cr) {
+      // Charge recombination, as the pair model computed it (section `recombination`).
+      const out: Array<[string, unknown, string]> = [
+        ['k', cr.k, 's-1'],
+        ['log10k', cr.log10k, ''],
+        ['activationFreeEnergy', cr.activationFreeEnergy, 'eV'],
+        ['regime', cr.regime, ''],
+        ['log10_ratio_cs_cr', p.log10Ratio ?? null, ''],
+      ];
+      for (const [q, v, u] of out)
+        rows.push([
+          'recombination',
+          p.pairId,
+          p.pairVersion,
+          p.name,
+          cr.model,
+          q,
+          v,
+          u,
+          '',
+          '',
+          '',
+          '',
+        ]);
+    }
   }
   return rows.map((r) => r.map(csvCell).join(',')).join('\r\n') + '\r\n';
 }

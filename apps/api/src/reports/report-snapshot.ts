@@ -10,7 +10,6 @@ import {
   canonicalUnit,
   fromCanonical,
   methodCatalog,
-  type CalcRequest,
   type Quantity,
 } from '@gapwise/calc';
 import {
@@ -18,8 +17,13 @@ import {
   PARAMETER_KINDS,
   RATE_MODELS,
   computePairResults,
-  pairRateRequest,
+  computeSeparation,
+  parameterValue,
+  runPairMonteCarlo,
+  totalLambdaEv,
   type Pair,
+  type PairRateSource,
+  type RateModel,
   type ParameterKind,
   type ReportInput,
   type ReportInterval,
@@ -70,9 +74,6 @@ const MODEL_METHOD: Readonly<Record<string, string>> = {
   crossover: 'rate.crossover',
   ruler: 'rate.ruler',
 };
-
-export const MONTE_CARLO_SAMPLES = 2000;
-export const MONTE_CARLO_SEED = 20251202;
 
 export interface SnapshotContext {
   readonly kind: ReportKind;
@@ -137,71 +138,25 @@ function snapshotInputs(pair: Pair): ReportInput[] {
   return inputs;
 }
 
-/** Which request inputs a parameter's uncertainty maps onto (λ combines inner and outer). */
-function withUncertainties(request: CalcRequest, pair: Pair): Record<string, unknown> | null {
-  const sigma = (kind: ParameterKind) =>
-    pair.parameters.find((p) => p.kind === kind)?.uncertainty ?? null;
-  const inputs = { ...(request.inputs as Record<string, unknown>) };
-  const sigmas: Record<string, number | null> = {
-    deltaG0: sigma('deltaG0'),
-    coupling: sigma('coupling'),
-    hbarOmega: sigma('hbarOmega'),
-    tauL: sigma('tauL'),
-    lambdaSolvent: sigma('lambdaOuter'),
-    lambdaVib: sigma('lambdaInner'),
-  };
-  const si = sigma('lambdaInner');
-  const so = sigma('lambdaOuter');
-  sigmas['lambda'] = si === null && so === null ? null : Math.hypot(si ?? 0, so ?? 0);
-  let any = false;
-  for (const [name, s] of Object.entries(sigmas)) {
-    if (name in inputs && s !== null && s > 0) {
-      inputs[name] = { value: inputs[name], sigma: s };
-      any = true;
-    }
-  }
-  return any ? inputs : null;
-}
-
-function monteCarlo(request: CalcRequest, pair: Pair): ReportInterval | null {
-  const inputs = withUncertainties(request, pair);
-  if (!inputs) return null;
-  const answer = calculate({
-    method: 'uncertainty.monteCarlo',
-    inputs: {
-      method: request.method,
-      inputs,
-      samples: MONTE_CARLO_SAMPLES,
-      seed: MONTE_CARLO_SEED,
-    },
-  });
-  if (!answer.ok) return null;
-  const log10k = answer.outputs['log10k'] as
-    { median?: number; p025?: number; p975?: number } | undefined;
-  if (
-    !log10k ||
-    typeof log10k.median !== 'number' ||
-    typeof log10k.p025 !== 'number' ||
-    typeof log10k.p975 !== 'number'
-  ) {
-    return null;
-  }
+/** The Monte Carlo interval of one model, from the pair model's one request (as on the page). */
+function monteCarlo(source: PairRateSource, model: RateModel): ReportInterval | null {
+  const run = runPairMonteCarlo(source, model);
+  if (run.status !== 'done') return null;
   return {
-    log10kMedian: log10k.median,
-    log10kLow: log10k.p025,
-    log10kHigh: log10k.p975,
+    log10kMedian: run.median,
+    log10kLow: run.p025,
+    log10kHigh: run.p975,
     percentiles: [2.5, 97.5],
-    samples: MONTE_CARLO_SAMPLES,
-    seed: MONTE_CARLO_SEED,
+    samples: run.samples,
+    seed: run.seed,
   };
 }
 
 function rulerResult(pair: Pair): ReportModelResult | null {
   const edge = pair.parameters.find((p) => p.kind === 'edgeDistance');
   if (!edge) return null;
-  const v = (kind: ParameterKind) => pair.parameters.find((p) => p.kind === kind)?.value;
-  const deltaG0 = v('deltaG0');
-  const lambda = (v('lambdaInner') ?? 0) + (v('lambdaOuter') ?? 0);
+  const deltaG0 = parameterValue(pair.parameters, 'deltaG0');
+  const lambda = totalLambdaEv(pair.parameters) ?? 0;
   const base = { model: 'ruler' as const, methodId: 'rate.ruler', primary: false, interval: null };
   if (deltaG0 === undefined || !(lambda > 0)) {
     return {
@@ -254,12 +209,11 @@ function missingText(errors: ReadonlyArray<{ field: string; message: string }>):
 
 /** Results of every rate model for one pair (the chosen one first). */
 export function pairResults(pair: Pair): ReportModelResult[] {
-  const source = { temperature: pair.temperature, parameters: pair.parameters };
+  const source: PairRateSource = pair;
   const models = [pair.model, ...RATE_MODELS.filter((m) => m !== pair.model)];
   const results: ReportModelResult[] = models.map((model) => {
-    const r = computePairResults({ ...source, model });
+    const r = computeSeparation(source, model);
     const applies = r.errors.length === 0 && (r.k !== null || r.log10k !== null);
-    const request = pairRateRequest({ ...source, model });
     return {
       model,
       methodId: MODEL_METHOD[model],
@@ -270,7 +224,7 @@ export function pairResults(pair: Pair): ReportModelResult[] {
       log10k: applies ? r.log10k : null,
       activationFreeEnergy: applies ? r.activationFreeEnergy : null,
       regime: applies ? r.regime : null,
-      interval: applies && !('missing' in request) ? monteCarlo(request, pair) : null,
+      interval: applies ? monteCarlo(source, model) : null,
       warnings: applies ? r.warnings : [],
     };
   });
@@ -281,6 +235,8 @@ export function pairResults(pair: Pair): ReportModelResult[] {
 
 function snapshotPair(pair: Pair): ReportPairSnapshot {
   const results = pairResults(pair);
+  // The same call the pair page and the stored results make: k_CR and the ratio agree by construction.
+  const both = computePairResults(pair);
   const seen = new Set<string>();
   const warnings: Array<{ code: string; message: string }> = [];
   for (const r of results) {
@@ -302,6 +258,8 @@ function snapshotPair(pair: Pair): ReportPairSnapshot {
     inputs: snapshotInputs(pair),
     results,
     warnings,
+    recombination: both.recombination ?? null,
+    log10Ratio: both.log10Ratio ?? null,
   };
 }
 

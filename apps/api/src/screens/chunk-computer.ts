@@ -24,6 +24,7 @@ import {
   bornSolventCorrectionEv,
   type CalcAnswer,
 } from '@gapwise/calc';
+import { lambdaTotalOfPartsEv, regimeOf as regimeOfPair } from '@gapwise/contracts';
 import type { InputChunk } from './screen-parser';
 import { scoreRow, type ScoreChoice } from './screen-score';
 
@@ -99,9 +100,9 @@ function collectWarnings(answer: CalcAnswer): number {
   return mask;
 }
 
+/** Index in REGIMES of the pair model's regime rule (the core's `marcusRegime`); λ > 0 here. */
 function regimeOf(deltaG: number, lambda: number): number {
-  if (Math.abs(deltaG + lambda) <= 0.01 * lambda) return 1;
-  return -deltaG < lambda ? 0 : 2;
+  return REGIMES.indexOf(regimeOfPair(deltaG, lambda) as (typeof REGIMES)[number]);
 }
 
 /**
@@ -296,7 +297,7 @@ export function computeChunk(input: InputChunk, score: ScoreChoice): ChunkResult
     }
     coupling = Math.abs(coupling);
     const lambdaInner = v.lambdaInner[i];
-    const lambda = lambdaInner + lambdaOuter;
+    const lambda = lambdaTotalOfPartsEv(lambdaInner, lambdaOuter);
     const temperature = v.temperature[i];
     out.lambdaInner[i] = lambdaInner;
     out.lambdaOuter[i] = lambdaOuter;

@@ -14,13 +14,13 @@ import {
 } from '@gapwise/plots';
 import {
   formatNumber,
+  pairPlotInputs,
   pairRateRequest,
-  type ParameterKind,
   type ReportPairSnapshot,
 } from '@gapwise/contracts';
 import { COLORS, type Cursor, type Doc } from './page-layout';
 import { drawRich } from './rich-text';
-import { inputValue, primaryResult, totalLambda } from './report-text';
+import { inputValue, primaryResult, sourceOf, totalLambda } from './report-text';
 
 interface Frame {
   readonly x: number;
@@ -230,22 +230,10 @@ export function drawParabolas(doc: Doc, frame: Frame, pair: ReportPairSnapshot):
 
 /** log10 k against −ΔG° for the pair's λ and |H_AB|, inverted region shaded, the pair marked. */
 export function drawDrivingForce(doc: Doc, frame: Frame, pair: ReportPairSnapshot): boolean {
-  const lambda = totalLambda(pair);
-  const coupling = inputValue(pair, 'coupling');
-  const deltaG0 = inputValue(pair, 'deltaG0');
-  if (lambda === null || !(lambda > 0) || coupling === null) return false;
-  const r = primaryResult(pair);
-  const mlj = pair.model === 'mlj';
-  const g = drivingForceCurves({
-    lambda,
-    coupling,
-    temperature: pair.temperatureK,
-    lambdaSolvent: mlj ? inputValue(pair, 'lambdaOuter') : null,
-    lambdaVib: mlj ? inputValue(pair, 'lambdaInner') : null,
-    hbarOmega: mlj ? inputValue(pair, 'hbarOmega') : null,
-    pair: deltaG0 !== null && r?.log10k != null ? { deltaG0, log10k: r.log10k } : null,
-    samples: 161,
-  });
+  // The pair model's plot inputs: the same curves as the pair page draws.
+  const inputs = pairPlotInputs(sourceOf(pair), primaryResult(pair)?.log10k ?? null);
+  if (!inputs) return false;
+  const g = drivingForceCurves({ ...inputs, samples: 161 });
   if (
     !plottable(
       [g.domain, g.log10kDomain],
@@ -307,14 +295,7 @@ export function drawDrivingForce(doc: Doc, frame: Frame, pair: ReportPairSnapsho
 
 /** log10 k against 1000/T for the pair's chosen model, with the apparent activation energy. */
 export function drawTemperature(doc: Doc, frame: Frame, pair: ReportPairSnapshot): boolean {
-  const parameters = pair.inputs
-    .filter((i) => i.kind !== 'temperature')
-    .map((i) => ({ kind: i.kind as ParameterKind, value: i.value }));
-  const request = pairRateRequest({
-    temperature: pair.temperatureK,
-    model: pair.model,
-    parameters,
-  });
+  const request = pairRateRequest(sourceOf(pair));
   if ('missing' in request) return false;
   const g = temperatureCurve(request, pair.temperatureK);
   if (g.points.every((p) => p.log10k === null)) return false;
@@ -390,16 +371,14 @@ export function drawPairPlots(cursor: Cursor, pair: ReportPairSnapshot): void {
 export function drawComparisonPlot(cursor: Cursor, pairs: readonly ReportPairSnapshot[]): void {
   const doc = cursor.doc;
   const curves = pairs.flatMap((pair, i) => {
-    const lambda = totalLambda(pair);
-    const coupling = inputValue(pair, 'coupling');
-    const deltaG0 = inputValue(pair, 'deltaG0');
-    const r = primaryResult(pair);
-    if (lambda === null || !(lambda > 0) || coupling === null) return [];
+    const inputs = pairPlotInputs(sourceOf(pair), primaryResult(pair)?.log10k ?? null);
+    if (!inputs) return [];
+    // One classical curve per pair: the comparison reads the pairs side by side, not MLJ.
     const g = drivingForceCurves({
-      lambda,
-      coupling,
-      temperature: pair.temperatureK,
-      pair: deltaG0 !== null && r?.log10k != null ? { deltaG0, log10k: r.log10k } : null,
+      ...inputs,
+      lambdaSolvent: null,
+      lambdaVib: null,
+      hbarOmega: null,
       samples: 121,
     });
     if (!plottable([g.domain, g.log10kDomain], g.pair?.x, g.pair?.y)) return [];

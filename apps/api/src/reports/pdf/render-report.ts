@@ -27,6 +27,7 @@ import {
   modelName,
   primaryResult,
   resultRow,
+  stepsText,
 } from './report-text';
 
 const STATUS_COLORS: Record<ReportStatus, string> = {
@@ -230,10 +231,32 @@ function drawPair(cursor: Cursor, snapshot: ReportSnapshot, pair: ReportPairSnap
       'uncertainties (normal distributions) through the chosen model.',
     { size: 8, color: COLORS.muted },
   );
+  drawSteps(cursor, pair, prefix);
   if (snapshot.kind === 'pair') {
     cursor.heading('Plots', 230);
     drawPairPlots(cursor, pair);
   }
+}
+
+/** Charge separation beside charge recombination and their ratio (the pair model's strings). */
+function drawSteps(cursor: Cursor, pair: ReportPairSnapshot, prefix: string): void {
+  const steps = stepsText(pair);
+  if (!steps) return;
+  cursor.heading(`${prefix}Separation and recombination`, 80);
+  drawTable(
+    cursor,
+    [
+      { header: 'Step', width: 0.26 },
+      { header: 'Model', width: 0.3 },
+      { header: 'k', width: 0.17, align: 'right' },
+      { header: 'log10 k', width: 0.1, align: 'right' },
+      { header: 'Regime', width: 0.17 },
+    ],
+    steps.rows,
+  );
+  cursor.gap(4);
+  if (steps.ratio) cursor.text(`${steps.ratio}.`, { size: 9.5 });
+  cursor.text(steps.note, { size: 8, color: COLORS.muted });
 }
 
 function drawMethods(cursor: Cursor, snapshot: ReportSnapshot): void {

@@ -14,6 +14,10 @@ import {
   intervalText,
   modelName,
   provenanceText,
+  snapshotRatesView,
+  snapshotSource,
+  totalLambdaEv,
+  type PairStepView,
   type ReportInput,
   type ReportModelResult,
   type ReportPairSnapshot,
@@ -72,12 +76,33 @@ export function inputValue(pair: ReportPairSnapshot, kind: string): number | nul
   return pair.inputs.find((i) => i.kind === kind)?.value ?? null;
 }
 
-/** Total λ = λ_inner + λ_outer (either may be absent), or null. */
+/** Total λ of the pair model (entered total, or λᵢ + λₒ), or null. */
 export function totalLambda(pair: ReportPairSnapshot): number | null {
-  const inner = inputValue(pair, 'lambdaInner');
-  const outer = inputValue(pair, 'lambdaOuter');
-  if (inner === null && outer === null) return null;
-  return (inner ?? 0) + (outer ?? 0);
+  return totalLambdaEv(pair.inputs);
+}
+
+export { snapshotSource as sourceOf };
+
+/**
+ * Charge separation beside charge recombination (rows: step, model, k, log10 k, regime) and the
+ * sentence comparing them; null when the snapshot has no recombination (no ΔG°_CR, or frozen
+ * before it was reported). The strings are the pair model's, as on the pair page.
+ */
+export function stepsText(
+  pair: ReportPairSnapshot,
+): { rows: string[][]; ratio: string | null; note: string } | null {
+  const cr = pair.recombination;
+  const view = snapshotRatesView(pair);
+  if (!cr || !view) return null;
+  const row = (step: string, v: PairStepView) => [step, v.model, v.rate, v.log10k, v.regime];
+  return {
+    rows: [
+      row('Charge separation k_CS', view.separation),
+      row('Charge recombination k_CR', view.recombination ?? view.separation),
+    ],
+    ratio: view.ratio,
+    note: cr.note,
+  };
 }
 
 export function primaryResult(pair: ReportPairSnapshot): ReportModelResult | null {

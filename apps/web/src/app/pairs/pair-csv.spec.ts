@@ -19,7 +19,7 @@ describe('pairsToCsv', () => {
     } as unknown as PairListItem;
     const line = pairsToCsv([row]).split('\r\n')[1];
     expect(line).toBe(
-      `'-2+3+cmd|' /C calc'!A0,"'=HYPERLINK(""x"")",'@A1,draft,-0.42,0.8,,9.5,normal,'+tag,2026-01-01T00:00:00.000Z,Ada`,
+      `'-2+3+cmd|' /C calc'!A0,"'=HYPERLINK(""x"")",'@A1,draft,-0.42,0.8,,9.5,normal,,,,'+tag,2026-01-01T00:00:00.000Z,Ada`,
     );
   });
 });

@@ -27,7 +27,9 @@ import {
   PARAMETER_KINDS,
   SOLVENTS,
   computePairResults,
+  pairPlotInputs,
   pairRateRequest,
+  totalLambdaEv,
   type Pair,
   type PairInput,
   type PairResults,
@@ -82,6 +84,7 @@ import type { HoldsUnsavedChanges } from './unsaved-changes-guard';
 
 const RATE_KINDS: ParameterKind[] = [
   'deltaG0',
+  'lambdaTotal',
   'lambdaInner',
   'lambdaOuter',
   'coupling',
@@ -225,9 +228,7 @@ export class PairEditor implements HoldsUnsavedChanges {
   protected readonly monteCarlo = toSignal(
     toObservable(this.edits).pipe(
       debounceTime(350),
-      map((e): MonteCarloState =>
-        e ? monteCarloLog10k(e.source, e.parameters) : { status: 'none' },
-      ),
+      map((e): MonteCarloState => (e ? monteCarloLog10k(e.source) : { status: 'none' })),
     ),
     { initialValue: { status: 'none' } as MonteCarloState },
   );
@@ -238,11 +239,9 @@ export class PairEditor implements HoldsUnsavedChanges {
 
   protected readonly temperatureK = computed(() => this.edits()?.source.temperature ?? null);
   protected readonly plotDeltaG0 = computed(() => this.value('deltaG0'));
-  protected readonly plotLambda = computed(() => {
-    const inner = this.value('lambdaInner');
-    const outer = this.value('lambdaOuter');
-    return inner === null && outer === null ? null : (inner ?? 0) + (outer ?? 0);
-  });
+  protected readonly plotLambda = computed(() =>
+    this.edits() ? totalLambdaEv(this.edits()!.parameters) : null,
+  );
   protected readonly plotCoupling = computed(() => this.value('coupling'));
   /** Measured points of the series that link this pair (none for a new pair). */
   protected readonly seriesPoints = toSignal(
@@ -252,22 +251,11 @@ export class PairEditor implements HoldsUnsavedChanges {
     { initialValue: [] as PairSeriesPoint[] },
   );
   protected readonly drivingInputs = computed<DrivingForceInputs | null>(() => {
-    const lambda = this.plotLambda();
-    const coupling = this.plotCoupling();
-    const t = this.temperatureK();
-    if (lambda === null || !(lambda > 0) || coupling === null || !t || !(t > 0)) return null;
-    const r = this.results();
-    const dg = this.plotDeltaG0();
-    return {
-      lambda,
-      coupling,
-      temperature: t,
-      lambdaSolvent: this.value('lambdaOuter'),
-      lambdaVib: this.value('lambdaInner') ?? 0,
-      hbarOmega: this.value('hbarOmega'),
-      pair: dg !== null && r.log10k !== null ? { deltaG0: dg, log10k: r.log10k } : null,
-      measured: this.seriesPoints(),
-    };
+    const e = this.edits();
+    if (!e) return null;
+    // The pair model's plot inputs: the report draws the very same curves.
+    const inputs = pairPlotInputs(e.source, this.results().log10k);
+    return inputs ? { ...inputs, measured: this.seriesPoints() } : null;
   });
   protected readonly rateRequest = computed(() => {
     const e = this.edits();

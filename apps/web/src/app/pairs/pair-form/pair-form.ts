@@ -10,6 +10,7 @@ import {
   type ProvenanceKind,
   type RateModel,
   temperaturePlausibility,
+  withinLowerBound,
 } from '@gapwise/contracts';
 import type { Quantity } from '@gapwise/calc';
 import { QuantityGroup, QuantitySpec, ValueRule, createQuantityGroup } from './quantity-control';
@@ -26,24 +27,28 @@ export type ParameterGroup = QuantityGroup & {
   readonly controls: QuantityGroup['controls'] & { provenance: ProvenanceGroup };
 };
 
-const positive: ValueRule = (v) => (v > 0 ? null : 'must be greater than 0.');
-const notNegative: ValueRule = (v) => (v >= 0 ? null : 'must not be negative.');
-const atLeastOne: ValueRule = (v) => (v >= 1 ? null : 'must be at least 1.');
+/** Each kind's lower bound (the pair model's, as the API checks on save), in words. */
+function bounded(kind: ParameterKind, message: string): ValueRule {
+  return (v) => (withinLowerBound(kind, v) ? null : message);
+}
+const REORGANIZATION = 'Reorganization energy must not be negative.';
+const DISTANCE = 'Radii and distances must be > 0.';
 
 /** Domain rules of VALIDATION.md part A that a single field can check. */
 const RULES: Partial<Record<ParameterKind, ValueRule>> = {
-  lambdaInner: (v) => (v >= 0 ? null : 'Reorganization energy must not be negative.'),
-  lambdaOuter: (v) => (v >= 0 ? null : 'Reorganization energy must not be negative.'),
-  hbarOmega: (v) => (v > 0 ? null : 'Mode energy must be > 0.'),
-  tauL: positive,
-  distance: (v) => (v > 0 ? null : 'Radii and distances must be > 0.'),
-  edgeDistance: notNegative,
-  radiusDonor: (v) => (v > 0 ? null : 'Radii and distances must be > 0.'),
-  radiusAcceptor: (v) => (v > 0 ? null : 'Radii and distances must be > 0.'),
-  excitationEnergy: positive,
-  epsilonStatic: atLeastOne,
-  epsilonMeasurement: atLeastOne,
-  refractiveIndex: atLeastOne,
+  lambdaTotal: bounded('lambdaTotal', REORGANIZATION),
+  lambdaInner: bounded('lambdaInner', REORGANIZATION),
+  lambdaOuter: bounded('lambdaOuter', REORGANIZATION),
+  hbarOmega: bounded('hbarOmega', 'Mode energy must be > 0.'),
+  tauL: bounded('tauL', 'must be greater than 0.'),
+  distance: bounded('distance', DISTANCE),
+  edgeDistance: bounded('edgeDistance', 'must not be negative.'),
+  radiusDonor: bounded('radiusDonor', DISTANCE),
+  radiusAcceptor: bounded('radiusAcceptor', DISTANCE),
+  excitationEnergy: bounded('excitationEnergy', 'must be greater than 0.'),
+  epsilonStatic: bounded('epsilonStatic', 'must be at least 1.'),
+  epsilonMeasurement: bounded('epsilonMeasurement', 'must be at least 1.'),
+  refractiveIndex: bounded('refractiveIndex', 'must be at least 1.'),
 };
 
 /** Default unit offered for a new parameter of each kind. */
@@ -195,7 +200,11 @@ export function rateSourceOf(form: PairForm): PairRateSource {
   return {
     temperature: form.controls.temperature.controls.value.value ?? Number.NaN,
     model: form.controls.model.value,
-    parameters: parametersOf(form).map((p) => ({ kind: p.kind, value: p.value })),
+    parameters: parametersOf(form).map((p) => ({
+      kind: p.kind,
+      value: p.value,
+      uncertainty: p.uncertainty,
+    })),
   };
 }
 

@@ -22,7 +22,7 @@ import { MatSortModule, Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { Router, RouterLink } from '@angular/router';
-import type { Page, PairListItem, PairStatus } from '@gapwise/contracts';
+import { ratioText, type Page, type PairListItem, type PairStatus } from '@gapwise/contracts';
 import {
   catchError,
   combineLatest,
@@ -86,6 +86,9 @@ export class PairTable {
     'coupling',
     'log10k',
     'regime',
+    'log10kCr',
+    'regimeCr',
+    'ratio',
     'updatedAt',
     'updatedBy',
     'actions',
@@ -103,6 +106,7 @@ export class PairTable {
   protected readonly failed = signal(false);
   protected readonly fmt = formatSignificant;
   protected readonly fmtLog = formatFixed;
+  protected readonly ratioText = ratioText;
 
   private readonly filters$ = this.filters.valueChanges.pipe(
     startWith(this.filters.getRawValue()),

@@ -1,3 +1,4 @@
+import { PAIR_MONTE_CARLO_SAMPLES } from '@gapwise/contracts';
 import { monteCarloLog10k } from './monte-carlo';
 
 describe('monteCarloLog10k', () => {
@@ -27,19 +28,21 @@ describe('monteCarloLog10k', () => {
   const source = { temperature: 298.15, model: 'marcus' as const, parameters };
 
   it('gives the interval and a histogram holding every accepted sample', () => {
-    const state = monteCarloLog10k(source, parameters, 1000);
+    const state = monteCarloLog10k(source);
     expect(state.status).toBe('done');
     if (state.status !== 'done') return;
     expect(state.p025).toBeLessThan(state.median);
     expect(state.median).toBeLessThan(state.p975);
     expect(state.histogram).not.toBeNull();
     const total = state.histogram!.counts.reduce((a, b) => a + b, 0);
-    expect(total).toBe(1000);
+    expect(total).toBe(state.samples);
+    // The report's sample count: one Monte Carlo request for page and PDF.
+    expect(state.samples).toBe(PAIR_MONTE_CARLO_SAMPLES);
     expect(state.histogram!.edges.length).toBe(state.histogram!.counts.length + 1);
   });
 
   it('is not run when no parameter has an uncertainty', () => {
     const bare = parameters.map((p) => ({ ...p, uncertainty: null }));
-    expect(monteCarloLog10k({ ...source, parameters: bare }, bare).status).toBe('none');
+    expect(monteCarloLog10k({ ...source, parameters: bare }).status).toBe('none');
   });
 });

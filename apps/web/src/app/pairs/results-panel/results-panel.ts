@@ -5,7 +5,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { BOLTZMANN_EV_PER_K, KCAL_PER_MOL_PER_EV, KJ_PER_MOL_PER_EV } from '@gapwise/calc';
-import { PARAMETER_KINDS, type PairResults } from '@gapwise/contracts';
+import { PARAMETER_KINDS, pairRatesView, type PairResults } from '@gapwise/contracts';
 import {
   formatFixed,
   formatScientific,
@@ -23,6 +23,8 @@ const MODEL_NAMES: Record<string, string> = {
 
 const FIELD_LABELS: Record<string, string> = {
   deltaG0: PARAMETER_KINDS.deltaG0.label,
+  deltaG0Recombination: PARAMETER_KINDS.deltaG0Recombination.label,
+  lambdaTotal: PARAMETER_KINDS.lambdaTotal.label,
   lambda: 'Reorganization energy λ (λᵢ + λₒ)',
   lambdaOuter: PARAMETER_KINDS.lambdaOuter.label,
   lambdaInner: PARAMETER_KINDS.lambdaInner.label,
@@ -65,6 +67,14 @@ export class ResultsPanel {
   protected readonly fmtSig = formatSignificant;
   protected readonly modelName = computed(
     () => MODEL_NAMES[this.results().model] ?? this.results().model,
+  );
+
+  /** k_CS beside k_CR and their ratio, in the pair model's words (as the table and the PDF). */
+  protected readonly rates = computed(() => pairRatesView(this.results()));
+  protected readonly recombinationErrors = computed(() =>
+    (this.results().recombination?.errors ?? []).map(
+      (e) => `${this.fieldLabel(e.field)} ${e.message}`,
+    ),
   );
 
   protected readonly activation = computed(() => {

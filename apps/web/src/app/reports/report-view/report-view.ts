@@ -20,10 +20,13 @@ import {
   formatUncertainty,
   intervalText,
   modelName,
+  pairPlotInputs,
   pairRateRequest,
   plainText,
+  snapshotRatesView,
+  snapshotSource,
+  totalLambdaEv,
   provenanceText,
-  type ParameterKind,
   type ReportAction,
   type ReportCommentView,
   type ReportPairSnapshot,
@@ -167,9 +170,7 @@ export class ReportViewPage {
   }
 
   protected lambda(pair: ReportPairSnapshot): number | null {
-    const a = this.value(pair, 'lambdaInner');
-    const b = this.value(pair, 'lambdaOuter');
-    return a === null && b === null ? null : (a ?? 0) + (b ?? 0);
+    return totalLambdaEv(pair.inputs);
   }
 
   protected hasSigma(pair: ReportPairSnapshot): boolean {
@@ -177,32 +178,16 @@ export class ReportViewPage {
   }
 
   protected drivingForce(pair: ReportPairSnapshot): DrivingForceInputs | null {
-    const lambda = this.lambda(pair);
-    const coupling = this.value(pair, 'coupling');
-    const dg = this.value(pair, 'deltaG0');
-    const r = this.primary(pair);
-    if (lambda === null || !(lambda > 0) || coupling === null) return null;
-    const mlj = pair.model === 'mlj';
-    return {
-      lambda,
-      coupling,
-      temperature: pair.temperatureK,
-      lambdaSolvent: mlj ? this.value(pair, 'lambdaOuter') : null,
-      lambdaVib: mlj ? this.value(pair, 'lambdaInner') : null,
-      hbarOmega: mlj ? this.value(pair, 'hbarOmega') : null,
-      pair: dg !== null && r?.log10k != null ? { deltaG0: dg, log10k: r.log10k } : null,
-    };
+    return pairPlotInputs(snapshotSource(pair), this.primary(pair)?.log10k ?? null);
+  }
+
+  /** k_CS beside k_CR and their ratio, as the PDF prints them; null without recombination. */
+  protected steps(pair: ReportPairSnapshot) {
+    return snapshotRatesView(pair);
   }
 
   protected rateRequest(pair: ReportPairSnapshot) {
-    const parameters = pair.inputs
-      .filter((i) => i.kind !== 'temperature')
-      .map((i) => ({ kind: i.kind as ParameterKind, value: i.value }));
-    const request = pairRateRequest({
-      temperature: pair.temperatureK,
-      model: pair.model,
-      parameters,
-    });
+    const request = pairRateRequest(snapshotSource(pair));
     return 'missing' in request ? null : request;
   }
 
