@@ -65,6 +65,7 @@ export async function startRuntime(
     const traces = await startTraceServices(dataSource, {
       ...traceServicesOptionsFromEnv(process.env, config.databaseUrl),
       log,
+      compute,
     });
     const runtime: Runtime = {
       config,
