@@ -17,6 +17,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { PairInput, TraceAnalysis } from '@gapwise/contracts';
 import { marcusGapMoments } from '@gapwise/traces';
 import { startObjectStore, type ObjectStore } from '../../docker-free-scripts/s3/object-store';
+import { buildOpenApi, toOpenApiPath } from '../../apps/api/src/docs/openapi';
+import { ROUTE_DOCS } from '../../apps/api/src/docs/route-docs';
 import { pairBody } from './support/fixtures';
 import { registerUser, startTestApp, type Session, type TestApp } from './support/test-app';
 import { SCREEN_HEADER } from './screens/screen-csv';
@@ -268,4 +270,41 @@ describe('with budgets of 0.3 s (interactive) and 10 ms (background)', () => {
     expect(message).toMatch(/budget of 0\.01 s/);
     expect(message).toMatch(/BACKGROUND_CALC_BUDGET_MS/);
   }, 120_000);
+});
+
+describe('the API description', () => {
+  /** Every route whose handler runs a calculation in the pool (deps.compute in its routes file). */
+  const COMPUTING = [
+    'post /calc',
+    'post /pairs/:id/compute',
+    'post /workspaces/:wid/pairs',
+    'put /pairs/:id',
+    'patch /pairs/:id',
+    'post /pairs/:id/archive',
+    'post /pairs/:id/duplicate',
+    'post /series/:id/fit',
+    'post /series/:id/apply',
+    'post /screens/:id/results/:row/open-as-pair',
+    'post /trace-analyses/:id/attach',
+    'post /workspaces/:wid/reports',
+    'post /reports/:id/revise',
+    'get /reports/:id/pdf',
+  ].sort();
+
+  it('documents 422 calculation-over-budget and 503 calculation-pool-busy with Retry-After on every computing route', () => {
+    const flagged = ROUTE_DOCS.filter((r) => r.compute)
+      .map((r) => `${r.method} ${r.path}`)
+      .sort();
+    expect(flagged).toEqual(COMPUTING);
+    const spec = buildOpenApi('test') as {
+      paths: Record<string, Record<string, { responses: Record<string, any> }>>;
+    };
+    for (const route of COMPUTING) {
+      const [method, path] = route.split(' ');
+      const responses = spec.paths[toOpenApiPath(path)][method].responses;
+      expect(responses['422']?.description, route).toMatch(/calculation-over-budget/);
+      expect(responses['503']?.description, route).toMatch(/calculation-pool-busy/);
+      expect(responses['503'].headers['Retry-After'].schema.type, route).toBe('integer');
+    }
+  });
 });

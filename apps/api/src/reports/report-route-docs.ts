@@ -33,6 +33,7 @@ export const REPORT_ROUTE_DOCS: readonly RouteDoc[] = [
     body: 'ReportCreate',
     status: 201,
     response: 'ReportView',
+    compute: true,
   },
   {
     method: 'get',
@@ -64,6 +65,7 @@ export const REPORT_ROUTE_DOCS: readonly RouteDoc[] = [
     access: member,
     auth: true,
     status: 200,
+    compute: true,
   },
   {
     method: 'get',
@@ -122,6 +124,7 @@ export const REPORT_ROUTE_DOCS: readonly RouteDoc[] = [
     status: 200,
     response: 'ReportView',
     errors: [409],
+    compute: true,
   },
   {
     method: 'post',

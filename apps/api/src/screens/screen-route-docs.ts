@@ -157,6 +157,7 @@ export const SCREEN_ROUTE_DOCS: readonly RouteDoc[] = [
     auth: true,
     status: 201,
     response: 'Pair',
+    compute: true,
   },
 
   {
@@ -226,6 +227,7 @@ export const SCREEN_ROUTE_DOCS: readonly RouteDoc[] = [
     body: 'SeriesFitRequest',
     status: 200,
     response: 'Series',
+    compute: true,
   },
   {
     method: 'post',
@@ -239,6 +241,7 @@ export const SCREEN_ROUTE_DOCS: readonly RouteDoc[] = [
     status: 200,
     response: 'SeriesApplied',
     errors: [409],
+    compute: true,
   },
 ];
 
