@@ -7,7 +7,10 @@
  * - while a report's snapshot (Monte Carlo of a soft-mode MLJ rate) computes, and while a pair
  *   update waits for its calculation, no connection is "idle in transaction";
  * - over its budget, report creation answers 422 naming the budget and writes nothing, and a trace
- *   analysis is recorded as failed naming BACKGROUND_CALC_BUDGET_MS.
+ *   analysis is recorded as failed naming BACKGROUND_CALC_BUDGET_MS;
+ * - the core's work limits (Monte Carlo samples × terms, the terms of a whole MLJ fit, series size)
+ *   are refused before any work with the field named;
+ * - the API description lists 422 and 503 (with Retry-After) on every route that computes.
  */
 import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
@@ -147,6 +150,95 @@ describe('with the default pool and the in-server screen worker', () => {
     );
     expect(mlj.interval.samples).toBe(2000);
   }, 120_000);
+});
+
+describe('work limits of the core, refused before any work with the field named', () => {
+  let t: TestApp;
+  let user: Session;
+  let wid: string;
+
+  beforeAll(async () => {
+    process.env['GAPWISE_SCREEN_WORKER'] = 'false';
+    process.env['GAPWISE_TRACE_WORKER'] = 'false';
+    // A larger body limit, so the fit's own limit on points is what answers.
+    t = await startTestApp({}, { JSON_BODY_LIMIT: '4mb' });
+    user = await registerUser(t.app, 'limits');
+    wid = (await user.post('/api/workspaces', { name: 'Limits' })).body.id;
+  }, 120_000);
+  afterAll(async () => t?.close());
+
+  const fields = (res: request.Response) =>
+    (res.body.errors ?? res.body.error?.fields ?? []) as Array<{ field: string; message: string }>;
+
+  it('Monte Carlo: samples × vibronic terms over the limit answers 400 naming samples', async () => {
+    // S = λ_v/ħω = 5e4: some 5e4 terms a draw, so 2000 draws need about 1e8 > 2e7 terms.
+    const res = await user.post('/api/calc', {
+      method: 'uncertainty.monteCarlo',
+      inputs: {
+        method: 'rate.mlj',
+        inputs: {
+          deltaG0: { value: -0.5, sigma: 0.05 },
+          lambdaSolvent: 0.3,
+          lambdaVib: 0.5,
+          hbarOmega: 1e-5,
+          coupling: 0.01,
+          temperature: 298.15,
+        },
+        samples: 2000,
+        seed: 1,
+      },
+    });
+    expect(res.status).toBe(400);
+    const samples = fields(res).find((f) => f.field === 'samples');
+    expect(samples?.message).toMatch(/work limit/);
+    expect(t.runtime.compute.running).toBe(0);
+  });
+
+  it('MLJ fit: a mode whose terms per rate fit one rate but not a whole fit answers 400 naming ħω', async () => {
+    // S = 1 eV / 2e-4 eV = 5000 terms per rate (under the 1e5 of one rate), but a 4-point fit
+    // evaluates 3 starts × 300 iterations × 5 × 4 rates: 1.8e4 × 5000 = 9e7 > 2e7 terms.
+    const series = await user.post(`/api/workspaces/${wid}/series`, {
+      name: 'soft whole fit',
+      temperature: 298.15,
+      points: [-0.2, -0.5, -0.8, -1.1].map((deltaG0, i) => ({
+        label: `P${i}`,
+        deltaG0,
+        log10k: 8 + i * 0.5,
+      })),
+    });
+    expect(series.status).toBe(201);
+    const fit = await user.post(`/api/series/${series.body.id}/fit`, {
+      model: 'mlj',
+      hbarOmega: 2e-4,
+      lambdaVib: 1,
+    });
+    expect(fit.status).toBe(400);
+    expect(fields(fit).map((f) => f.field)).toContain('mlj.hbarOmega');
+  });
+
+  it('series size: more points than a fit takes answers 400 naming points', async () => {
+    const points = Array.from({ length: 10_001 }, (_, i) => ({
+      deltaG0: { value: -0.1 - i * 1e-4, unit: 'eV' },
+      k: 1e8,
+    }));
+    const res = await user.post('/api/calc', {
+      method: 'fit.drivingForceSeries',
+      inputs: { points, temperature: 298.15 },
+    });
+    expect(res.status).toBe(400);
+    expect(fields(res).map((f) => f.field)).toContain('points');
+    const stored = await user.post(`/api/workspaces/${wid}/series`, {
+      name: 'too many',
+      temperature: 298.15,
+      points: Array.from({ length: 2001 }, (_, i) => ({
+        label: `P${i}`,
+        deltaG0: -0.1 - i * 1e-4,
+        log10k: 8,
+      })),
+    });
+    expect(stored.status).toBe(400);
+    expect(fields(stored).map((f) => f.field)).toContain('points');
+  });
 });
 
 describe('with one calculation thread', () => {
