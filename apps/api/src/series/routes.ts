@@ -74,7 +74,9 @@ export function registerSeriesRoutes(router: Router, deps: AppDeps): void {
         db,
         deps.compute,
         userIdOf(req),
-        seriesId, parseBody(SeriesApplyDto, req.body)),
+        seriesId,
+        parseBody(SeriesApplyDto, req.body),
+      ),
     });
   });
 }
