@@ -293,6 +293,42 @@ describe('with one calculation thread', () => {
   });
 });
 
+describe('with two calculation threads', () => {
+  let t: TestApp;
+  let user: Session;
+  let wid: string;
+
+  beforeAll(async () => {
+    process.env['GAPWISE_SCREEN_WORKER'] = 'false';
+    process.env['GAPWISE_TRACE_WORKER'] = 'false';
+    t = await startTestApp({}, { CALC_THREADS: '2' });
+    user = await registerUser(t.app, 'two-threads');
+    wid = (await user.post('/api/workspaces', { name: 'Two threads' })).body.id;
+  }, 120_000);
+  afterAll(async () => t?.close());
+
+  it('refuses a report with 409 when its pair was saved while the snapshot computed, writing nothing', async () => {
+    const soft = (await user.post(`/api/workspaces/${wid}/pairs`, softModePair('Moving'))).body;
+    const report = user
+      .post(`/api/workspaces/${wid}/reports`, { pairId: soft.id })
+      .then((res) => res);
+    await waitFor(() => t.runtime.compute.running > 0, 'the snapshot to start computing');
+    // The other thread computes the save at once; the snapshot is still computing.
+    const saved = await user.patch(`/api/pairs/${soft.id}`, { notes: 'moved on', version: 1 });
+    expect(saved.status).toBe(200);
+    expect(saved.body.version).toBe(2);
+    const res = await report;
+    expect(res.status).toBe(409);
+    expect(res.body.error.code).toBe('pair-changed');
+    expect(res.body.error.message).toMatch(/Moving/);
+    const reports = await t.db.query(
+      'SELECT count(*)::int AS n FROM reports WHERE workspace_id = $1',
+      [wid],
+    );
+    expect(reports[0].n).toBe(0);
+  }, 120_000);
+});
+
 describe('with budgets of 0.3 s (interactive) and 10 ms (background)', () => {
   let t: TestApp;
   let user: Session;

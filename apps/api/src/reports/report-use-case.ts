@@ -131,7 +131,8 @@ async function freeze(
  * snapshot was computed from (a save meanwhile answers 409 and nothing is written).
  */
 async function requireSamePairs(tx: EntityManager, pairs: readonly Pair[]): Promise<void> {
-  for (const pair of pairs) {
+  // Locked in id order, so two reports sharing pairs never wait on each other in a cycle.
+  for (const pair of [...pairs].sort((a, b) => (a.id < b.id ? -1 : 1))) {
     const now = await findPair(tx, pair.id, true);
     if (!now || now.version !== pair.version) {
       throw conflict(
