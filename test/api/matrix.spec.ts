@@ -97,6 +97,7 @@ async function makeContext(caller: Caller): Promise<CaseContext> {
   );
   const pair = await createPair(
     t.db,
+    t.runtime.compute,
     owner.userId,
     wid,
     normalisePairInput(pairBody({ name: 'Matrix pair' }) as never),

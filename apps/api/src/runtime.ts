@@ -65,6 +65,7 @@ export async function startRuntime(
     const traces = await startTraceServices(dataSource, {
       ...traceServicesOptions(config),
       log,
+      compute,
     });
     const runtime: Runtime = {
       config,

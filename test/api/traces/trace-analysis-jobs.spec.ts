@@ -70,6 +70,8 @@ beforeAll(async () => {
       secretAccessKey: 'S3RVER',
     },
     runWorker: false,
+    // The server's pool: each analysis runs in a worker thread, its files streamed to it.
+    compute: t.runtime.compute,
     queueOptions: { expireInSeconds: 3, retryLimit: 4, retryDelaySeconds: 1 },
     maintenanceIntervalSeconds: 1,
   });

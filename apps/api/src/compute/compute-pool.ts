@@ -34,6 +34,10 @@ export interface ComputeRunOptions {
   readonly budget: 'interactive' | 'background';
   /** What the caller can change to stay within the budget, one sentence. */
   readonly advice: string;
+  /** Objects inside `args` moved to the worker rather than copied (MessagePorts must be). */
+  readonly transferList?: readonly Transferable[];
+  /** Stops the task (its thread is ended), e.g. a background job being handed back. */
+  readonly signal?: AbortSignal;
 }
 
 /** Seconds a client is told to wait when the pool is saturated. */
@@ -77,6 +81,11 @@ export class ComputePool implements ComputeRunner {
     return this.started;
   }
 
+  /** Calculations waiting for a thread now (tests wait on it). */
+  get queued(): number {
+    return this.waiting.length;
+  }
+
   static async start(options: ComputePoolOptions): Promise<ComputePool> {
     const filename = await workerFilename();
     const piscina = new Piscina({
@@ -96,7 +105,7 @@ export class ComputePool implements ComputeRunner {
     task: T,
     args: Parameters<ComputeTasks[T]>,
     options: ComputeRunOptions = { budget: 'interactive', advice: DEFAULT_ADVICE },
-  ): Promise<ReturnType<ComputeTasks[T]>> {
+  ): Promise<Awaited<ReturnType<ComputeTasks[T]>>> {
     await this.acquire();
     try {
       return await this.runNow(task, args, options);
@@ -134,12 +143,15 @@ export class ComputePool implements ComputeRunner {
     task: T,
     args: Parameters<ComputeTasks[T]>,
     options: ComputeRunOptions,
-  ): Promise<ReturnType<ComputeTasks[T]>> {
+  ): Promise<Awaited<ReturnType<ComputeTasks[T]>>> {
     const budgetMs =
       options.budget === 'interactive'
         ? this.options.interactiveBudgetMs
         : this.options.backgroundBudgetMs;
     const abort = new AbortController();
+    const stop = () => abort.abort(options.signal?.reason);
+    if (options.signal?.aborted) stop();
+    else options.signal?.addEventListener('abort', stop, { once: true });
     const channel = new MessageChannel();
     let timer: NodeJS.Timeout | undefined;
     let overBudget = false;
@@ -157,13 +169,13 @@ export class ComputePool implements ComputeRunner {
     try {
       const outcome = (await this.piscina.run(job, {
         signal: abort.signal,
-        transferList: [channel.port2],
+        transferList: [channel.port2, ...(options.transferList ?? [])] as never,
       })) as ComputeOutcome;
       if ('appError' in outcome) {
         const e = outcome.appError;
         throw new AppError(e.status, e.code, e.message, e.details);
       }
-      return outcome.value as ReturnType<ComputeTasks[T]>;
+      return outcome.value as Awaited<ReturnType<ComputeTasks[T]>>;
     } catch (error) {
       if (overBudget) throw overBudgetError(budgetMs, options);
       if (this.closed) throw poolBusy('The server is stopping.');
@@ -171,6 +183,7 @@ export class ComputePool implements ComputeRunner {
     } finally {
       if (counted) this.started--;
       clearTimeout(timer);
+      options.signal?.removeEventListener('abort', stop);
       channel.port1.close();
     }
   }

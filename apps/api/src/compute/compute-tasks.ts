@@ -2,11 +2,20 @@
  * The calculations an HTTP request or the in-server workers can start, by name. They run inside
  * the worker threads of the compute pool (compute-worker.ts), never on the thread that answers
  * HTTP: every argument and answer crosses a thread boundary, so both are structured-cloneable
- * plain data. Nothing here touches the database, the network or the file system.
+ * plain data. Nothing here touches the database or the network (the PDF renderer reads its font
+ * files; the trace analysis writes its scratch files).
  */
 import { calculate, serializeAnswer } from '@gapwise/calc';
 import { computePairResults } from '@gapwise/contracts';
+import type { Pair, ReportReviewState } from '@gapwise/contracts';
+import { renderReportPdf } from '../reports/pdf/render-report';
+import {
+  buildReportSnapshot,
+  snapshotIdOf,
+  type SnapshotContext,
+} from '../reports/report-snapshot';
 import { computeChunk } from '../screens/chunk-computer';
+import { runTraceAnalysisTask } from '../traces/trace-analysis-task';
 import { fitSeries } from '../series/series-fit';
 
 export const computeTasks = {
@@ -21,6 +30,21 @@ export const computeTasks = {
   pairResults: computePairResults,
   /** A screen chunk of the in-server `screen-chunk` worker (background budget). */
   screenChunk: computeChunk,
+  /** A trace analysis of the in-server `trace-analysis` worker (background budget). */
+  traceAnalysis: runTraceAnalysisTask,
+  /** Report creation and revision: the frozen snapshot (Monte Carlo included) and its hash. */
+  reportSnapshot: (context: SnapshotContext, pairs: readonly Pair[]) => {
+    const snapshot = buildReportSnapshot(context, pairs);
+    return { snapshot, snapshotId: snapshotIdOf(snapshot) };
+  },
+  /** A report's PDF (layout, plots, embedded fonts). A Buffer crosses threads as a Uint8Array. */
+  reportPdf: async (
+    snapshot: Parameters<typeof renderReportPdf>[0],
+    review: ReportReviewState,
+  ): Promise<Uint8Array> => {
+    const pdf = await renderReportPdf(snapshot, review);
+    return new Uint8Array(pdf.buffer, pdf.byteOffset, pdf.byteLength);
+  },
 };
 
 export type ComputeTasks = typeof computeTasks;
@@ -31,8 +55,13 @@ export interface ComputeRunner {
   run<T extends ComputeTaskName>(
     task: T,
     args: Parameters<ComputeTasks[T]>,
-    options?: { budget: 'interactive' | 'background'; advice: string },
-  ): Promise<ReturnType<ComputeTasks[T]>>;
+    options?: {
+      budget: 'interactive' | 'background';
+      advice: string;
+      transferList?: readonly Transferable[];
+      signal?: AbortSignal;
+    },
+  ): Promise<Awaited<ReturnType<ComputeTasks[T]>>>;
 }
 
 /**

@@ -25,12 +25,12 @@ export type ComputeOutcome =
       };
     };
 
-export default function runComputeJob(job: ComputeJob): ComputeOutcome {
+export default async function runComputeJob(job: ComputeJob): Promise<ComputeOutcome> {
   job.started.postMessage('started');
   job.started.close();
   const task = computeTasks[job.task] as (...args: unknown[]) => unknown;
   try {
-    return { value: task(...job.args) };
+    return { value: await task(...job.args) };
   } catch (error) {
     if (error instanceof AppError) {
       const { status, code, message, details } = error;

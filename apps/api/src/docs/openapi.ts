@@ -261,6 +261,12 @@ const ERROR_TEXT: Record<number, string> = {
   429: 'too-many-attempts',
 };
 
+/** Answers of a route that runs a calculation in the worker-thread pool (RouteDoc `compute`). */
+const COMPUTE_ERROR_TEXT: Record<number, string> = {
+  422: 'calculation-over-budget: the calculation ran past its budget (CALC_BUDGET_MS, default 10 s) and was stopped; the message says what to change',
+  503: 'calculation-pool-busy: every calculation thread is busy and the queue is full (CALC_THREADS, CALC_QUEUE); retry after the seconds in Retry-After',
+};
+
 /** `/workspaces/:wid` → `/workspaces/{wid}` */
 export const toOpenApiPath = (path: string) => '/api' + path.replace(/:(\w+)/g, '{$1}');
 
@@ -292,11 +298,24 @@ export function buildOpenApi(version: string): Record<string, unknown> {
       ...(r.auth ? [401] : []),
       ...(r.path.includes(':') ? [404] : []),
       ...(r.errors ?? []),
+      ...(r.compute ? [422, 503] : []),
     ]);
     if (r.access.includes('403')) errorCodes.add(403);
     for (const code of [...errorCodes].sort()) {
+      const computeText = r.compute ? COMPUTE_ERROR_TEXT[code] : undefined;
+      const text = [ERROR_TEXT[code], computeText].filter(Boolean).join('; or ');
       responses[String(code)] = {
-        description: ERROR_TEXT[code] ?? 'error',
+        description: text || 'error',
+        ...(computeText && code === 503
+          ? {
+              headers: {
+                'Retry-After': {
+                  description: 'Seconds to wait before trying again',
+                  schema: { type: 'integer', minimum: 1 },
+                },
+              },
+            }
+          : {}),
         content: { 'application/json': { schema: ref('ApiErrorBody') } },
       };
     }

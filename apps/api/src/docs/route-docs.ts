@@ -15,6 +15,11 @@ export interface RouteDoc {
   readonly response?: string;
   readonly query?: ReadonlyArray<{ name: string; description: string }>;
   readonly errors?: readonly number[];
+  /**
+   * Runs a calculation in the worker-thread pool: may answer 422 calculation-over-budget
+   * (CALC_BUDGET_MS) and 503 calculation-pool-busy with Retry-After (CALC_THREADS, CALC_QUEUE).
+   */
+  readonly compute?: boolean;
 }
 
 const member = 'any member of the workspace (non-members get 404)';
@@ -372,6 +377,7 @@ export const ROUTE_DOCS: readonly RouteDoc[] = [
     body: 'PairInput',
     status: 201,
     response: 'Pair',
+    compute: true,
   },
   {
     method: 'get',
@@ -394,6 +400,7 @@ export const ROUTE_DOCS: readonly RouteDoc[] = [
     status: 200,
     response: 'Pair',
     errors: [409],
+    compute: true,
   },
   {
     method: 'patch',
@@ -406,6 +413,7 @@ export const ROUTE_DOCS: readonly RouteDoc[] = [
     status: 200,
     response: 'Pair',
     errors: [409],
+    compute: true,
   },
   {
     method: 'post',
@@ -416,6 +424,7 @@ export const ROUTE_DOCS: readonly RouteDoc[] = [
     auth: true,
     status: 200,
     response: 'Pair',
+    compute: true,
   },
   {
     method: 'delete',
@@ -435,6 +444,7 @@ export const ROUTE_DOCS: readonly RouteDoc[] = [
     auth: true,
     status: 201,
     response: 'Pair',
+    compute: true,
   },
   {
     method: 'get',
@@ -479,6 +489,7 @@ export const ROUTE_DOCS: readonly RouteDoc[] = [
     auth: true,
     status: 200,
     response: 'PairResults',
+    compute: true,
   },
 
   {
@@ -493,6 +504,7 @@ export const ROUTE_DOCS: readonly RouteDoc[] = [
     status: 200,
     response: 'CalcAnswer',
     errors: [400],
+    compute: true,
   },
 
   {

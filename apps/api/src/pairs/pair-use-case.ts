@@ -38,6 +38,10 @@ export function acceptPairInput(dto: PairInputDto): FullInput {
   return normalisePairInput(dto);
 }
 
+/**
+ * A pair's results computed on the calling thread. Only for one-shot commands with no HTTP to
+ * answer (the demo seed); requests compute through the pool with `computeResults`.
+ */
 export function resultsFor(
   input: Pick<PairInput, 'temperature' | 'parameters'> & { model?: PairInput['model'] },
 ): PairResults {
@@ -45,6 +49,23 @@ export function resultsFor(
     temperature: input.temperature,
     model: input.model ?? 'marcus',
     parameters: input.parameters,
+  });
+}
+
+const PAIR_ADVICE = 'Compute the pair with a larger ħω or the classical or thermal form.';
+
+/**
+ * A pair's results computed in the worker-thread pool within the interactive budget. Called
+ * before any transaction opens, so no transaction is held while the calculation runs.
+ */
+export function computeResults(
+  compute: ComputeRunner,
+  input: Pick<PairInput, 'temperature' | 'parameters'> & { model?: PairInput['model'] },
+): Promise<PairResults> {
+  const { temperature, parameters } = input;
+  return compute.run('pairResults', [{ temperature, model: input.model ?? 'marcus', parameters }], {
+    budget: 'interactive',
+    advice: PAIR_ADVICE,
   });
 }
 
@@ -92,54 +113,85 @@ async function saveSnapshot(
   });
 }
 
+/** Computes the results in the pool first, then writes the pair in one short transaction. */
 export async function createPair(
   db: DataSource,
+  compute: ComputeRunner,
   userId: string,
   workspaceId: string,
   input: FullInput,
 ): Promise<Pair> {
-  return db.transaction((tx) => createPairIn(tx, userId, workspaceId, input));
+  const results = await computeResults(compute, input);
+  return db.transaction((tx) => createPairIn(tx, userId, workspaceId, input, results));
 }
 
 /**
  * Creates a pair inside the caller's transaction (the demo seed runs all of its writes in one):
- * role check, the row and its parameters, version 1 and the audit event.
+ * role check, the row and its parameters, version 1 and the audit event. `results` are computed
+ * by the caller before the transaction opened.
  */
 export async function createPairIn(
   tx: EntityManager,
   userId: string,
   workspaceId: string,
   input: FullInput,
+  results: PairResults,
 ): Promise<Pair> {
   await requireRole(tx, workspaceId, userId, canEdit);
   await requireWorkspaceReferences(tx, workspaceId, provenanceReferences(input));
-  const id = await insertPair(tx, workspaceId, input, resultsFor(input), userId);
+  const id = await insertPair(tx, workspaceId, input, results, userId);
   const pair = (await findPair(tx, id))!;
   await saveSnapshot(tx, pair, null, userId, 'pair.created', 'created');
   return pair;
 }
 
-/**
- * Saves a new state of a pair from `version` (optimistic locking): the row is locked, a stale
- * version answers 409 `version-conflict` carrying the current pair, and nothing is written.
- */
-export async function savePair(
-  db: DataSource,
-  userId: string,
-  pairId: string,
-  version: number,
-  build: (current: Pair) => FullInput,
-  action = 'pair.updated',
-  fixedSummary?: string,
-): Promise<Pair> {
-  return db.transaction((tx) =>
-    savePairIn(tx, userId, pairId, version, build, action, fixedSummary),
+/** A save computed ahead of its transaction: the state it starts from, the input and results. */
+export interface PreparedSave {
+  readonly pairId: string;
+  readonly from: Pair;
+  readonly input: FullInput;
+  readonly results: PairResults;
+}
+
+function versionConflict(current: Pair): AppError {
+  return new AppError(
+    409,
+    'version-conflict',
+    `This pair was changed by someone else (now version ${current.version}); review and save again.`,
+    { current },
   );
 }
 
-/** `savePair` inside a caller's transaction (several pairs saved all or nothing). */
-export async function savePairIn(
-  tx: EntityManager,
+/**
+ * Reads the pair at `version` (a stale version answers 409 `version-conflict` carrying the
+ * current pair), builds its new input and computes the results in the pool — all before any
+ * transaction opens. `savePairIn` then writes it only if the pair is still at that version, so
+ * the results always belong to the state that is saved.
+ */
+export async function prepareSave(
+  db: DataSource,
+  compute: ComputeRunner,
+  userId: string,
+  pairId: string,
+  version: number,
+  build: (current: Pair) => FullInput,
+): Promise<PreparedSave> {
+  await pairForCaller(db.manager, pairId, userId, canEdit);
+  const from = await findPair(db.manager, pairId);
+  if (!from) throw notFound('pair');
+  if (from.version !== version) throw versionConflict(from);
+  const input = build(from);
+  return { pairId, from, input, results: await computeResults(compute, input) };
+}
+
+/**
+ * Saves a new state of a pair from `version` (optimistic locking): computed first
+ * (`prepareSave`), then written in one short transaction; a stale version answers 409
+ * `version-conflict` carrying the current pair, and nothing is written.
+ */
+export async function savePair(
+  db: DataSource,
+  compute: ComputeRunner,
   userId: string,
   pairId: string,
   version: number,
@@ -147,18 +199,26 @@ export async function savePairIn(
   action = 'pair.updated',
   fixedSummary?: string,
 ): Promise<Pair> {
+  const prepared = await prepareSave(db, compute, userId, pairId, version, build);
+  return db.transaction((tx) => savePairIn(tx, userId, prepared, action, fixedSummary));
+}
+
+/**
+ * Writes a prepared save inside a caller's transaction (several pairs saved all or nothing): the
+ * row is locked and must still be at the version the save was computed from (else 409).
+ */
+export async function savePairIn(
+  tx: EntityManager,
+  userId: string,
+  prepared: PreparedSave,
+  action = 'pair.updated',
+  fixedSummary?: string,
+): Promise<Pair> {
+  const { pairId, input, results } = prepared;
   const { workspaceId } = await pairForCaller(tx, pairId, userId, canEdit);
   const current = await findPair(tx, pairId, true);
   if (!current) throw notFound('pair');
-  if (current.version !== version) {
-    throw new AppError(
-      409,
-      'version-conflict',
-      `This pair was changed by someone else (now version ${current.version}); review and save again.`,
-      { current },
-    );
-  }
-  const input = build(current);
+  if (current.version !== prepared.from.version) throw versionConflict(current);
   // Only links this save adds are checked: a source deleted since it was linked stays readable.
   const linked = new Set(provenanceReferences(current).map((r) => `${r.type}:${r.id}`));
   await requireWorkspaceReferences(
@@ -166,7 +226,7 @@ export async function savePairIn(
     workspaceId,
     provenanceReferences(input).filter((r) => !linked.has(`${r.type}:${r.id}`)),
   );
-  await updatePair(tx, pairId, input, resultsFor(input), userId);
+  await updatePair(tx, pairId, input, results, userId);
   const pair = (await findPair(tx, pairId))!;
   await saveSnapshot(
     tx,
@@ -194,15 +254,19 @@ export const inputOf = (p: Pair): FullInput => ({
 });
 
 /** Archives a pair (a save of its own, so it has a version and an audit event). */
-export async function archivePair(db: DataSource, userId: string, pairId: string): Promise<Pair> {
-  const current = await db.transaction(async (tx) => {
-    await pairForCaller(tx, pairId, userId, canEdit);
-    return findPair(tx, pairId);
-  });
+export async function archivePair(
+  db: DataSource,
+  compute: ComputeRunner,
+  userId: string,
+  pairId: string,
+): Promise<Pair> {
+  await pairForCaller(db.manager, pairId, userId, canEdit);
+  const current = await findPair(db.manager, pairId);
   if (!current) throw notFound('pair');
   if (current.status === 'archived') return current;
   return savePair(
     db,
+    compute,
     userId,
     pairId,
     current.version,
@@ -234,17 +298,29 @@ export async function deletePairUseCase(
   });
 }
 
-export async function duplicatePair(db: DataSource, userId: string, pairId: string): Promise<Pair> {
+/** Copies a pair as a draft: computed in the pool from the source's state, then written. */
+export async function duplicatePair(
+  db: DataSource,
+  compute: ComputeRunner,
+  userId: string,
+  pairId: string,
+): Promise<Pair> {
+  await pairForCaller(db.manager, pairId, userId, canEdit);
+  const from = await findPair(db.manager, pairId);
+  if (!from) throw notFound('pair');
+  const results = await computeResults(compute, from);
   return db.transaction(async (tx) => {
     const { workspaceId } = await pairForCaller(tx, pairId, userId, canEdit);
     const source = await findPair(tx, pairId);
     if (!source) throw notFound('pair');
+    // Changed while computing: the results belong to another state; the caller tries again.
+    if (source.version !== from.version) throw versionConflict(source);
     const input: FullInput = {
       ...inputOf(source),
       name: `${source.name} (copy)`.slice(0, 200),
       status: 'draft',
     };
-    const id = await insertPair(tx, workspaceId, input, resultsFor(input), userId);
+    const id = await insertPair(tx, workspaceId, input, results, userId);
     const pair = (await findPair(tx, id))!;
     await saveSnapshot(
       tx,
@@ -302,9 +378,5 @@ export async function computePair(
   pairId: string,
 ): Promise<PairResults> {
   const pair = await readPair(db, userId, pairId);
-  const { temperature, model, parameters } = pair;
-  return compute.run('pairResults', [{ temperature, model: model ?? 'marcus', parameters }], {
-    budget: 'interactive',
-    advice: 'Compute the pair with a larger ħω or the classical or thermal form.',
-  });
+  return computeResults(compute, pair);
 }

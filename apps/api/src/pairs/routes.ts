@@ -88,7 +88,7 @@ export function registerPairRoutes(router: Router, deps: AppDeps): void {
     const wid = String(req.params['wid']);
     await requireRole(db.manager, wid, userIdOf(req), canEdit);
     const input = acceptPairInput(parseBody(PairInputDto, req.body));
-    res.status(201).json(await createPair(db, userIdOf(req), wid, input));
+    res.status(201).json(await createPair(db, deps.compute, userIdOf(req), wid, input));
   });
 
   router.get('/pairs/:id', requireAuth, async (req, res) => {
@@ -99,14 +99,14 @@ export function registerPairRoutes(router: Router, deps: AppDeps): void {
     await pairForCaller(db.manager, id(req), userIdOf(req), canEdit);
     const dto = parseBody(PairUpdateDto, req.body);
     const input = acceptPairInput(dto);
-    res.json(await savePair(db, userIdOf(req), id(req), dto.version, () => input));
+    res.json(await savePair(db, deps.compute, userIdOf(req), id(req), dto.version, () => input));
   });
 
   router.patch('/pairs/:id', requireAuth, async (req, res) => {
     await pairForCaller(db.manager, id(req), userIdOf(req), canEdit);
     const patch = parseBody(PairPatchDto, req.body);
     const { version, ...changes } = patch;
-    const pair = await savePair(db, userIdOf(req), id(req), version, (current) => {
+    const pair = await savePair(db, deps.compute, userIdOf(req), id(req), version, (current) => {
       // Merge, then validate the whole result as a pair input (cross-field rules included).
       const merged = Object.assign(new PairInputDto(), inputOf(current), stripUndefined(changes));
       return acceptPairInput(parseBody(PairInputDto, JSON.parse(JSON.stringify(merged))));
@@ -115,7 +115,7 @@ export function registerPairRoutes(router: Router, deps: AppDeps): void {
   });
 
   router.post('/pairs/:id/archive', requireAuth, async (req, res) => {
-    res.json(await archivePair(db, userIdOf(req), id(req)));
+    res.json(await archivePair(db, deps.compute, userIdOf(req), id(req)));
   });
 
   router.delete('/pairs/:id', requireAuth, async (req, res) => {
@@ -124,7 +124,7 @@ export function registerPairRoutes(router: Router, deps: AppDeps): void {
   });
 
   router.post('/pairs/:id/duplicate', requireAuth, async (req, res) => {
-    res.status(201).json(await duplicatePair(db, userIdOf(req), id(req)));
+    res.status(201).json(await duplicatePair(db, deps.compute, userIdOf(req), id(req)));
   });
 
   router.get('/pairs/:id/versions', requireAuth, async (req, res) => {

@@ -5,6 +5,7 @@
  */
 import type { DataSource } from 'typeorm';
 import type { Config } from '../config';
+import { inlineCompute } from '../compute/compute-tasks';
 import { createReport, transitionReport } from './report-use-case';
 
 export const DEMO_REPORT_TITLE = 'DA-3 photoinduced charge separation: rate estimate for review';
@@ -35,6 +36,8 @@ export async function seedDemoReport(
     dataSource,
     config: { publicUrl: options.publicUrl ?? 'http://127.0.0.1:4280' } as Config,
     queue: null,
+    // The seed is a one-shot command with no HTTP to answer: its one report computes inline.
+    compute: inlineCompute,
   };
   const report = await createReport(deps, editor.id, lab.id, {
     pairIds: [pair.id],

@@ -28,12 +28,14 @@ export const REPORT_ROUTE_DOCS: readonly RouteDoc[] = [
     path: '/workspaces/:wid/reports',
     tag: 'reports',
     summary:
-      'Create a draft report: the pair (pairId) or pairs (pairIds, a comparison) frozen at their current versions with computed results, methods and software version',
+      'Create a draft report: the pair (pairId) or pairs (pairIds, a comparison) frozen at their current versions with computed results, methods and software version (409 pair-changed when a pair was saved while the snapshot computed)',
     access: editor,
     auth: true,
     body: 'ReportCreate',
     status: 201,
     response: 'ReportView',
+    errors: [409],
+    compute: true,
   },
   {
     method: 'get',
@@ -65,6 +67,7 @@ export const REPORT_ROUTE_DOCS: readonly RouteDoc[] = [
     access: member,
     auth: true,
     status: 200,
+    compute: true,
   },
   {
     method: 'get',
@@ -117,12 +120,14 @@ export const REPORT_ROUTE_DOCS: readonly RouteDoc[] = [
     method: 'post',
     path: '/reports/:id/revise',
     tag: 'reports',
-    summary: "New snapshot from the pairs' current versions (draft or changes-requested only: 409)",
+    summary:
+      "New snapshot from the pairs' current versions (draft or changes-requested only: 409; 409 pair-changed when a pair was saved while the snapshot computed)",
     access: editor,
     auth: true,
     status: 200,
     response: 'ReportView',
     errors: [409],
+    compute: true,
   },
   {
     method: 'post',

@@ -21,6 +21,7 @@ import {
   type Role,
 } from '@gapwise/contracts';
 import { REPO_ROOT } from '../config';
+import type { ComputeRunner } from '../compute/compute-tasks';
 import { AppError, forbidden, notFound, validationFailed } from '../http/app-error';
 import type { AppDeps } from '../http/context';
 import { isUuid } from '../http/validate';
@@ -28,14 +29,17 @@ import { recordAudit } from '../audit/audit-repository';
 import { insertOutbox } from '../mail/outbox-repository';
 import { findPair } from '../pairs/pair-repository';
 import { requireRole } from '../workspaces/workspace-access';
-import { renderReportPdf } from './pdf/render-report';
 import { reportPdfKey, type ReportPdfStore } from './report-pdf-store';
 import * as repo from './report-repository';
-import { buildReportSnapshot, snapshotIdOf } from './report-snapshot';
 
 export type ReportDeps = Pick<AppDeps, 'dataSource' | 'config' | 'queue'> & {
+  /** Where snapshots and PDFs are computed: the server's pool (inline only for the demo seed). */
+  readonly compute: ComputeRunner;
   readonly reportPdfStore?: ReportPdfStore | null;
 };
+
+const REPORT_ADVICE =
+  'Report fewer pairs, or give the pairs a larger ħω or the classical or thermal form.';
 
 let softwareVersionCache: string | null = null;
 /** The product version printed on every report (root package.json). */
@@ -92,8 +96,12 @@ async function loadPairs(
   return pairs;
 }
 
+/**
+ * The report snapshot (every model's results, Monte Carlo intervals) and its content hash,
+ * computed in the pool within the interactive budget. Called before any transaction opens.
+ */
 async function freeze(
-  db: EntityManager,
+  deps: ReportDeps,
   kind: ReportKind,
   title: string,
   workspaceId: string,
@@ -101,18 +109,38 @@ async function freeze(
   pairs: Pair[],
   authorName: string,
 ) {
-  const snapshot = buildReportSnapshot(
-    {
-      kind,
-      title,
-      workspace: { id: workspaceId, name: await repo.workspaceName(db, workspaceId) },
-      author: { id: authorId, displayName: authorName },
-      createdAt: new Date().toISOString(),
-      softwareVersion: softwareVersion(),
+  const context = {
+    kind,
+    title,
+    workspace: {
+      id: workspaceId,
+      name: await repo.workspaceName(deps.dataSource.manager, workspaceId),
     },
-    pairs,
-  );
-  return { snapshot, snapshotId: snapshotIdOf(snapshot) };
+    author: { id: authorId, displayName: authorName },
+    createdAt: new Date().toISOString(),
+    softwareVersion: softwareVersion(),
+  };
+  return deps.compute.run('reportSnapshot', [context, pairs], {
+    budget: 'interactive',
+    advice: REPORT_ADVICE,
+  });
+}
+
+/**
+ * Inside the writing transaction: the pairs are locked and must still be at the versions the
+ * snapshot was computed from (a save meanwhile answers 409 and nothing is written).
+ */
+async function requireSamePairs(tx: EntityManager, pairs: readonly Pair[]): Promise<void> {
+  // Locked in id order, so two reports sharing pairs never wait on each other in a cycle.
+  for (const pair of [...pairs].sort((a, b) => (a.id < b.id ? -1 : 1))) {
+    const now = await findPair(tx, pair.id, true);
+    if (!now || now.version !== pair.version) {
+      throw conflict(
+        'pair-changed',
+        `Pair "${pair.name}" changed while the report was being computed; try again.`,
+      );
+    }
+  }
 }
 
 function reportLink(deps: ReportDeps, report: { id: string; workspaceId: string }): string {
@@ -151,23 +179,25 @@ export async function createReport(
 ): Promise<ReportView> {
   const db = deps.dataSource;
   await requireRole(db.manager, workspaceId, userId, canEdit);
+  // Read and computed before the transaction opens: no transaction waits on the calculation.
+  const pairs = await loadPairs(db.manager, workspaceId, input.pairIds);
+  const me = await repo.userContact(db.manager, userId);
+  const title =
+    input.title?.trim() ||
+    (input.kind === 'pair'
+      ? `${pairs[0].name}: electron-transfer rate estimate`
+      : `Comparison of ${pairs.length} pairs`);
+  const { snapshot, snapshotId } = await freeze(
+    deps,
+    input.kind,
+    title,
+    workspaceId,
+    userId,
+    pairs,
+    me?.displayName ?? '',
+  );
   const id = await db.transaction(async (tx) => {
-    const pairs = await loadPairs(tx, workspaceId, input.pairIds);
-    const me = await repo.userContact(tx, userId);
-    const title =
-      input.title?.trim() ||
-      (input.kind === 'pair'
-        ? `${pairs[0].name}: electron-transfer rate estimate`
-        : `Comparison of ${pairs.length} pairs`);
-    const { snapshot, snapshotId } = await freeze(
-      tx,
-      input.kind,
-      title,
-      workspaceId,
-      userId,
-      pairs,
-      me?.displayName ?? '',
-    );
+    await requireSamePairs(tx, pairs);
     const reportId = await repo.insertReport(tx, {
       workspaceId,
       kind: input.kind,
@@ -340,10 +370,8 @@ export async function reviseReport(
   reportId: string,
 ): Promise<ReportView> {
   const db = deps.dataSource;
-  await reportForCaller(db.manager, reportId, userId, canEdit);
-  await db.transaction(async (tx) => {
-    const report = await repo.findReport(tx, reportId, true);
-    if (!report) throw notFound('report');
+  const { report: seen } = await reportForCaller(db.manager, reportId, userId, canEdit);
+  const revisable = (report: repo.ReportRow) => {
     if (isReportFrozen(report.status)) throw frozen();
     if (report.status !== 'draft' && report.status !== 'changes-requested') {
       throw conflict(
@@ -351,16 +379,24 @@ export async function reviseReport(
         `A ${report.status} report cannot be revised; ask the reviewer to request changes.`,
       );
     }
-    const pairs = await loadPairs(tx, report.workspaceId, report.pairIds);
-    const { snapshot, snapshotId } = await freeze(
-      tx,
-      report.kind,
-      report.title,
-      report.workspaceId,
-      report.authorId ?? userId,
-      pairs,
-      report.authorName,
-    );
+  };
+  revisable(seen);
+  // Read and computed before the transaction opens: no transaction waits on the calculation.
+  const pairs = await loadPairs(db.manager, seen.workspaceId, seen.pairIds);
+  const { snapshot, snapshotId } = await freeze(
+    deps,
+    seen.kind,
+    seen.title,
+    seen.workspaceId,
+    seen.authorId ?? userId,
+    pairs,
+    seen.authorName,
+  );
+  await db.transaction(async (tx) => {
+    const report = await repo.findReport(tx, reportId, true);
+    if (!report) throw notFound('report');
+    revisable(report);
+    await requireSamePairs(tx, pairs);
     await repo.replaceSnapshot(tx, reportId, snapshot, snapshotId);
     await recordAudit(tx, {
       workspaceId: report.workspaceId,
@@ -506,7 +542,12 @@ export async function reportPdf(
     const stored = await store.get(key);
     if (stored) return { pdf: stored, view };
   }
-  const pdf = await renderReportPdf(view.snapshot, reviewState(view));
+  // Layout and plots are computed in the pool; the bytes come back as a Uint8Array.
+  const bytes = await deps.compute.run('reportPdf', [view.snapshot, reviewState(view)], {
+    budget: 'interactive',
+    advice: REPORT_ADVICE,
+  });
+  const pdf = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   if (store) {
     await store.put(key, pdf);
     await repo.setPdfKey(deps.dataSource.manager, reportId, view.revision, key);

@@ -337,6 +337,6 @@ export function registerScreenRoutes(router: Router, deps: AppDeps): void {
     const row = Number(req.params['row']);
     if (!Number.isSafeInteger(row) || row < 1) throw notFound('screen row');
     await screenForCaller(db.manager, id, userIdOf(req), canEdit);
-    res.status(201).json(await openRowAsPair(db, userIdOf(req), id, row));
+    res.status(201).json(await openRowAsPair(db, deps.compute, userIdOf(req), id, row));
   });
 }

@@ -158,6 +158,7 @@ export const SCREEN_ROUTE_DOCS: readonly RouteDoc[] = [
     auth: true,
     status: 201,
     response: 'Pair',
+    compute: true,
   },
 
   {
@@ -227,6 +228,7 @@ export const SCREEN_ROUTE_DOCS: readonly RouteDoc[] = [
     body: 'SeriesFitRequest',
     status: 200,
     response: 'Series',
+    compute: true,
   },
   {
     method: 'post',
@@ -240,6 +242,7 @@ export const SCREEN_ROUTE_DOCS: readonly RouteDoc[] = [
     status: 200,
     response: 'SeriesApplied',
     errors: [409],
+    compute: true,
   },
 ];
 

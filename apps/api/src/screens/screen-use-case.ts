@@ -17,6 +17,7 @@ import { AppError, notFound } from '../http/app-error';
 import { parseBody } from '../http/validate';
 import { recordAudit } from '../audit/audit-repository';
 import { PairInputDto } from '../pairs/pair-dto';
+import type { ComputeRunner } from '../compute/compute-tasks';
 import { acceptPairInput, createPair } from '../pairs/pair-use-case';
 import { requireRole } from '../workspaces/workspace-access';
 import type { ScreenService } from './screen-queue';
@@ -337,6 +338,7 @@ export async function rerunScreen(
  */
 export async function openRowAsPair(
   db: DataSource,
+  compute: ComputeRunner,
   userId: string,
   screenId: string,
   line: number,
@@ -451,5 +453,5 @@ export async function openRowAsPair(
     model: Number.isNaN(v('hbarOmega')) ? 'marcus' : 'mlj',
     parameters: params,
   });
-  return createPair(db, userId, workspaceId, acceptPairInput(dto));
+  return createPair(db, compute, userId, workspaceId, acceptPairInput(dto));
 }

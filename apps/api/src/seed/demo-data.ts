@@ -4,7 +4,7 @@ import { MembershipEntity, PairEntity, WorkspaceEntity } from '@gapwise/db';
 import { type PairInput, type PairParameter, type Provenance, type Role } from '@gapwise/contracts';
 
 import { findUserByEmail, insertUser } from '../auth/user-repository';
-import { createPairIn } from '../pairs/pair-use-case';
+import { createPairIn, resultsFor } from '../pairs/pair-use-case';
 import { createWorkspaceIn } from '../workspaces/workspace-use-case';
 import { upsertMembership } from '../workspaces/workspace-repository';
 
@@ -452,7 +452,8 @@ async function ensurePair(
 ): Promise<boolean> {
   if (await tx.getRepository(PairEntity).exists({ where: { workspaceId, name: input.name } }))
     return false;
-  await createPairIn(tx, userId, workspaceId, input);
+  // The seed is a one-shot command with no HTTP to answer: its few pairs compute inline.
+  await createPairIn(tx, userId, workspaceId, input, resultsFor(input));
   return true;
 }
 

@@ -70,7 +70,13 @@ export function registerSeriesRoutes(router: Router, deps: AppDeps): void {
   router.post('/series/:id/apply', requireAuth, async (req, res) => {
     const seriesId = id(req);
     res.json({
-      pairs: await applySeries(db, userIdOf(req), seriesId, parseBody(SeriesApplyDto, req.body)),
+      pairs: await applySeries(
+        db,
+        deps.compute,
+        userIdOf(req),
+        seriesId,
+        parseBody(SeriesApplyDto, req.body),
+      ),
     });
   });
 }

@@ -17,7 +17,13 @@ import {
 import { recordAudit } from '../audit/audit-repository';
 import { AppError, notFound, validationFailed } from '../http/app-error';
 import { findPair } from '../pairs/pair-repository';
-import { inputOf, pairForCaller, savePairIn } from '../pairs/pair-use-case';
+import {
+  inputOf,
+  pairForCaller,
+  prepareSave,
+  savePairIn,
+  type PreparedSave,
+} from '../pairs/pair-use-case';
 import { requireRole } from '../workspaces/workspace-access';
 import { requireWorkspaceReferences } from '../workspaces/workspace-references';
 import type { SeriesApplyDto, SeriesFitDto, SeriesInputDto } from './series-dto';
@@ -395,6 +401,7 @@ export async function fitSeriesUseCase(
  */
 export async function applySeries(
   db: DataSource,
+  compute: ComputeRunner,
   userId: string,
   id: string,
   dto: SeriesApplyDto,
@@ -405,101 +412,105 @@ export async function applySeries(
   const fit = series.fit?.fits[model];
   if (!fit)
     throw new AppError(409, 'series-not-fitted', `Fit the series with the ${model} model first.`);
-  // All or nothing: every pair is checked and saved in one transaction, so one foreign or
-  // unknown id leaves every pair as it was.
-  return db.transaction(async (tx) => {
-    const ids = [...new Set(dto.pairIds.map((p) => p.toLowerCase()))];
-    await requireWorkspaceReferences(
-      tx,
-      workspaceId,
-      ids.map((pairId, i) => ({ field: `pairIds.${i}`, type: 'pair', id: pairId })),
-    );
-    const out: Pair[] = [];
-    for (const pairId of ids) {
-      const current = (await findPair(tx, pairId, true))!;
-      const sources = [{ type: 'series', id }];
-      const methodInputs = {
-        seriesId: id,
-        seriesVersion: series.version,
-        model,
-        points: series.points.length,
-        temperature: series.temperature,
-      };
-      const note = `Fitted to series "${series.name}" (${model}, ${series.points.length} points).`;
-      const derived: Provenance = {
-        kind: 'derived',
-        methodId: 'fit.drivingForceSeries',
-        methodInputs,
-        sources,
-        note,
-      };
-      const saved = await savePairIn(
-        tx,
-        userId,
-        pairId,
-        current.version,
-        (p) => {
-          const input = inputOf(p);
-          const keep = input.parameters.filter(
-            (x) =>
-              ![
-                'lambdaOuter',
-                'coupling',
-                ...(model === 'mlj' ? ['lambdaInner', 'hbarOmega'] : []),
-              ].includes(x.kind),
-          );
-          const params: PairParameter[] = [...keep];
-          const inner = params.find((x) => x.kind === 'lambdaInner');
-          let outer = fit.lambda;
-          let outerSe = fit.standardErrors.lambda;
-          if (model === 'marcus' && inner) {
-            if (inner.value < fit.lambda) outer = fit.lambda - inner.value;
-            else
-              params.splice(params.indexOf(inner), 1, {
-                ...inner,
-                value: 0,
-                provenance: {
-                  ...derived,
-                  note: `${note} λ_inner set to 0: the fitted total λ is smaller.`,
-                },
-              });
-          }
-          if (model === 'mlj') {
-            params.push({
-              kind: 'lambdaInner',
-              value: series.fit!.lambdaVib!,
-              unit: 'eV',
-              uncertainty: null,
-              provenance: { ...derived, note: `${note} Fixed λ_vib of the fit.` },
-            });
-            params.push({
-              kind: 'hbarOmega',
-              value: series.fit!.hbarOmega!,
-              unit: 'eV',
-              uncertainty: null,
-              provenance: { ...derived, note: `${note} Fixed ħω of the fit.` },
-            });
-          } else outerSe = fit.standardErrors.lambda;
-          params.push({
-            kind: 'lambdaOuter',
-            value: outer,
-            unit: 'eV',
-            uncertainty: outerSe,
-            provenance: derived,
-          });
-          params.push({
-            kind: 'coupling',
-            value: fit.coupling,
-            unit: 'eV',
-            uncertainty: fit.standardErrors.coupling,
-            provenance: derived,
-          });
-          return { ...input, model: model === 'mlj' ? 'mlj' : input.model, parameters: params };
-        },
-        'pair.series-applied',
-        `λ and |H_AB| from series ${series.name}`,
+  const ids = [...new Set(dto.pairIds.map((p) => p.toLowerCase()))];
+  const references = ids.map((pairId, i) => ({ field: `pairIds.${i}`, type: 'pair', id: pairId }));
+  // Checked before computing (a foreign or unknown id is named at once) and again when writing.
+  await requireWorkspaceReferences(db.manager, workspaceId, references);
+  // Every pair's new results are computed in the pool before the transaction opens.
+  const prepared: PreparedSave[] = [];
+  for (const pairId of ids) {
+    const current = (await findPair(db.manager, pairId))!;
+    const sources = [{ type: 'series', id }];
+    const methodInputs = {
+      seriesId: id,
+      seriesVersion: series.version,
+      model,
+      points: series.points.length,
+      temperature: series.temperature,
+    };
+    const note = `Fitted to series "${series.name}" (${model}, ${series.points.length} points).`;
+    const derived: Provenance = {
+      kind: 'derived',
+      methodId: 'fit.drivingForceSeries',
+      methodInputs,
+      sources,
+      note,
+    };
+    const save = await prepareSave(db, compute, userId, pairId, current.version, (p) => {
+      const input = inputOf(p);
+      const keep = input.parameters.filter(
+        (x) =>
+          ![
+            'lambdaOuter',
+            'coupling',
+            ...(model === 'mlj' ? ['lambdaInner', 'hbarOmega'] : []),
+          ].includes(x.kind),
       );
-      out.push(saved);
+      const params: PairParameter[] = [...keep];
+      const inner = params.find((x) => x.kind === 'lambdaInner');
+      let outer = fit.lambda;
+      let outerSe = fit.standardErrors.lambda;
+      if (model === 'marcus' && inner) {
+        if (inner.value < fit.lambda) outer = fit.lambda - inner.value;
+        else
+          params.splice(params.indexOf(inner), 1, {
+            ...inner,
+            value: 0,
+            provenance: {
+              ...derived,
+              note: `${note} λ_inner set to 0: the fitted total λ is smaller.`,
+            },
+          });
+      }
+      if (model === 'mlj') {
+        params.push({
+          kind: 'lambdaInner',
+          value: series.fit!.lambdaVib!,
+          unit: 'eV',
+          uncertainty: null,
+          provenance: { ...derived, note: `${note} Fixed λ_vib of the fit.` },
+        });
+        params.push({
+          kind: 'hbarOmega',
+          value: series.fit!.hbarOmega!,
+          unit: 'eV',
+          uncertainty: null,
+          provenance: { ...derived, note: `${note} Fixed ħω of the fit.` },
+        });
+      } else outerSe = fit.standardErrors.lambda;
+      params.push({
+        kind: 'lambdaOuter',
+        value: outer,
+        unit: 'eV',
+        uncertainty: outerSe,
+        provenance: derived,
+      });
+      params.push({
+        kind: 'coupling',
+        value: fit.coupling,
+        unit: 'eV',
+        uncertainty: fit.standardErrors.coupling,
+        provenance: derived,
+      });
+      return { ...input, model: model === 'mlj' ? 'mlj' : input.model, parameters: params };
+    });
+    prepared.push(save);
+  }
+  // All or nothing: every pair is checked and saved in one transaction, so one foreign or
+  // unknown id, or a pair changed meanwhile (409), leaves every pair as it was.
+  return db.transaction(async (tx) => {
+    await requireWorkspaceReferences(tx, workspaceId, references);
+    const out: Pair[] = [];
+    for (const save of prepared) {
+      out.push(
+        await savePairIn(
+          tx,
+          userId,
+          save,
+          'pair.series-applied',
+          `λ and |H_AB| from series ${series.name}`,
+        ),
+      );
     }
     return out;
   });

@@ -111,6 +111,7 @@ function servicesFor(deps: AppDeps): Promise<TraceServices> {
     services = startTraceServices(deps.dataSource, {
       ...traceServicesOptions(deps.config),
       runWorker: false,
+      compute: deps.compute,
       log: deps.log,
     });
     services.catch(() => provided.delete(deps));
@@ -224,7 +225,7 @@ export function registerTraceRoutes(router: Router, deps: AppDeps): void {
     await readAnalysisFor(db, userId, id, false).then((a) =>
       requireRole(db.manager, a.workspaceId, userId, canEdit, 'trace analysis'),
     );
-    res.json(await attachAnalysis(db, userId, id, readAttachBody(req.body)));
+    res.json(await attachAnalysis(db, deps.compute, userId, id, readAttachBody(req.body)));
   });
 }
 

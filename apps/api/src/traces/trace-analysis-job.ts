@@ -12,6 +12,9 @@ import {
   type TraceAnalysisInput,
   type TraceParseSettings,
 } from '@gapwise/traces';
+import type { ComputeRunner } from '../compute/compute-tasks';
+import { AppError } from '../http/app-error';
+import { analyzeTracesInPool } from './trace-analysis-task';
 import type { TraceObjectStore } from './trace-object-store';
 import {
   claimAnalysis,
@@ -23,6 +26,11 @@ import {
 } from './trace-repository';
 
 export interface JobRunOptions {
+  /**
+   * The server's compute pool: the analysis runs in one of its worker threads. Without it (the
+   * demo seed, a one-shot command with no HTTP to answer) the analysis runs on this thread.
+   */
+  readonly compute?: ComputeRunner;
   readonly signal?: AbortSignal;
   readonly progressEveryMs?: number;
   readonly onProgress?: (analysisId: string, fraction: number) => void;
@@ -112,7 +120,11 @@ export async function runTraceAnalysisJob(
       .catch(() => undefined);
   };
   try {
-    const result = await analyzeTraces(
+    const analyze = options.compute
+      ? (...args: Parameters<typeof analyzeTraces>) =>
+          analyzeTracesInPool(options.compute!, ...args)
+      : analyzeTraces;
+    const result = await analyze(
       analysisInputOf(reactant, open(reactant)),
       analysisInputOf(product, open(product)),
       claimed.temperatureK,
@@ -126,6 +138,11 @@ export async function runTraceAnalysisJob(
     await pending;
     if (error instanceof TraceAnalysisRefusal) {
       await failAnalysis(db.manager, analysisId, error.errors);
+      return 'failed';
+    }
+    // Over its budget it would be over it again on a retry: recorded as failed, with the advice.
+    if (error instanceof AppError && error.code === 'calculation-over-budget') {
+      await failAnalysis(db.manager, analysisId, [{ field: 'analysis', message: error.message }]);
       return 'failed';
     }
     if (options.lastAttempt && !options.signal?.aborted) {

@@ -12,6 +12,7 @@
 import { hostname } from 'node:os';
 import PgBoss from 'pg-boss';
 import type { DataSource, EntityManager } from 'typeorm';
+import type { ComputeRunner } from '../compute/compute-tasks';
 import { runTraceAnalysisJob } from './trace-analysis-job';
 import type { TraceObjectStore } from './trace-object-store';
 
@@ -51,6 +52,8 @@ export interface TraceWorker {
 }
 
 export interface TraceWorkerOptions {
+  /** The server's compute pool, where each analysis runs (trace-analysis-task.ts). */
+  readonly compute?: ComputeRunner;
   readonly idleMs?: number;
   /** Minimum time between progress writes. */
   readonly progressEveryMs?: number;
@@ -103,6 +106,7 @@ export function startTraceWorker(
         try {
           const outcome = await runTraceAnalysisJob(db, store, job.data.analysisId, {
             signal: current.signal,
+            compute: options.compute,
             progressEveryMs: options.progressEveryMs,
             onProgress: options.onProgress,
             tmpDir: options.tmpDir,

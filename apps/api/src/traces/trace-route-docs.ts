@@ -95,6 +95,7 @@ export const TRACE_ROUTE_DOCS: readonly RouteDoc[] = [
     status: 200,
     response: 'Pair',
     errors: [409],
+    compute: true,
   },
 ];
 

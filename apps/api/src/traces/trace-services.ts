@@ -5,6 +5,7 @@
  */
 import PgBoss from 'pg-boss';
 import type { DataSource, EntityManager } from 'typeorm';
+import type { ComputeRunner } from '../compute/compute-tasks';
 import type { Config } from '../config';
 import {
   DEFAULT_TRACE_QUEUE_OPTIONS,
@@ -37,6 +38,8 @@ export interface TraceServicesOptions {
   /** How often pg-boss looks for expired jobs (seconds; tests use 1). */
   readonly maintenanceIntervalSeconds?: number;
   readonly worker?: TraceWorkerOptions;
+  /** The server's compute pool: the worker loop runs each analysis in it. */
+  readonly compute?: ComputeRunner;
   readonly log?: (message: string) => void;
 }
 
@@ -89,6 +92,7 @@ export async function startTraceServices(
     startWorker(workerOptions) {
       services.worker ??= startTraceWorker(boss, db, store, {
         log: options.log,
+        compute: options.compute,
         ...options.worker,
         ...workerOptions,
       });

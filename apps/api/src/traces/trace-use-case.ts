@@ -21,6 +21,7 @@ import { AppError, notFound, validationFailed } from '../http/app-error';
 import { formatBytes } from '../http/multipart';
 import { TraceTooLargeError } from '@gapwise/traces';
 import { isUuid } from '../http/validate';
+import type { ComputeRunner } from '../compute/compute-tasks';
 import { inputOf, pairForCaller, savePair } from '../pairs/pair-use-case';
 import { requireRole } from '../workspaces/workspace-access';
 import { TraceRefusedError, ingestTrace, type IngestedTrace } from './trace-ingest';
@@ -371,6 +372,7 @@ const num = (v: unknown): number | null => (typeof v === 'number' && Number.isFi
  */
 export async function attachAnalysis(
   db: DataSource,
+  compute: ComputeRunner,
   userId: string,
   analysisId: string,
   request: TraceAttachRequest,
@@ -453,6 +455,7 @@ export async function attachAnalysis(
   const version = request.version ?? Number(rows[0]?.version);
   return savePair(
     db,
+    compute,
     userId,
     request.pairId,
     version,
