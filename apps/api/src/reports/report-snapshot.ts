@@ -270,6 +270,7 @@ export function pairResults(pair: Pair): ReportModelResult[] {
       log10k: applies ? r.log10k : null,
       activationFreeEnergy: applies ? r.activationFreeEnergy : null,
       regime: applies ? r.regime : null,
+      couplingRegime: applies ? (r.couplingRegime ?? null) : null,
       interval: applies && !('missing' in request) ? monteCarlo(request, pair) : null,
       warnings: applies ? r.warnings : [],
     };
