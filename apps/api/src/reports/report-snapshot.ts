@@ -19,6 +19,8 @@ import {
   RATE_MODELS,
   computePairResults,
   pairRateRequest,
+  potentialFromShe,
+  splitPotentialUnit,
   type Pair,
   type ParameterKind,
   type ReportInput,
@@ -85,6 +87,11 @@ export interface SnapshotContext {
 
 function typedValue(value: number, unit: string, quantity: string): number {
   if (quantity === 'dimensionless' || !unit) return value;
+  if (quantity === 'potential') {
+    // "V vs SCE": the stored value is vs SHE; print it on the scale it was typed against.
+    const split = splitPotentialUnit(unit);
+    if (split.code) return typedValue(potentialFromShe(value, split.code), split.unit, quantity);
+  }
   try {
     return fromCanonical(value, unit, quantity as Quantity);
   } catch {
@@ -127,7 +134,8 @@ function snapshotInputs(pair: Pair): ReportInput[] {
       kind: p.kind,
       label: def?.label ?? p.kind,
       value: p.value,
-      canonicalUnit: unit,
+      canonicalUnit:
+        quantity === 'potential' && splitPotentialUnit(p.unit).code ? `${unit} vs SHE` : unit,
       typedValue: typedValue(p.value, p.unit, quantity),
       typedUnit: p.unit || unit,
       uncertainty: p.uncertainty,

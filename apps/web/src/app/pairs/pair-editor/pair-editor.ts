@@ -27,7 +27,9 @@ import {
   PARAMETER_KINDS,
   SOLVENTS,
   computePairResults,
+  mixedReferenceWarning,
   pairRateRequest,
+  splitPotentialUnit,
   type Pair,
   type PairInput,
   type PairResults,
@@ -236,6 +238,21 @@ export class PairEditor implements HoldsUnsavedChanges {
     return this.edits()?.parameters.find((p) => p.kind === kind)?.value ?? null;
   }
 
+  /**
+   * SCIENCE.md §4: the donor and acceptor potentials on different references or in different
+   * solvents (or one without a reference) are flagged beside them.
+   */
+  protected readonly referenceWarning = computed(() => {
+    const params = this.edits()?.parameters ?? [];
+    const side = (kind: 'donorOxidation' | 'acceptorReduction') => {
+      const p = params.find((x) => x.kind === kind);
+      return p
+        ? { label: PARAMETER_KINDS[kind].label, code: splitPotentialUnit(p.unit).code }
+        : null;
+    };
+    return mixedReferenceWarning(side('donorOxidation'), side('acceptorReduction'));
+  });
+
   protected readonly temperatureK = computed(() => this.edits()?.source.temperature ?? null);
   protected readonly plotDeltaG0 = computed(() => this.value('deltaG0'));
   protected readonly plotLambda = computed(() => {
@@ -397,11 +414,16 @@ export class PairEditor implements HoldsUnsavedChanges {
     const derivation = derivationById(id);
     if (!derivation) return;
     const params = this.form().controls.parameters.controls;
-    const prefill: Record<string, { value: number; unit: string }> = {};
+    const prefill: Record<string, { value: number; unit: string; reference?: string }> = {};
     for (const [input, kind] of Object.entries(derivation.prefill)) {
       const g = params[kind];
       if (g.controls.value.value !== null && g.controls.text.value.trim() !== '') {
-        prefill[input] = { value: g.controls.value.value, unit: g.controls.unit.value };
+        const reference = g.controls.reference.value;
+        prefill[input] = {
+          value: g.controls.value.value,
+          unit: g.controls.unit.value,
+          ...(reference ? { reference } : {}),
+        };
       }
     }
     const data: DerivationDialogData = {
