@@ -27,14 +27,15 @@ export function pairRateRequest(source: PairRateSource): CalcRequest | { missing
   if (deltaG0 === undefined) missing.push('deltaG0');
   if (coupling === undefined) missing.push('coupling');
   const temperature = source.temperature;
-  if (source.model === 'mlj') {
+  if (source.model === 'mlj' || source.model === 'mljThermal') {
     const hbarOmega = valueOf(source, 'hbarOmega');
     if (outer === undefined) missing.push('lambdaOuter');
     if (inner === undefined) missing.push('lambdaInner');
     if (hbarOmega === undefined) missing.push('hbarOmega');
     if (missing.length > 0) return { missing };
     return {
-      method: 'rate.mlj',
+      // Thermal MLJ (finite-temperature Bessel form) takes the same inputs (SCIENCE.md §2).
+      method: source.model === 'mlj' ? 'rate.mlj' : 'rate.mljThermal',
       inputs: { deltaG0, lambdaSolvent: outer, lambdaVib: inner, hbarOmega, coupling, temperature },
     };
   }

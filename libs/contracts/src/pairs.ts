@@ -65,7 +65,7 @@ export interface PairParameter {
 export const PAIR_STATUSES = ['draft', 'active', 'archived'] as const;
 export type PairStatus = (typeof PAIR_STATUSES)[number];
 
-export const RATE_MODELS = ['marcus', 'mlj', 'crossover'] as const;
+export const RATE_MODELS = ['marcus', 'mlj', 'mljThermal', 'crossover'] as const;
 export type RateModel = (typeof RATE_MODELS)[number];
 
 /** Body of create and update (update also carries `version`). */

@@ -69,6 +69,7 @@ const METHOD_TEXT: Readonly<Record<string, { name: string; equation: string }>> 
 const MODEL_METHOD: Readonly<Record<string, string>> = {
   marcus: 'rate.marcus',
   mlj: 'rate.mlj',
+  mljThermal: 'rate.mljThermal',
   crossover: 'rate.crossover',
   ruler: 'rate.ruler',
 };

@@ -205,13 +205,13 @@ function drawPair(cursor: Cursor, snapshot: ReportSnapshot, pair: ReportPairSnap
     drawTable(
       cursor,
       [
-        { header: 'Model', width: 0.19 },
+        { header: 'Model', width: 0.22 },
         { header: 'k', width: 0.14, align: 'right' },
         { header: 'log10 k', width: 0.08, align: 'right' },
         { header: 'ΔG‡', width: 0.1, align: 'right' },
         { header: 'Regime', width: 0.11 },
         { header: 'Coupling', width: 0.13 },
-        { header: 'Monte Carlo interval of log10 k', width: 0.25 },
+        { header: 'Monte Carlo interval of log10 k', width: 0.22 },
       ],
       applying.map((r) => resultRow(r, hasUncertainties(pair))),
       { rowStyles: applying.map((r) => (r.primary ? 'bold' : 'normal')) },
