@@ -287,7 +287,8 @@ describe('screens API', () => {
       const lambda = Number(cells[at('lambda [eV]')]);
       const tK = Number(cells[at('temperature [K]')]);
       const gamma =
-        (Math.PI ** 1.5 * h * h) / (4.135667696e-15 * 1e13 * Math.sqrt(lambda * 8.617333262e-5 * tK));
+        (Math.PI ** 1.5 * h * h) /
+        (4.135667696e-15 * 1e13 * Math.sqrt(lambda * 8.617333262e-5 * tK));
       if (Math.abs(gamma - 0.1) < 1e-9) continue;
       const expected = gamma < 0.1 ? 'nonadiabatic' : gamma > 10 ? 'adiabatic' : 'intermediate';
       expect(cells[at('coupling regime')]).toBe(expected);
@@ -295,7 +296,8 @@ describe('screens API', () => {
     }
     // The invented pairs (10–160 cm⁻¹, λ ≈ 0.6–1 eV) fall on both sides of γ = 0.1.
     expect([...regimes].sort()).toEqual(['intermediate', 'nonadiabatic']);
-    for (const r of page.body.items) expect(r.couplingRegime).toMatch(/^(non)?adiabatic$|^intermediate$/);
+    for (const r of page.body.items)
+      expect(r.couplingRegime).toMatch(/^(non)?adiabatic$|^intermediate$/);
 
     const bad = await owner.get(`/api/screens/${doneId}/results?sort=colour`);
     expect(bad.status).toBe(400);
