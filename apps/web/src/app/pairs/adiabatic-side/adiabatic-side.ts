@@ -4,9 +4,9 @@ import { RichText } from '../../shared/rich-text/rich-text';
 import { formatScientific, formatSignificant } from '../../units/number-format';
 
 interface Rates {
-  readonly kappa: string;
-  readonly gamma: string;
-  readonly kLz: string;
+  readonly kappa: string | null;
+  readonly gamma: string | null;
+  readonly kLz: string | null;
   readonly barrier: string | null;
   readonly barrierApproximate: string | null;
   readonly barrierDiabatic: string | null;
@@ -32,16 +32,18 @@ interface Rates {
           The golden-rule rate overestimates here. With ν<sub>n</sub> = 10¹³ s⁻¹ (SCIENCE.md §3):
         </p>
         <dl>
-          <dt>Landau–Zener κ<sub>el</sub></dt>
-          <dd class="kappa">
-            {{ r.kappa }} <span class="alt">(γ = {{ r.gamma }})</span>
-          </dd>
-          <dt>k = κ<sub>el</sub> ν<sub>n</sub> exp(−ΔG‡/k<sub>B</sub>T)</dt>
-          <dd class="k-lz">{{ r.kLz }} s⁻¹</dd>
+          @if (r.kappa) {
+            <dt>Landau–Zener κ<sub>el</sub></dt>
+            <dd class="kappa">
+              {{ r.kappa }} <span class="alt">(γ = {{ r.gamma }})</span>
+            </dd>
+            <dt>k = κ<sub>el</sub> ν<sub>n</sub> exp(−ΔG‡/k<sub>B</sub>T)</dt>
+            <dd class="k-lz">{{ r.kLz }} s⁻¹</dd>
+          }
           @if (r.refused) {
-            <dt>Adiabatic barrier</dt>
+            <dt>No barrier, no rate</dt>
             <dd class="refused"><gw-rich-text [text]="r.refused" /></dd>
-          } @else {
+          } @else if (r.barrier) {
             <dt>Adiabatic barrier ΔG‡<sub>ad</sub> (exact, two-state surfaces)</dt>
             <dd class="barrier">
               {{ r.barrier }} eV
@@ -81,19 +83,22 @@ export class AdiabaticSide {
       return null;
     const inputs = { deltaG0, lambda, coupling, temperature };
     const lz = calculate({ method: 'rate.landauZener', inputs });
-    if (!lz.ok) return null;
-    const o = lz.outputs as Record<string, number>;
+    const o = lz.ok ? (lz.outputs as Record<string, number>) : null;
     const ad = calculate({ method: 'evb.adiabaticBarrier', inputs });
     const b = ad.ok ? (ad.outputs as Record<string, number>) : null;
+    // Refusals (class III: 2|H| ≥ λ) are said once, in the core's words.
+    const refusals = [
+      ...new Set([lz, ad].flatMap((a) => (a.ok ? [] : a.errors.map((e) => e.message)))),
+    ];
     return {
-      kappa: formatSignificant(o['transmission']!, 3),
-      gamma: formatSignificant(o['gamma']!, 3),
-      kLz: formatScientific(o['k']!, 3),
+      kappa: o ? formatSignificant(o['transmission']!, 3) : null,
+      gamma: o ? formatSignificant(o['gamma']!, 3) : null,
+      kLz: o ? formatScientific(o['k']!, 3) : null,
       barrier: b ? formatSignificant(b['barrier']!, 3) : null,
       barrierApproximate: b ? formatSignificant(b['barrierApproximate']!, 3) : null,
       barrierDiabatic: b ? formatSignificant(b['barrierDiabatic']!, 3) : null,
       kAdiabatic: b ? formatScientific(b['k']!, 3) : null,
-      refused: ad.ok ? null : ad.errors.map((e) => e.message).join(' '),
+      refused: refusals.length ? refusals.join(' ') : null,
     };
   });
 }
