@@ -136,6 +136,9 @@ describe('pair references and helpers in chromium', () => {
     const cells = await page.locator('td[data-coupling-regime]').allInnerTexts();
     for (const c of cells) expect(c.trim()).toMatch(/^(nonadiabatic|intermediate|adiabatic|—)$/);
     await both(page, 'screen-coupling-regime');
+    // The column sits right of the table's fold: scrolled into view for a look.
+    await page.locator('th', { hasText: 'Coupling regime' }).scrollIntoViewIfNeeded();
+    await page.screenshot({ path: 'test-output/screenshots/screen-coupling-regime-column.png' });
     await context.close();
   });
 });
