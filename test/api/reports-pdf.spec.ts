@@ -119,6 +119,10 @@ describe('report PDFs against worked examples', () => {
     expect(keyResult(p.text)).toBe('8.98 × 10¹⁰ s⁻¹ | 10.95');
     expect(p.text).toContain('ΔG‡ = 0.0781 eV');
     expect(p.text).toContain('regime: Normal');
+    // γ = π^(3/2)H²/(hν_n(λk_BT)^½) = 0.094 < 0.1 with ν_n = 1e13 s⁻¹ (SCIENCE.md §3 example):
+    // the coupling regime stands beside the driving-force regime, in the summary and the table.
+    expect(p.text).toContain('regime: Normal; coupling regime: Nonadiabatic');
+    expect(p.text).toMatch(/Regime Coupling Monte Carlo .* Normal Nonadiabatic no uncertainties/);
     // The inputs table prints the typed and the canonical value with its unit.
     expect(p.text).toMatch(/Driving force ΔG° −0\.3 eV −0\.3 eV/);
 
@@ -244,6 +248,9 @@ describe('report PDFs against worked examples', () => {
       `${formatRate(8.978e10 / (1 + kappa))} | ${formatLog10(Math.log10(8.978e10 / (1 + kappa)))}`,
     );
     expect(keyResult(p.text)).toBe('4.09 × 10¹⁰ s⁻¹ | 10.61');
+    // κ_A = 1.19 lies between 0.1 and 10: intermediate (CALC-API.md couplingRegime, from κ_A when
+    // τ_L is known).
+    expect(p.text).toContain('coupling regime: Intermediate');
     expect(p.text).toMatch(/0\.5 ps 5 × 10⁻¹³ s/);
   });
 });

@@ -91,6 +91,14 @@ export { adiabaticityParameter, solventControlledRateLog } from './rates/crossov
 export { rulerLog10Rate, rulerSlopePerAngstrom } from './rates/ruler/ruler';
 export { crossRelationLnF, crossRelationRateLog } from './rates/cross-relation/cross-relation';
 export { marcusRegime } from './rates/rate-inputs';
+// Where a pair sits between the nonadiabatic and adiabatic limits (screens, reports, pair page).
+export {
+  DEFAULT_NUCLEAR_FREQUENCY_PER_S,
+  adiabaticityMeasures,
+  classifyAdiabaticity,
+  landauZenerGamma,
+} from './rates/coupling-regime';
+export type { CouplingRegime } from './rates/coupling-regime';
 export type { Regime } from './rates/rate-inputs';
 export { marcusLog10kInto, mljLog10kInto } from './rates/vector';
 export { marcusLog10kIntoArrays, mljLog10kIntoArrays } from './rates/vector-arrays';

@@ -13,3 +13,4 @@ export * from './rich-text';
 export * from './csv';
 export * from './plausibility';
 export * from './solvents';
+export * from './potential-reference';

@@ -166,14 +166,15 @@ function stepRequest(
   if (deltaG0 === undefined) missing.push(deltaG0Kind);
   if (coupling === undefined) missing.push('coupling');
   const temperature = source.temperature;
-  if (model === 'mlj') {
+  if (model === 'mlj' || model === 'mljThermal') {
     const hbarOmega = parameterValue(p, 'hbarOmega');
     if (lambda.outer === null) missing.push('lambdaOuter');
     if (lambda.inner === null) missing.push('lambdaInner');
     if (hbarOmega === undefined) missing.push('hbarOmega');
     if (missing.length > 0) return { missing };
     return {
-      method: 'rate.mlj',
+      // Thermal MLJ (finite-temperature Bessel form) takes the same inputs (SCIENCE.md §2).
+      method: model === 'mlj' ? 'rate.mlj' : 'rate.mljThermal',
       inputs: {
         deltaG0,
         lambdaSolvent: lambda.outer,

@@ -24,7 +24,8 @@ export const PARAMETER_KINDS = {
     label: 'Measurement-solvent ε (of the potentials)',
     quantity: 'dimensionless',
   },
-  excitationEnergy: { label: 'Excitation energy E₀₀', quantity: 'energy' },
+  // An energy of light: also typed as a wavelength in nm (E = 1239.84198/λ eV, SCIENCE.md §4).
+  excitationEnergy: { label: 'Excitation energy E₀₀', quantity: 'photonEnergy' },
   epsilonStatic: { label: 'Static dielectric constant ε_s', quantity: 'dimensionless' },
   refractiveIndex: { label: 'Refractive index n', quantity: 'dimensionless' },
 } as const;
@@ -65,7 +66,7 @@ export interface PairParameter {
 export const PAIR_STATUSES = ['draft', 'active', 'archived'] as const;
 export type PairStatus = (typeof PAIR_STATUSES)[number];
 
-export const RATE_MODELS = ['marcus', 'mlj', 'crossover'] as const;
+export const RATE_MODELS = ['marcus', 'mlj', 'mljThermal', 'crossover'] as const;
 export type RateModel = (typeof RATE_MODELS)[number];
 
 /** Body of create and update (update also carries `version`). */
@@ -216,6 +217,7 @@ export type PairSortKey = (typeof PAIR_SORT_KEYS)[number];
  */
 export const INPUT_MAGNITUDE_LIMITS: Readonly<Record<string, { max: number; unit: string }>> = {
   energy: { max: 1e3, unit: 'eV' },
+  photonEnergy: { max: 1e3, unit: 'eV' },
   distance: { max: 1e4, unit: 'Å' },
   potential: { max: 1e2, unit: 'V' },
   time: { max: 1e3, unit: 's' },

@@ -184,6 +184,7 @@ export function formatReportStatus(status: string): string {
 export const MODEL_NAMES: Readonly<Record<string, string>> = {
   marcus: 'Classical nonadiabatic Marcus',
   mlj: 'Marcus–Levich–Jortner (one quantum mode)',
+  mljThermal: 'Marcus–Levich–Jortner, thermal (finite-temperature mode)',
   crossover: 'Nonadiabatic–adiabatic crossover (solvent control)',
   ruler: 'Empirical protein ruler',
 };

@@ -65,6 +65,11 @@ export interface ReportModelResult {
   /** ΔG‡ in eV (classical (ΔG° + λ)²/4λ where the model does not report its own). */
   readonly activationFreeEnergy: number | null;
   readonly regime: string | null;
+  /**
+   * nonadiabatic, intermediate or adiabatic (CALC-API.md `couplingRegime`); absent in snapshots
+   * taken before reports carried it.
+   */
+  readonly couplingRegime?: string | null;
   readonly interval: ReportInterval | null;
   readonly warnings: ReadonlyArray<{ readonly code: string; readonly message: string }>;
 }

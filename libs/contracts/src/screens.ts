@@ -81,6 +81,11 @@ export interface ScreenResultRow {
   readonly log10kCrMlj: number | null;
   readonly regimeCs: string | null;
   readonly regimeCr: string | null;
+  /**
+   * nonadiabatic, intermediate or adiabatic (CALC-API.md `couplingRegime`): from the
+   * Landau–Zener γ with ν_n = 1e13 s⁻¹ (screens have no τ_L); null without |H_AB|, λ or T.
+   */
+  readonly couplingRegime: string | null;
   readonly warnings: string[];
   readonly score: number | null;
 }

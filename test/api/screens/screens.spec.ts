@@ -274,6 +274,31 @@ describe('screens API', () => {
     expect(lines).toHaveLength(sql[0].n + 1);
     expect(lines[0]).toMatch(/^line,donor,acceptor/);
 
+    // The coupling regime column (CALC-API.md couplingRegime): γ = π^(3/2)H²/(hν_n(λk_BT)^½)
+    // with ν_n = 1e13 s⁻¹ (Newton & Sutin 1984, from memory), computed here independently with
+    // CODATA 2018 h and k_B; nonadiabatic γ < 0.1, adiabatic γ > 10.
+    const header = lines[0]!.split(',');
+    const at = (name: string) => header.indexOf(name);
+    expect(at('coupling regime')).toBeGreaterThan(at('regime CR'));
+    const regimes = new Set<string>();
+    for (const line of lines.slice(1)) {
+      const cells = line.split(',');
+      const h = Math.abs(Number(cells[at('coupling [eV]')]));
+      const lambda = Number(cells[at('lambda [eV]')]);
+      const tK = Number(cells[at('temperature [K]')]);
+      const gamma =
+        (Math.PI ** 1.5 * h * h) /
+        (4.135667696e-15 * 1e13 * Math.sqrt(lambda * 8.617333262e-5 * tK));
+      if (Math.abs(gamma - 0.1) < 1e-9) continue;
+      const expected = gamma < 0.1 ? 'nonadiabatic' : gamma > 10 ? 'adiabatic' : 'intermediate';
+      expect(cells[at('coupling regime')]).toBe(expected);
+      regimes.add(expected);
+    }
+    // The invented pairs (10–160 cm⁻¹, λ ≈ 0.6–1 eV) fall on both sides of γ = 0.1.
+    expect([...regimes].sort()).toEqual(['intermediate', 'nonadiabatic']);
+    for (const r of page.body.items)
+      expect(r.couplingRegime).toMatch(/^(non)?adiabatic$|^intermediate$/);
+
     const bad = await owner.get(`/api/screens/${doneId}/results?sort=colour`);
     expect(bad.status).toBe(400);
   });

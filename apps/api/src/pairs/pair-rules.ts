@@ -4,6 +4,9 @@ import {
   magnitudeProblem,
   PARAMETER_KINDS,
   PARAMETER_LOWER_BOUNDS,
+  POTENTIAL_SCALE_CODES,
+  referencedPotentialUnit,
+  splitPotentialUnit,
   withinLowerBound,
   type PairInput,
   type PairParameter,
@@ -23,13 +26,23 @@ export function unitsForKind(kind: keyof typeof PARAMETER_KINDS): readonly strin
 function checkParameter(p: ParameterDto, i: number, errors: FieldError[]): void {
   const at = (f: string) => `parameters.${i}.${f}`;
   const quantity = PARAMETER_KINDS[p.kind].quantity as Quantity;
-  const unitOk = allowedUnits(quantity).length === 0 ? p.unit === '' : isUnitFor(p.unit, quantity);
+  // A potential may name its reference electrode in the unit ("V vs SCE"); its value is then V vs SHE.
+  const split = quantity === 'potential' ? splitPotentialUnit(p.unit) : null;
+  const unit = split ? split.unit : p.unit;
+  const unitOk = allowedUnits(quantity).length === 0 ? unit === '' : isUnitFor(unit, quantity);
   if (!unitOk) {
     errors.push({
       field: at('unit'),
       message: `must be one of ${unitsForKind(p.kind)
         .map((u) => `'${u}'`)
         .join(', ')} for ${p.kind}`,
+    });
+  } else if (split && !split.valid) {
+    errors.push({
+      field: at('unit'),
+      message: `names an unknown reference electrode; use '${unit} vs <reference>' with one of ${POTENTIAL_SCALE_CODES.map(
+        (c) => referencedPotentialUnit(unit, c).slice(unit.length + 4),
+      ).join(', ')}`,
     });
   }
   const bound = PARAMETER_LOWER_BOUNDS[p.kind];

@@ -77,6 +77,7 @@ export function reportCsv(view: ReportView): string {
         ['log10k', r.log10k, ''],
         ['activationFreeEnergy', r.activationFreeEnergy, 'eV'],
         ['regime', r.regime, ''],
+        ['couplingRegime', r.couplingRegime ?? null, ''],
       ];
       if (r.interval) {
         out.push(['log10k_median', r.interval.log10kMedian, '']);

@@ -19,7 +19,9 @@ import {
   computePairResults,
   computeSeparation,
   parameterValue,
+  potentialFromShe,
   runPairMonteCarlo,
+  splitPotentialUnit,
   totalLambdaEv,
   type Pair,
   type PairRateSource,
@@ -71,6 +73,7 @@ const METHOD_TEXT: Readonly<Record<string, { name: string; equation: string }>> 
 const MODEL_METHOD: Readonly<Record<string, string>> = {
   marcus: 'rate.marcus',
   mlj: 'rate.mlj',
+  mljThermal: 'rate.mljThermal',
   crossover: 'rate.crossover',
   ruler: 'rate.ruler',
 };
@@ -86,6 +89,11 @@ export interface SnapshotContext {
 
 function typedValue(value: number, unit: string, quantity: string): number {
   if (quantity === 'dimensionless' || !unit) return value;
+  if (quantity === 'potential') {
+    // "V vs SCE": the stored value is vs SHE; print it on the scale it was typed against.
+    const split = splitPotentialUnit(unit);
+    if (split.code) return typedValue(potentialFromShe(value, split.code), split.unit, quantity);
+  }
   try {
     return fromCanonical(value, unit, quantity as Quantity);
   } catch {
@@ -128,7 +136,8 @@ function snapshotInputs(pair: Pair): ReportInput[] {
       kind: p.kind,
       label: def?.label ?? p.kind,
       value: p.value,
-      canonicalUnit: unit,
+      canonicalUnit:
+        quantity === 'potential' && splitPotentialUnit(p.unit).code ? `${unit} vs SHE` : unit,
       typedValue: typedValue(p.value, p.unit, quantity),
       typedUnit: p.unit || unit,
       uncertainty: p.uncertainty,
@@ -224,6 +233,7 @@ export function pairResults(pair: Pair): ReportModelResult[] {
       log10k: applies ? r.log10k : null,
       activationFreeEnergy: applies ? r.activationFreeEnergy : null,
       regime: applies ? r.regime : null,
+      couplingRegime: applies ? (r.couplingRegime ?? null) : null,
       interval: applies ? monteCarlo(source, model) : null,
       warnings: applies ? r.warnings : [],
     };

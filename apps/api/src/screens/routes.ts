@@ -208,6 +208,7 @@ const CSV_COLUMNS: Array<[keyof ScreenResultRow, string]> = [
   ['log10kCrMlj', 'log10 kCR MLJ [s-1]'],
   ['regimeCs', 'regime CS'],
   ['regimeCr', 'regime CR'],
+  ['couplingRegime', 'coupling regime'],
   ['warnings', 'warnings'],
   ['score', 'score'],
 ];

@@ -10,6 +10,7 @@ import {
   type ScreenScoreKind,
   type ScreenStatus,
 } from '@gapwise/contracts';
+import { adiabaticityMeasures } from '@gapwise/calc';
 import { warningCodes } from './chunk-computer';
 
 export const COLUMN_SQL: Record<ScreenNumericColumn | 'donor' | 'acceptor', string> = {
@@ -193,6 +194,21 @@ interface ResultRow {
   score: number | null;
 }
 
+/**
+ * The coupling regime of a row (CALC-API.md `couplingRegime`), from the stored |H_AB|, total λ and
+ * T with the core's Landau–Zener γ at ν_n = 1e13 s⁻¹; a screen has no τ_L, so κ_A never applies.
+ * Derived on reading because it is a pure function of stored columns (no column to keep in step).
+ */
+export function couplingRegimeOf(
+  coupling: number | null,
+  lambdaTotal: number | null,
+  temperatureK: number | null,
+): string | null {
+  if (coupling === null || lambdaTotal === null || temperatureK === null) return null;
+  if (!(lambdaTotal > 0) || !(temperatureK > 0) || !Number.isFinite(coupling)) return null;
+  return adiabaticityMeasures(Math.abs(coupling), lambdaTotal, temperatureK).regime;
+}
+
 export function toResultRow(r: ResultRow): ScreenResultRow {
   return {
     rowNumber: r.row_number,
@@ -212,6 +228,7 @@ export function toResultRow(r: ResultRow): ScreenResultRow {
     log10kCrMlj: r.log10k_cr_mlj,
     regimeCs: r.regime_cs,
     regimeCr: r.regime_cr,
+    couplingRegime: couplingRegimeOf(r.coupling, r.lambda_total, r.temperature_k),
     warnings: warningCodes(r.warning_mask),
     score: r.score,
   };

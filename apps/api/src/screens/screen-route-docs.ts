@@ -339,6 +339,11 @@ export const SCREEN_SCHEMAS: Record<string, Schema> = {
     solvent: str,
     regimeCs: regime,
     regimeCr: regime,
+    couplingRegime: nullable({
+      type: 'string',
+      enum: ['nonadiabatic', 'intermediate', 'adiabatic'],
+      description: 'From the Landau–Zener γ with ν_n = 1e13 s⁻¹ (CALC-API.md couplingRegime)',
+    }),
     warnings: arr({ type: 'string', enum: [...SCREEN_WARNINGS] }),
   }),
   ScreenResultPage: obj({

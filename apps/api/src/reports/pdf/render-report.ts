@@ -158,7 +158,7 @@ function drawTitleBlock(cursor: Cursor, snapshot: ReportSnapshot, review: Report
     const r = primaryResult(single);
     const body = r?.applies
       ? `k = ${formatRateWithLog(r.k, r.log10k)}; ΔG‡ = ${r.activationFreeEnergy === null ? '—' : `${formatNumber(r.activationFreeEnergy, 3, true)} eV`}; ` +
-        `regime: ${formatRegime(r.regime)}${r.warnings.length > 0 ? `; ${r.warnings.length} warning(s), see below` : ''}.`
+        `regime: ${formatRegime(r.regime)}${r.couplingRegime ? `; coupling regime: ${formatRegime(r.couplingRegime)}` : ''}${r.warnings.length > 0 ? `; ${r.warnings.length} warning(s), see below` : ''}.`
       : `No rate: ${r?.reason ?? 'the chosen model does not apply to these inputs'}.`;
     drawNote(cursor, `Result (${modelName(single.model)})`, body, COLORS.tealLight, COLORS.teal);
   }
@@ -207,11 +207,12 @@ function drawPair(cursor: Cursor, snapshot: ReportSnapshot, pair: ReportPairSnap
       cursor,
       [
         { header: 'Model', width: 0.22 },
-        { header: 'k', width: 0.15, align: 'right' },
-        { header: 'log10 k', width: 0.09, align: 'right' },
+        { header: 'k', width: 0.14, align: 'right' },
+        { header: 'log10 k', width: 0.08, align: 'right' },
         { header: 'ΔG‡', width: 0.1, align: 'right' },
-        { header: 'Regime', width: 0.12 },
-        { header: 'Monte Carlo interval of log10 k', width: 0.32 },
+        { header: 'Regime', width: 0.11 },
+        { header: 'Coupling', width: 0.13 },
+        { header: 'Monte Carlo interval of log10 k', width: 0.22 },
       ],
       applying.map((r) => resultRow(r, hasUncertainties(pair))),
       { rowStyles: applying.map((r) => (r.primary ? 'bold' : 'normal')) },

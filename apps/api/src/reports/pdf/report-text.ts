@@ -62,6 +62,7 @@ export function resultRow(result: ReportModelResult, hasUncertainties = false): 
     formatLog10(result.log10k),
     formatEnergyEv(result.activationFreeEnergy),
     formatRegime(result.regime),
+    formatRegime(result.couplingRegime ?? null),
     intervalText(result, hasUncertainties),
   ];
 }

@@ -1,4 +1,11 @@
-import { PARAMETER_KINDS, type PairInput, type PairParameter } from '@gapwise/contracts';
+import {
+  PARAMETER_KINDS,
+  potentialFromShe,
+  potentialScaleName,
+  splitPotentialUnit,
+  type PairInput,
+  type PairParameter,
+} from '@gapwise/contracts';
 import type { Quantity } from '@gapwise/calc';
 import { editableText } from '../units/number-format';
 import { displayDifference, displayOf, unitLabel } from '../units/units';
@@ -14,10 +21,18 @@ export interface DiffRow {
 export function describeParameter(p: PairParameter | undefined): string {
   if (!p) return '—';
   const q = PARAMETER_KINDS[p.kind].quantity as Quantity;
-  const unit = p.unit;
-  const value = `${editableText(displayOf(p.value, unit, q))}${unit ? ' ' + unitLabel(unit) : ''}`;
+  // A potential typed against a reference ("V vs SCE") is stored vs SHE: show it as typed.
+  const split = q === 'potential' ? splitPotentialUnit(p.unit) : null;
+  const unit = split ? split.unit : p.unit;
+  const typed = split?.code ? potentialFromShe(p.value, split.code) : p.value;
+  const scale = split?.code ? ` vs ${potentialScaleName(split.code)}` : '';
+  const value = `${editableText(displayOf(typed, unit, q))}${unit ? ' ' + unitLabel(unit) : ''}${scale}`;
   const sigma =
-    p.uncertainty != null ? ` ± ${editableText(displayDifference(p.uncertainty, unit, q))}` : '';
+    p.uncertainty == null
+      ? ''
+      : unit === 'nm'
+        ? ` ± ${editableText(p.uncertainty)} eV`
+        : ` ± ${editableText(displayDifference(p.uncertainty, unit, q))}`;
   const prov = p.provenance;
   const source =
     prov.kind === 'literature' && prov.citation

@@ -9,11 +9,18 @@ import { MatCheckboxModule } from '@angular/material/checkbox';
 import {
   calculate,
   findMethod,
+  potentialScaleLabel,
+  type PotentialScale,
   type CalcAnswer,
   type InputSpec,
   type Quantity,
 } from '@gapwise/calc';
-import { PARAMETER_KINDS, parameterPlausibility, plainText } from '@gapwise/contracts';
+import {
+  PARAMETER_KINDS,
+  parameterPlausibility,
+  plainText,
+  potentialScaleOf,
+} from '@gapwise/contracts';
 import { RichText } from '../../shared/rich-text/rich-text';
 import { editableText, formatSignificant, parseStrictNumber } from '../../units/number-format';
 import { displayOf, unitLabel, unitsFor } from '../../units/units';
@@ -30,7 +37,12 @@ import type { Derivation } from './derivations';
 export interface DerivationDialogData {
   readonly derivation: Derivation;
   /** Current pair values for the pre-filled inputs: canonical value and typed unit. */
-  readonly prefill: Readonly<Record<string, { value: number; unit: string }>>;
+  readonly prefill: Readonly<
+    Record<
+      string,
+      { value: number; unit: string; /** Potentials: scale code. */ reference?: string }
+    >
+  >;
   /** Unit the target parameter is shown in (for the preview). */
   readonly targetUnit: string;
 }
@@ -49,6 +61,8 @@ export interface DerivationResult {
 interface InputRow {
   readonly spec: InputSpec;
   readonly label: string;
+  /** A pre-filled potential's reference electrode, sent with it so the core converts. */
+  readonly scale: PotentialScale | null;
   readonly units: readonly string[];
   readonly group: QuantityGroup | null;
   readonly textControl: FormControl<string> | null;
@@ -143,6 +157,7 @@ export class DerivationDialog {
       return {
         spec,
         label: labelOf(spec),
+        scale: null,
         units,
         group: null,
         textControl: new FormControl('', { nonNullable: true }),
@@ -158,7 +173,9 @@ export class DerivationDialog {
       { label: labelOf(spec), quantity: spec.quantity as Quantity, required: spec.required },
       { value, unit },
     );
-    return { spec, label: labelOf(spec), units, group, textControl: null };
+    const scale = pre?.reference ? potentialScaleOf(pre.reference) : null;
+    const label = scale ? `${labelOf(spec)} vs ${potentialScaleLabel(scale)}` : labelOf(spec);
+    return { spec, label, scale, units, group, textControl: null };
   }
 
   protected typeInput(row: InputRow, text: string): void {
@@ -212,7 +229,13 @@ export class DerivationDialog {
       const unit = g.controls.unit.value;
       // Invalid text is sent as is: the core names the field and the reason.
       const value = typed ?? text;
-      inputs[row.spec.name] = unit ? { value, unit } : value;
+      // A potential typed against a reference goes with it: the core converts (and warns when the
+      // two potentials are on different scales).
+      inputs[row.spec.name] = row.scale
+        ? { value, unit, ...row.scale }
+        : unit
+          ? { value, unit }
+          : value;
     }
     return inputs;
   }

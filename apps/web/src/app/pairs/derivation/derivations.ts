@@ -20,6 +20,10 @@ export interface Derivation {
   readonly sharedUnit?: boolean;
   /** Inputs shown first with this unit when the pair has no value for them. */
   readonly defaultUnits?: Readonly<Record<string, string>>;
+  /** A helper with its own dialog (a list input the generic dialog cannot type). */
+  readonly dialog?: 'normal-modes';
+  /** Further parameters whose menu offers this helper (besides the target). */
+  readonly offeredFor?: readonly ParameterKind[];
 }
 
 export const DERIVATIONS: readonly Derivation[] = [
@@ -71,6 +75,17 @@ export const DERIVATIONS: readonly Derivation[] = [
     },
   },
   {
+    id: 'normal-modes',
+    methodId: 'reorg.normalModes',
+    label: 'λᵢ and ħω from normal modes (a frequency calculation)',
+    target: 'lambdaInner',
+    output: 'lambdaVib',
+    alsoFills: [{ kind: 'hbarOmega', output: 'effectiveHbarOmega' }],
+    prefill: {},
+    dialog: 'normal-modes',
+    offeredFor: ['hbarOmega'],
+  },
+  {
     id: 'gmh',
     methodId: 'coupling.gmh',
     label: 'Coupling from generalized Mulliken–Hush',
@@ -97,7 +112,7 @@ export const DERIVATIONS: readonly Derivation[] = [
 ];
 
 export function derivationsFor(kind: ParameterKind): Derivation[] {
-  return DERIVATIONS.filter((d) => d.target === kind);
+  return DERIVATIONS.filter((d) => d.target === kind || d.offeredFor?.includes(kind));
 }
 
 export function derivationById(id: string): Derivation | undefined {

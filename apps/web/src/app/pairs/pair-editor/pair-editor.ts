@@ -27,8 +27,10 @@ import {
   PARAMETER_KINDS,
   SOLVENTS,
   computePairResults,
+  mixedReferenceWarning,
   pairPlotInputs,
   pairRateRequest,
+  splitPotentialUnit,
   totalLambdaEv,
   type Pair,
   type PairInput,
@@ -36,6 +38,7 @@ import {
   type PairSeriesPoint,
   type ParameterKind,
 } from '@gapwise/contracts';
+import { BOLTZMANN_EV_PER_K } from '@gapwise/calc';
 import type { DrivingForceInputs } from '@gapwise/plots';
 import { asapScheduler, debounceTime, map, of, startWith, switchMap } from 'rxjs';
 import { apiErrorOf } from '../../session/api-errors';
@@ -44,6 +47,7 @@ import { DrivingForcePlot } from '../../plots/driving-force-plot/driving-force-p
 import { ParabolaPlot } from '../../plots/parabola-plot/parabola-plot';
 import { TemperaturePlot } from '../../plots/temperature-plot/temperature-plot';
 import { RichText } from '../../shared/rich-text/rich-text';
+import { formatSignificant } from '../../units/number-format';
 import { unitLabel, unitsFor } from '../../units/units';
 import {
   ConflictDialog,
@@ -56,6 +60,8 @@ import {
   type DerivationResult,
 } from '../derivation/derivation-dialog';
 import { derivationById, derivationsFor } from '../derivation/derivations';
+import { NormalModesDialog, type NormalModesDialogData } from '../normal-modes/normal-modes-dialog';
+import { AdiabaticSide } from '../adiabatic-side/adiabatic-side';
 import { ParameterField } from '../parameter-field/parameter-field';
 import {
   createPairForm,
@@ -123,6 +129,7 @@ export const REDRAW_MEASURE = 'gw-keystroke-to-redraw';
 @Component({
   selector: 'gw-pair-editor',
   imports: [
+    AdiabaticSide,
     ReactiveFormsModule,
     RouterLink,
     MatButtonModule,
@@ -237,7 +244,45 @@ export class PairEditor implements HoldsUnsavedChanges {
     return this.edits()?.parameters.find((p) => p.kind === kind)?.value ?? null;
   }
 
+  /**
+   * SCIENCE.md §4: the donor and acceptor potentials on different references or in different
+   * solvents (or one without a reference) are flagged beside them.
+   */
+  protected readonly referenceWarning = computed(() => {
+    const params = this.edits()?.parameters ?? [];
+    const side = (kind: 'donorOxidation' | 'acceptorReduction') => {
+      const p = params.find((x) => x.kind === kind);
+      return p
+        ? { label: PARAMETER_KINDS[kind].label, code: splitPotentialUnit(p.unit).code }
+        : null;
+    };
+    return mixedReferenceWarning(side('donorOxidation'), side('acceptorReduction'));
+  });
+
   protected readonly temperatureK = computed(() => this.edits()?.source.temperature ?? null);
+
+  /**
+   * SCIENCE.md §2: the T = 0 MLJ sum needs ħω ≳ 4 k_BT; below, offer the finite-temperature
+   * (thermal) form, which tends to classical Marcus with λ_s + λ_v for ħω ≪ k_BT.
+   */
+  protected readonly thermalMljHint = computed(() => {
+    const e = this.edits();
+    const omega = this.value('hbarOmega');
+    const t = this.temperatureK();
+    if (!e || e.source.model !== 'mlj' || omega === null || !t || !(t > 0)) return null;
+    const fourKT = 4 * BOLTZMANN_EV_PER_K * t;
+    if (!(omega < fourKT)) return null;
+    return (
+      `ħω = ${formatSignificant(omega, 3)} eV is below 4 k_BT = ${formatSignificant(fourKT, 3)} eV: ` +
+      'the one-mode sum assumes the mode frozen in its ground level and comes out too narrow. ' +
+      'Thermal MLJ sums over thermally populated levels.'
+    );
+  });
+
+  protected useThermalMlj(): void {
+    this.form().controls.model.setValue('mljThermal');
+    this.markEdit();
+  }
   protected readonly plotDeltaG0 = computed(() => this.value('deltaG0'));
   protected readonly plotLambda = computed(() =>
     this.edits() ? totalLambdaEv(this.edits()!.parameters) : null,
@@ -384,12 +429,30 @@ export class PairEditor implements HoldsUnsavedChanges {
   protected openDerivation(id: string): void {
     const derivation = derivationById(id);
     if (!derivation) return;
+    if (derivation.dialog === 'normal-modes') {
+      this.dialog
+        .open<NormalModesDialog, NormalModesDialogData, DerivationResult>(NormalModesDialog, {
+          data: { temperatureK: this.temperatureK() },
+          width: '640px',
+          maxWidth: 'calc(100vw - 16px)',
+          autoFocus: 'first-tabbable',
+          restoreFocus: `gw-parameter-field[data-kind="${derivation.target}"] button.derive`,
+        })
+        .afterClosed()
+        .subscribe((result) => result && this.applyDerivation(result));
+      return;
+    }
     const params = this.form().controls.parameters.controls;
-    const prefill: Record<string, { value: number; unit: string }> = {};
+    const prefill: Record<string, { value: number; unit: string; reference?: string }> = {};
     for (const [input, kind] of Object.entries(derivation.prefill)) {
       const g = params[kind];
       if (g.controls.value.value !== null && g.controls.text.value.trim() !== '') {
-        prefill[input] = { value: g.controls.value.value, unit: g.controls.unit.value };
+        const reference = g.controls.reference.value;
+        prefill[input] = {
+          value: g.controls.value.value,
+          unit: g.controls.unit.value,
+          ...(reference ? { reference } : {}),
+        };
       }
     }
     const data: DerivationDialogData = {

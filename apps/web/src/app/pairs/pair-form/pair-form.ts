@@ -9,6 +9,10 @@ import {
   type ParameterKind,
   type ProvenanceKind,
   type RateModel,
+  potentialFromShe,
+  potentialToShe,
+  referencedPotentialUnit,
+  splitPotentialUnit,
   temperaturePlausibility,
   withinLowerBound,
 } from '@gapwise/contracts';
@@ -24,7 +28,14 @@ export type ProvenanceGroup = FormGroup<{
 }>;
 
 export type ParameterGroup = QuantityGroup & {
-  readonly controls: QuantityGroup['controls'] & { provenance: ProvenanceGroup };
+  readonly controls: QuantityGroup['controls'] & {
+    provenance: ProvenanceGroup;
+    /**
+     * Potentials only: the scale code (`SCE`, `Fc/MeCN`) the value is typed against, '' when not
+     * stated. The form keeps the value on that scale; the contract stores it vs SHE.
+     */
+    reference: FormControl<string>;
+  };
 };
 
 /** Each kind's lower bound (the pair model's, as the API checks on save), in words. */
@@ -77,11 +88,15 @@ export function defaultUnit(kind: ParameterKind): string {
 }
 
 export function createParameterGroup(kind: ParameterKind, p?: PairParameter): ParameterGroup {
+  const isPotential = PARAMETER_KINDS[kind].quantity === 'potential';
+  const split = isPotential && p ? splitPotentialUnit(p.unit) : null;
+  const code = split?.valid ? split.code : null;
   const group = createQuantityGroup(parameterSpec(kind), {
-    value: p?.value ?? null,
-    unit: p?.unit || defaultUnit(kind),
+    value: p ? potentialFromShe(p.value, code) : null,
+    unit: (split ? split.unit : p?.unit) || defaultUnit(kind),
     uncertainty: p?.uncertainty ?? null,
   }) as unknown as FormGroup;
+  group.addControl('reference', new FormControl(code ?? '', { nonNullable: true }));
   const prov = p?.provenance;
   group.addControl(
     'provenance',
@@ -156,10 +171,15 @@ export function parametersOf(form: PairForm): PairParameter[] {
     const value = g.controls.value.value;
     if (value === null || g.controls.text.value.trim() === '') continue;
     const p = g.controls.provenance.getRawValue();
+    const reference = g.controls.reference.value || null;
+    const potential = PARAMETER_KINDS[kind].quantity === 'potential';
     out.push({
       kind,
-      value,
-      unit: g.controls.unit.value,
+      // Converted by the core's reference-electrode offsets (drivingForce.reference): vs SHE.
+      value: potential ? potentialToShe(value, reference) : value,
+      unit: potential
+        ? referencedPotentialUnit(g.controls.unit.value, reference)
+        : g.controls.unit.value,
       uncertainty:
         g.controls.uncertaintyText.value.trim() === '' ? null : g.controls.uncertainty.value,
       provenance: {

@@ -73,7 +73,13 @@ function numberValidator(
     const parsed = parseStrictNumber(text);
     if (parsed === null)
       return { number: `${spec.label} is not a finite number (examples: 0.35, −1.2e-3).` };
-    if (isUncertainty) return parsed < 0 ? { rule: 'An uncertainty cannot be negative.' } : null;
+    if (isUncertainty) {
+      if (parsed < 0) return { rule: 'An uncertainty cannot be negative.' };
+      // A spread of wavelengths is not a spread of energies (E ∝ 1/λ): ask for it in eV.
+      if (unit() === 'nm' && spec.quantity === 'photonEnergy')
+        return { rule: `Give the uncertainty of ${spec.label} in eV, not nm.` };
+      return null;
+    }
     if (spec.rule) {
       const reason = spec.rule(canonicalOf(parsed, unit(), spec.quantity));
       if (reason) return { rule: reason };
@@ -102,7 +108,9 @@ export function createQuantityGroup(
     uncertaintyText: new FormControl(
       initial.uncertainty == null
         ? ''
-        : editableText(displayDifference(initial.uncertainty, initial.unit, spec.quantity)),
+        : initial.unit === 'nm'
+          ? '' // a σ never stands in nm (see the validator); only an API client could send one
+          : editableText(displayDifference(initial.uncertainty, initial.unit, spec.quantity)),
       { nonNullable: true, validators: numberValidator(spec, () => unit.value, true, true) },
     ),
     uncertainty: new FormControl<number | null>(initial.uncertainty ?? null),
@@ -142,7 +150,7 @@ export function typeUncertaintyText(group: QuantityGroup, spec: QuantitySpec, te
   group.controls.uncertaintyText.setValue(text);
   const parsed = group.controls.uncertaintyText.valid ? parseStrictNumber(text) : null;
   group.controls.uncertainty.setValue(
-    parsed === null || text.trim() === ''
+    parsed === null || text.trim() === '' || !group.controls.uncertaintyText.valid
       ? null
       : canonicalDifference(parsed, group.controls.unit.value, spec.quantity),
   );
@@ -197,9 +205,14 @@ export function switchQuantityUnit(
   }
   text.setValue(editableText(displayOf(value.value, unit, spec.quantity)));
   if (uncertainty.value !== null) {
-    uncertaintyText.setValue(
-      editableText(displayDifference(uncertainty.value, unit, spec.quantity)),
-    );
+    if (unit === 'nm' && spec.quantity === 'photonEnergy') {
+      // No wavelength spread stands for an energy spread: the σ text stays and is flagged.
+      uncertaintyText.updateValueAndValidity();
+    } else {
+      uncertaintyText.setValue(
+        editableText(displayDifference(uncertainty.value, unit, spec.quantity)),
+      );
+    }
   }
   return {
     mode: 'converted',

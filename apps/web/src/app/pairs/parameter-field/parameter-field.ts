@@ -27,6 +27,7 @@ import {
   typeUncertaintyText,
   type UnitChange,
 } from '../pair-form/quantity-control';
+import { ReferencePicker } from '../reference-picker/reference-picker';
 import { UnitChangeNote } from '../unit-change-note/unit-change-note';
 
 /** Shows a field's error as soon as it is edited, not only after leaving it. */
@@ -67,6 +68,7 @@ const PROVENANCE_WORDS: Record<string, string> = {
     MatTooltipModule,
     RichText,
     UnitChangeNote,
+    ReferencePicker,
   ],
   templateUrl: './parameter-field.html',
   styleUrl: './parameter-field.scss',
@@ -98,6 +100,9 @@ export class ParameterField {
     unitsFor(PARAMETER_KINDS[this.kind()].quantity as Quantity),
   );
   protected readonly fieldId = computed(() => `param-${this.kind()}`);
+  protected readonly isPotential = computed(
+    () => PARAMETER_KINDS[this.kind()].quantity === 'potential',
+  );
 
   /** What the last unit change did, shown for a moment under the field. */
   protected readonly unitChange = signal<UnitChange | null>(null);
@@ -127,6 +132,12 @@ export class ParameterField {
 
   protected typeUncertainty(text: string): void {
     typeUncertaintyText(this.group(), this.spec(), text);
+    this.edited.emit();
+  }
+
+  /** The number keeps its meaning on the newly picked reference (it is typed against it). */
+  protected pickReference(code: string): void {
+    this.group().controls.reference.setValue(code);
     this.edited.emit();
   }
 

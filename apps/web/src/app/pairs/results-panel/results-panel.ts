@@ -18,6 +18,7 @@ import type { MonteCarloState } from './monte-carlo';
 const MODEL_NAMES: Record<string, string> = {
   marcus: 'classical nonadiabatic Marcus',
   mlj: 'Marcus–Levich–Jortner (one quantum mode)',
+  mljThermal: 'thermal Marcus–Levich–Jortner (finite-temperature mode)',
   crossover: 'nonadiabatic-to-adiabatic crossover (solvent control)',
 };
 

@@ -78,6 +78,10 @@ export class ScreenDetail {
   protected readonly rates = PLOT_RATES;
   protected readonly colours = COLOUR_BY;
   protected readonly regimeLabel = REGIME_LABELS;
+  protected readonly couplingRegimeHelp = [
+    'Coupling regime from the Landau–Zener γ with ν_n = 10¹³ s⁻¹ (a screen has no τ_L):',
+    'nonadiabatic γ < 0.1, intermediate, adiabatic γ > 10.',
+  ];
   protected readonly warningLabel = WARNING_LABELS;
   protected readonly plotLimit = PLOT_LIMIT;
   protected readonly rate = signal<PlotRate>(PLOT_RATES[0]);
@@ -106,6 +110,7 @@ export class ScreenDetail {
     'log10kCrMlj',
     'regimeCs',
     'regimeCr',
+    'couplingRegime',
     'warnings',
     'score',
     'open',

@@ -21,6 +21,7 @@ const row = (i: number, over: Partial<ScreenResultRow> = {}): ScreenResultRow =>
   log10kCrMlj: null,
   regimeCs: 'normal',
   regimeCr: i % 2 ? 'inverted' : 'normal',
+  couplingRegime: 'nonadiabatic',
   warnings: [],
   score: i,
   ...over,
