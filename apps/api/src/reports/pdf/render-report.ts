@@ -11,6 +11,9 @@ import {
   formatReportDate,
   formatReportStatus,
   formatNumber,
+  reviewRounds,
+  reviewStatusText,
+  transitionText,
   type ReportPairSnapshot,
   type ReportReviewState,
   type ReportSnapshot,
@@ -138,10 +141,7 @@ function drawTitleBlock(cursor: Cursor, snapshot: ReportSnapshot, review: Report
   meta.push(['Workspace', snapshot.workspace.name]);
   meta.push(['Author', snapshot.author.displayName]);
   meta.push(['Snapshot taken', formatReportDate(snapshot.createdAt)]);
-  meta.push([
-    'Review status',
-    `${formatReportStatus(review.status)} (revision ${review.revision})`,
-  ]);
+  meta.push(['Review status', reviewStatusText(review.status, review.history)]);
   meta.push(['Software', `Gapwise ${snapshot.softwareVersion}; constants ${snapshot.constants}`]);
   meta.push(['Snapshot id', review.snapshotId]);
   const labelW = 92;
@@ -299,6 +299,7 @@ function drawReview(cursor: Cursor, snapshot: ReportSnapshot, review: ReportRevi
   if (review.history.length === 0) {
     cursor.text('No review decisions yet.', { size: 9, color: COLORS.muted });
   } else {
+    const rounds = reviewRounds(review.history);
     drawTable(
       cursor,
       [
@@ -307,12 +308,10 @@ function drawReview(cursor: Cursor, snapshot: ReportSnapshot, review: ReportRevi
         { header: 'Decision', width: 0.25 },
         { header: 'Note', width: 0.35 },
       ],
-      review.history.map((t) => [
+      review.history.map((t, i) => [
         formatReportDate(t.at),
         t.by.displayName,
-        t.from
-          ? `${formatReportStatus(t.from)} → ${formatReportStatus(t.to)}`
-          : `Created as ${formatReportStatus(t.to)}`,
+        transitionText(t, rounds[i]),
         t.note ?? '',
       ]),
     );

@@ -66,7 +66,7 @@ describe('PairEditor', { timeout: 40_000 }, () => {
     // Shown in the field's unit (cm⁻¹), stored canonically (eV).
     expect(Number(await field.getValue())).toBeCloseTo(coupling * CM1_PER_EV, 6);
     expect(await field.getProvenance()).toBe('Derived');
-    expect(await field.getDerivedMethod()).toBe('coupling.distanceDecay');
+    expect(await field.getDerivedMethod()).toBe('distance-decay');
     const group = fixture.componentInstance['form']().controls.parameters.controls.coupling;
     expect(group.controls.value.value).toBe(coupling);
     expect(group.controls.provenance.getRawValue()).toMatchObject({
