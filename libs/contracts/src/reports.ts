@@ -47,6 +47,11 @@ export interface ReportInterval {
   readonly percentiles: readonly [number, number];
   readonly samples: number;
   readonly seed: number;
+  /**
+   * The distribution of log10 k the interval summarises (bin edges, counts per bin), as the pair
+   * page draws it; absent in snapshots taken before it was kept.
+   */
+  readonly histogram?: { readonly edges: readonly number[]; readonly counts: readonly number[] };
 }
 
 /** The result of one rate model for the pair, or why it does not apply. */

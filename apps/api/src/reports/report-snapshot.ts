@@ -186,6 +186,12 @@ function monteCarlo(request: CalcRequest, pair: Pair): ReportInterval | null {
   ) {
     return null;
   }
+  const h = (answer.outputs['histograms'] as Record<string, unknown> | undefined)?.['log10k'] as
+    { edges?: unknown; counts?: unknown } | undefined;
+  const histogram =
+    h && Array.isArray(h.edges) && Array.isArray(h.counts) && h.edges.length === h.counts.length + 1
+      ? { edges: h.edges as number[], counts: h.counts as number[] }
+      : undefined;
   return {
     log10kMedian: log10k.median,
     log10kLow: log10k.p025,
@@ -193,6 +199,7 @@ function monteCarlo(request: CalcRequest, pair: Pair): ReportInterval | null {
     percentiles: [2.5, 97.5],
     samples: MONTE_CARLO_SAMPLES,
     seed: MONTE_CARLO_SEED,
+    ...(histogram ? { histogram } : {}),
   };
 }
 

@@ -22,7 +22,7 @@ import {
 import { FONT_REGULAR, FONT_SEMIBOLD, reportFonts } from './fonts';
 import { COLORS, Cursor, PAGE, drawNote, drawTable, type Doc } from './page-layout';
 import { drawRich, measureRich } from './rich-text';
-import { drawPairPlots, drawComparisonPlot } from './plots';
+import { drawComparisonPlot, drawMonteCarlo, drawPairPlots } from './plots';
 import {
   comparisonRow,
   hasUncertainties,
@@ -225,6 +225,7 @@ function drawPair(cursor: Cursor, snapshot: ReportSnapshot, pair: ReportPairSnap
     );
   }
   cursor.gap(4);
+  if (snapshot.kind === 'pair') drawMonteCarlo(cursor, pair);
   cursor.text(
     'k in s⁻¹ (first order); ΔG‡ is the classical activation free energy (ΔG° + λ)²/4λ; the interval propagates the stated 1σ ' +
       'uncertainties (normal distributions) through the chosen model.',
