@@ -189,6 +189,8 @@ describe('reports and review in chromium', () => {
     await reviewer.setViewportSize({ width: 1440, height: 900 });
     await shoot(reviewer, 'report-view-approved-1440');
     await reviewer.setViewportSize({ width: 390, height: 844 });
+    // On a phone the page keeps its width: tables scroll inside their cards, plots shrink.
+    await eventually(() => reviewer.evaluate(() => document.documentElement.scrollWidth)).toBe(390);
     await shoot(reviewer, 'report-view-approved-390');
     expect(gw.offLoopback).toEqual([]);
   });
