@@ -36,6 +36,10 @@ export class ReportTransitionEntity {
   @Column({ type: 'text', nullable: true })
   note: string | null;
 
+  /** The snapshot the transition acted on (null for rows written before it was recorded). */
+  @Column({ type: 'text', name: 'snapshot_id', nullable: true })
+  snapshotId: string | null;
+
   @ManyToOne(() => ReportEntity, { onDelete: 'CASCADE' })
   @JoinColumn({ name: 'report_id', foreignKeyConstraintName: 'FK_report_transitions_report' })
   report: Relation<ReportEntity>;

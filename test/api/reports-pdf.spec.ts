@@ -318,6 +318,81 @@ describe('report PDF as a document', () => {
     expect(readFileSync(`${png}.png`).subarray(1, 4).toString()).toBe('PNG');
   });
 
+  it('prints every provenance as a sentence with labels and units: no JSON, no record ids or hashes', async () => {
+    const traceA = '3f0c1a52-7d4e-4b1a-9c55-0e1f2a3b4c5d';
+    const traceB = '9a8b7c6d-5e4f-4a3b-8c2d-1e0f9a8b7c6d';
+    const series = '0e1d2c3b-4a59-4687-a5b4-c3d2e1f0a9b8';
+    const withProvenance = (
+      p: PairParameter,
+      provenance: PairParameter['provenance'],
+    ): PairParameter => ({
+      ...p,
+      provenance,
+    });
+    const p = await produce(
+      'provenance-sentences',
+      pairOf('Provenance', [
+        // As the pair page's helper dialog stores them: inputs typed with units.
+        withProvenance(param('deltaG0', -0.3, 'eV'), {
+          kind: 'derived',
+          methodId: 'drivingForce.rehmWeller',
+          methodInputs: {
+            donorOxidation: { value: 1.1, unit: 'V' },
+            acceptorReduction: { value: -0.6, unit: 'V' },
+            excitationEnergy: { value: 2.1, unit: 'eV' },
+            distance: { unit: 'A', value: 12 },
+          },
+        }),
+        // As a trace analysis writes them (apps/api/src/traces/trace-use-case.ts); the sources
+        // (which must name records of the workspace) are left out, the ids in the inputs stay.
+        withProvenance(param('lambdaOuter', 0.6, 'eV'), {
+          kind: 'derived',
+          methodId: 'reorg.gapSamples',
+          methodInputs: {
+            estimator: 'lambdaFromMeans',
+            temperature: 300,
+            reactantTraceId: traceA,
+            productTraceId: traceB,
+            reactantFileName: 'reactant.dat',
+            productFileName: 'product.dat',
+            reactantSha256: 'ab'.repeat(32),
+            productSha256: 'cd'.repeat(32),
+            reactantSamples: 4000,
+            productSamples: 4000,
+            skippedLines: 0,
+          },
+        }),
+        // As a series fit writes them (apps/api/src/series/series-use-case.ts).
+        withProvenance(param('lambdaInner', 0.2, 'eV'), {
+          kind: 'derived',
+          methodId: 'fit.drivingForceSeries',
+          methodInputs: { seriesId: series, seriesVersion: 1, model: 'marcus', points: 6 },
+          note: 'Fitted to series "Quinones" (marcus, 6 points).',
+        }),
+        withProvenance(param('coupling', 0.01, 'eV'), {
+          kind: 'literature',
+          citation: 'Group notebook, p. 7',
+        }),
+      ]),
+    );
+    const raw = execFileSync('pdftotext', ['-enc', 'UTF-8', p.file, '-'], { encoding: 'utf8' });
+    const text = raw.replace(/\s+/g, ' ');
+    expect(text).not.toContain('{"');
+    expect(text).not.toMatch(/[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}/i);
+    expect(text).not.toContain('abab');
+    expect(text).not.toContain('drivingForce.rehmWeller from');
+    for (const words of [
+      'Rehm–Weller helper',
+      'reactant.dat',
+      'product.dat',
+      'trace analysis',
+      'Quinones',
+      'From the literature',
+      '12 Å',
+    ])
+      expect(text, words).toContain(words);
+  });
+
   it('regenerates byte-identical PDFs from the same snapshot and review state', async () => {
     const p = await produce(
       'deterministic',

@@ -5,11 +5,20 @@
  * unchanged after the pair is edited, the waiting list, threaded anchored comments, and the PDF
  * stored once in S3-API object storage (s3rver) so the approved bytes are the downloaded bytes.
  */
-import { mkdtempSync } from 'node:fs';
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { ReportListItem, ReportView, Role } from '@gapwise/contracts';
+import {
+  reviewRevision,
+  reviewRounds,
+  reviewStatusText,
+  transitionText,
+  type ReportListItem,
+  type ReportView,
+  type Role,
+} from '@gapwise/contracts';
 import { startObjectStore, type ObjectStore } from '../../docker-free-scripts/s3/object-store';
 import { S3ReportPdfStore, reportPdfKey } from '../../apps/api/src/reports/report-pdf-store';
 import { pairBody } from './support/fixtures';
@@ -254,6 +263,55 @@ describe('review transitions', () => {
     expect(Buffer.compare(still, stored!)).toBe(0);
   });
 
+  it('numbers revisions by submissions, not by comments or status changes, and marks a changed snapshot', async () => {
+    const r = await newReport();
+    // Comments and decisions change the stored PDF, not the revision a reviewer knows.
+    await users.author
+      .post(`/api/reports/${r.reportId}/comments`, { body: 'Draft note' })
+      .expect(201);
+    await users.author.post(`/api/reports/${r.reportId}/submit`).expect(200);
+    await users.reviewer.post(`/api/reports/${r.reportId}/comments`, { body: 'λ?' }).expect(201);
+    await users.reviewer.post(`/api/reports/${r.reportId}/request-changes`).expect(200);
+    const pair = (await users.author.get(`/api/pairs/${pairId}`).expect(200)).body;
+    const edited = pairBody({ name: 'DA-3' });
+    (edited.parameters[0] as { value: number }).value = -0.55;
+    await users.author
+      .put(`/api/pairs/${pairId}`, { ...edited, version: pair.version })
+      .expect(200);
+    await users.author.post(`/api/reports/${r.reportId}/revise`).expect(200);
+    await users.author.post(`/api/reports/${r.reportId}/submit`).expect(200);
+    const approved = (await users.reviewer.post(`/api/reports/${r.reportId}/approve`).expect(200))
+      .body as ReportView;
+    // Stored counter (keys the cached PDF) moved with every change; the reviewer saw 2 submissions.
+    expect(approved.revision).toBeGreaterThan(2);
+    expect(reviewRevision(approved.history)).toBe(2);
+    expect(reviewStatusText(approved.status, approved.history)).toBe('Approved, revision 2');
+    const submits = approved.history.filter((h) => h.to === 'submitted');
+    expect(submits[0].snapshotId).toBe(r.snapshotId);
+    expect(submits[1].snapshotId).toBe(approved.snapshotId);
+    expect(submits[1].snapshotId).not.toBe(submits[0].snapshotId);
+    const rounds = reviewRounds(approved.history);
+    const decisions = approved.history.map((h, i) => transitionText(h, rounds[i]));
+    expect(decisions).toEqual([
+      'Created as Draft',
+      'Draft → Submitted (revision 1)',
+      'Submitted → Changes requested',
+      'Changes requested → Submitted (revision 2; snapshot changed since revision 1)',
+      'Submitted → Approved',
+    ]);
+    // The PDF says the same.
+    const file = join(mkdtempSync(join(tmpdir(), 'gapwise-pdf-')), 'r.pdf');
+    writeFileSync(file, (await pdfOf(users.viewer, r.reportId).expect(200)).body as Buffer);
+    const text = execFileSync('pdftotext', ['-enc', 'UTF-8', file, '-'], {
+      encoding: 'utf8',
+    }).replace(/\s+/g, ' ');
+    expect(text).toContain('Approved, revision 2');
+    expect(text).toContain('snapshot changed since revision 1');
+    expect(text).not.toMatch(/revision [3-9]/);
+    const csv = await users.viewer.get(`/api/reports/${r.reportId}/export?format=csv`).expect(200);
+    expect(csv.text).toContain('report,,,,,revision,2,');
+  });
+
   it('delete: owners and editors, not reviewers or viewers, not once approved', async () => {
     const r = await newReport();
     await users.reviewer.delete(`/api/reports/${r.reportId}`).expect(403);
@@ -278,9 +336,16 @@ describe('comments and the waiting list', () => {
     ).body as ReportView;
     const parent = first.comments[0];
     expect(parent.anchor).toBe('coupling');
-    await t.mail.waitFor(
-      (x) => x.to.includes(users.author.email.toLowerCase()) && x.subject.startsWith('New comment'),
+    const notice = await t.mail.waitFor(
+      (x) =>
+        x.to.includes(users.author.email.toLowerCase()) &&
+        x.text.includes('Where does the coupling come from?'),
     );
+    // The parameter by the label the report prints, not its code name.
+    const label = r.snapshot.pairs[0].inputs.find((i) => i.kind === 'coupling')!.label;
+    expect(label).toContain('coupling');
+    expect(notice.text).toContain(`commented on ${label} in the report "${r.title}"`);
+    expect(notice.text).not.toMatch(/commented on coupling\b/);
     const reply = (
       await users.author
         .post(`/api/reports/${r.reportId}/comments`, {

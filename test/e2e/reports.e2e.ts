@@ -107,6 +107,9 @@ describe('reports and review in chromium', () => {
     await eventually(() => reviewer.locator('tr[data-kind="coupling"] .count').textContent()).toBe(
       '1 comment',
     );
+    // The author's notice names the parameter by its label, not its code name.
+    const notice = await waitForMail(mailUrl, EDITOR, /^New comment: DA-1/);
+    expect(notice.text).toContain('on Electronic coupling |H_AB| in the report');
     await reviewer.getByLabel('Note with your decision (optional)').fill('Cite the coupling run.');
     await reviewer.getByRole('button', { name: 'Request changes' }).click();
     await eventually(() => status(reviewer).textContent()).toBe('Changes requested');
@@ -168,11 +171,27 @@ describe('reports and review in chromium', () => {
     );
     expect(await reviewer.getByRole('button', { name: 'Post comment' }).count()).toBe(0);
     await waitForMail(mailUrl, EDITOR, /^Approved: DA-1/);
+    // Revisions count what the reviewer saw: two submissions, the second of a new snapshot.
+    await eventually(() => reviewer.getByTestId('review-status').textContent()).toBe(
+      'Approved, revision 2',
+    );
+    const decisions = await reviewer.locator('td.decision').allTextContents();
+    expect(decisions.map((d) => d.trim())).toContain(
+      'Changes requested → Submitted (revision 2; snapshot changed since revision 1)',
+    );
     const text = await downloadPdf(reviewer, 'e2e-da1-approved');
     expect(text).toContain('DA-1');
     expect(text).toContain(after);
     expect(text.toLowerCase()).toContain('approved');
+    expect(text).toContain('Approved, revision 2');
+    expect(text).not.toContain('{"');
     await shoot(reviewer, 'report-view-approved');
+    await reviewer.setViewportSize({ width: 1440, height: 900 });
+    await shoot(reviewer, 'report-view-approved-1440');
+    await reviewer.setViewportSize({ width: 390, height: 844 });
+    // On a phone the page keeps its width: tables scroll inside their cards, plots shrink.
+    await eventually(() => reviewer.evaluate(() => document.documentElement.scrollWidth)).toBe(390);
+    await shoot(reviewer, 'report-view-approved-390');
     expect(gw.offLoopback).toEqual([]);
   });
 
@@ -189,7 +208,11 @@ describe('reports and review in chromium', () => {
     // Inputs with units and provenance.
     const coupling = reviewer.locator('tr[data-kind="coupling"]');
     await eventually(() => coupling.textContent()).toContain('120 cm⁻¹');
-    expect(await coupling.textContent()).toMatch(/Derived/i);
+    // Provenance as a sentence: the helper by name, its inputs with labels and units, no JSON.
+    expect(await coupling.textContent()).toContain(
+      'Derived with the generalized Mulliken–Hush helper',
+    );
+    expect(await reviewer.locator('table[aria-label="Inputs"]').textContent()).not.toContain('{');
     const lambdaInner = reviewer.locator('tr[data-kind="lambdaInner"]');
     expect(await lambdaInner.textContent()).toContain('gw-calc-040');
     // Subscripts as in the PDF, derivation inputs with units, no raw markup in the equations.

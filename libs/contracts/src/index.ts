@@ -7,6 +7,13 @@ export * from './workspaces';
 export * from './pair-model';
 export * from './reports';
 export * from './report-format';
+export {
+  provenanceParts,
+  provenanceHref,
+  helperName,
+  type ProvenanceLink,
+  type ProvenancePart,
+} from './provenance-text';
 export * from './traces';
 export * from './screens';
 export * from './rich-text';

@@ -1,6 +1,6 @@
-import { methodCatalog } from '@gapwise/calc';
-import type { Provenance } from './pairs';
 import type { ReportModelResult } from './reports';
+
+export { provenanceText } from './provenance-text';
 
 /**
  * The one number formatter of Gapwise (reports, PDFs and every web page), so a number reads the
@@ -191,51 +191,6 @@ export const MODEL_NAMES: Readonly<Record<string, string>> = {
 
 export function modelName(model: string): string {
   return MODEL_NAMES[model] ?? model;
-}
-
-let methodInputs: Map<string, Map<string, { label: string; unit: string }>> | null = null;
-
-/** First letter in lower case unless the label starts with a symbol or acronym ("E_ox", "ΔE°"). */
-function inSentence(label: string): string {
-  return /^[A-Z][a-z]/.test(label) ? label.charAt(0).toLowerCase() + label.slice(1) : label;
-}
-
-/**
- * A derivation input by its label, with its canonical unit from the method catalog:
- * "donor radius a_D = 5.5 Å", "ion-pair distance R = 10.8 Å".
- */
-function methodInputText(methodId: string, name: string, value: unknown): string {
-  methodInputs ??= new Map(
-    methodCatalog().map((m) => [m.id, new Map(m.inputs.map((i) => [i.name, i]))]),
-  );
-  const input = methodInputs.get(methodId)?.get(name);
-  const label = input ? inSentence(input.label) : name;
-  if (typeof value !== 'number') return `${label} = ${JSON.stringify(value)}`;
-  const unit = displayUnit(input?.unit ?? '');
-  return `${label} = ${unit ? `${formatNumber(value)} ${unit}` : formatNumber(value)}`;
-}
-
-/**
- * "Literature: Smith et al. 2020" / "Derived: reorg.twoSphere from donor radius a_D = 5.5 Å, …"
- * (method inputs by their labels, with their canonical units).
- */
-export function provenanceText(p: Provenance): string {
-  const kind = p.kind.charAt(0).toUpperCase() + p.kind.slice(1);
-  const parts: string[] = [];
-  if (p.citation) parts.push(p.citation);
-  if (p.methodId) {
-    const inputs = p.methodInputs
-      ? Object.entries(p.methodInputs)
-          .map(([k, v]) => methodInputText(p.methodId!, k, v))
-          .join(', ')
-      : '';
-    parts.push(inputs ? `${p.methodId} from ${inputs}` : p.methodId);
-  }
-  // Source records are listed only when the method's inputs are not (they name the same values).
-  if (p.sources && p.sources.length > 0 && !p.methodInputs)
-    parts.push(`sources: ${p.sources.map((s) => `${s.type} ${s.id}`).join(', ')}`);
-  if (p.note) parts.push(p.note);
-  return parts.length > 0 ? `${kind}: ${parts.join('; ')}` : kind;
 }
 
 /** "log10 k 10.62 – 11.21 (95 %, median 10.95; 2000 samples)". */

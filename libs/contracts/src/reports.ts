@@ -47,6 +47,11 @@ export interface ReportInterval {
   readonly percentiles: readonly [number, number];
   readonly samples: number;
   readonly seed: number;
+  /**
+   * The distribution of log10 k the interval summarises (bin edges, counts per bin), as the pair
+   * page draws it; absent in snapshots taken before it was kept.
+   */
+  readonly histogram?: { readonly edges: readonly number[]; readonly counts: readonly number[] };
 }
 
 /** The result of one rate model for the pair, or why it does not apply. */
@@ -130,6 +135,69 @@ export interface ReportTransitionView {
   readonly by: { readonly id: string; readonly displayName: string };
   readonly at: string;
   readonly note: string | null;
+  /** The snapshot the transition acted on; null for transitions recorded before it was kept. */
+  readonly snapshotId?: string | null;
+}
+
+/** What a transition of the review history means to the reader (see `reviewRounds`). */
+export interface ReviewRound {
+  /** For a submission: its number, 1 for the first (the revision a reviewer saw). */
+  readonly submission: number | null;
+  /**
+   * For a submission after the first: whether the snapshot differs from the one submitted
+   * before (the author revised it from newer pair versions); null when either is unknown.
+   */
+  readonly snapshotChanged: boolean | null;
+}
+
+/** One entry per transition, in order: submissions numbered, snapshot changes marked. */
+export function reviewRounds(history: readonly ReportTransitionView[]): ReviewRound[] {
+  let submission = 0;
+  let previous: string | null | undefined;
+  return history.map((t) => {
+    if (t.to !== 'submitted') return { submission: null, snapshotChanged: null };
+    submission += 1;
+    const now = t.snapshotId ?? null;
+    const changed = submission === 1 || !previous || !now ? null : previous !== now;
+    previous = now;
+    return { submission, snapshotChanged: changed };
+  });
+}
+
+/**
+ * The revision a reviewer knows: how many times the report was submitted (comments and status
+ * changes in between are not revisions). 0 while it was never submitted.
+ */
+export function reviewRevision(history: readonly ReportTransitionView[]): number {
+  return history.filter((t) => t.to === 'submitted').length;
+}
+
+/** "Approved, revision 2" / "Draft, not yet submitted". */
+export function reviewStatusText(
+  status: ReportStatus,
+  history: readonly ReportTransitionView[],
+): string {
+  const s = status.replace(/-/g, ' ');
+  const label = s.charAt(0).toUpperCase() + s.slice(1);
+  const n = reviewRevision(history);
+  return n === 0 ? `${label}, not yet submitted` : `${label}, revision ${n}`;
+}
+
+/** The decision column of the review history: "Draft → Submitted (revision 2, snapshot changed)". */
+export function transitionText(t: ReportTransitionView, round: ReviewRound): string {
+  const label = (x: string) => {
+    const s = x.replace(/-/g, ' ');
+    return s.charAt(0).toUpperCase() + s.slice(1);
+  };
+  const move = t.from ? `${label(t.from)} → ${label(t.to)}` : `Created as ${label(t.to)}`;
+  if (round.submission === null) return move;
+  const change =
+    round.snapshotChanged === true
+      ? `; snapshot changed since revision ${round.submission - 1}`
+      : round.snapshotChanged === false
+        ? `; same snapshot as revision ${round.submission - 1}`
+        : '';
+  return `${move} (revision ${round.submission}${change})`;
 }
 
 export interface ReportCommentView {

@@ -3,7 +3,7 @@
  * review status) and CSV in long form, one value per row at full double precision, canonical
  * units named as in CALC-API.md.
  */
-import { csvCell, type ReportView } from '@gapwise/contracts';
+import { csvCell, reviewRevision, type ReportView } from '@gapwise/contracts';
 import { provenanceText } from './pdf/report-text';
 
 export const CSV_COLUMNS = [
@@ -27,7 +27,8 @@ export function reportCsv(view: ReportView): string {
   const meta: Array<[string, unknown]> = [
     ['report_id', view.reportId],
     ['snapshot_id', view.snapshotId],
-    ['revision', view.revision],
+    // The revision a reviewer knows: the number of submissions.
+    ['revision', reviewRevision(view.history)],
     ['status', view.status],
     ['title', s.title],
     ['workspace', s.workspace.name],

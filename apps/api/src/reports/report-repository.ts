@@ -174,11 +174,12 @@ export async function insertTransition(
   to: ReportStatus,
   byId: string,
   note: string | null,
+  snapshotId: string,
 ): Promise<void> {
   await db.query(
-    `INSERT INTO report_transitions (report_id, from_status, to_status, by_id, note, at)
-     VALUES ($1, $2, $3, $4, $5, clock_timestamp())`,
-    [reportId, from, to, byId, note],
+    `INSERT INTO report_transitions (report_id, from_status, to_status, by_id, note, snapshot_id, at)
+     VALUES ($1, $2, $3, $4, $5, $6, clock_timestamp())`,
+    [reportId, from, to, byId, note, snapshotId],
   );
 }
 
@@ -187,7 +188,7 @@ export async function listTransitions(
   reportId: string,
 ): Promise<ReportTransitionView[]> {
   const rows = await db.query(
-    `SELECT t.from_status, t.to_status, t.by_id, t.at, t.note, COALESCE(u.display_name, 'former member') AS name
+    `SELECT t.from_status, t.to_status, t.by_id, t.at, t.note, t.snapshot_id, COALESCE(u.display_name, 'former member') AS name
        FROM report_transitions t LEFT JOIN users u ON u.id = t.by_id
       WHERE t.report_id = $1 ORDER BY t.at, t.id`,
     [reportId],
@@ -198,6 +199,7 @@ export async function listTransitions(
     by: { id: r.by_id ?? '', displayName: r.name },
     at: iso(r.at),
     note: r.note,
+    snapshotId: r.snapshot_id ?? null,
   }));
 }
 

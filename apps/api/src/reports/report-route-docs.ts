@@ -199,7 +199,11 @@ export const REPORT_SCHEMAS: Record<string, Schema> = {
     author: who,
     pairIds: { type: 'array', items: str },
     snapshotId: { ...str, description: 'SHA-256 of the canonical snapshot JSON' },
-    revision: num,
+    revision: {
+      ...num,
+      description:
+        'Stored counter, grows with every change the PDF shows (keys the stored PDF); readers see revisions numbered by submissions (reviewRevision of the history)',
+    },
     status,
     snapshot: {
       type: 'object',
@@ -208,7 +212,18 @@ export const REPORT_SCHEMAS: Record<string, Schema> = {
     },
     history: {
       type: 'array',
-      items: obj({ from: nullable(status), to: status, by: who, at: str, note: nullable(str) }),
+      items: obj({
+        from: nullable(status),
+        to: status,
+        by: who,
+        at: str,
+        note: nullable(str),
+        snapshotId: {
+          ...nullable(str),
+          description:
+            'the snapshot the transition acted on; null for transitions recorded before it was kept',
+        },
+      }),
     },
     comments: {
       type: 'array',

@@ -158,6 +158,7 @@ function monteCarlo(source: PairRateSource, model: RateModel): ReportInterval | 
     percentiles: [2.5, 97.5],
     samples: run.samples,
     seed: run.seed,
+    ...(run.histogram ? { histogram: run.histogram } : {}),
   };
 }
 

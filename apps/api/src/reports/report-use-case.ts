@@ -207,7 +207,7 @@ export async function createReport(
       snapshot,
       snapshotId,
     });
-    await repo.insertTransition(tx, reportId, null, 'draft', userId, null);
+    await repo.insertTransition(tx, reportId, null, 'draft', userId, null, snapshotId);
     await recordAudit(tx, {
       workspaceId,
       actorId: userId,
@@ -305,7 +305,15 @@ export async function transitionReport(
       throw forbidden('The author of a report cannot approve it; another reviewer must.');
     }
     await repo.setStatus(tx, reportId, rule.to);
-    await repo.insertTransition(tx, reportId, report.status, rule.to, userId, note);
+    await repo.insertTransition(
+      tx,
+      reportId,
+      report.status,
+      rule.to,
+      userId,
+      note,
+      report.snapshotId,
+    );
     const actor = await repo.userContact(tx, userId);
     await recordAudit(tx, {
       workspaceId: report.workspaceId,
@@ -441,6 +449,12 @@ export async function commentOnReport(
       message: `must be one of the report's parameters: ${[...anchors].join(', ')}`,
     });
   }
+  // The parameter as the report labels it ("Electronic coupling |H_AB|", subscripts written
+  // with _ in plain-text mail), never its code name.
+  const anchorLabel = input.anchor
+    ? (seen.snapshot.pairs.flatMap((p) => p.inputs).find((i) => i.kind === input.anchor)?.label ??
+      input.anchor)
+    : null;
   await db.transaction(async (tx) => {
     const report = await repo.findReport(tx, reportId, true);
     if (!report) throw notFound('report');
@@ -459,7 +473,7 @@ export async function commentOnReport(
       action: 'report.comment',
       entityType: 'report',
       entityId: reportId,
-      summary: `Comment on report "${report.title}"${input.anchor ? ` (on ${input.anchor})` : ''}`,
+      summary: `Comment on report "${report.title}"${anchorLabel ? ` (on ${anchorLabel})` : ''}`,
       after: { commentId, anchor: input.anchor, parentId: input.parentId },
     });
     // Tell the author, and the author of the comment replied to.
@@ -476,7 +490,7 @@ export async function commentOnReport(
         if (p) recipients.push(p);
       }
     }
-    const on = input.anchor ? ` on ${input.anchor}` : '';
+    const on = anchorLabel ? ` on ${anchorLabel} in` : ' on';
     await notify(
       tx,
       deps,
@@ -484,7 +498,7 @@ export async function commentOnReport(
       reportId,
       recipients,
       `New comment: ${report.title}`,
-      `${actor?.displayName ?? 'A member'} commented${on} on the report "${report.title}":\n\n${input.body}\n\n` +
+      `${actor?.displayName ?? 'A member'} commented${on} the report "${report.title}":\n\n${input.body}\n\n` +
         `Open it: ${reportLink(deps, report)}\n`,
     );
   });

@@ -424,6 +424,8 @@ export async function applySeries(
     const methodInputs = {
       seriesId: id,
       seriesVersion: series.version,
+      // The provenance sentence names the series; the id links to it.
+      seriesName: series.name,
       model,
       points: series.points.length,
       temperature: series.temperature,

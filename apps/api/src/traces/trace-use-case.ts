@@ -407,6 +407,9 @@ export async function attachAnalysis(
       temperature: result.temperatureK,
       reactantTraceId: analysis.reactantTraceId,
       productTraceId: analysis.productTraceId,
+      // The provenance sentence names the traces by their files (ids and hashes stay for audits).
+      reactantFileName: result.sources.reactant.fileName,
+      productFileName: result.sources.product.fileName,
       reactantSha256: result.sources.reactant.sha256,
       productSha256: result.sources.product.sha256,
       reactantSamples: result.sources.reactant.sampleCount,

@@ -4,6 +4,7 @@
  * it onto a pdfkit page.
  */
 import {
+  LabelSpace,
   drivingForceCurves,
   linePath,
   linearScale,
@@ -13,13 +14,18 @@ import {
   type LinearScale,
 } from '@gapwise/plots';
 import {
+  formatFixed,
   formatNumber,
   pairPlotInputs,
   pairRateRequest,
+  modelName,
+  plainText,
+  type ParameterKind,
   type ReportPairSnapshot,
 } from '@gapwise/contracts';
+import { FONT_REGULAR, FONT_SEMIBOLD } from './fonts';
 import { COLORS, type Cursor, type Doc } from './page-layout';
-import { drawRich } from './rich-text';
+import { drawRich, measureRich } from './rich-text';
 import { inputValue, primaryResult, sourceOf, totalLambda } from './report-text';
 
 interface Frame {
@@ -44,20 +50,89 @@ const SERIES_COLORS = [
   COLORS.charcoal,
 ];
 
-/** Frame with axes, ticks, grid and labels; returns the scales of the inner plotting area. */
+interface LegendItem {
+  readonly label: string;
+  readonly color: string;
+  readonly dash?: boolean;
+  /** A marker, not a line (the legend sits above the data area, so it never reads as data). */
+  readonly dot?: boolean;
+}
+
+const LEGEND_ROW = 10;
+const LEGEND_SIZE = 7;
+const LEGEND_KEY = 22;
+
+/** Legend items laid out in rows of the given width: each item's offset, and the row count. */
+function legendLayout(
+  doc: Doc,
+  items: readonly LegendItem[],
+  width: number,
+): { at: Array<{ x: number; row: number }>; rows: number } {
+  doc.font(FONT_REGULAR).fontSize(LEGEND_SIZE);
+  const at: Array<{ x: number; row: number }> = [];
+  let x = 0;
+  let row = 0;
+  for (const item of items) {
+    const w = LEGEND_KEY + doc.widthOfString(plainText(item.label)) + 12;
+    if (x > 0 && x + w > width) {
+      row += 1;
+      x = 0;
+    }
+    at.push({ x, row });
+    x += w;
+  }
+  return { at, rows: items.length ? row + 1 : 0 };
+}
+
+/**
+ * The legend in rows above the plotting area, outside the data: a line key per curve and a ring
+ * for a marked point (a filled dot inside the frame is data, never a legend key).
+ */
+function drawLegend(doc: Doc, x0: number, y0: number, width: number, items: readonly LegendItem[]) {
+  const { at } = legendLayout(doc, items, width);
+  items.forEach((item, i) => {
+    const x = x0 + at[i].x;
+    const y = y0 + at[i].row * LEGEND_ROW;
+    if (item.dot) doc.circle(x + 9, y + 4, 3).fill(item.color);
+    else
+      strokePath(
+        doc,
+        `M${x},${y + 4}L${x + 18},${y + 4}`,
+        item.color,
+        1.4,
+        item.dash ? 3 : undefined,
+      );
+    drawRich(doc, item.label, x + LEGEND_KEY, y - 0.5, width - at[i].x - LEGEND_KEY, {
+      size: LEGEND_SIZE,
+      color: COLORS.text,
+    });
+  });
+}
+
+/**
+ * Frame with title, legend (above the data area), axes, ticks, grid and labels; returns the
+ * scales of the inner plotting area.
+ */
 function drawAxes(
   doc: Doc,
   frame: Frame,
   xDomain: readonly [number, number],
   yDomain: readonly [number, number],
   labels: { x: string; y: string; title: string },
+  legendItems: readonly LegendItem[] = [],
 ): Axes {
+  const legendRows = legendLayout(doc, legendItems, frame.width - 40).rows;
+  // A long title wraps: the legend and the plotting area start below it.
+  const titleH = measureRich(doc, labels.title, frame.width, { size: 9, bold: true });
+  const legendY = frame.y + titleH + 3;
+  const top = titleH + 6 + legendRows * LEGEND_ROW + (legendRows ? 3 : 0);
   const inner: Frame = {
     x: frame.x + 40,
-    y: frame.y + 18,
+    y: frame.y + top,
     width: frame.width - 50,
-    height: frame.height - 50,
+    height: frame.height - 32 - top,
   };
+  drawLegend(doc, inner.x, legendY, frame.width - 40, legendItems);
   const sx = linearScale(xDomain, [inner.x, inner.x + inner.width]);
   const sy = linearScale(yDomain, [inner.y + inner.height, inner.y]);
   drawRich(doc, labels.title, frame.x, frame.y, frame.width, { size: 9, bold: true });
@@ -114,6 +189,11 @@ function drawAxes(
   return { sx, sy, inner };
 }
 
+/** The pair's own point: a filled dot with a white ring, the legend's ring names it. */
+function pairMarker(doc: Doc, x: number, y: number): void {
+  doc.circle(x, y, 3.2).lineWidth(1).fillAndStroke(COLORS.text, '#ffffff');
+}
+
 function clipTo(doc: Doc, inner: Frame): void {
   doc.save();
   doc.rect(inner.x, inner.y, inner.width, inner.height).clip();
@@ -127,38 +207,17 @@ function strokePath(doc: Doc, d: string, color: string, width = 1.4, dash?: numb
   doc.restore();
 }
 
-function legend(
-  doc: Doc,
-  inner: Frame,
-  items: ReadonlyArray<{ label: string; color: string; dash?: boolean; dot?: boolean }>,
-): void {
-  let y = inner.y + 5;
-  for (const item of items) {
-    const x = inner.x + inner.width - 118;
-    if (item.dot) doc.circle(x + 9, y + 4, 2.6).fill(item.color);
-    else
-      strokePath(
-        doc,
-        `M${x},${y + 4}L${x + 18},${y + 4}`,
-        item.color,
-        1.4,
-        item.dash ? 3 : undefined,
-      );
-    drawRich(doc, item.label, x + 22, y - 0.5, 96, { size: 7, color: COLORS.text });
-    y += 10;
-  }
-}
-
-/** Vertical double-headed arrow with a label to its right. */
-function arrow(doc: Doc, x: number, y0: number, y1: number, label: string, color: string): void {
+/** Vertical double-headed arrow (its label is placed separately, clear of every line). */
+function arrow(doc: Doc, x: number, y0: number, y1: number, color: string): void {
   if (Math.abs(y1 - y0) < 4) return;
   doc.moveTo(x, y0).lineTo(x, y1).lineWidth(0.8).strokeColor(color).stroke();
   const head = (y: number, dir: number) =>
     doc.polygon([x, y], [x - 2.5, y - 4.5 * dir], [x + 2.5, y - 4.5 * dir]).fill(color);
   head(y1, y1 > y0 ? 1 : -1);
   head(y0, y0 > y1 ? 1 : -1);
-  drawRich(doc, label, x + 3, (y0 + y1) / 2 - 5, 40, { size: 7.5, bold: true, color });
 }
+
+const ARROW_LABEL_SIZE = 7.5;
 
 /**
  * True when a plot's geometry is all finite numbers with a non-empty, finite span on each axis.
@@ -195,11 +254,26 @@ export function drawParabolas(doc: Doc, frame: Frame, pair: ReportPairSnapshot):
     )
   )
     return false;
-  const axes = drawAxes(doc, frame, g.gapDomain, g.energyDomain, {
-    title: 'Free-energy curves along the energy gap',
-    x: 'Energy gap ΔE = E_P − E_R (eV)',
-    y: 'Free energy (eV)',
-  });
+  const axes = drawAxes(
+    doc,
+    frame,
+    g.gapDomain,
+    g.energyDomain,
+    {
+      title: 'Free-energy curves along the energy gap',
+      x: 'Energy gap ΔE = E_P − E_R (eV)',
+      y: 'Free energy (eV)',
+    },
+    [
+      { label: 'Reactant diabat', color: COLORS.reactant },
+      { label: 'Product diabat', color: COLORS.product },
+      {
+        label: `Adiabatic surfaces (2|H_AB| = ${formatNumber(2 * Math.abs(coupling), 3)} eV)`,
+        color: COLORS.charcoal,
+        dash: true,
+      },
+    ],
+  );
   const { sx, sy, inner } = axes;
   clipTo(doc, inner);
   const at = (key: 'reactant' | 'product' | 'lower' | 'upper') =>
@@ -208,23 +282,67 @@ export function drawParabolas(doc: Doc, frame: Frame, pair: ReportPairSnapshot):
   strokePath(doc, linePath(at('upper'), sx, sy), COLORS.charcoal, 1, 3);
   strokePath(doc, linePath(at('reactant'), sx, sy), COLORS.reactant, 1.6);
   strokePath(doc, linePath(at('product'), sx, sy), COLORS.product, 1.6);
-  doc.circle(sx(g.crossing.gap), sy(g.crossing.energy), 2.4).fill(COLORS.text);
-  for (const a of g.arrows) {
-    if (a.id === 'splitting') continue;
-    const color =
-      a.id === 'activation' ? COLORS.teal : a.id === 'lambda' ? COLORS.product : COLORS.amber;
-    arrow(doc, sx(a.gap), sy(a.from), sy(a.to), a.label, color);
+  const cx = sx(g.crossing.gap);
+  const cy = sy(g.crossing.energy);
+  doc.circle(cx, cy, 2.4).fill(COLORS.text);
+  // Room for the arrow labels: every curve, arrow and the crossing are obstacles (LabelSpace of
+  // @gapwise/plots, as on the pair page), so no label sits on a line or on the crossing.
+  const space = new LabelSpace({ x: 0, y: 0, width: inner.width, height: inner.height }, 2);
+  const local = (x: number, y: number) => ({ x: x - inner.x, y: y - inner.y });
+  for (const key of ['reactant', 'product', 'lower', 'upper'] as const)
+    space.addPolyline(
+      g.points.map((p) => local(sx(p.gap), sy(p[key]))),
+      2,
+    );
+  space.addBox({ x: cx - inner.x - 4, y: cy - inner.y - 4, width: 8, height: 8 }, 2);
+  const shown = g.arrows.filter((a) => a.id !== 'splitting');
+  for (const a of shown) {
+    space.addPolyline([local(sx(a.gap), sy(a.from)), local(sx(a.gap), sy(a.to))], 2);
   }
+  const colorOf = (id: string) =>
+    id === 'activation' ? COLORS.teal : id === 'lambda' ? COLORS.product : COLORS.amber;
+  for (const a of shown) arrow(doc, sx(a.gap), sy(a.from), sy(a.to), colorOf(a.id));
   doc.restore();
-  legend(doc, inner, [
-    { label: 'Reactant diabat', color: COLORS.reactant },
-    { label: 'Product diabat', color: COLORS.product },
-    {
-      label: `Adiabatic (2|H_AB| = ${formatNumber(2 * Math.abs(coupling), 3)} eV)`,
-      color: COLORS.charcoal,
-      dash: true,
-    },
-  ]);
+  doc.font(FONT_SEMIBOLD).fontSize(ARROW_LABEL_SIZE);
+  for (const a of shown) {
+    const x = sx(a.gap) - inner.x;
+    const y0 = sy(a.from) - inner.y;
+    const y1 = sy(a.to) - inner.y;
+    const w = doc.widthOfString(plainText(a.label)) + 2;
+    const h = ARROW_LABEL_SIZE + 3;
+    const mid = (y0 + y1) / 2 - h / 2;
+    const placed = space.place(
+      [
+        { x, y: y0 },
+        { x, y: y1 },
+      ],
+      w,
+      h,
+      {
+        preferred: [
+          { x: x + 3, y: mid, width: w, height: h },
+          { x: x - 3 - w, y: mid, width: w, height: h },
+        ],
+        leaderFrom: 8,
+      },
+    );
+    if (!placed) continue;
+    const color = colorOf(a.id);
+    if (placed.leader) {
+      const [from, to] = placed.leader;
+      doc
+        .moveTo(from.x + inner.x, from.y + inner.y)
+        .lineTo(to.x + inner.x, to.y + inner.y)
+        .lineWidth(0.4)
+        .strokeColor(color)
+        .stroke();
+    }
+    drawRich(doc, a.label, placed.box.x + inner.x + 1, placed.box.y + inner.y + 1, w + 4, {
+      size: ARROW_LABEL_SIZE,
+      bold: true,
+      color,
+    });
+  }
   return true;
 }
 
@@ -244,11 +362,18 @@ export function drawDrivingForce(doc: Doc, frame: Frame, pair: ReportPairSnapsho
     )
   )
     return false;
-  const { sx, sy, inner } = drawAxes(doc, frame, g.domain, g.log10kDomain, {
-    title: 'Rate against driving force',
-    x: '−ΔG° (eV)',
-    y: 'log10 (k / s⁻¹)',
-  });
+  const { sx, sy, inner } = drawAxes(
+    doc,
+    frame,
+    g.domain,
+    g.log10kDomain,
+    { title: 'Rate against driving force', x: '−ΔG° (eV)', y: 'log10 (k / s⁻¹)' },
+    [
+      { label: 'Classical Marcus', color: COLORS.teal },
+      ...(g.hasMlj ? [{ label: 'MLJ', color: COLORS.amber, dash: true }] : []),
+      ...(g.pair ? [{ label: 'This pair', color: COLORS.text, dot: true }] : []),
+    ],
+  );
   clipTo(doc, inner);
   const x0 = Math.max(sx(g.invertedFrom), inner.x);
   doc
@@ -279,17 +404,12 @@ export function drawDrivingForce(doc: Doc, frame: Frame, pair: ReportPairSnapsho
       4,
     );
   }
-  if (g.pair) doc.circle(sx(g.pair.x), sy(g.pair.y), 3).fill(COLORS.text);
+  if (g.pair) pairMarker(doc, sx(g.pair.x), sy(g.pair.y));
   doc.restore();
-  drawRich(doc, 'inverted', x0 + 3, inner.y + inner.height - 11, 60, {
+  drawRich(doc, 'inverted region', x0 + 3, inner.y + inner.height - 11, 80, {
     size: 7,
     color: COLORS.amber,
   });
-  legend(doc, inner, [
-    { label: 'Classical Marcus', color: COLORS.teal },
-    ...(g.hasMlj ? [{ label: 'MLJ', color: COLORS.amber, dash: true }] : []),
-    { label: 'This pair', color: COLORS.text, dot: true },
-  ]);
   return true;
 }
 
@@ -308,11 +428,17 @@ export function drawTemperature(doc: Doc, frame: Frame, pair: ReportPairSnapshot
     )
   )
     return false;
-  const { sx, sy, inner } = drawAxes(doc, frame, g.inverseTDomain, g.log10kDomain, {
-    title: 'Rate against temperature',
-    x: '1000 / T (K⁻¹)',
-    y: 'log10 (k / s⁻¹)',
-  });
+  const { sx, sy, inner } = drawAxes(
+    doc,
+    frame,
+    g.inverseTDomain,
+    g.log10kDomain,
+    { title: 'Rate against temperature', x: '1000 / T (K⁻¹)', y: 'log10 (k / s⁻¹)' },
+    [
+      { label: modelName(pair.model), color: COLORS.teal },
+      ...(g.pair ? [{ label: 'This pair', color: COLORS.text, dot: true }] : []),
+    ],
+  );
   clipTo(doc, inner);
   strokePath(
     doc,
@@ -324,7 +450,7 @@ export function drawTemperature(doc: Doc, frame: Frame, pair: ReportPairSnapshot
     COLORS.teal,
     1.5,
   );
-  if (g.pair) doc.circle(sx(g.pair.x), sy(g.pair.y), 3).fill(COLORS.text);
+  if (g.pair) pairMarker(doc, sx(g.pair.x), sy(g.pair.y));
   doc.restore();
   const ea =
     g.apparentEa === null
@@ -406,6 +532,7 @@ export function drawComparisonPlot(cursor: Cursor, pairs: readonly ReportPairSna
       x: '−ΔG° (eV)',
       y: 'log10 (k / s⁻¹)',
     },
+    curves.map((c) => ({ label: c.pair.name, color: c.color })),
   );
   clipTo(doc, inner);
   for (const c of curves) {
@@ -422,10 +549,68 @@ export function drawComparisonPlot(cursor: Cursor, pairs: readonly ReportPairSna
     if (c.g.pair) doc.circle(sx(c.g.pair.x), sy(c.g.pair.y), 3).fill(c.color);
   }
   doc.restore();
-  legend(
-    doc,
-    inner,
-    curves.slice(0, 8).map((c) => ({ label: c.pair.name, color: c.color })),
-  );
   cursor.y += h + 6;
+}
+
+/**
+ * The Monte Carlo distribution of log10 k of the chosen model, as the pair page shows it: bars
+ * per bin (the 95 % interval darker), the median marked, axes for log10 k and the share of
+ * samples per bin.
+ */
+/** Bins outside the 95 % interval: the teal at half strength, still visible on white. */
+const MC_OUTSIDE = '#8cc7bf';
+
+export function drawMonteCarlo(cursor: Cursor, pair: ReportPairSnapshot): boolean {
+  const r = primaryResult(pair);
+  const iv = r?.interval;
+  const h = iv?.histogram;
+  if (!iv || !h || h.counts.length === 0) return false;
+  const total = h.counts.reduce((a, b) => a + b, 0);
+  if (!(total > 0)) return false;
+  const shares = h.counts.map((c) => (100 * c) / total);
+  const xDomain: [number, number] = [h.edges[0], h.edges[h.edges.length - 1]];
+  const yDomain: [number, number] = [0, Math.max(...shares) * 1.1];
+  if (!plottable([xDomain, yDomain])) return false;
+  const doc = cursor.doc;
+  const height = 160;
+  cursor.need(height);
+  const frame = { x: cursor.left, y: cursor.y, width: cursor.width, height };
+  const { sx, sy, inner } = drawAxes(
+    doc,
+    frame,
+    xDomain,
+    yDomain,
+    {
+      title: `Monte Carlo distribution of log10 k (${modelName(pair.model)}, ${iv.samples} samples)`,
+      x: 'log10 (k / s⁻¹)',
+      y: 'Share of samples (%)',
+    },
+    [
+      {
+        label: `95 % interval ${formatFixed(iv.log10kLow)} to ${formatFixed(iv.log10kHigh)}`,
+        color: COLORS.teal,
+      },
+      { label: 'Outside it', color: MC_OUTSIDE },
+      { label: `Median ${formatFixed(iv.log10kMedian)}`, color: COLORS.text, dash: true },
+    ],
+  );
+  clipTo(doc, inner);
+  shares.forEach((share, i) => {
+    const x0 = sx(h.edges[i]);
+    const x1 = sx(h.edges[i + 1]);
+    const inside = h.edges[i + 1] >= iv.log10kLow && h.edges[i] <= iv.log10kHigh;
+    doc
+      .rect(x0 + 0.3, sy(share), Math.max(0.3, x1 - x0 - 0.6), sy(0) - sy(share))
+      .fill(inside ? COLORS.teal : MC_OUTSIDE);
+  });
+  strokePath(
+    doc,
+    `M${sx(iv.log10kMedian)},${inner.y}L${sx(iv.log10kMedian)},${inner.y + inner.height}`,
+    COLORS.text,
+    0.9,
+    3,
+  );
+  doc.restore();
+  cursor.y += height + 6;
+  return true;
 }

@@ -11,6 +11,9 @@ import {
   formatReportDate,
   formatReportStatus,
   formatNumber,
+  reviewRounds,
+  reviewStatusText,
+  transitionText,
   type ReportPairSnapshot,
   type ReportReviewState,
   type ReportSnapshot,
@@ -19,7 +22,7 @@ import {
 import { FONT_REGULAR, FONT_SEMIBOLD, reportFonts } from './fonts';
 import { COLORS, Cursor, PAGE, drawNote, drawTable, type Doc } from './page-layout';
 import { drawRich, measureRich } from './rich-text';
-import { drawPairPlots, drawComparisonPlot } from './plots';
+import { drawComparisonPlot, drawMonteCarlo, drawPairPlots } from './plots';
 import {
   comparisonRow,
   hasUncertainties,
@@ -139,10 +142,7 @@ function drawTitleBlock(cursor: Cursor, snapshot: ReportSnapshot, review: Report
   meta.push(['Workspace', snapshot.workspace.name]);
   meta.push(['Author', snapshot.author.displayName]);
   meta.push(['Snapshot taken', formatReportDate(snapshot.createdAt)]);
-  meta.push([
-    'Review status',
-    `${formatReportStatus(review.status)} (revision ${review.revision})`,
-  ]);
+  meta.push(['Review status', reviewStatusText(review.status, review.history)]);
   meta.push(['Software', `Gapwise ${snapshot.softwareVersion}; constants ${snapshot.constants}`]);
   meta.push(['Snapshot id', review.snapshotId]);
   const labelW = 92;
@@ -227,6 +227,7 @@ function drawPair(cursor: Cursor, snapshot: ReportSnapshot, pair: ReportPairSnap
     );
   }
   cursor.gap(4);
+  if (snapshot.kind === 'pair') drawMonteCarlo(cursor, pair);
   cursor.text(
     'k in s⁻¹ (first order); ΔG‡ is the classical activation free energy (ΔG° + λ)²/4λ; the interval propagates the stated 1σ ' +
       'uncertainties (normal distributions) through the chosen model.',
@@ -323,6 +324,7 @@ function drawReview(cursor: Cursor, snapshot: ReportSnapshot, review: ReportRevi
   if (review.history.length === 0) {
     cursor.text('No review decisions yet.', { size: 9, color: COLORS.muted });
   } else {
+    const rounds = reviewRounds(review.history);
     drawTable(
       cursor,
       [
@@ -331,12 +333,10 @@ function drawReview(cursor: Cursor, snapshot: ReportSnapshot, review: ReportRevi
         { header: 'Decision', width: 0.25 },
         { header: 'Note', width: 0.35 },
       ],
-      review.history.map((t) => [
+      review.history.map((t, i) => [
         formatReportDate(t.at),
         t.by.displayName,
-        t.from
-          ? `${formatReportStatus(t.from)} → ${formatReportStatus(t.to)}`
-          : `Created as ${formatReportStatus(t.to)}`,
+        transitionText(t, rounds[i]),
         t.note ?? '',
       ]),
     );

@@ -4,6 +4,8 @@ import { provideHttpClientTesting } from '@angular/common/http/testing';
 import { signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { MatDialog } from '@angular/material/dialog';
+import { MatTooltip } from '@angular/material/tooltip';
+import { By } from '@angular/platform-browser';
 import { provideRouter } from '@angular/router';
 import { calculate, CM1_PER_EV } from '@gapwise/calc';
 import { of } from 'rxjs';
@@ -66,7 +68,13 @@ describe('PairEditor', { timeout: 40_000 }, () => {
     // Shown in the field's unit (cm⁻¹), stored canonically (eV).
     expect(Number(await field.getValue())).toBeCloseTo(coupling * CM1_PER_EV, 6);
     expect(await field.getProvenance()).toBe('Derived');
-    expect(await field.getDerivedMethod()).toBe('coupling.distanceDecay');
+    expect(await field.getDerivedMethod()).toBe('distance-decay');
+    // The badge's tooltip is the provenance sentence the report prints: labels and units, no JSON.
+    const badge = fixture.debugElement.query(By.css('.derived-badge'));
+    expect(badge.injector.get(MatTooltip).message).toBe(
+      'Derived with the distance-decay helper from coupling H₀ at the reference distance = 0.05 eV, ' +
+        'reference distance R₀ = 3.5 Å, decay constant β of the rate = 1.1 Å⁻¹, distance R = 10 Å.',
+    );
     const group = fixture.componentInstance['form']().controls.parameters.controls.coupling;
     expect(group.controls.value.value).toBe(coupling);
     expect(group.controls.provenance.getRawValue()).toMatchObject({

@@ -484,6 +484,8 @@ export class PairEditor implements HoldsUnsavedChanges {
         kind: 'derived',
         methodId: result.methodId,
         methodInputs: result.methodInputs,
+        // A helper run replaces whatever record the value came from before.
+        sources: null,
       });
     }
     this.markEdit();

@@ -7,6 +7,7 @@ import {
   type PairRateSource,
   type PairStatus,
   type ParameterKind,
+  type Provenance,
   type ProvenanceKind,
   type RateModel,
   potentialFromShe,
@@ -25,6 +26,8 @@ export type ProvenanceGroup = FormGroup<{
   note: FormControl<string>;
   methodId: FormControl<string | null>;
   methodInputs: FormControl<Record<string, unknown> | null>;
+  /** The records a derived value came from (trace analysis, series, screen), kept on save. */
+  sources: FormControl<Provenance['sources']>;
 }>;
 
 export type ParameterGroup = QuantityGroup & {
@@ -106,6 +109,7 @@ export function createParameterGroup(kind: ParameterKind, p?: PairParameter): Pa
       note: new FormControl(prov?.note ?? '', { nonNullable: true }),
       methodId: new FormControl<string | null>(prov?.methodId ?? null),
       methodInputs: new FormControl<Record<string, unknown> | null>(prov?.methodInputs ?? null),
+      sources: new FormControl<Provenance['sources']>(prov?.sources ?? null),
     }),
   );
   return group as unknown as ParameterGroup;
@@ -188,6 +192,7 @@ export function parametersOf(form: PairForm): PairParameter[] {
         note: p.note.trim() || null,
         methodId: p.kind === 'derived' ? p.methodId : null,
         methodInputs: p.kind === 'derived' ? p.methodInputs : null,
+        sources: p.kind === 'derived' ? p.sources : null,
       },
     });
   }

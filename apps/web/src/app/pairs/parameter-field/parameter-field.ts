@@ -11,8 +11,10 @@ import { MatTooltipModule } from '@angular/material/tooltip';
 import {
   PARAMETER_KINDS,
   PROVENANCE_KINDS,
+  helperName,
   parameterPlausibility,
   plainText,
+  provenanceText,
   type ParameterKind,
 } from '@gapwise/contracts';
 import type { Quantity } from '@gapwise/calc';
@@ -154,17 +156,22 @@ export class ParameterField {
     return e['rule'] && !/^[A-Z]/.test(first) ? `${this.label()} ${first}` : first;
   }
 
-  protected derivedInputs(): string {
-    const inputs = this.group().controls.provenance.controls.methodInputs.value;
-    if (!inputs) return '';
-    return Object.entries(inputs)
-      .map(([k, v]) => {
-        if (v && typeof v === 'object' && 'value' in v) {
-          const q = v as { value: unknown; unit?: string };
-          return `${k} = ${String(q.value)}${q.unit ? ' ' + unitLabel(q.unit) : ''}`;
-        }
-        return `${k} = ${String(v)}`;
-      })
-      .join(', ');
+  /** The derived value's provenance as the report prints it (tooltip: text only). */
+  protected derivedSentence(): string {
+    const p = this.group().controls.provenance.getRawValue();
+    return plainText(
+      provenanceText({
+        kind: p.kind,
+        citation: p.citation || null,
+        note: p.note || null,
+        methodId: p.methodId,
+        methodInputs: p.methodInputs,
+        sources: p.sources,
+      }),
+    );
+  }
+
+  protected helperName(methodId: string): string {
+    return helperName(methodId);
   }
 }

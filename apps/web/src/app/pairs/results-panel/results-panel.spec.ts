@@ -75,4 +75,37 @@ describe('ResultsPanel', () => {
     expect(item.textContent).toMatch(/Longitudinal relaxation time τL\s+is needed/);
     expect(subs(item)).toEqual(['L']);
   });
+
+  it('draws the Monte Carlo distribution with both axes: log10 k ticks and the share of samples', () => {
+    const fixture = TestBed.createComponent(ResultsPanel);
+    fixture.componentRef.setInput('results', results);
+    fixture.componentRef.setInput('temperature', 298.15);
+    fixture.componentRef.setInput('coupling', 0.0056);
+    // 4 bins over log10 k 10–12 holding 10, 30, 40 and 20 of 100 samples.
+    fixture.componentRef.setInput('monteCarlo', {
+      status: 'done',
+      median: 11,
+      p025: 10.6,
+      p975: 11.4,
+      samples: 100,
+      warnings: [],
+      histogram: { edges: [10, 10.5, 11, 11.5, 12], counts: [10, 30, 40, 20] },
+    });
+    fixture.detectChanges();
+    const svg = (fixture.nativeElement as HTMLElement).querySelector('svg.hist')!;
+    const ticks = (cls: string) =>
+      Array.from(svg.querySelectorAll(`text.tick.${cls}`), (t) => t.textContent?.trim());
+    expect(ticks('x')).toEqual(['10', '10.5', '11', '11.5', '12']);
+    // The tallest bin holds 40 % of the samples: the share axis runs past 40.
+    const shares = ticks('y').map((t) => Number(t));
+    expect(shares[0]).toBe(0);
+    expect(Math.max(...shares)).toBeGreaterThanOrEqual(40);
+    const titles = Array.from(svg.querySelectorAll('text.axis-title'), (t) =>
+      t.textContent?.trim(),
+    );
+    expect(titles).toEqual(['log10 (k / s⁻¹)', '% of samples']);
+    expect(svg.querySelectorAll('rect').length).toBe(4);
+    expect(svg.querySelectorAll('rect.inside').length).toBe(2);
+    expect(svg.querySelector('line.median')).not.toBeNull();
+  });
 });

@@ -66,6 +66,57 @@ describe('ReportViewPage', () => {
     expect(lambdaOuter).toContain('donor radius aD = 5.5 Å');
     expect(Array.from(row.querySelectorAll('td sub'), (s) => s.textContent)).toContain('D');
     expect(lambdaOuter).not.toContain('radiusDonor');
+    expect(lambdaOuter).toContain('Derived with the two-sphere continuum helper from');
+  });
+
+  it('writes a trace-derived value as a sentence naming the files, with a link to the analysis', () => {
+    const analysisId = '5b9f3c1e-2a4d-4e8f-9b7a-6c5d4e3f2a1b';
+    const traceId = '0e1d2c3b-4a59-4687-a5b4-c3d2e1f0a9b8';
+    const pair = DEMO_REPORT.snapshot.pairs[0];
+    const report: ReportView = {
+      ...DEMO_REPORT,
+      snapshot: {
+        ...DEMO_REPORT.snapshot,
+        pairs: [
+          {
+            ...pair,
+            inputs: pair.inputs.map((i) =>
+              i.kind !== 'lambdaOuter'
+                ? i
+                : {
+                    ...i,
+                    provenance: {
+                      kind: 'derived',
+                      methodId: 'reorg.gapSamples',
+                      methodInputs: {
+                        estimator: 'lambdaFromMeans',
+                        temperature: 300,
+                        reactantTraceId: traceId,
+                        productTraceId: traceId,
+                        reactantFileName: 'reactant_state.dat',
+                        productFileName: 'product.dat',
+                        reactantSha256: 'f'.repeat(64),
+                      },
+                      sources: [{ type: 'trace-analysis', id: analysisId }],
+                    },
+                  },
+            ),
+          },
+        ],
+      },
+    };
+    const { el } = setup({ role: 'reviewer', userId: REVIEWER_ID, api: { get: () => of(report) } });
+    const cell = el.querySelector('tr[data-kind="lambdaOuter"] td:nth-of-type(4)')!;
+    const text = cell.textContent!.replace(/\s+/g, ' ').trim();
+    expect(text).toContain('reactant_state.dat (reactant state) and product.dat (product state)');
+    expect(text).not.toContain(traceId);
+    expect(text).not.toContain('ffff');
+    expect(text).not.toContain('{');
+    const link = cell.querySelector('a')!;
+    expect(link.textContent!.trim()).toBe('trace analysis');
+    expect(link.getAttribute('href')).toBe(
+      `/w/${DEMO_REPORT.workspaceId}/trace-analyses/${analysisId}`,
+    );
   });
 
   it('offers a reviewer who did not write the report both decisions', () => {

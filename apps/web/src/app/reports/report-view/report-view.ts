@@ -22,11 +22,15 @@ import {
   modelName,
   pairPlotInputs,
   pairRateRequest,
+  reviewRounds,
+  reviewStatusText,
+  transitionText,
   plainText,
   snapshotRatesView,
   snapshotSource,
   totalLambdaEv,
   provenanceText,
+  type ParameterKind,
   type ReportAction,
   type ReportCommentView,
   type ReportPairSnapshot,
@@ -41,6 +45,7 @@ import { WorkspaceContext } from '../../workspaces/workspace-context';
 import { ReportsApi } from '../reports-api';
 import { ReportStatusChip } from '../report-status-chip';
 import { RichText } from '../../shared/rich-text/rich-text';
+import { ProvenanceSentence } from '../../shared/provenance-sentence/provenance-sentence';
 
 interface Thread {
   readonly comment: ReportCommentView;
@@ -62,6 +67,7 @@ interface Thread {
     DrivingForcePlot,
     TemperaturePlot,
     RichText,
+    ProvenanceSentence,
   ],
   templateUrl: './report-view.html',
   styleUrl: '../reports.scss',
@@ -93,13 +99,25 @@ export class ReportViewPage {
     date: formatReportDate,
     status: formatReportStatus,
     model: modelName,
-    provenance: provenanceText,
     typed: formatInputQuantity,
     sigma: formatUncertainty,
     interval: intervalText,
     rateWithLog: formatRateWithLog,
     num: formatNumber,
   };
+
+  /** "Approved, revision 2": revisions count the submissions a reviewer saw. */
+  protected readonly reviewStatus = computed(() => {
+    const r = this.report();
+    return r ? reviewStatusText(r.status, r.history) : '';
+  });
+
+  /** Decision column: submissions numbered, with whether the snapshot changed since the last. */
+  protected readonly decisions = computed(() => {
+    const history = this.report()?.history ?? [];
+    const rounds = reviewRounds(history);
+    return history.map((t, i) => transitionText(t, rounds[i]));
+  });
 
   protected readonly wid = computed(
     () => this.report()?.workspaceId ?? this.route.snapshot.paramMap.get('wid') ?? '',

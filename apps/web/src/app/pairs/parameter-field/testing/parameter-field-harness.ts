@@ -131,7 +131,7 @@ export class ParameterFieldHarness extends ComponentHarness {
     return Promise.all(all.map((e) => e.text()));
   }
 
-  /** Method id shown on the "derived" badge, or null. */
+  /** Helper name shown on the "derived" badge ("distance-decay"), or null. */
   async getDerivedMethod(): Promise<string | null> {
     const b = await this.badge();
     return b ? (await b.text()).replace('functions', '').trim() : null;
