@@ -77,8 +77,16 @@ async function main() {
   const w = `/w/${wid}`;
   const pair = await firstHref(page, `${w}/pairs`, 'a.pair-link');
   const report = await firstHref(page, `${w}/reports`, 'a[href*="/reports/"]:not([href$="/new"])');
-  const screen = await firstHref(page, `${w}/screens`, 'a[href*="/screens/"]:not([href$="/new"])');
-  const series = await firstHref(page, `${w}/series`, 'a[href*="/series/"]:not([href$="/new"])');
+  const screen = await firstHref(
+    page,
+    `${w}/screens`,
+    'a[href^="/w/"][href*="/screens/"]:not([href$="/new"])',
+  );
+  const series = await firstHref(
+    page,
+    `${w}/series`,
+    'a[href^="/w/"][href*="/series/"]:not([href$="/new"])',
+  );
   const analysis = await firstHref(page, `${w}/traces`, 'a[href*="/trace-analyses/"]');
   shots.push(
     ['pairs', `${w}/pairs`],
