@@ -182,7 +182,10 @@ describe('screens and series in chromium', () => {
     await signIn(page, baseUrl, 'owner@gapwise.test');
     const wid = await workspaceId(page, 'Tidewater Flow-Cell Mediator Screen');
     await page.goto(`${baseUrl}/w/${wid}/screens`);
-    await page.getByRole('link', { name: /photo-charging screen \(demo\)/ }).first().click();
+    await page
+      .getByRole('link', { name: /photo-charging screen \(demo\)/ })
+      .first()
+      .click();
     await page.waitForURL(/\/screens\/[0-9a-f-]{36}$/);
     await poll(() => matchCount(page)).toBeGreaterThan(10);
 
