@@ -56,6 +56,14 @@ export class ScreenEntity {
   @Column({ type: 'double precision', name: 'score_floor_ev', nullable: true })
   scoreFloorEv: number | null;
 
+  /** ħω (eV) the score assumes for an inverted step without one; NULL on older screens. */
+  @Column({ type: 'double precision', name: 'score_hbar_omega_ev', nullable: true })
+  scoreHbarOmegaEv: number | null;
+
+  /** Unit the upload's header named per column key (values are stored canonical). */
+  @Column({ type: 'jsonb', name: 'column_units', default: () => "'{}'" })
+  columnUnits: Record<string, string>;
+
   @Column({ type: 'integer', name: 'chunk_size' })
   chunkSize: number;
 

@@ -7,6 +7,7 @@ import { ScreenResultsWithoutRowTrigger1796500000000 } from './1796500000000-scr
 import { WorkspaceDeletions1796600000000 } from './1796600000000-workspace-deletions';
 import { Sessions1796700000000 } from './1796700000000-sessions';
 import { ReportTransitionSnapshots1796760000000 } from './1796760000000-report-transition-snapshots';
+import { ScreenScoreHbarOmega1796770000000 } from './1796770000000-screen-score-hbar-omega';
 
 /** Every migration, in order (listed explicitly; see STACK.md). */
 export const migrations = [
@@ -19,4 +20,5 @@ export const migrations = [
   WorkspaceDeletions1796600000000,
   Sessions1796700000000,
   ReportTransitionSnapshots1796760000000,
+  ScreenScoreHbarOmega1796770000000,
 ];

@@ -176,6 +176,85 @@ describe('screens and series in chromium', () => {
     await context.close();
   });
 
+  it('shows the model behind the score, ranks by a custom score and saves selected rows as pairs', async () => {
+    const context = await gw.context();
+    const page = await context.newPage();
+    await signIn(page, baseUrl, 'owner@gapwise.test');
+    const wid = await workspaceId(page, 'Tidewater Flow-Cell Mediator Screen');
+    await page.goto(`${baseUrl}/w/${wid}/screens`);
+    await page
+      .getByRole('link', { name: /photo-charging screen \(demo\)/ })
+      .first()
+      .click();
+    await page.waitForURL(/\/screens\/[0-9a-f-]{36}$/);
+    await poll(() => matchCount(page)).toBeGreaterThan(10);
+
+    // The model behind the score, in words.
+    await page.locator('.score-model summary').click();
+    await poll(() => page.locator('.score-model').innerText()).toMatch(
+      /MLJ with an assumed ħω \(0\.186 eV = 1500 cm⁻¹ unless set/,
+    );
+
+    // Score and actions are in view at 1440 px without scrolling the table sideways.
+    await page.setViewportSize({ width: 1440, height: 900 });
+    for (const cell of ['th.mat-column-score', 'th.mat-column-open']) {
+      const b = (await page.locator(cell).boundingBox())!;
+      expect(b.x + b.width).toBeLessThanOrEqual(1440);
+    }
+
+    // A custom score: log10 kCS (Marcus) − 0.5 × log10 kCR (Marcus), best first.
+    const setTerm = async (i: number, weight: string, column: string) => {
+      await page.getByLabel(`Weight ${i}`).fill(weight);
+      await page.getByLabel(`Weight ${i}`).dispatchEvent('change');
+      await page
+        .locator('mat-form-field', { hasText: `Column ${i}` })
+        .locator('mat-select')
+        .click();
+      await page.getByRole('option', { name: column, exact: true }).click();
+    };
+    await setTerm(1, '1', 'log₁₀ kCS Marcus');
+    await setTerm(2, '-0.5', 'log₁₀ kCR Marcus');
+    await page.getByRole('button', { name: 'Rank by this score' }).click();
+    await poll(() => page.locator('td.mat-column-custom').count()).toBeGreaterThan(2);
+    await expect
+      .poll(async () => {
+        const rows = page.locator('tr.mat-mdc-row');
+        const n = await rows.count();
+        const out: Array<[number, number, number]> = [];
+        for (let i = 0; i < n; i++) {
+          const r = rows.nth(i);
+          out.push([
+            num(await r.locator('td.mat-column-custom').innerText()),
+            num(await r.locator('td.mat-column-log10kCsMarcus').innerText()),
+            num(await r.locator('td.mat-column-log10kCrMarcus').innerText()),
+          ]);
+        }
+        // Shown to 2 decimals: each custom value agrees with its columns within rounding, and
+        // the table is ranked best first.
+        return (
+          out.length > 2 &&
+          out.every(([c, cs, cr]) => Math.abs(c - (cs - 0.5 * cr)) < 0.02) &&
+          out.every(([c], i) => i === 0 || c <= out[i - 1]![0])
+        );
+      })
+      .toBe(true);
+    await shoot(page, 'screens-custom-score-1440');
+
+    // Select two rows and save them as pairs; the coupling keeps the file's unit (cm⁻¹).
+    await page.locator('td.mat-column-select mat-checkbox').nth(0).click();
+    await page.locator('td.mat-column-select mat-checkbox').nth(1).click();
+    await page.getByRole('button', { name: 'Save 2 selected as pairs' }).click();
+    await poll(() => page.locator('.saved').innerText()).toMatch(/^Saved 2 pairs: /);
+    const href = (await page.locator('.saved a').first().getAttribute('href'))!;
+    const pairId = href.split('/').pop()!;
+    const pair = (await (await page.request.get(`${baseUrl}/api/pairs/${pairId}`)).json()) as {
+      parameters: Array<{ kind: string; unit: string }>;
+    };
+    expect(pair.parameters.find((p) => p.kind === 'coupling')?.unit).toBe('cm-1');
+    expect(pair.parameters.find((p) => p.kind === 'lambdaInner')?.unit).toBe('kcal/mol');
+    await context.close();
+  });
+
   it('enters a series by paste, fits both models and applies the fit to a pair', async () => {
     const context = await gw.context();
     const page = await context.newPage();

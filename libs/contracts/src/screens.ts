@@ -35,7 +35,15 @@ export interface Screen {
   readonly badRowCount: number;
   readonly badRows: ReadonlyArray<{ readonly line: number; readonly message: string }>;
   readonly badRowChoice: BadRowChoice;
-  readonly score: { readonly kind: ScreenScoreKind; readonly floorEv: number | null };
+  readonly score: {
+    readonly kind: ScreenScoreKind;
+    readonly floorEv: number | null;
+    /**
+     * ħω (eV) the score assumed for a step in the inverted region whose row gives none (MLJ is
+     * ranked there, rows marked `assumed-hbar-omega`); null on screens scored before this rule.
+     */
+    readonly assumedHbarOmegaEv: number | null;
+  };
   readonly progress: ScreenProgress;
   readonly reusedFrom: string | null;
   readonly error: string | null;
@@ -88,6 +96,8 @@ export interface ScreenResultRow {
   readonly couplingRegime: string | null;
   readonly warnings: string[];
   readonly score: number | null;
+  /** The custom score of the request (`custom=column:weight,…`), when one was asked for. */
+  readonly customScore?: number;
 }
 
 export type ScreenResultPage = Page<ScreenResultRow>;

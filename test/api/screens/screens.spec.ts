@@ -303,6 +303,58 @@ describe('screens API', () => {
     expect(bad.status).toBe(400);
   });
 
+  it('ranks by a custom score of result columns; the score records its assumed ħω', async () => {
+    expect((await screenOf(doneId)).score.assumedHbarOmegaEv).toBe(0.186);
+    const page = await owner.get(
+      `/api/screens/${doneId}/results?custom=log10kCsMarcus:1,log10kCrMarcus:-0.5&sort=-custom&limit=30`,
+    );
+    expect(page.status).toBe(200);
+    type Row = {
+      rowNumber: number;
+      customScore: number;
+      log10kCsMarcus: number;
+      log10kCrMarcus: number;
+    };
+    const items = page.body.items as Row[];
+    for (const r of items) {
+      expect(r.customScore).toBeCloseTo(r.log10kCsMarcus - 0.5 * r.log10kCrMarcus, 9);
+    }
+    const scores = items.map((r) => r.customScore);
+    expect([...scores].sort((x, y) => y - x)).toEqual(scores);
+    const best = await t.db.query(
+      `SELECT row_number FROM screen_results WHERE screen_id = $1
+        ORDER BY log10k_cs_marcus - 0.5 * log10k_cr_marcus DESC NULLS LAST, row_number DESC LIMIT 1`,
+      [doneId],
+    );
+    expect(items[0]!.rowNumber).toBe(best[0].row_number);
+    // Without a custom score the rows carry none; bad terms name the field.
+    const plain = await owner.get(`/api/screens/${doneId}/results?limit=1`);
+    expect(plain.body.items[0]).not.toHaveProperty('customScore');
+    for (const bad of ['custom=score:1', 'custom=colour:1', 'custom=deltaGCs:x', 'sort=custom']) {
+      const res = await owner.get(`/api/screens/${doneId}/results?${bad}`);
+      expect(res.status).toBe(400);
+      expect(res.body.error.fields[0].field).toMatch(/^(custom|sort)$/);
+    }
+    // Rows ranked with the assumed ħω are exactly rows without their own ħω (no MLJ columns).
+    const marked = await owner.get(
+      `/api/screens/${doneId}/results?warning=assumed-hbar-omega&limit=20`,
+    );
+    expect(marked.body.total).toBeGreaterThan(0);
+    for (const r of marked.body.items) expect(r.log10kCrMlj).toBeNull();
+  });
+
+  it('keeps the header units when a row opens as a pair (coupling written in cm⁻¹)', async () => {
+    const res = await owner.post(`/api/screens/${doneId}/results/3/open-as-pair`);
+    expect(res.status).toBe(201);
+    const coupling = res.body.parameters.find((p: { kind: string }) => p.kind === 'coupling');
+    expect(coupling.unit).toBe('cm-1');
+    const row = (await owner.get(`/api/screens/${doneId}/results?rowNumberMin=3&rowNumberMax=3`))
+      .body.items[0];
+    expect(coupling.value).toBeCloseTo(row.coupling, 12);
+    const distance = res.body.parameters.find((p: { kind: string }) => p.kind === 'distance');
+    expect(distance.unit).toBe('A');
+  });
+
   it('opens a result row as a pair with derived, sourced parameters', async () => {
     const res = await owner.post(`/api/screens/${doneId}/results/2/open-as-pair`);
     expect(res.status).toBe(201);

@@ -36,6 +36,12 @@ export interface AuditPageQuery {
   readonly action?: string;
   readonly entityType?: string;
   readonly entityId?: string;
+  /** Only events by this user. */
+  readonly actorId?: string;
+  /** First day (UTC, inclusive), `YYYY-MM-DD`. */
+  readonly from?: string;
+  /** Last day (UTC, inclusive), `YYYY-MM-DD`. */
+  readonly to?: string;
 }
 
 export async function listAudit(
@@ -48,6 +54,10 @@ export async function listAudit(
   if (q.action) where.push(`a.action = $${params.push(q.action)}`);
   if (q.entityType) where.push(`a.entity_type = $${params.push(q.entityType)}`);
   if (q.entityId) where.push(`a.entity_id = $${params.push(q.entityId)}`);
+  if (q.actorId) where.push(`a.actor_id = $${params.push(q.actorId)}`);
+  // Days are UTC days whatever the session's time zone; the last day counts whole.
+  if (q.from) where.push(`a.at >= ($${params.push(q.from)}::date::timestamp AT TIME ZONE 'UTC')`);
+  if (q.to) where.push(`a.at < (($${params.push(q.to)}::date + 1)::timestamp AT TIME ZONE 'UTC')`);
   const sqlWhere = where.join(' AND ');
   const [{ total }] = await db.query(
     `SELECT count(*)::int AS total FROM audit_events a WHERE ${sqlWhere}`,

@@ -26,7 +26,12 @@ import {
 } from '@gapwise/calc';
 import { lambdaTotalOfPartsEv, regimeOf as regimeOfPair } from '@gapwise/contracts';
 import type { InputChunk } from './screen-parser';
-import { scoreRow, type ScoreChoice } from './screen-score';
+import {
+  DEFAULT_ASSUMED_HBAR_OMEGA_EV,
+  scoreRow,
+  stepModel,
+  type ScoreChoice,
+} from './screen-score';
 
 /** Regime codes stored per row (CALC-API.md "regime"). */
 export const REGIMES = ['normal', 'activationless', 'inverted'] as const;
@@ -53,6 +58,7 @@ export const SCREEN_WARNINGS = [
   'coupling-delocalized', // A5 2|H_AB| ≥ λ: no diabatic rate, rates left empty
   'row-refused', // a derivation refused the row; rates left empty
   'other', // any other warning code of the core
+  'assumed-hbar-omega', // the score ranked an inverted step with MLJ at an assumed ħω
 ] as const;
 export type ScreenWarning = (typeof SCREEN_WARNINGS)[number];
 /** Core warnings a screen does not carry (the template asks for one reference electrode). */
@@ -376,11 +382,56 @@ export function computeChunk(input: InputChunk, score: ScoreChoice): ChunkResult
     }
   }
 
+  // Steps in the inverted region of rows without ħω: MLJ at the assumed ħω, for the score only
+  // (the MLJ columns keep what the row's own inputs give). See screen-score.ts for why.
+  const assumedHbarOmega = score.assumedHbarOmegaEv ?? DEFAULT_ASSUMED_HBAR_OMEGA_EV;
+  const assumedCs = new Float64Array(n).fill(Number.NaN);
+  const assumedCr = new Float64Array(n).fill(Number.NaN);
+  const assumedRows: number[] = [];
+  for (let i = 0; i < n; i++) {
+    if (!valid[i] || !Number.isNaN(v.hbarOmega[i]) || !(out.lambdaOuter[i] > 0)) continue;
+    const lambda = out.lambdaTotal[i];
+    if (
+      stepModel(false, out.deltaGCs[i], lambda) === 'mlj-assumed-hbar-omega' ||
+      stepModel(false, out.deltaGCr[i], lambda) === 'mlj-assumed-hbar-omega'
+    ) {
+      assumedRows.push(i);
+    }
+  }
+  if (assumedRows.length) {
+    const m = assumedRows.length;
+    const pick = (a: Float64Array) => Float64Array.from(assumedRows, (i) => a[i]);
+    const lamS = pick(out.lambdaOuter);
+    const lamV = pick(out.lambdaInner);
+    const hw = new Float64Array(m).fill(assumedHbarOmega);
+    const h = pick(out.coupling);
+    const t = pick(out.temperature);
+    const cs = new Float64Array(m);
+    const cr = new Float64Array(m);
+    mljLog10kIntoArrays(cs, pick(out.deltaGCs), lamS, lamV, hw, h, t);
+    mljLog10kIntoArrays(cr, pick(out.deltaGCr), lamS, lamV, hw, h, t);
+    for (let j = 0; j < m; j++) {
+      assumedCs[assumedRows[j]] = cs[j];
+      assumedCr[assumedRows[j]] = cr[j];
+    }
+  }
+
   const under = bit('rate-underflow');
+  const assumed = bit('assumed-hbar-omega');
   for (let i = 0; i < n; i++) {
     if (!valid[i]) continue;
-    const cs = Number.isNaN(out.log10kCsMlj[i]) ? out.log10kCsMarcus[i] : out.log10kCsMlj[i];
-    const cr = Number.isNaN(out.log10kCrMlj[i]) ? out.log10kCrMarcus[i] : out.log10kCrMlj[i];
+    const given = !Number.isNaN(out.log10kCsMlj[i]);
+    const rate = (deltaG: number, mlj: number, marcus: number, assumedMlj: number): number => {
+      const model = stepModel(given, deltaG, out.lambdaTotal[i]);
+      if (model === 'mlj') return mlj;
+      if (model === 'mlj-assumed-hbar-omega' && Number.isFinite(assumedMlj)) {
+        out.warningMask[i] |= assumed;
+        return assumedMlj;
+      }
+      return marcus;
+    };
+    const cs = rate(out.deltaGCs[i], out.log10kCsMlj[i], out.log10kCsMarcus[i], assumedCs[i]);
+    const cr = rate(out.deltaGCr[i], out.log10kCrMlj[i], out.log10kCrMarcus[i], assumedCr[i]);
     if (out.log10kCsMarcus[i] < -300 || out.log10kCrMarcus[i] < -300) out.warningMask[i] |= under;
     if (Number.isFinite(cs) && Number.isFinite(cr)) {
       out.score[i] = scoreRow(score, out.deltaGCs[i], out.deltaGCr[i], out.lambdaTotal[i], cs, cr);

@@ -27,9 +27,10 @@ import {
   listScreens,
   queryResults,
   streamResults,
+  type CustomScoreTerm,
   type ResultQuery,
 } from './screen-repository';
-import { parseScoreChoice, SCORE_DESCRIPTIONS } from './screen-score';
+import { parseScoreChoice, SCORE_DESCRIPTIONS, type ScoreChoice } from './screen-score';
 import {
   cancelScreen,
   DEFAULT_CHUNK_SIZE,
@@ -72,8 +73,12 @@ function uploadOptions(req: Request): UploadOptions {
   const name =
     queryString(req.query['name'], 'name', errors) ??
     `Screen ${new Date().toISOString().slice(0, 16).replace('T', ' ')}`;
-  const score = parseScoreChoice(req.query['score'], req.query['floorEv']);
-  if (typeof score === 'string') errors.push({ field: 'score', message: score });
+  const score = parseScoreChoice(
+    req.query['score'],
+    req.query['floorEv'],
+    req.query['assumedHbarOmegaEv'],
+  );
+  if ('message' in score) errors.push(score);
   const choice = queryString(req.query['badRowChoice'], 'badRowChoice', errors);
   if (choice && choice !== 'fixed' && choice !== 'none')
     errors.push({ field: 'badRowChoice', message: 'must be fixed or none' });
@@ -90,7 +95,7 @@ function uploadOptions(req: Request): UploadOptions {
     name,
     runGoodRows: truthy(req.query['runGoodRows']),
     badRowChoice: (choice as 'fixed' | 'none' | undefined) ?? 'none',
-    score: score as Exclude<typeof score, string>,
+    score: score as ScoreChoice,
     chunkSize,
   };
 }
@@ -135,7 +140,13 @@ function resultQuery(req: Request): ResultQuery {
   const sortRaw = queryString(req.query['sort'], 'sort', errors) ?? '-score';
   const descending = sortRaw.startsWith('-');
   const sort = sortRaw.replace(/^-/, '');
-  const sortable = [...SCREEN_NUMERIC_COLUMNS, 'donor', 'acceptor'] as string[];
+  const custom = customTerms(req.query['custom'], errors);
+  const sortable = [
+    ...SCREEN_NUMERIC_COLUMNS,
+    'donor',
+    'acceptor',
+    ...(custom.length ? ['custom'] : []),
+  ] as string[];
   if (!sortable.includes(sort))
     errors.push({
       field: 'sort',
@@ -187,7 +198,39 @@ function resultQuery(req: Request): ResultQuery {
     warningMask: warningMask || undefined,
     noWarnings: truthy(req.query['noWarnings']),
     q,
+    custom,
   };
+}
+
+/** Columns a custom score may weigh: the numeric results (not the line number or the score). */
+const CUSTOM_COLUMNS = SCREEN_NUMERIC_COLUMNS.filter((c) => c !== 'rowNumber' && c !== 'score');
+const MAX_CUSTOM_TERMS = 6;
+
+/** `custom=log10kCsMlj:1,log10kCrMlj:-1`: a weighted sum of result columns (at most six terms). */
+function customTerms(raw: unknown, errors: FieldError[]): CustomScoreTerm[] {
+  const text = queryString(raw, 'custom', errors, 500);
+  if (!text) return [];
+  const terms: CustomScoreTerm[] = [];
+  const parts = text.split(',');
+  if (parts.length > MAX_CUSTOM_TERMS) {
+    errors.push({ field: 'custom', message: `has at most ${MAX_CUSTOM_TERMS} terms` });
+    return [];
+  }
+  for (const part of parts) {
+    const [column, weightText] = part.split(':').map((s) => s.trim());
+    const weight = Number(weightText);
+    if (!(CUSTOM_COLUMNS as readonly string[]).includes(column ?? '')) {
+      errors.push({
+        field: 'custom',
+        message: `unknown column '${column}'; use ${CUSTOM_COLUMNS.join(', ')}`,
+      });
+    } else if (weightText === undefined || weightText === '' || !Number.isFinite(weight)) {
+      errors.push({ field: 'custom', message: `the weight of ${column} is not a finite number` });
+    } else {
+      terms.push({ column: column as ScreenNumericColumn, weight });
+    }
+  }
+  return terms;
 }
 
 const CSV_COLUMNS: Array<[keyof ScreenResultRow, string]> = [

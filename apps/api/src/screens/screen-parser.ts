@@ -42,6 +42,8 @@ export interface ParseSummary {
   readonly inputHash: string;
   /** Header problems or an empty file: nothing can be run. */
   readonly fatal: boolean;
+  /** Unit written in the header per column key (only columns that name one). */
+  readonly units: Record<string, string>;
 }
 
 /** The file has more data rows than `ParseOptions.maxRows`; reading stopped there. */
@@ -312,7 +314,9 @@ export async function parseScreenCsv(
     fatal = true;
     bad(1, 'No data rows found.');
   }
-  return { goodRows, badRowCount, badRows, chunks, inputHash: hash.digest('hex'), fatal };
+  const units: Record<string, string> = {};
+  for (const c of columns ?? []) if (c.unit) units[c.spec.key] = c.unit;
+  return { goodRows, badRowCount, badRows, chunks, inputHash: hash.digest('hex'), fatal, units };
 }
 
 const PARSE_OPTIONS = { delimiter: ',', newline: '\n' } as const;

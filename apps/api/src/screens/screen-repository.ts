@@ -44,6 +44,7 @@ interface ScreenRow {
   bad_row_choice: string;
   score_kind: string;
   score_floor_ev: number | null;
+  score_hbar_omega_ev: number | null;
   chunk_count: number;
   chunks_done: number;
   rows_done: number;
@@ -73,7 +74,11 @@ function toScreen(r: ScreenRow): Screen {
     badRowCount: r.bad_row_count,
     badRows: r.bad_rows,
     badRowChoice: r.bad_row_choice as BadRowChoice,
-    score: { kind: r.score_kind as ScreenScoreKind, floorEv: r.score_floor_ev },
+    score: {
+      kind: r.score_kind as ScreenScoreKind,
+      floorEv: r.score_floor_ev,
+      assumedHbarOmegaEv: r.score_hbar_omega_ev,
+    },
     progress: {
       rowsDone: r.rows_done,
       rowCount: r.row_count,
@@ -92,7 +97,7 @@ function toScreen(r: ScreenRow): Screen {
 }
 
 const SCREEN_COLUMNS = `id, workspace_id, name, status, input_hash, software_version, row_count, bad_row_count,
-  bad_rows, bad_row_choice, score_kind, score_floor_ev, chunk_count, chunks_done, rows_done, reused_from,
+  bad_rows, bad_row_choice, score_kind, score_floor_ev, score_hbar_omega_ev, chunk_count, chunks_done, rows_done, reused_from,
   error, upload_ms, created_at, started_at, finished_at, now() AS now`;
 
 export async function findScreen(db: EntityManager, id: string): Promise<Screen | null> {
@@ -118,8 +123,15 @@ export async function listScreens(db: EntityManager, workspaceId: string): Promi
   return rows.map(toScreen);
 }
 
+/** One term of a custom score: weight × column. */
+export interface CustomScoreTerm {
+  readonly column: ScreenNumericColumn;
+  readonly weight: number;
+}
+
 export interface ResultQuery {
-  readonly sort: ScreenNumericColumn | 'donor' | 'acceptor';
+  /** `custom` sorts by the custom score (only with `custom` terms). */
+  readonly sort: ScreenNumericColumn | 'donor' | 'acceptor' | 'custom';
   readonly descending: boolean;
   readonly offset: number;
   readonly limit: number;
@@ -132,6 +144,21 @@ export interface ResultQuery {
   readonly noWarnings?: boolean;
   /** Substring of donor or acceptor. */
   readonly q?: string;
+  /** A custom score Σ weight × column (empty when a term's column is empty), sent per row. */
+  readonly custom?: readonly CustomScoreTerm[];
+}
+
+/**
+ * The SQL of the custom score, weights as parameters after `first` (columns come from the
+ * COLUMN_SQL whitelist, never from the request text).
+ */
+function customSql(query: ResultQuery, first: number): { sql: string; params: number[] } {
+  const terms = query.custom ?? [];
+  if (!terms.length) return { sql: 'NULL::double precision', params: [] };
+  return {
+    sql: `(${terms.map((t, i) => `$${first + i}::double precision * ${COLUMN_SQL[t.column]}`).join(' + ')})`,
+    params: terms.map((t) => t.weight),
+  };
 }
 
 function whereOf(screenId: string, query: ResultQuery): { sql: string; params: unknown[] } {
@@ -192,6 +219,7 @@ interface ResultRow {
   regime_cr: string | null;
   warning_mask: number;
   score: number | null;
+  custom_score?: number | null;
 }
 
 /**
@@ -231,12 +259,32 @@ export function toResultRow(r: ResultRow): ScreenResultRow {
     couplingRegime: couplingRegimeOf(r.coupling, r.lambda_total, r.temperature_k),
     warnings: warningCodes(r.warning_mask),
     score: r.score,
+    ...(r.custom_score !== undefined && r.custom_score !== null
+      ? { customScore: r.custom_score }
+      : {}),
   };
 }
 
 function orderOf(query: ResultQuery): string {
   const dir = query.descending ? 'DESC' : 'ASC';
-  return `ORDER BY ${COLUMN_SQL[query.sort]} ${dir} NULLS LAST, row_number ${dir}`;
+  const key = query.sort === 'custom' ? 'custom_score' : COLUMN_SQL[query.sort];
+  return `ORDER BY ${key} ${dir} NULLS LAST, row_number ${dir}`;
+}
+
+/** SELECT … FROM … WHERE … ORDER BY … LIMIT/OFFSET with the custom score, and its parameters. */
+function pageSql(
+  screenId: string,
+  query: ResultQuery,
+  limit: number,
+  offset: number,
+): { sql: string; params: unknown[] } {
+  const where = whereOf(screenId, query);
+  const custom = customSql(query, where.params.length + 1);
+  const n = where.params.length + custom.params.length;
+  return {
+    sql: `SELECT ${RESULT_COLUMNS}, ${custom.sql} AS custom_score FROM screen_results WHERE ${where.sql} ${orderOf(query)} LIMIT $${n + 1} OFFSET $${n + 2}`,
+    params: [...where.params, ...custom.params, limit, offset],
+  };
 }
 
 export async function queryResults(
@@ -245,12 +293,9 @@ export async function queryResults(
   query: ResultQuery,
 ): Promise<ScreenResultPage> {
   const where = whereOf(screenId, query);
-  const n = where.params.length;
+  const page = pageSql(screenId, query, query.limit, query.offset);
   const [rows, count] = await Promise.all([
-    db.query(
-      `SELECT ${RESULT_COLUMNS} FROM screen_results WHERE ${where.sql} ${orderOf(query)} LIMIT $${n + 1} OFFSET $${n + 2}`,
-      [...where.params, query.limit, query.offset],
-    ) as Promise<ResultRow[]>,
+    db.query(page.sql, page.params) as Promise<ResultRow[]>,
     db.query(
       `SELECT count(*)::int AS n FROM screen_results WHERE ${where.sql}`,
       where.params,
@@ -271,13 +316,9 @@ export async function* streamResults(
   query: ResultQuery,
   batch = 5000,
 ): AsyncGenerator<ScreenResultRow[]> {
-  const where = whereOf(screenId, query);
-  const n = where.params.length;
   for (let offset = 0; ; offset += batch) {
-    const rows: ResultRow[] = await db.query(
-      `SELECT ${RESULT_COLUMNS} FROM screen_results WHERE ${where.sql} ${orderOf(query)} LIMIT $${n + 1} OFFSET $${n + 2}`,
-      [...where.params, batch, offset],
-    );
+    const page = pageSql(screenId, query, batch, offset);
+    const rows: ResultRow[] = await db.query(page.sql, page.params);
     if (rows.length === 0) return;
     yield rows.map(toResultRow);
     if (rows.length < batch) return;

@@ -72,8 +72,9 @@ export async function processChunk(
       screen_status: string;
       score_kind: string;
       score_floor_ev: number | null;
+      score_hbar_omega_ev: number | null;
     }> = await q.query(
-      `SELECT c.status, s.status AS screen_status, s.score_kind, s.score_floor_ev
+      `SELECT c.status, s.status AS screen_status, s.score_kind, s.score_floor_ev, s.score_hbar_omega_ev
            FROM screen_chunks c JOIN screens s ON s.id = c.screen_id
           WHERE c.screen_id = $1 AND c.chunk_index = $2${lock ? '\n          FOR UPDATE OF c' : ''}`,
       [screenId, chunkIndex],
@@ -95,6 +96,7 @@ export async function processChunk(
   const score: ScoreChoice = {
     kind: before.score_kind as ScoreKind,
     floorEv: before.score_floor_ev ?? undefined,
+    assumedHbarOmegaEv: before.score_hbar_omega_ev ?? undefined,
   };
   const result = await compute.run(
     'screenChunk',

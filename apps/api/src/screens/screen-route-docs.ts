@@ -13,7 +13,12 @@ const editor = 'owner or editor (reviewer, viewer: 403; non-members: 404)';
 const resultQuery = [
   {
     name: 'sort',
-    description: `${[...SCREEN_NUMERIC_COLUMNS, 'donor', 'acceptor'].join(' | ')}; prefix - for descending (default -score)`,
+    description: `${[...SCREEN_NUMERIC_COLUMNS, 'donor', 'acceptor', 'custom'].join(' | ')}; prefix - for descending (default -score); custom only with a custom score`,
+  },
+  {
+    name: 'custom',
+    description:
+      'a custom score sent per row as customScore: comma-separated column:weight terms (at most 6) over the numeric result columns except rowNumber and score, e.g. log10kCsMlj:1,log10kCrMlj:-1',
   },
   { name: 'offset', description: 'first row (default 0)' },
   { name: 'limit', description: 'rows per page, 1–1000 (default 50)' },
@@ -77,6 +82,11 @@ export const SCREEN_ROUTE_DOCS: readonly RouteDoc[] = [
       {
         name: 'floorEv',
         description: 'driving-force floor of fastest-forward-above-floor (eV, default 0.1)',
+      },
+      {
+        name: 'assumedHbarOmegaEv',
+        description:
+          'ħω (eV, 0.0124–0.496) the score assumes for a step in the inverted region whose row gives none (default 0.186 eV = 1500 cm⁻¹); rows that used it carry assumed-hbar-omega',
       },
       { name: 'chunkSize', description: 'rows per job, 50–20000 (default 2000)' },
     ],
@@ -315,7 +325,11 @@ export const SCREEN_SCHEMAS: Record<string, Schema> = {
     badRowCount: int,
     badRows: arr(obj({ line: int, message: str })),
     badRowChoice: { type: 'string', enum: ['none', 'run-good', 'fixed'] },
-    score: obj({ kind: { type: 'string', enum: [...SCREEN_SCORE_KINDS] }, floorEv: nullable(num) }),
+    score: obj({
+      kind: { type: 'string', enum: [...SCREEN_SCORE_KINDS] },
+      floorEv: nullable(num),
+      assumedHbarOmegaEv: nullable(num),
+    }),
     progress: obj({
       rowsDone: int,
       rowCount: int,
@@ -332,20 +346,25 @@ export const SCREEN_SCHEMAS: Record<string, Schema> = {
     finishedAt: nullable(str),
   }),
   ScreenRun: obj({ screen: ref('Screen'), reused: bool }),
-  ScreenResultRow: obj({
-    ...Object.fromEntries(SCREEN_NUMERIC_COLUMNS.map((c) => [c, nullable(num)])),
-    donor: str,
-    acceptor: str,
-    solvent: str,
-    regimeCs: regime,
-    regimeCr: regime,
-    couplingRegime: nullable({
-      type: 'string',
-      enum: ['nonadiabatic', 'intermediate', 'adiabatic'],
-      description: 'From the Landau–Zener γ with ν_n = 1e13 s⁻¹ (CALC-API.md couplingRegime)',
-    }),
-    warnings: arr({ type: 'string', enum: [...SCREEN_WARNINGS] }),
-  }),
+  ScreenResultRow: obj(
+    {
+      ...Object.fromEntries(SCREEN_NUMERIC_COLUMNS.map((c) => [c, nullable(num)])),
+      donor: str,
+      acceptor: str,
+      solvent: str,
+      regimeCs: regime,
+      regimeCr: regime,
+      couplingRegime: nullable({
+        type: 'string',
+        enum: ['nonadiabatic', 'intermediate', 'adiabatic'],
+        description: 'From the Landau–Zener γ with ν_n = 1e13 s⁻¹ (CALC-API.md couplingRegime)',
+      }),
+      warnings: arr({ type: 'string', enum: [...SCREEN_WARNINGS] }),
+      // Only with a custom score in the request.
+      customScore: num,
+    },
+    [...SCREEN_NUMERIC_COLUMNS, 'donor', 'acceptor', 'solvent', 'regimeCs', 'regimeCr', 'couplingRegime', 'warnings'],
+  ),
   ScreenResultPage: obj({
     items: arr(ref('ScreenResultRow')),
     total: int,

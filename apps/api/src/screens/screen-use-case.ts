@@ -28,7 +28,8 @@ import {
   type InputChunk,
 } from './screen-parser';
 import { findResult, findScreen, inputPayloadForLine, screenWorkspace } from './screen-repository';
-import type { ScoreChoice } from './screen-score';
+import { unitsForKind } from '../pairs/pair-rules';
+import { DEFAULT_ASSUMED_HBAR_OMEGA_EV, type ScoreChoice } from './screen-score';
 import { SCREEN_SOFTWARE_VERSION } from './screen-version';
 
 export const DEFAULT_CHUNK_SIZE = 2000;
@@ -76,13 +77,15 @@ export async function uploadScreen(
     await requireRole(tx, workspaceId, userId, canEdit);
     const inserted: Array<{ id: string }> = await tx.query(
       `INSERT INTO screens (workspace_id, name, status, input_hash, software_version, score_kind, score_floor_ev,
-         chunk_size, created_by) VALUES ($1, $2, 'uploaded', '', $3, $4, $5, $6, $7) RETURNING id`,
+         score_hbar_omega_ev, chunk_size, created_by)
+       VALUES ($1, $2, 'uploaded', '', $3, $4, $5, $6, $7, $8) RETURNING id`,
       [
         workspaceId,
         options.name,
         SCREEN_SOFTWARE_VERSION,
         options.score.kind,
         options.score.floorEv ?? null,
+        options.score.assumedHbarOmegaEv ?? DEFAULT_ASSUMED_HBAR_OMEGA_EV,
         chunkSize,
         userId,
       ],
@@ -137,13 +140,16 @@ export async function uploadScreen(
       );
     }
     const inputHash = createHash('sha256')
-      .update(`${summary.inputHash}\n${options.score.kind}\n${options.score.floorEv ?? ''}`)
+      .update(
+        `${summary.inputHash}\n${options.score.kind}\n${options.score.floorEv ?? ''}\n` +
+          `${options.score.assumedHbarOmegaEv ?? DEFAULT_ASSUMED_HBAR_OMEGA_EV}`,
+      )
       .digest('hex');
     const choice: BadRowChoice =
       summary.badRowCount > 0 ? 'run-good' : (options.badRowChoice ?? 'none');
     await tx.query(
       `UPDATE screens SET input_hash = $2, row_count = $3, bad_row_count = $4, bad_rows = $5, bad_row_choice = $6,
-         chunk_count = $7, upload_ms = $8 WHERE id = $1`,
+         chunk_count = $7, upload_ms = $8, column_units = $9 WHERE id = $1`,
       [
         screenId,
         inputHash,
@@ -153,6 +159,7 @@ export async function uploadScreen(
         choice,
         summary.chunks,
         Date.now() - started,
+        JSON.stringify(summary.units),
       ],
     );
     const reusable: Array<{ id: string }> = await tx.query(
@@ -359,14 +366,21 @@ export async function openRowAsPair(
     note: `${note} Value as given in the uploaded file.`,
   };
   const params: PairParameter[] = [];
+  // The unit the file's header named for a column travels to the pair (a coupling uploaded in
+  // cm⁻¹ opens in cm⁻¹); values stay canonical, as every pair parameter stores them.
+  const [{ column_units: columnUnits }]: Array<{ column_units: Record<string, string> | null }> =
+    await db.query('SELECT column_units FROM screens WHERE id = $1', [screenId]);
   const add = (
     kind: PairParameter['kind'],
     value: number | null,
     unit: string,
     provenance: Provenance,
+    column: string = kind,
   ) => {
     if (value === null || !Number.isFinite(value)) return;
-    params.push({ kind, value, unit, uncertainty: null, provenance });
+    const typed = columnUnits?.[column];
+    const shown = typed && unitsForKind(kind).includes(typed) ? typed : unit;
+    params.push({ kind, value, unit: shown, uncertainty: null, provenance });
   };
   const rwInputs = {
     donorOxidation: v('donorOxidation'),
@@ -436,7 +450,7 @@ export async function openRowAsPair(
   add('donorOxidation', v('donorOxidation'), 'V', given);
   add('acceptorReduction', v('acceptorReduction'), 'V', given);
   add('excitationEnergy', v('excitationEnergy'), 'eV', given);
-  add('epsilonStatic', v('epsilon'), '', given);
+  add('epsilonStatic', v('epsilon'), '', given, 'epsilon');
   add(
     'refractiveIndex',
     Number.isNaN(v('refractiveIndex')) ? null : v('refractiveIndex'),

@@ -120,6 +120,11 @@ export const routes: Routes = [
             title: 'Members · Gapwise',
             loadComponent: () => import('./workspaces/members/members').then((m) => m.Members),
           },
+          {
+            path: 'audit',
+            title: 'Audit trail · Gapwise',
+            loadComponent: () => import('./workspaces/audit/audit-trail').then((m) => m.AuditTrail),
+          },
         ],
       },
       {

@@ -125,4 +125,5 @@ export const WARNING_LABELS: Record<string, string> = {
   'coupling-delocalized': '2|H_AB| ≥ λ: delocalized, no diabatic rate',
   'row-refused': 'a derivation refused the row',
   other: 'other warning of the core',
+  'assumed-hbar-omega': 'ħω assumed for the score (a step in the inverted region, no ħω given)',
 };

@@ -64,6 +64,8 @@ export class ScreenResultsStore {
   readonly form = signal<FormFilter>({ ranges: {} });
   readonly brush = signal<BrushBox | null>(null);
   readonly sort = signal('-score');
+  /** The custom score's terms (empty: none). */
+  readonly custom = signal<ReadonlyArray<{ column: ScreenNumericColumn; weight: number }>>([]);
   readonly offset = signal(0);
   readonly limit = signal(25);
   /** Bumped when the screen has more finished rows, so both queries run again. */
@@ -78,6 +80,7 @@ export class ScreenResultsStore {
       sort: this.sort(),
       offset: this.offset(),
       limit: this.limit(),
+      custom: this.custom(),
     };
   });
 
@@ -111,6 +114,13 @@ export class ScreenResultsStore {
 
   setBrush(box: BrushBox | null): void {
     this.brush.set(box);
+    this.offset.set(0);
+  }
+
+  /** Sets the custom score and ranks by it (best first); an empty list goes back to the score. */
+  setCustom(terms: ReadonlyArray<{ column: ScreenNumericColumn; weight: number }>): void {
+    this.custom.set(terms);
+    this.sort.set(terms.length ? '-custom' : '-score');
     this.offset.set(0);
   }
 

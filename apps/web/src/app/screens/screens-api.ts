@@ -23,6 +23,8 @@ export interface ResultFilter {
   readonly warnings?: readonly string[];
   readonly noWarnings?: boolean;
   readonly q?: string;
+  /** A custom score: Σ weight × column, computed and sortable on the server. */
+  readonly custom?: ReadonlyArray<{ column: ScreenNumericColumn; weight: number }>;
 }
 
 export interface ScreenOptions {
@@ -35,6 +37,8 @@ export interface UploadSettings {
   readonly name: string;
   readonly score: ScreenScoreKind;
   readonly floorEv?: number | null;
+  /** ħω (eV) the score assumes for an inverted step whose row gives none. */
+  readonly assumedHbarOmegaEv?: number | null;
   readonly runGoodRows?: boolean;
   readonly badRowChoice?: 'fixed' | 'none';
 }
@@ -52,6 +56,8 @@ export function resultParams(f: ResultFilter, paged = true): HttpParams {
   if (f.warnings?.length) p = p.set('warning', f.warnings.join(','));
   if (f.noWarnings) p = p.set('noWarnings', 'true');
   if (f.q?.trim()) p = p.set('q', f.q.trim());
+  if (f.custom?.length)
+    p = p.set('custom', f.custom.map((t) => `${t.column}:${t.weight}`).join(','));
   return p;
 }
 
@@ -90,6 +96,8 @@ export class ScreensApi {
   upload(workspaceId: string, source: File | string, s: UploadSettings): Observable<Screen> {
     let params = new HttpParams().set('name', s.name).set('score', s.score);
     if (s.floorEv !== null && s.floorEv !== undefined) params = params.set('floorEv', s.floorEv);
+    if (s.assumedHbarOmegaEv !== null && s.assumedHbarOmegaEv !== undefined)
+      params = params.set('assumedHbarOmegaEv', s.assumedHbarOmegaEv);
     if (s.runGoodRows) params = params.set('runGoodRows', 'true');
     if (s.badRowChoice) params = params.set('badRowChoice', s.badRowChoice);
     const url = `/api/workspaces/${workspaceId}/screens`;

@@ -55,6 +55,12 @@ export class NewScreen {
     name: this.fb.control('', [Validators.required, Validators.maxLength(200)]),
     score: this.fb.control<ScreenScoreKind>('cs-fast-cr-inverted'),
     floorEv: this.fb.control(0.1, [Validators.min(0), Validators.max(5)]),
+    // 0.186 eV = 1500 cm⁻¹, the API's default; bounds 100–4000 cm⁻¹ as the API checks.
+    assumedHbarOmegaEv: this.fb.control(0.186, [
+      Validators.required,
+      Validators.min(0.0124),
+      Validators.max(0.496),
+    ]),
     source: this.fb.control<Source>('file'),
     paste: this.fb.control(''),
   });
@@ -91,6 +97,7 @@ export class NewScreen {
         name: v.name.trim(),
         score: v.score,
         floorEv: v.score === 'fastest-forward-above-floor' ? v.floorEv : null,
+        assumedHbarOmegaEv: v.assumedHbarOmegaEv,
         runGoodRows,
         badRowChoice: this.fixing() ? 'fixed' : undefined,
       })

@@ -17,8 +17,16 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { ActivatedRoute, Router, RouterLink } from '@angular/router';
-import { plainText, type Screen, type ScreenResultRow } from '@gapwise/contracts';
-import { filter, map, switchMap } from 'rxjs';
+import {
+  plainText,
+  type Pair,
+  type Screen,
+  type ScreenNumericColumn,
+  type ScreenResultRow,
+} from '@gapwise/contracts';
+import { catchError, concatMap, filter, from, map, of, switchMap, toArray } from 'rxjs';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatInputModule } from '@angular/material/input';
 import { RichText } from '../../shared/rich-text/rich-text';
 import { RichTooltip } from '../../shared/rich-tooltip/rich-tooltip';
 import { formatFixed, formatSignificant } from '../../units/number-format';
@@ -26,6 +34,7 @@ import { WorkspaceContext } from '../../workspaces/workspace-context';
 import {
   COLOUR_BY,
   PLOT_RATES,
+  RESULT_COLUMNS,
   REGIME_LABELS,
   WARNING_LABELS,
   shownValue,
@@ -45,7 +54,9 @@ import { ScreensApi, isActive } from '../screens-api';
     FormsModule,
     RouterLink,
     MatButtonModule,
+    MatCheckboxModule,
     MatFormFieldModule,
+    MatInputModule,
     MatIconModule,
     MatPaginatorModule,
     MatSelectModule,
@@ -97,9 +108,13 @@ export class ScreenDetail {
     const s = this.screen();
     return s !== null && isActive(s);
   });
-  protected readonly columns = [
+  /** The score (and a custom score) right after the pair, so they are in view at 1440 px. */
+  protected readonly columns = computed(() => [
+    ...(this.workspace.canEdit() ? ['select'] : []),
     'rowNumber',
     'pair',
+    'score',
+    ...(this.store.custom().length ? ['custom'] : []),
     'deltaGCs',
     'deltaGCr',
     'lambdaTotal',
@@ -112,9 +127,47 @@ export class ScreenDetail {
     'regimeCr',
     'couplingRegime',
     'warnings',
-    'score',
     'open',
-  ];
+  ]);
+  /** What each score means and which model it ranks with (from the API). */
+  protected readonly scoreWords = toSignal(
+    this.api.options().pipe(
+      map((o) => o.scores),
+      catchError(() => of(null)),
+    ),
+    { initialValue: null },
+  );
+
+  /** Columns a custom score may weigh (as the API allows: not the line, not the score). */
+  protected readonly customColumns = RESULT_COLUMNS.filter(
+    (c) => c.key !== 'rowNumber' && c.key !== 'score',
+  );
+  /** The custom score being edited: up to three weighted columns. */
+  protected readonly customDraft = signal<
+    Array<{ column: ScreenNumericColumn | ''; weight: number | null }>
+  >([
+    { column: 'log10kCsMlj', weight: 1 },
+    { column: 'log10kCrMlj', weight: -1 },
+    { column: '', weight: null },
+  ]);
+  protected readonly customProblem = signal<string | null>(null);
+  protected readonly customText = computed(() =>
+    this.store
+      .custom()
+      .map((t, i) => {
+        const label = this.customColumns.find((c) => c.key === t.column)?.header ?? t.column;
+        const sign = t.weight < 0 ? '−' : i === 0 ? '' : '+';
+        const w = Math.abs(t.weight);
+        return `${sign} ${w === 1 ? '' : `${w} × `}${label}`.trim();
+      })
+      .join(' '),
+  );
+
+  /** Lines picked in the table to save as pairs. */
+  protected readonly selected = signal<ReadonlySet<number>>(new Set());
+  protected readonly saving = signal(false);
+  protected readonly saved = signal<Pair[]>([]);
+  protected readonly saveProblem = signal<string | null>(null);
   protected readonly rows = computed(() => this.store.tablePage()?.items ?? []);
   protected readonly total = computed(() => this.store.tablePage()?.total ?? 0);
   protected readonly plotRows = computed(() => this.store.plotPage()?.items ?? []);
@@ -190,6 +243,96 @@ export class ScreenDetail {
   protected brushText(b: BrushBox): string {
     const xName = b.x === 'deltaGCs' ? '−ΔG°CS' : '−ΔG°CR';
     return `${xName} ${formatFixed(-b.xMax, 2)} to ${formatFixed(-b.xMin, 2)} eV, log₁₀ k ${formatFixed(b.yMin, 1)} to ${formatFixed(b.yMax, 1)}`;
+  }
+
+  protected setCustomTerm(index: number, part: 'column' | 'weight', value: string): void {
+    this.customDraft.update((terms) =>
+      terms.map((t, i) =>
+        i !== index
+          ? t
+          : part === 'column'
+            ? { ...t, column: value as ScreenNumericColumn | '' }
+            : { ...t, weight: value.trim() === '' ? null : Number(value) },
+      ),
+    );
+  }
+
+  /** Ranks by the custom score (checked here with the labels shown, then on the server). */
+  protected applyCustom(): void {
+    const terms: Array<{ column: ScreenNumericColumn; weight: number }> = [];
+    for (const [i, t] of this.customDraft().entries()) {
+      if (t.column === '' && t.weight === null) continue;
+      if (t.column === '') {
+        this.customProblem.set(`Term ${i + 1}: pick a column for the weight ${t.weight}.`);
+        return;
+      }
+      if (t.weight === null || !Number.isFinite(t.weight)) {
+        const label = this.customColumns.find((c) => c.key === t.column)?.header ?? t.column;
+        this.customProblem.set(`Term ${i + 1}: the weight of ${label} must be a number.`);
+        return;
+      }
+      terms.push({ column: t.column, weight: t.weight });
+    }
+    if (!terms.length) {
+      this.customProblem.set('Pick at least one column and its weight.');
+      return;
+    }
+    this.customProblem.set(null);
+    this.store.setCustom(terms);
+  }
+
+  protected clearCustom(): void {
+    this.customProblem.set(null);
+    this.store.setCustom([]);
+  }
+
+  protected toggleRow(line: number, on: boolean): void {
+    this.selected.update((set) => {
+      const next = new Set(set);
+      if (on) next.add(line);
+      else next.delete(line);
+      return next;
+    });
+  }
+
+  protected readonly pageAllSelected = computed(() => {
+    const rows = this.rows();
+    return rows.length > 0 && rows.every((r) => this.selected().has(r.rowNumber));
+  });
+
+  protected togglePage(on: boolean): void {
+    for (const r of this.rows()) this.toggleRow(r.rowNumber, on);
+  }
+
+  /** Saves every selected line as a pair, one after another; units of the upload survive. */
+  protected saveSelected(): void {
+    const s = this.screen();
+    const lines = [...this.selected()].sort((a, b) => a - b);
+    if (!s || !lines.length || this.saving()) return;
+    this.saving.set(true);
+    this.saveProblem.set(null);
+    from(lines)
+      .pipe(
+        concatMap((line) =>
+          this.api.openAsPair(s.id, line).pipe(
+            map((pair) => ({ line, pair }) as const),
+            catchError(() => of({ line, pair: null })),
+          ),
+        ),
+        toArray(),
+      )
+      .subscribe((outcomes) => {
+        this.saving.set(false);
+        const made = outcomes.flatMap((o) => (o.pair ? [o.pair] : []));
+        const failed = outcomes.filter((o) => !o.pair).map((o) => o.line);
+        this.saved.set(made);
+        this.selected.set(new Set(failed));
+        if (failed.length) {
+          this.saveProblem.set(
+            `Line${failed.length === 1 ? '' : 's'} ${failed.join(', ')} could not be saved; they stay selected.`,
+          );
+        }
+      });
   }
 
   protected openAsPair(row: ScreenResultRow): void {

@@ -1,7 +1,7 @@
 import { TestBed } from '@angular/core/testing';
 import type { ScreenResultRow } from '@gapwise/contracts';
 import { PLOT_RATES } from '../result-columns';
-import { ScreenScatter, scatterPoints } from './screen-scatter';
+import { ScreenScatter, robustRange, scatterPoints } from './screen-scatter';
 
 const row = (i: number, over: Partial<ScreenResultRow> = {}): ScreenResultRow => ({
   rowNumber: i + 2,
@@ -86,5 +86,21 @@ describe('ScreenScatter', () => {
     expect(legend.textContent).toContain('Colour: |HAB|');
     expect(subs(legend)).toEqual(['AB']);
     expect(svg.textContent).not.toContain('_');
+  });
+});
+
+describe('robustRange', () => {
+  it('keeps the whole range when nothing lies far out', () => {
+    expect(robustRange([1, 2, 3, 4, 5, 6, 7, 8, 9])).toEqual([1, 9]);
+    expect(robustRange([3, 1, 2])).toEqual([1, 3]);
+    expect(robustRange([])).toBeNull();
+  });
+
+  it('stops at the outer fences (quartiles ∓ 3 IQR) when one value lies far out', () => {
+    // Sorted: −87, 1, …, 9. Type-7 quartiles by hand: q1 at position 9 × 0.25 = 2.25 → 2.25,
+    // q3 at 6.75 → 6.75; IQR = 4.5; lower fence 2.25 − 13.5 = −11.25; the upper fence 20.25
+    // lies above the largest value, so the top stays at 9.
+    const values = [1, 2, 3, 4, 5, 6, 7, 8, 9, -87];
+    expect(robustRange(values)).toEqual([-11.25, 9]);
   });
 });

@@ -14,6 +14,7 @@ import {
   brush as d3brush,
   extent,
   interpolateHcl,
+  quantileSorted,
   quadtree,
   scaleSequential,
   symbol,
@@ -89,6 +90,25 @@ interface Hover {
 }
 
 /**
+ * The range an axis shows: the data's range, narrowed to Tukey's outer fences (quartiles ∓ 3 ×
+ * the interquartile range; Tukey, Exploratory Data Analysis, 1977) when a few values lie far out,
+ * so one row at log k = −87 does not squash every other point into a line. Values outside are
+ * drawn at the edge and marked as outliers.
+ */
+export function robustRange(values: readonly number[]): [number, number] | null {
+  if (!values.length) return null;
+  const sorted = [...values].sort((a, b) => a - b);
+  const lo = sorted[0];
+  const hi = sorted[sorted.length - 1];
+  if (sorted.length < 8) return [lo, hi];
+  const q1 = quantileSorted(sorted, 0.25)!;
+  const q3 = quantileSorted(sorted, 0.75)!;
+  const iqr = q3 - q1;
+  if (iqr === 0) return [lo, hi];
+  return [Math.max(lo, q1 - 3 * iqr), Math.min(hi, q3 + 3 * iqr)];
+}
+
+/**
  * log10 k against −ΔG° for the rows of a screen: coloured by a chosen column (with a legend;
  * regimes also by shape), hover names the pair, a brushed rectangle is reported as ranges in
  * stored units (ΔG° in eV, log10 k) so the table can filter by it.
@@ -147,8 +167,13 @@ export class ScreenScatter {
   private draw(svgEl: SVGSVGElement, points: ScatterPoint[]): void {
     const rate = this.rate();
     const colourBy = this.colourBy();
-    const xs = extent(points, (p) => p.x) as [number, number] | [undefined, undefined];
-    const ys = extent(points, (p) => p.y) as [number, number] | [undefined, undefined];
+    const xs = robustRange(points.map((p) => p.x)) ?? [undefined, undefined];
+    const ys = robustRange(points.map((p) => p.y)) ?? [undefined, undefined];
+    const outside = (p: ScatterPoint) =>
+      xs[0] !== undefined &&
+      ys[0] !== undefined &&
+      (p.x < xs[0] || p.x > xs[1]! || p.y < ys[0] || p.y > ys[1]!);
+    const outliers = points.filter(outside).length;
     const pad = (lo: number | undefined, hi: number | undefined, min: number): [number, number] => {
       if (lo === undefined || hi === undefined) return [0, 1];
       const span = Math.max(hi - lo, min);
@@ -191,13 +216,31 @@ export class ScreenScatter {
       .selectAll('path')
       .data(points)
       .join('path')
-      .attr('class', 'point')
-      .attr('transform', (p) => `translate(${x(p.x).toFixed(1)},${y(p.y).toFixed(1)})`)
-      .attr('d', shape)
-      .attr('fill', fill)
+      .attr('class', (p) => (outside(p) ? 'point outlier' : 'point'))
+      // An outlier sits at the edge it lies beyond (clamped), drawn hollow with a dark ring.
+      .attr('transform', (p) => {
+        const px = Math.min(Math.max(x(p.x), 0), f.innerWidth);
+        const py = Math.min(Math.max(y(p.y), 0), f.innerHeight);
+        return `translate(${px.toFixed(1)},${py.toFixed(1)})`;
+      })
+      .attr('d', (p) => (outside(p) ? symbol().type(symbolDiamond).size(64)() : shape(p)))
+      .attr('fill', (p) => (outside(p) ? '#ffffff' : fill(p)))
       .attr('fill-opacity', 0.85)
-      .attr('stroke', '#ffffff')
-      .attr('stroke-width', 0.6);
+      .attr('stroke', (p) => (outside(p) ? '#1f2b2b' : '#ffffff'))
+      .attr('stroke-width', (p) => (outside(p) ? 1.4 : 0.6));
+    if (outliers > 0) {
+      plot
+        .append('text')
+        .attr('class', 'outlier-note')
+        .attr('x', f.innerWidth - 4)
+        .attr('y', 14)
+        .attr('text-anchor', 'end')
+        .attr('font-size', 11)
+        .attr('fill', '#1f2b2b')
+        .text(
+          `◇ ${outliers} outlier${outliers === 1 ? '' : 's'} beyond the axes, drawn at the edge`,
+        );
+    }
 
     this.drawLegend(svg, categorical, colourBy, c0, c1, seq);
 

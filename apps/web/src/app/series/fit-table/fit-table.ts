@@ -12,54 +12,56 @@ const CM1_PER_EV = 8065.543937;
   imports: [RichText],
   template: `
     @let f = fit();
-    <table class="gw-table fit-table">
-      <caption>
-        Fitted parameters (± one standard error; T =
-        {{
-          temperature()
-        }}
-        K
-        @if (f.hbarOmega !== null) {
-          ; fixed mode ħω = {{ sig(f.hbarOmega) }} eV, λ<sub>v</sub> = {{ sig(f.lambdaVib) }} eV
-        }
-        )
-      </caption>
-      <thead>
-        <tr>
-          <th scope="col">Model</th>
-          <th scope="col" class="num">λ / eV</th>
-          <th scope="col" class="num">|H<sub>AB</sub>| / meV</th>
-          <th scope="col" class="num">|H<sub>AB</sub>| / cm⁻¹</th>
-          <th scope="col" class="num">corr(λ, H)</th>
-          <th scope="col" class="num">RMS residual / decades</th>
-          <th scope="col" class="num">AIC</th>
-          <th scope="col" class="num">BIC</th>
-        </tr>
-      </thead>
-      <tbody>
-        @for (row of rows(); track row.model) {
-          <tr [class.primary]="row.model === f.preferred">
-            <th scope="row">
-              {{ names[row.model] }}
-              @if (row.model === f.preferred && rows().length > 1) {
-                <span class="preferred">lower AIC</span>
-              }
-            </th>
-            <td class="num">{{ fx(row.lambda, 3) }} ± {{ fx(row.standardErrors.lambda, 3) }}</td>
-            <td class="num">
-              {{ sig(row.coupling * 1000) }} ± {{ sig(row.standardErrors.coupling * 1000, 2) }}
-            </td>
-            <td class="num">
-              {{ sig(row.coupling * cm) }} ± {{ sig(row.standardErrors.coupling * cm, 2) }}
-            </td>
-            <td class="num">{{ fx(row.correlation, 2) }}</td>
-            <td class="num">{{ fx(row.rmsLog10Residual, 2) }}</td>
-            <td class="num">{{ fx(row.aic, 1) }}</td>
-            <td class="num">{{ fx(row.bic, 1) }}</td>
+    <div class="gw-table-scroll">
+      <table class="gw-table fit-table">
+        <caption>
+          Fitted parameters (± one standard error; T =
+          {{
+            temperature()
+          }}
+          K
+          @if (f.hbarOmega !== null) {
+            ; fixed mode ħω = {{ sig(f.hbarOmega) }} eV, λ<sub>v</sub> = {{ sig(f.lambdaVib) }} eV
+          }
+          )
+        </caption>
+        <thead>
+          <tr>
+            <th scope="col">Model</th>
+            <th scope="col" class="num">λ / eV</th>
+            <th scope="col" class="num">|H<sub>AB</sub>| / meV</th>
+            <th scope="col" class="num">|H<sub>AB</sub>| / cm⁻¹</th>
+            <th scope="col" class="num">corr(λ, H)</th>
+            <th scope="col" class="num">RMS residual / decades</th>
+            <th scope="col" class="num">AIC</th>
+            <th scope="col" class="num">BIC</th>
           </tr>
-        }
-      </tbody>
-    </table>
+        </thead>
+        <tbody>
+          @for (row of rows(); track row.model) {
+            <tr [class.primary]="row.model === f.preferred">
+              <th scope="row">
+                {{ names[row.model] }}
+                @if (row.model === f.preferred && rows().length > 1) {
+                  <span class="preferred">lower AIC</span>
+                }
+              </th>
+              <td class="num">{{ fx(row.lambda, 3) }} ± {{ fx(row.standardErrors.lambda, 3) }}</td>
+              <td class="num">
+                {{ sig(row.coupling * 1000) }} ± {{ sig(row.standardErrors.coupling * 1000, 2) }}
+              </td>
+              <td class="num">
+                {{ sig(row.coupling * cm) }} ± {{ sig(row.standardErrors.coupling * cm, 2) }}
+              </td>
+              <td class="num">{{ fx(row.correlation, 2) }}</td>
+              <td class="num">{{ fx(row.rmsLog10Residual, 2) }}</td>
+              <td class="num">{{ fx(row.aic, 1) }}</td>
+              <td class="num">{{ fx(row.bic, 1) }}</td>
+            </tr>
+          }
+        </tbody>
+      </table>
+    </div>
     @if (warnings().length) {
       <ul class="warnings" aria-label="Fit warnings">
         @for (w of warnings(); track $index) {

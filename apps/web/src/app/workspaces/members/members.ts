@@ -9,7 +9,8 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTableModule } from '@angular/material/table';
-import { ROLES, type Invitation, type Member, type Role } from '@gapwise/contracts';
+import { RouterLink } from '@angular/router';
+import { ROLES, canReadAudit, type Invitation, type Member, type Role } from '@gapwise/contracts';
 import { catchError, combineLatest, of, switchMap } from 'rxjs';
 import { apiErrorOf, applyFieldErrors } from '../../session/api-errors';
 import { Session } from '../../session/session';
@@ -35,6 +36,7 @@ const ROLE_WORDS: Record<Role, string> = {
     MatSelectModule,
     MatButtonModule,
     MatIconModule,
+    RouterLink,
   ],
   templateUrl: './members.html',
   styleUrl: './members.scss',
@@ -49,6 +51,7 @@ export class Members {
   readonly wid = input.required<string>();
 
   protected readonly roles = ROLES;
+  protected readonly canReadAudit = computed(() => canReadAudit(this.workspace.role()));
   protected readonly roleWords = ROLE_WORDS;
   private readonly reloads = signal(0);
   protected readonly inviteForm = new FormGroup({
