@@ -135,19 +135,23 @@ try {
     if (python) pyRuns.push(await py());
   }
   const best = (runs: Run[]) => runs.reduce((a, b) => (b.ms < a.ms ? b : a));
+  // CPU seconds (user + system, GNU time) of the best-CPU run: what a busy machine distorts least.
+  const bestCpu = (runs: Run[]) => Math.min(...runs.map((r) => r.cpuSeconds ?? Infinity));
   const g = best(gwRuns);
   const rate = (ms: number) => `${(((LINES / ms) * 1000) / 1000).toFixed(0)} k lines/s`;
   console.log(
     `gapwise calc --batch, ${LINES} rate.marcus lines (all four inputs varied), best of 2 ` +
       `(start-up included): ${(g.ms / 1000).toFixed(2)} s = ${rate(g.ms)}` +
-      (g.peakKb ? `, peak RSS ${(g.peakKb / 1024).toFixed(0)} MB` : ''),
+      (g.peakKb ? `, peak RSS ${(g.peakKb / 1024).toFixed(0)} MB` : '') +
+      `, ${bestCpu(gwRuns).toFixed(2)} CPU s`,
   );
   if (python) {
     const p = best(pyRuns);
     const worst = compare(join(dir, 'gw.jsonl'), join(dir, 'py.jsonl'));
     console.log(
       `plain Python peer (json + math), same input, best of 2, alternating: ${(p.ms / 1000).toFixed(2)} s = ${rate(p.ms)}; ` +
-        `gapwise / Python = ${(p.ms / g.ms).toFixed(2)}× (target ≥ 2×); outputs agree (worst relative difference ${worst.toExponential(1)})`,
+        `${bestCpu(pyRuns).toFixed(2)} CPU s; gapwise / Python = ${(p.ms / g.ms).toFixed(2)}× wall, ` +
+        `${(bestCpu(pyRuns) / bestCpu(gwRuns)).toFixed(2)}× CPU (target ≥ 2×); outputs agree (worst relative difference ${worst.toExponential(1)})`,
     );
   } else console.log('python3 not found: no peer figure');
   writeRequests(input, LARGE);
