@@ -8,6 +8,8 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
+import { calculate, serializeAnswer } from '@gapwise/calc';
+import { isBoundedClosedForm } from '../../apps/api/src/calc/routes';
 import { pairBody } from './support/fixtures';
 import { registerUser, startTestApp, type Session, type TestApp } from './support/test-app';
 
@@ -156,10 +158,18 @@ describe('with a budget of 0.3 s, one thread and a queue of one', () => {
     expect(res.body.error.message).toMatch(/fewer Monte Carlo samples/);
     expect(res.body.error.message).toMatch(/larger ħω/);
     expect(res.body.error.message).toMatch(/CALC_BUDGET_MS/);
-    // The pool is usable again: a small calculation is answered.
+    // The pool is usable again: a small calculation is answered (rate.mlj: computed in the pool,
+    // unlike rate.marcus, which runs on the HTTP thread).
     const small = await user.post('/api/calc', {
-      method: 'rate.marcus',
-      inputs: { deltaG0: -0.5, lambda: 0.8, coupling: 0.01, temperature: 298.15 },
+      method: 'rate.mlj',
+      inputs: {
+        deltaG0: -0.5,
+        lambdaSolvent: 0.3,
+        lambdaVib: 0.2,
+        hbarOmega: 0.18,
+        coupling: 0.01,
+        temperature: 298.15,
+      },
     });
     expect(small.status).toBe(200);
   }, 60_000);
@@ -174,7 +184,48 @@ describe('with a budget of 0.3 s, one thread and a queue of one', () => {
     expect(third.status).toBe(503);
     expect(third.body.error.code).toBe('calculation-pool-busy');
     expect(Number(third.headers['retry-after'])).toBeGreaterThan(0);
+    // A bounded closed form is computed on the HTTP thread: the full pool does not refuse it,
+    // and the bytes are those of the calculation core.
+    const marcus = {
+      method: 'rate.marcus',
+      inputs: {
+        deltaG0: -0.5,
+        lambda: { value: 0.8, unit: 'eV' },
+        coupling: 0.01,
+        temperature: 298.15,
+      },
+    };
+    const inline = await user.post('/api/calc', marcus);
+    expect(inline.status).toBe(200);
+    expect(inline.text).toBe(serializeAnswer(calculate(marcus)));
     expect((await first).status).toBe(422);
     expect((await second).status).toBe(422);
   }, 60_000);
+});
+
+describe('calculations run on the HTTP thread', () => {
+  it('are only closed forms whose cost is bounded before they run', () => {
+    const inputs = { deltaG0: -0.5, lambda: 0.8, coupling: 0.01, temperature: 298.15 };
+    expect(isBoundedClosedForm({ method: 'rate.marcus', inputs })).toBe(true);
+    expect(
+      isBoundedClosedForm({
+        method: 'rate.marcus',
+        inputs: { ...inputs, coupling: { value: 50, unit: 'cm-1' } },
+      }),
+    ).toBe(true);
+    // Anything else goes to the pool and its budget.
+    expect(isBoundedClosedForm({ method: 'rate.mlj', inputs })).toBe(false);
+    expect(isBoundedClosedForm(EXPENSIVE)).toBe(false);
+    expect(
+      isBoundedClosedForm({ method: 'rate.marcus', inputs: { ...inputs, deltaG0: [-0.5] } }),
+    ).toBe(false);
+    expect(isBoundedClosedForm({ method: 'rate.marcus', inputs, extra: 1 })).toBe(false);
+    expect(
+      isBoundedClosedForm({
+        method: 'rate.marcus',
+        inputs: Object.fromEntries(Array.from({ length: 20 }, (_, i) => [`x${i}`, i])),
+      }),
+    ).toBe(false);
+    expect(isBoundedClosedForm([{ method: 'rate.marcus', inputs }])).toBe(false);
+  });
 });

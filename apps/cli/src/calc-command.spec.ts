@@ -1,7 +1,10 @@
 import { spawn } from 'node:child_process';
+import { createInterface } from 'node:readline';
+import { Readable, Writable } from 'node:stream';
 import { fileURLToPath } from 'node:url';
 import { calculate, methodCatalog, serializeAnswer } from '@gapwise/calc';
 import { describe, expect, it } from 'vitest';
+import { answerText, runBatch } from './calc-command';
 
 const BIN = fileURLToPath(new URL('../bin/gapwise.js', import.meta.url));
 const SLOW = 120_000;
@@ -209,4 +212,52 @@ describe('gapwise calc', () => {
     },
     SLOW,
   );
+});
+
+describe('runBatch line ends', () => {
+  /** Answers `chunks` fed one by one, as a pipe delivers them. */
+  async function batch(chunks: Array<string | Buffer>): Promise<string[]> {
+    let out = '';
+    const sink = new Writable({
+      write(chunk: Buffer, _enc, done) {
+        out += chunk.toString('utf8');
+        done();
+      },
+    });
+    await runBatch(Readable.from(chunks, { objectMode: false }), sink);
+    return out.split('\n').slice(0, -1);
+  }
+  /** What node:readline (crlfDelay ∞) calls the lines of the same text: the reference. */
+  async function readlineLines(text: string): Promise<string[]> {
+    const lines: string[] = [];
+    for await (const line of createInterface({
+      input: Readable.from([text]),
+      crlfDelay: Number.POSITIVE_INFINITY,
+    }))
+      lines.push(line);
+    return lines;
+  }
+  const line = JSON.stringify(marcus);
+
+  it('splits lines as readline does: LF, CRLF (also across chunks), lone CR, no final LF', async () => {
+    const cases: string[][] = [
+      [`${line}\n${line}\n`],
+      [`${line}\r\n${line}\r`, `\n${line}`],
+      [`${line}\r${line}\n\n`, `${line}`],
+      [`${line.slice(0, 20)}`, `${line.slice(20)}\n`, `\r\n`],
+    ];
+    for (const chunks of cases) {
+      const expected = (await readlineLines(chunks.join(''))).map((l) =>
+        serializeAnswer(answerText(l)),
+      );
+      expect(await batch(chunks)).toEqual(expected);
+    }
+  });
+
+  it('keeps a UTF-8 character split between chunks whole', async () => {
+    const text = Buffer.from(`{"method":"rate.marcus","inputs":{"deltaG0":-0.3,"note":"λ"}}\n`);
+    const at = text.indexOf(Buffer.from('λ')) + 1;
+    const [answer] = await batch([text.subarray(0, at), text.subarray(at)]);
+    expect(answer).toBe(serializeAnswer(answerText(text.toString('utf8').trim())));
+  });
 });

@@ -8,7 +8,7 @@ export function throughputSummary(figure: ThroughputFigure): string {
   const verdict =
     Math.max(figure.perSecond, figure.perCpuSecond) >= figure.target ? 'meets' : 'BELOW';
   return (
-    `${figure.label}, 1e6 pairs: best ${figure.bestMs.toFixed(1)} ms wall, ` +
+    `${figure.label}, 1e6 pairs: best of ${figure.runs} ${figure.bestMs.toFixed(1)} ms wall, ` +
     `${millions(figure.perSecond)} wall, ${millions(figure.perCpuSecond)} per CPU second ` +
     `(${figure.nsPerEvaluation.toFixed(1)} ns/rate); ${verdict} target ${millions(figure.target)}`
   );
@@ -27,4 +27,18 @@ export function batchSummary(figure: BatchFigure): string {
       'second of the command (start-up subtracted; independent of machine load)',
     `  peak RSS of the command: ${rss}`,
   ].join('\n');
+}
+
+/** The numpy peer of the per-element Marcus figure, with the ratio and the agreement check. */
+export function numpyComparison(
+  figure: ThroughputFigure & { sum: number },
+  peer: { bestMs: number; sum: number } | undefined,
+): string {
+  if (!peer) return '  numpy peer: python3 with numpy not found here; no ratio';
+  const agree = Math.abs(peer.sum - figure.sum) / Math.abs(peer.sum);
+  return (
+    `  numpy peer, same inputs and formula, best of ${figure.runs}: ${peer.bestMs.toFixed(1)} ms = ` +
+    `${millions(1e6 / (peer.bestMs / 1000))}; Gapwise / numpy = ${(peer.bestMs / figure.bestMs).toFixed(2)}× ` +
+    `(sums of log10 k agree to ${agree.toExponential(1)} relative)`
+  );
 }

@@ -4,14 +4,22 @@
  * gap-samples bench. Run: `npx tsx libs/calc/bench/run-calc-bench.ts`.
  */
 import { existsSync } from 'node:fs';
-import { batchSummary, throughputSummary } from './bench-report';
+import { batchSummary, numpyComparison, throughputSummary } from './bench-report';
 import { runBatchCliBench } from './batch-cli.bench';
-import { runVectorMarcusBench, runVectorMljBench } from './vector-rates.bench';
+import {
+  runNumpyMarcusPeer,
+  runVectorMarcusBench,
+  runVectorMarcusVariedBench,
+  runVectorMljBench,
+} from './vector-rates.bench';
 
 const mb = (bytes: number) => `${(bytes / 1024 / 1024).toFixed(0)} MB`;
 
 console.log(`Node ${process.version}, ${process.platform}/${process.arch}; one core per kernel.\n`);
 console.log(throughputSummary(runVectorMarcusBench()));
+const varied = runVectorMarcusVariedBench();
+console.log(throughputSummary(varied));
+console.log(numpyComparison(varied, runNumpyMarcusPeer()));
 console.log(throughputSummary(runVectorMljBench()));
 console.log(
   `  peak RSS of this process after the vector runs: ${mb(process.resourceUsage().maxRSS * 1024)}\n`,

@@ -3,6 +3,7 @@ import type { DataSource } from 'typeorm';
 import { MembershipEntity, PasswordResetEntity, UserEntity } from '@gapwise/db';
 import type { RegistrationAnswer } from '@gapwise/contracts';
 import { AppError, validationFailed } from '../http/app-error';
+import { forgetUser } from '../http/auth-cache';
 import type { Config } from '../config';
 import type { MailQueue } from '../mail/mail-queue';
 import { insertOutbox } from '../mail/outbox-repository';
@@ -203,6 +204,7 @@ export async function deleteAccount(
       );
     }
     for (const id of solo) await deleteWorkspace(tx, id);
+    forgetUser(userId);
     await tx.getRepository(UserEntity).delete({ id: userId });
     return { deletedWorkspaces: solo };
   });

@@ -1,6 +1,14 @@
 import type { EntityManager } from 'typeorm';
 import { SessionEntity } from '@gapwise/db';
 import { isUuid } from '../http/validate';
+import {
+  authCache,
+  cacheable,
+  forgetSession,
+  forgetUser,
+  sessionTag,
+  userTag,
+} from '../http/auth-cache';
 
 /** Why a session ended (stored, for support questions). */
 export type RevokeReason =
@@ -30,19 +38,35 @@ export async function createSession(
   return { id: saved.id, generation: saved.generation };
 }
 
-/** True while the session of an access token is neither revoked nor expired. */
+/**
+ * True while the session of an access token is neither revoked nor expired. Outside a
+ * transaction a live answer is cached (see auth-cache.ts) until its expiry at the latest.
+ */
 export async function sessionIsLive(
   db: EntityManager,
   sid: string,
   userId: string,
 ): Promise<boolean> {
   if (!isUuid(sid) || !isUuid(userId)) return false;
-  const count = await repo(db)
-    .createQueryBuilder('s')
-    .where('s.id = :sid AND s.user_id = :userId', { sid, userId })
-    .andWhere('s.revoked_at IS NULL AND s.expires_at > now()')
-    .getCount();
-  return count > 0;
+  const fetch = async (): Promise<number | null> => {
+    const rows: Array<{ expires_at: Date }> = await repo(db)
+      .createQueryBuilder('s')
+      .select('s.expires_at', 'expires_at')
+      .where('s.id = :sid AND s.user_id = :userId', { sid, userId })
+      .andWhere('s.revoked_at IS NULL AND s.expires_at > now()')
+      .getRawMany();
+    return rows[0] ? rows[0].expires_at.getTime() : null;
+  };
+  const expiresAt = cacheable(db)
+    ? await authCache.get(
+        `live:${sid}:${userId}`,
+        [sessionTag(sid), userTag(userId)],
+        fetch,
+        (at) => at !== null,
+        (at) => at ?? 0,
+      )
+    : await fetch();
+  return expiresAt !== null && expiresAt > Date.now();
 }
 
 export type RefreshOutcome =
@@ -98,6 +122,7 @@ export async function revokeSession(
   reason: RevokeReason,
 ): Promise<void> {
   if (!isUuid(sid)) return;
+  forgetSession(sid);
   await repo(db)
     .createQueryBuilder()
     .update(SessionEntity)
@@ -113,6 +138,7 @@ export async function revokeUserSessions(
   reason: RevokeReason,
   keepSid?: string,
 ): Promise<number> {
+  forgetUser(userId);
   const q = repo(db)
     .createQueryBuilder()
     .update(SessionEntity)

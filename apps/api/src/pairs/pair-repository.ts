@@ -295,11 +295,8 @@ export async function listPairs(
   if (q.status === undefined) where.push(`p.status <> 'archived'`);
   else if (q.status !== 'all') where.push(`p.status = $${params.push(q.status)}`);
   const sqlWhere = where.join(' AND ');
-  const [{ total }] = await db.query(
-    `SELECT count(*)::int AS total FROM pairs p WHERE ${sqlWhere}`,
-    params,
-  );
   const order = `${SORT_COLUMNS[q.sort]} ${q.descending ? 'DESC' : 'ASC'} NULLS LAST, p.id`;
+  // The total rides along as a window count: one round trip for the page and its total.
   const rows: Row[] = await db.query(
     `SELECT p.id, p.name, p.donor, p.acceptor, p.status, p.tags, p.delta_g0, p.lambda_total,
             p.coupling_abs, p.log10k, p.regime, p.version, p.updated_at, u.display_name,
@@ -307,12 +304,20 @@ export async function listPairs(
             -- the table shows k_CR without a column of its own to keep in step.
             (p.results->'recombination'->>'log10k')::float8 AS log10k_cr,
             p.results->'recombination'->>'regime' AS regime_cr,
-            (p.results->>'log10Ratio')::float8 AS log10_ratio
+            (p.results->>'log10Ratio')::float8 AS log10_ratio,
+            count(*) OVER ()::int AS total
        FROM pairs p LEFT JOIN users u ON u.id = p.updated_by
       WHERE ${sqlWhere} ORDER BY ${order}
       OFFSET $${params.length + 1} LIMIT $${params.length + 2}`,
     [...params, q.offset, q.limit],
   );
+  // A page past the end has no row to carry the total: only then is it counted apart.
+  const total: number = rows[0]
+    ? (rows[0]['total'] as number)
+    : q.offset === 0
+      ? 0
+      : (await db.query(`SELECT count(*)::int AS total FROM pairs p WHERE ${sqlWhere}`, params))[0]
+          .total;
   return {
     items: rows.map((r) => ({
       id: r['id'] as string,

@@ -2,19 +2,32 @@ import type { EntityManager } from 'typeorm';
 import type { Role } from '@gapwise/contracts';
 import { forbidden, notFound } from '../http/app-error';
 import { isUuid } from '../http/validate';
+import { authCache, cacheable, roleKey, userTag, workspaceTag } from '../http/auth-cache';
 
-/** The caller's role in a workspace, or null when not a member (or no such workspace). */
+/**
+ * The caller's role in a workspace, or null when not a member (or no such workspace). Outside a
+ * transaction a membership is cached (see auth-cache.ts); inside one the row is read afresh.
+ */
 export async function roleIn(
   db: EntityManager,
   workspaceId: string,
   userId: string,
 ): Promise<Role | null> {
   if (!isUuid(workspaceId)) return null;
-  const rows: Array<{ role: Role }> = await db.query(
-    'SELECT role FROM memberships WHERE workspace_id = $1 AND user_id = $2',
-    [workspaceId, userId],
+  const fetch = async (): Promise<Role | null> => {
+    const rows: Array<{ role: Role }> = await db.query(
+      'SELECT role FROM memberships WHERE workspace_id = $1 AND user_id = $2',
+      [workspaceId, userId],
+    );
+    return rows[0]?.role ?? null;
+  };
+  if (!cacheable(db)) return fetch();
+  return authCache.get(
+    roleKey(workspaceId, userId),
+    [workspaceTag(workspaceId), userTag(userId)],
+    fetch,
+    (role) => role !== null,
   );
-  return rows[0]?.role ?? null;
 }
 
 /**

@@ -1,5 +1,6 @@
 import type { EntityManager } from 'typeorm';
 import type { Member, Role, WorkspaceSummary } from '@gapwise/contracts';
+import { forgetMembership, forgetWorkspace } from '../http/auth-cache';
 
 export async function listWorkspacesOf(
   db: EntityManager,
@@ -33,6 +34,7 @@ export async function renameWorkspace(db: EntityManager, id: string, name: strin
 }
 
 export async function deleteWorkspace(db: EntityManager, id: string): Promise<void> {
+  forgetWorkspace(id);
   await db.query('DELETE FROM workspaces WHERE id = $1', [id]);
 }
 
@@ -42,6 +44,7 @@ export async function upsertMembership(
   userId: string,
   role: Role,
 ): Promise<void> {
+  forgetMembership(workspaceId, userId);
   await db.query(
     `INSERT INTO memberships (workspace_id, user_id, role) VALUES ($1, $2, $3)
      ON CONFLICT (workspace_id, user_id) DO UPDATE SET role = EXCLUDED.role`,
@@ -83,6 +86,7 @@ export async function setRole(
   userId: string,
   role: Role,
 ): Promise<void> {
+  forgetMembership(workspaceId, userId);
   await db.query('UPDATE memberships SET role = $3 WHERE workspace_id = $1 AND user_id = $2', [
     workspaceId,
     userId,
@@ -95,6 +99,7 @@ export async function removeMembership(
   workspaceId: string,
   userId: string,
 ): Promise<void> {
+  forgetMembership(workspaceId, userId);
   await db.query('DELETE FROM memberships WHERE workspace_id = $1 AND user_id = $2', [
     workspaceId,
     userId,

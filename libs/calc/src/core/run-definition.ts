@@ -97,8 +97,18 @@ function finiteOutputs(value: unknown, path: string): Checked {
   }
   if (isPlainObject(value)) {
     const out: Record<string, unknown> = {};
-    for (const [key, item] of Object.entries(value)) {
+    for (const key of Object.keys(value)) {
+      const item = value[key];
       if (item === undefined) continue;
+      // Scalars inline: no path string or result object per field (the batch CLI's hot path).
+      if (typeof item === 'number' && Number.isFinite(item)) {
+        out[key] = item;
+        continue;
+      }
+      if (item === null || typeof item === 'string' || typeof item === 'boolean') {
+        out[key] = item;
+        continue;
+      }
       const checked = finiteOutputs(item, `${path}.${key}`);
       if (!checked.ok) return checked;
       out[key] = checked.value;
