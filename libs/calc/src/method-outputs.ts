@@ -21,6 +21,7 @@ import type { CrossoverOutputs } from './rates/crossover/crossover';
 import type { MarcusOutputs } from './rates/marcus/marcus';
 import type { MljOutputs } from './rates/mlj/mlj';
 import type { RulerOutputs } from './rates/ruler/ruler';
+import type { NetworkOutputs } from './kinetics/network/network';
 import type { FourPointOutputs } from './reorg/four-point/four-point';
 import type { TwoSphereOutputs } from './reorg/two-sphere/two-sphere';
 import type { HoppingOutputs } from './transport/hopping/hopping';
@@ -36,6 +37,7 @@ export interface MethodOutputs {
   'drivingForce.rehmWeller': RehmWellerOutputs;
   'reorg.twoSphere': TwoSphereOutputs;
   'reorg.fourPoint': FourPointOutputs;
+  'kinetics.network': NetworkOutputs;
   'reorg.gapSamples': GapSamplesOutputs;
   'coupling.gmh': GmhOutputs;
   'coupling.hush': HushOutputs;
