@@ -136,6 +136,8 @@ export interface Absorption {
   readonly occupationS: number[];
   /** lim p(t → ∞) for every state. */
   readonly finalPopulations: number[];
+  /** Probability that each state is ever reached (its formation yield). */
+  readonly reached: number[];
   /** The closed classes (state indices). */
   readonly classes: number[][];
   /** true for states in no closed class. */
@@ -143,78 +145,130 @@ export interface Absorption {
 }
 
 /**
- * Occupation times τ = (−K_TT)⁻¹ p₀,T of the transient states and the limit populations.
- * Gaussian elimination of −K_TT in GTH form: eliminating state s turns the paths through it into
- * direct rates (r_ij += r_is r_sj / R_s) and every pivot R_s is the sum of the remaining outgoing
- * rates (including those into closed classes), so no difference of large numbers is ever taken.
- * The final population of a closed class is the flux into it, Σ_i τ_i r_i→class, shared by the
- * class's stationary distribution. References: Grassmann, Taksar & Heyman 1985 (above); for
- * absorption by the fundamental matrix, J. G. Kemeny, J. L. Snell, Finite Markov Chains,
- * Van Nostrand 1960, ch. III (from memory).
+ * −K_TT of the transient states factorised by Gaussian elimination in GTH form: eliminating
+ * state s turns the paths through it into direct rates (r_ij += r_is r_sj / R_s) and every pivot
+ * R_s is the sum of the remaining outgoing rates (including those into closed classes), so no
+ * difference of large numbers is ever taken. `solve(b)` then gives τ = (−K_TT)⁻¹ b in O(n²).
+ * References: Grassmann, Taksar & Heyman 1985 (above); for absorption by the fundamental matrix,
+ * J. G. Kemeny, J. L. Snell, Finite Markov Chains, Van Nostrand 1960, ch. III (from memory).
+ */
+export class TransientFactor {
+  readonly classes: number[][];
+  readonly transient: boolean[];
+  /** Indices of the transient states, in elimination order. */
+  readonly order: number[];
+  private readonly reduced: number[][];
+  private readonly pivots: number[];
+
+  constructor(private readonly rates: readonly (readonly number[])[]) {
+    const n = rates.length;
+    this.classes = closedClasses(rates);
+    this.transient = new Array<boolean>(n).fill(true);
+    for (const c of this.classes) for (const i of c) this.transient[i] = false;
+    const t = [...Array(n).keys()].filter((i) => this.transient[i]);
+    this.order = t;
+    const m = t.length;
+    const r = t.map((i) => t.map((j) => (i === j ? 0 : rates[i][j])));
+    const exit = t.map((i) => {
+      let sum = 0;
+      for (let j = 0; j < n; j++) if (!this.transient[j]) sum += rates[i][j];
+      return sum;
+    });
+    const pivots = new Array<number>(m).fill(0);
+    for (let s = 0; s < m; s++) {
+      let out = exit[s];
+      const rs = r[s];
+      for (let j = s + 1; j < m; j++) out += rs[j];
+      pivots[s] = out;
+      for (let i = s + 1; i < m; i++) {
+        const ri = r[i];
+        if (ri[s] === 0) continue;
+        const share = ri[s] / out; // i → s, then s onwards
+        for (let j = s + 1; j < m; j++) if (j !== i) ri[j] += share * rs[j];
+        exit[i] += share * exit[s];
+      }
+    }
+    this.reduced = r;
+    this.pivots = pivots;
+  }
+
+  /** τ = (−K_TT)⁻¹ b for b over all states (entries of closed-class states ignored). */
+  solve(b: readonly number[]): number[] {
+    const { order: t, reduced: r, pivots } = this;
+    const m = t.length;
+    const rhs = t.map((i) => b[i]);
+    for (let s = 0; s < m; s++) {
+      if (rhs[s] === 0) continue;
+      const share = rhs[s] / pivots[s];
+      const rs = r[s];
+      for (let i = s + 1; i < m; i++) rhs[i] += rs[i] * share;
+    }
+    const tau = new Array<number>(m).fill(0);
+    for (let s = m - 1; s >= 0; s--) {
+      let inflow = rhs[s];
+      for (let j = s + 1; j < m; j++) inflow += r[j][s] * tau[j];
+      tau[s] = inflow / pivots[s];
+    }
+    const full = new Array<number>(this.rates.length).fill(0);
+    t.forEach((i, a) => (full[i] = tau[a]));
+    return full;
+  }
+
+  /** N_jj: expected time in transient state j when starting there. */
+  selfOccupation(j: number): number {
+    const unit = new Array<number>(this.rates.length).fill(0);
+    unit[j] = 1;
+    return this.solve(unit)[j];
+  }
+}
+
+/**
+ * Occupation times τ = (−K_TT)⁻¹ p₀,T, the limit populations and the formation yields.
+ * The final population of a closed class is the flux into it, Σ_i τ_i r_i→class (plus its initial
+ * population), shared by the class's stationary distribution; once entered, every state of the
+ * class is visited. A transient state j is reached with probability τ_j / N_jj (strong Markov
+ * property: every visit to j lasts N_jj on average, counting returns).
  */
 export function absorb(
   rates: readonly (readonly number[])[],
   initial: readonly number[],
+  factor = new TransientFactor(rates),
 ): Absorption {
   const n = rates.length;
-  const classes = closedClasses(rates);
-  const transient = new Array<boolean>(n).fill(true);
-  for (const c of classes) for (const i of c) transient[i] = false;
-  const t = [...Array(n).keys()].filter((i) => transient[i]);
-  const m = t.length;
-  // r[a][b]: rate between transient states; exit[a]: total rate out of the transient set.
-  const r = t.map((i) => t.map((j) => (i === j ? 0 : rates[i][j])));
-  const exit = t.map((i) => {
-    let s = 0;
-    for (let j = 0; j < n; j++) if (!transient[j]) s += rates[i][j];
-    return s;
-  });
-  const b = t.map((i) => initial[i]);
-  const pivots = new Array<number>(m).fill(0);
-  for (let s = 0; s < m; s++) {
-    let out = exit[s];
-    for (let j = s + 1; j < m; j++) out += r[s][j];
-    pivots[s] = out;
-    for (let i = s + 1; i < m; i++) {
-      if (r[i][s] === 0 && r[s][i] === 0) continue;
-      const share = r[i][s] / out; // i → s, then s onwards
-      for (let j = s + 1; j < m; j++) if (j !== i) r[i][j] += share * r[s][j];
-      exit[i] += share * exit[s];
-      b[i] += (r[s][i] / out) * b[s];
-    }
-  }
-  const tau = new Array<number>(m).fill(0);
-  for (let s = m - 1; s >= 0; s--) {
-    let inflow = b[s];
-    for (let j = s + 1; j < m; j++) inflow += r[j][s] * tau[j];
-    tau[s] = inflow / pivots[s];
-  }
-  const occupationS = new Array<number>(n).fill(0);
-  t.forEach((i, a) => (occupationS[i] = tau[a]));
+  const { classes, transient } = factor;
+  const occupationS = factor.solve(initial);
   const finalPopulations = new Array<number>(n).fill(0);
+  const reached = new Array<number>(n).fill(0);
   for (const c of classes) {
     let reach = 0;
     for (const i of c) reach += initial[i];
-    for (let a = 0; a < m; a++) {
-      for (const j of c) reach += tau[a] * rates[t[a]][j];
+    for (const a of factor.order) {
+      for (const j of c) reach += occupationS[a] * rates[a][j];
     }
     const pi = stationaryDistribution(rates, c);
-    c.forEach((i, k) => (finalPopulations[i] = reach * pi[k]));
+    c.forEach((i, k) => {
+      finalPopulations[i] = reach * pi[k];
+      reached[i] = reach;
+    });
   }
-  return { occupationS, finalPopulations, classes, transient };
+  for (const j of factor.order) {
+    reached[j] = occupationS[j] === 0 ? 0 : Math.min(1, occupationS[j] / factor.selfOccupation(j));
+  }
+  return { occupationS, finalPopulations, reached, classes, transient };
 }
 
 /**
- * The probability that state `target` is ever reached from p₀ (its formation yield): the
- * absorption into `target` once its outgoing links are removed.
+ * The probability that state `target` is ever reached from p₀ (its formation yield).
  */
 export function reachProbability(
   rates: readonly (readonly number[])[],
   initial: readonly number[],
   target: number,
 ): number {
-  const cut = rates.map((row, i) => (i === target ? row.map(() => 0) : [...row]));
-  return absorb(cut, initial).finalPopulations[target];
+  const factor = new TransientFactor(rates);
+  if (!factor.transient[target]) return absorb(rates, initial, factor).reached[target];
+  const tau = factor.solve(initial)[target];
+  return tau === 0 ? 0 : Math.min(1, tau / factor.selfOccupation(target));
 }
 
 /** Largest relative size of a Taylor step: ‖K t‖ at most this before squaring starts. */
@@ -379,10 +433,11 @@ export function relaxationModes(
   const n = rates.length;
   const order = [...Array(n).keys()].filter((i) => transient[i]);
   if (order.length === 0) return { modes: [], order };
+  const factor = new TransientFactor(rates);
   const columns = order.map((i) => {
     const unit = new Array<number>(n).fill(0);
     unit[i] = 1;
-    const { occupationS } = absorb(rates, unit);
+    const occupationS = factor.solve(unit);
     return order.map((j) => occupationS[j]);
   });
   // columns[c][r] = N[r][c]

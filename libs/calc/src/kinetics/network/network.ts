@@ -214,11 +214,7 @@ export function networkYields(inputs: NetworkInputs): NetworkYields {
   const rates = networkRates(inputs);
   const table = rateTable(inputs.states.length, indexRates(inputs.states, rates));
   const absorption = absorb(table, inputs.initial);
-  const formationYields = inputs.states.map((_, i) =>
-    absorption.transient[i]
-      ? reachProbability(table, inputs.initial, i)
-      : absorption.finalPopulations[i],
-  );
+  const formationYields = absorption.reached;
   return {
     rates,
     table,
