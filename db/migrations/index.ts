@@ -6,6 +6,7 @@ import { PendingRegistrations1796400000000 } from './1796400000000-pending-regis
 import { ScreenResultsWithoutRowTrigger1796500000000 } from './1796500000000-screen-results-without-row-trigger';
 import { WorkspaceDeletions1796600000000 } from './1796600000000-workspace-deletions';
 import { Sessions1796700000000 } from './1796700000000-sessions';
+import { Cascades1796800000000 } from './1796800000000-cascades';
 
 /** Every migration, in order (listed explicitly; see STACK.md). */
 export const migrations = [
@@ -17,4 +18,5 @@ export const migrations = [
   ScreenResultsWithoutRowTrigger1796500000000,
   WorkspaceDeletions1796600000000,
   Sessions1796700000000,
+  Cascades1796800000000,
 ];
