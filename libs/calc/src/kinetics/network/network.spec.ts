@@ -325,6 +325,27 @@ describe('kinetics.network: landscape, lifetimes, pathway, sensitivity', () => {
   });
 });
 
+describe('kinetics.network: final states joined by ET', () => {
+  it('keeps the ground state final when recombination to it is an ET step', () => {
+    // CS → G by ET over 1.5 eV: the detailed-balance re-excitation G → CS (≈ e^(−58) of the
+    // forward rate) is listed but left out, so G stays absorbing: yield 1, and the CS lifetime
+    // is 1/k_CR exactly (a single exponential).
+    const { outputs } = run({
+      states: [
+        { id: 'CS', energy: 1.5, kind: 'chargeSeparated' },
+        { id: 'G', energy: 0, kind: 'ground' },
+      ],
+      links: [{ from: 'CS', to: 'G', lambda: 0.8, coupling: 0.0001 }],
+      initial: 'CS',
+    });
+    const kcr = marcusRate(-1.5, 0.8, 0.0001, 298.15);
+    const reverse = outputs.rates.find((r: any) => r.source === 'detailedBalance');
+    expect(reverse.included).toBe(false);
+    close(outputs.yields.G, 1, 1e-15);
+    close(outputs.longLived.lifetime, 1 / kcr, 1e-9);
+  });
+});
+
 describe('kinetics.network: refusals name the field', () => {
   it('refuses unknown states, bad numbers, duplicate steps and a missing start', () => {
     expect(

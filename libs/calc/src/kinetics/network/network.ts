@@ -91,7 +91,22 @@ export interface NetworkRate {
   readonly activationFreeEnergy?: number;
   readonly regime?: Regime;
   readonly couplingRegime?: CouplingRegime;
+  /**
+   * false for a detailed-balance reverse step slower than 1e-10 of every given or forward rate
+   * (see `NEGLIGIBLE_REVERSE`): listed, but left out of the master equation.
+   */
+  readonly included: boolean;
 }
+
+/**
+ * A reverse (uphill) step slower than this fraction of the slowest given or forward rate is left
+ * out of the master equation. Why: a final state (the ground state after recombination, say)
+ * joined by an ET step would otherwise never be final — its thermal re-excitation, e.g. 1e-27 s⁻¹
+ * over 1.8 eV, makes the whole network one closed class whose only limit is the Boltzmann
+ * distribution, and yields and lifetimes lose their meaning. Such a step changes no population
+ * by more than ~1e-10 within the life of the network.
+ */
+export const NEGLIGIBLE_REVERSE = 1e-10;
 
 /**
  * Reverse rate of an ET step by detailed balance: k_ji = k_ij exp((G_j − G_i)/k_BT), with i the
@@ -159,6 +174,7 @@ export function networkRates(
     k: extra.k ?? Math.exp(lnK),
     log10k: lnK / Math.LN10,
     source,
+    included: true,
     ...extra,
   });
   inputs.links.forEach((link, index) => {
@@ -192,12 +208,19 @@ export function networkRates(
       }),
     );
   });
-  return rates;
+  const slowest = Math.min(...rates.filter((r) => r.source !== 'detailedBalance').map((r) => r.k));
+  return rates.map((r) =>
+    r.source === 'detailedBalance' && r.k < NEGLIGIBLE_REVERSE * slowest
+      ? { ...r, included: false }
+      : r,
+  );
 }
 
 function indexRates(states: readonly NetworkState[], rates: readonly NetworkRate[]): RateLink[] {
   const position = new Map(states.map((s, i) => [s.id, i]));
-  return rates.map((r) => ({ from: position.get(r.from)!, to: position.get(r.to)!, kPerS: r.k }));
+  return rates
+    .filter((r) => r.included)
+    .map((r) => ({ from: position.get(r.from)!, to: position.get(r.to)!, kPerS: r.k }));
 }
 
 /** Yields only: the part Monte Carlo and the sensitivity repeat. */
@@ -415,11 +438,11 @@ export function computeNetwork(inputs: NetworkInputs, sink: WarningSink) {
     });
     return { peakPopulation: grid.populations[t][i], peakTime: grid.timesS[t] };
   };
-  const flux = rates.map((r, k) => ({
+  const flux = rates.map((r) => ({
     from: r.from,
     to: r.to,
     link: r.link,
-    flux: table.length > 0 ? rates[k].k * occupationS[ids.indexOf(r.from)] : 0,
+    flux: r.included ? r.k * occupationS[ids.indexOf(r.from)] : 0,
   }));
   const barriers = inputs.links.flatMap((link, index) => {
     if (link.type !== 'electronTransfer') return [];
