@@ -14,7 +14,6 @@ import {
   CLASS_III_MESSAGE,
   LAMBDA_MESSAGE,
   marcusRegime,
-  readEnergy,
   readTemperature,
   type Regime,
 } from '../../rates/rate-inputs';
@@ -650,7 +649,10 @@ export function readNetwork(reader: InputReader): NetworkInputs {
     const rawLabel = child.raw('label');
     if (rawLabel !== undefined && typeof rawLabel !== 'string')
       child.fail('label', 'Field label must be a string.');
-    const energyEv = readEnergy(child, 'energy');
+    // An energy of light is accepted too (E₀₀ of an excited state typed in nm).
+    const energyEv = child.quantity('energy', 'photonEnergy');
+    if (Math.abs(energyEv) > 100)
+      child.fail('energy', 'State energy is outside the supported range (|G| ≤ 100 eV).');
     const kind = child.choice('kind', STATE_KINDS, 'other');
     return {
       id,
@@ -732,7 +734,7 @@ export const networkMethod = {
       required: true,
       label: 'States',
       description:
-        'Array of { id, label?, energy (free energy on one common zero, e.g. eV), kind? (ground, excited, chargeSeparated, product, other) }.',
+        'Array of { id, label?, energy (free energy on one common zero, e.g. eV; nm for an energy of light), kind? (ground, excited, chargeSeparated, product, other) }.',
     },
     {
       name: 'links',
