@@ -3,3 +3,4 @@ export * from './scale';
 export * from './parabolas';
 export * from './rate-curves';
 export * from './label-placement';
+export * from './cascade-plots';
