@@ -26,6 +26,8 @@ import {
   ReportCommentEntity,
   ReportTransitionEntity,
   WorkspaceDeletionEntity,
+  CascadeEntity,
+  CascadeVersionEntity,
 } from './entities/index';
 import { migrations } from './migrations/index';
 
@@ -56,6 +58,8 @@ export const entities = [
   ReportTransitionEntity,
   PendingRegistrationEntity,
   WorkspaceDeletionEntity,
+  CascadeEntity,
+  CascadeVersionEntity,
 ];
 
 /** Development database of docker-free-scripts/postgres-start.sh. */

@@ -23,3 +23,5 @@ export { ReportEntity } from './report';
 export { ReportCommentEntity } from './report-comment';
 export { ReportTransitionEntity } from './report-transition';
 export { WorkspaceDeletionEntity } from './workspace-deletion';
+export { CascadeEntity } from './cascade';
+export { CascadeVersionEntity } from './cascade-version';

@@ -8,6 +8,7 @@ import { WorkspaceDeletions1796600000000 } from './1796600000000-workspace-delet
 import { Sessions1796700000000 } from './1796700000000-sessions';
 import { ReportTransitionSnapshots1796760000000 } from './1796760000000-report-transition-snapshots';
 import { ScreenScoreHbarOmega1796770000000 } from './1796770000000-screen-score-hbar-omega';
+import { Cascades1796800000000 } from './1796800000000-cascades';
 
 /** Every migration, in order (listed explicitly; see STACK.md). */
 export const migrations = [
@@ -21,4 +22,5 @@ export const migrations = [
   Sessions1796700000000,
   ReportTransitionSnapshots1796760000000,
   ScreenScoreHbarOmega1796770000000,
+  Cascades1796800000000,
 ];

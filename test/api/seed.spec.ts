@@ -1,5 +1,15 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD, seedDemo } from '../../apps/api/src/seed/demo-data';
+import {
+  DEMO_ACCOUNTS,
+  DEMO_LAB,
+  DEMO_PASSWORD,
+  seedDemo,
+} from '../../apps/api/src/seed/demo-data';
+import {
+  DEMO_DYAD_NAME,
+  DEMO_TRIAD_NAME,
+  seedDemoCascades,
+} from '../../apps/api/src/cascades/demo-cascade-seed';
 import type { Pair, PairListItem } from '@gapwise/contracts';
 import { registerUser, signIn, startTestApp, type TestApp } from './support/test-app';
 
@@ -85,5 +95,28 @@ describe('demo seed', () => {
     await other.post('/api/workspaces', { name: 'Other lab' }).expect(201);
     await other.patch(`/api/pairs/${item.id}`, { version: before.version, name: 'x' }).expect(404);
     await other.get(`/api/pairs/${item.id}`).expect(404);
+  });
+
+  it('gives the lab a triad cascade whose bridge raises the long-lived yield over the dyad', async () => {
+    const options = { labName: DEMO_LAB, editorEmail: 'editor@gapwise.test' };
+    expect(await seedDemoCascades(t.db, options)).toBe(2);
+    expect(await seedDemoCascades(t.db, options)).toBe(0);
+    const viewer = await signIn(t.app, 'viewer@gapwise.test', DEMO_PASSWORD);
+    const lab = (await viewer.get('/api/workspaces').expect(200)).body.find(
+      (w: { name: string }) => w.name === DEMO_LAB,
+    );
+    const list = (await viewer.get(`/api/workspaces/${lab.id}/cascades`).expect(200)).body as {
+      name: string;
+      longLivedYield: number;
+      longLivedLifetimeS: number;
+    }[];
+    const triad = list.find((c) => c.name === DEMO_TRIAD_NAME)!;
+    const dyad = list.find((c) => c.name === DEMO_DYAD_NAME)!;
+    expect(triad.longLivedYield).toBeGreaterThan(dyad.longLivedYield + 0.2);
+    // Both end in the same S⁺…A⁻ recombination: lifetimes in the microsecond range.
+    for (const c of [triad, dyad]) {
+      expect(c.longLivedLifetimeS).toBeGreaterThan(1e-6);
+      expect(c.longLivedLifetimeS).toBeLessThan(1e-4);
+    }
   });
 });

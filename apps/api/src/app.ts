@@ -25,6 +25,7 @@ import { registerReportRoutes } from './reports/routes';
 import { registerScreenRoutes } from './screens/routes';
 import { registerTraceRoutes } from './traces/routes';
 import { registerSeriesRoutes } from './series/routes';
+import { registerCascadeRoutes } from './cascades/routes';
 import { registerTokenRoutes } from './tokens/routes';
 import { registerWorkspaceRoutes } from './workspaces/routes';
 import { serveWeb } from './web/serve-web';
@@ -86,6 +87,7 @@ export function createApiRouter(deps: AppDeps): Router {
   registerScreenRoutes(router, deps);
   registerTraceRoutes(router, deps);
   registerSeriesRoutes(router, deps);
+  registerCascadeRoutes(router, deps);
   return router;
 }
 

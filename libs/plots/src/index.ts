@@ -4,3 +4,4 @@ export * from './parabolas';
 export * from './rate-curves';
 export * from './label-placement';
 export * from './histogram';
+export * from './cascade-plots';

@@ -24,6 +24,13 @@ export const computeTasks = {
     const answer = calculate(request);
     return { ok: answer.ok, body: serializeAnswer(answer) };
   },
+  /** A cascade's `kinetics.network` answer (issue 17): save and compute of /api/cascades. */
+  cascadeResults: (network: Record<string, unknown>) => {
+    const answer = calculate({ method: 'kinetics.network', inputs: network });
+    return answer.ok
+      ? { ok: true as const, outputs: answer.outputs, warnings: answer.warnings }
+      : { ok: false as const, errors: answer.errors };
+  },
   /** `POST /api/series/{id}/fit`: both models' fits, band and information criteria. */
   seriesFit: fitSeries,
   /** `POST /api/pairs/{id}/compute`: a pair's results by the shared dispatcher. */

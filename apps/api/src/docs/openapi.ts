@@ -9,6 +9,7 @@ import { ROUTE_DOCS } from './route-docs';
 import { REPORT_SCHEMAS } from '../reports/report-route-docs';
 import { TRACE_SCHEMAS } from '../traces/trace-route-docs';
 import { SCREEN_SCHEMAS } from '../screens/screen-route-docs';
+import { CASCADE_SCHEMAS } from '../cascades/cascade-route-docs';
 import { nullable, num, obj, ref, str, type Schema } from './schema';
 
 const role = { type: 'string', enum: [...ROLES] };
@@ -248,6 +249,7 @@ const SCHEMAS: Record<string, Schema> = {
   ...REPORT_SCHEMAS,
   ...TRACE_SCHEMAS,
   ...SCREEN_SCHEMAS,
+  ...CASCADE_SCHEMAS,
 };
 
 const ERROR_TEXT: Record<number, string> = {

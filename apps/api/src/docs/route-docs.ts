@@ -1,6 +1,7 @@
 import { REPORT_ROUTE_DOCS } from '../reports/report-route-docs';
 import { TRACE_ROUTE_DOCS } from '../traces/trace-route-docs';
 import { SCREEN_ROUTE_DOCS } from '../screens/screen-route-docs';
+import { CASCADE_ROUTE_DOCS } from '../cascades/cascade-route-docs';
 /** One documented route; `path` is written as Express mounts it (under /api). */
 export interface RouteDoc {
   readonly method: 'get' | 'post' | 'put' | 'patch' | 'delete';
@@ -580,4 +581,5 @@ export const ROUTE_DOCS: readonly RouteDoc[] = [
   ...REPORT_ROUTE_DOCS,
   ...TRACE_ROUTE_DOCS,
   ...SCREEN_ROUTE_DOCS,
+  ...CASCADE_ROUTE_DOCS,
 ];

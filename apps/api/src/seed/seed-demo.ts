@@ -9,6 +9,7 @@ import { DEMO_ACCOUNTS, DEMO_LAB, DEMO_MEDIATORS, DEMO_PASSWORD, seedDemo } from
 import { seedDemoReport } from '../reports/demo-report-seed';
 import { seedDemoScreensAndSeries } from '../screens/demo-screen-seed';
 import { seedDemoTraces } from '../traces/demo-trace-seed';
+import { seedDemoCascades } from '../cascades/demo-cascade-seed';
 import { TraceObjectStore } from '../traces/trace-object-store';
 import { loadConfig } from '../config';
 
@@ -45,6 +46,12 @@ try {
     console.log(
       `demo seed: ${added.screen ? '1 screen' : ''}${added.screen && added.series ? ' and ' : ''}${added.series ? '1 series' : ''} added`,
     );
+  // A triad cascade and its bridgeless dyad in the lab (apps/api/src/cascades/demo-cascade-seed.ts).
+  const cascades = await seedDemoCascades(dataSource, {
+    labName: DEMO_LAB,
+    editorEmail: 'editor@gapwise.test',
+  });
+  if (cascades) console.log(`demo seed: ${cascades} cascade(s) added`);
   // Demo energy-gap traces (lab) in object storage with a finished analysis: needs the S3 store.
   if (config.objectStore.endpointSet) {
     const store = new TraceObjectStore(config.objectStore);

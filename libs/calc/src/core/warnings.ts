@@ -34,6 +34,8 @@ export const WARNING_CODES = {
   couplingNegative: 'coupling-negative', // note: sign is gauge-dependent, |H| used
   fourPointNegative: 'four-point-negative',
   degenerateStates: 'degenerate-states',
+  mixedStates: 'mixed-states', // kinetics.network: two states within k_BT with a large |H_AB|
+  stepTooFast: 'step-too-fast', // kinetics.network: k above ~1e13 s⁻¹ (vibrational relaxation)
 } as const;
 
 /**

@@ -27,6 +27,7 @@ import type { GapSamplesOutputs } from '../gap/gap-samples/gap-samples';
 import type { DiffusionOutputs } from '../quench/diffusion/diffusion';
 import type { CrossRelationOutputs } from '../rates/cross-relation/cross-relation';
 import type { CrossoverOutputs } from '../rates/crossover/crossover';
+import type { NetworkOutputs } from '../kinetics/network/network';
 import type { MarcusOutputs } from '../rates/marcus/marcus';
 import type { MljOutputs } from '../rates/mlj/mlj';
 import type { RulerOutputs } from '../rates/ruler/ruler';
@@ -49,6 +50,7 @@ export interface MethodOutputs {
   'drivingForce.reference': ReferenceOutputs;
   'reorg.twoSphere': TwoSphereOutputs;
   'reorg.fourPoint': FourPointOutputs;
+  'kinetics.network': NetworkOutputs;
   'reorg.gapSamples': GapSamplesOutputs;
   'reorg.normalModes': NormalModesOutputs;
   'coupling.gmh': GmhOutputs;

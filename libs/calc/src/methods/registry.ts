@@ -12,6 +12,7 @@ import { electrodeMethods } from '../electrode';
 import { evbMethods } from '../evb';
 import { fitMethods } from '../fit';
 import { gapMethods } from '../gap';
+import { kineticsMethods } from '../kinetics';
 import { quenchMethods } from '../quench';
 import { rateMethods } from '../rates';
 import { reorgMethods } from '../reorg';
@@ -36,6 +37,7 @@ function build(): Map<string, MethodDefinition<any>> {
     quenchMethods,
     fitMethods,
     analysisMethods,
+    kineticsMethods,
     uncertaintyMethods(findMethod),
     unitMethods,
   ];
