@@ -22,3 +22,8 @@ export function csvCell(value: unknown): string {
   const safe = FORMULA_START.test(text) ? `'${text}` : text;
   return /[",\n\r]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
 }
+
+/** One CSV line (without its line end). */
+export function csvRow(values: readonly unknown[]): string {
+  return values.map(csvCell).join(',');
+}

@@ -52,6 +52,7 @@ describe('typed outputs', () => {
     // the assertion makes it equal the registry's ids.
     const typed: Record<TypedMethodId, true> = {
       'rate.marcus': true,
+      'kinetics.network': true,
       'rate.mlj': true,
       'rate.crossover': true,
       'rate.ruler': true,

@@ -1,8 +1,8 @@
 import { expm, matrix } from 'mathjs';
 import { describe, expect, it } from 'vitest';
-import { calculate, runMethod } from '../../core/calculate';
+import { calculate } from '../../methods/calculate';
 import { BOLTZMANN_EV_PER_K } from '../../core/constants';
-import { marcusRate } from '../../rates/marcus/marcus';
+import { marcusRateLog } from '../../rates/marcus/marcus';
 import { populationsAt } from './master-equation';
 
 const KT = BOLTZMANN_EV_PER_K * 298.15;
@@ -16,9 +16,19 @@ function run(inputs: Record<string, unknown>): { outputs: Outputs; warnings: { c
 }
 
 function refused(inputs: Record<string, unknown>): string[] {
-  const answer = runMethod('kinetics.network', inputs);
+  const answer = calculate({ method: 'kinetics.network', inputs });
   if (answer.ok) throw new Error('expected a refusal');
   return answer.errors.map((e) => e.field);
+}
+
+/** Golden-rule Marcus rate, s⁻¹ (SCIENCE.md §1), from the core's log form. */
+function marcusRate(
+  deltaG0: number,
+  lambda: number,
+  coupling: number,
+  temperature: number,
+): number {
+  return Math.exp(marcusRateLog(deltaG0, lambda, coupling, temperature));
 }
 
 /** |a − b| ≤ abs + rel·|b| */
@@ -392,21 +402,24 @@ describe('kinetics.network under uncertainty.monteCarlo', () => {
     const kB = 1e9;
     const sigma = 2e8;
     const kC = 1e9;
-    const answer = runMethod('uncertainty.monteCarlo', {
-      method: 'kinetics.network',
-      samples: 2000,
-      seed: 7,
+    const answer = calculate({
+      method: 'uncertainty.monteCarlo',
       inputs: {
-        states: [
-          { id: 'A', energy: 1, kind: 'excited' },
-          { id: 'B', energy: 0 },
-          { id: 'C', energy: 0 },
-        ],
-        links: [
-          { from: 'A', to: 'B', k: { value: kB, sigma } },
-          { from: 'A', to: 'C', k: kC },
-        ],
-        report: 'yields',
+        method: 'kinetics.network',
+        samples: 2000,
+        seed: 7,
+        inputs: {
+          states: [
+            { id: 'A', energy: 1, kind: 'excited' },
+            { id: 'B', energy: 0 },
+            { id: 'C', energy: 0 },
+          ],
+          links: [
+            { from: 'A', to: 'B', k: { value: kB, sigma } },
+            { from: 'A', to: 'C', k: kC },
+          ],
+          report: 'yields',
+        },
       },
     });
     if (!answer.ok) throw new Error(JSON.stringify(answer.errors));

@@ -83,21 +83,21 @@ export class AdiabaticSide {
       return null;
     const inputs = { deltaG0, lambda, coupling, temperature };
     const lz = calculate({ method: 'rate.landauZener', inputs });
-    const o = lz.ok ? (lz.outputs as Record<string, number>) : null;
+    const o = lz.ok ? lz.outputs : null;
     const ad = calculate({ method: 'evb.adiabaticBarrier', inputs });
-    const b = ad.ok ? (ad.outputs as Record<string, number>) : null;
+    const b = ad.ok ? ad.outputs : null;
     // Refusals (class III: 2|H| ≥ λ) are said once, in the core's words.
     const refusals = [
       ...new Set([lz, ad].flatMap((a) => (a.ok ? [] : a.errors.map((e) => e.message)))),
     ];
     return {
-      kappa: o ? formatSignificant(o['transmission']!, 3) : null,
-      gamma: o ? formatSignificant(o['gamma']!, 3) : null,
-      kLz: o ? formatScientific(o['k']!, 3) : null,
-      barrier: b ? formatSignificant(b['barrier']!, 3) : null,
-      barrierApproximate: b ? formatSignificant(b['barrierApproximate']!, 3) : null,
-      barrierDiabatic: b ? formatSignificant(b['barrierDiabatic']!, 3) : null,
-      kAdiabatic: b ? formatScientific(b['k']!, 3) : null,
+      kappa: o ? formatSignificant(o.transmission, 3) : null,
+      gamma: o ? formatSignificant(o.gamma, 3) : null,
+      kLz: o ? formatScientific(o.k, 3) : null,
+      barrier: b ? formatSignificant(b.barrier, 3) : null,
+      barrierApproximate: b ? formatSignificant(b.barrierApproximate, 3) : null,
+      barrierDiabatic: b ? formatSignificant(b.barrierDiabatic, 3) : null,
+      kAdiabatic: b ? formatScientific(b.k, 3) : null,
       refused: refusals.length ? refusals.join(' ') : null,
     };
   });

@@ -89,16 +89,16 @@ export class NormalModesDialog {
   protected readonly summary = computed(() => {
     const a = this.answer();
     if (!a?.ok) return null;
-    const o = a.outputs as Record<string, number>;
+    const o = a.outputs;
     const inUnit = (ev: number) => fromCanonical(ev, this.unit(), 'energy');
     return {
-      lambdaVib: o['lambdaVib']!,
-      hbarOmega: o['effectiveHbarOmega']!,
+      lambdaVib: o.lambdaVib,
+      hbarOmega: o.effectiveHbarOmega,
       text: {
-        lambdaVib: `${formatSignificant(o['lambdaVib']!, 4)} eV`,
-        hbarOmega: `${formatSignificant(o['effectiveHbarOmega']!, 4)} eV (${formatSignificant(inUnit(o['effectiveHbarOmega']!), 4)} ${unitLabel(this.unit())})`,
-        huangRhysTotal: formatSignificant(o['huangRhysTotal']!, 4),
-        huangRhysEffective: formatSignificant(o['huangRhysEffective']!, 4),
+        lambdaVib: `${formatSignificant(o.lambdaVib, 4)} eV`,
+        hbarOmega: `${formatSignificant(o.effectiveHbarOmega, 4)} eV (${formatSignificant(inUnit(o.effectiveHbarOmega), 4)} ${unitLabel(this.unit())})`,
+        huangRhysTotal: formatSignificant(o.huangRhysTotal, 4),
+        huangRhysEffective: formatSignificant(o.huangRhysEffective, 4),
       },
     };
   });
