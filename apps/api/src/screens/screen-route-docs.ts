@@ -363,7 +363,16 @@ export const SCREEN_SCHEMAS: Record<string, Schema> = {
       // Only with a custom score in the request.
       customScore: num,
     },
-    [...SCREEN_NUMERIC_COLUMNS, 'donor', 'acceptor', 'solvent', 'regimeCs', 'regimeCr', 'couplingRegime', 'warnings'],
+    [
+      ...SCREEN_NUMERIC_COLUMNS,
+      'donor',
+      'acceptor',
+      'solvent',
+      'regimeCs',
+      'regimeCr',
+      'couplingRegime',
+      'warnings',
+    ],
   ),
   ScreenResultPage: obj({
     items: arr(ref('ScreenResultRow')),

@@ -20,7 +20,6 @@ import {
   pairRateRequest,
   modelName,
   plainText,
-  type ParameterKind,
   type ReportPairSnapshot,
 } from '@gapwise/contracts';
 import { FONT_REGULAR, FONT_SEMIBOLD } from './fonts';

@@ -29,8 +29,6 @@ import {
   snapshotRatesView,
   snapshotSource,
   totalLambdaEv,
-  provenanceText,
-  type ParameterKind,
   type ReportAction,
   type ReportCommentView,
   type ReportPairSnapshot,
