@@ -112,7 +112,7 @@ describe('pair references and helpers in chromium', () => {
     await both(page, 'pair-normal-modes');
     await dialog.locator('.use-value').click();
     const inner = page.locator('gw-parameter-field[data-kind="lambdaInner"]');
-    await poll(() => inner.locator('.derived-badge').innerText()).toContain('reorg.normalModes');
+    await poll(() => inner.locator('.derived-badge').innerText()).toContain('normal-mode');
     expect(Number(await inner.locator('input.value-input').inputValue())).toBeCloseTo(
       1888 / 8065.543937, // Σ S_j ħω_j in cm⁻¹ over 1 eV = 8065.543937 cm⁻¹ (CODATA 2018)
       6,

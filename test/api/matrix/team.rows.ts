@@ -314,6 +314,12 @@ export const rows: MatrixRow[] = [
     request: (c) => ({ path: `/workspaces/${c.workspaceId}/audit` }),
     expect: auditors(200),
   },
+  {
+    method: 'get',
+    route: '/workspaces/:wid/audit/export.csv',
+    request: (c) => ({ path: `/workspaces/${c.workspaceId}/audit/export.csv` }),
+    expect: auditors(200),
+  },
 
   { method: 'get', route: '/tokens', request: () => ({ path: '/tokens' }), expect: signedIn(200) },
   {
