@@ -7,6 +7,7 @@
  * the ground state and to the triplet (inverted region, weak coupling). Idempotent (matched by
  * name in the workspace); written through the cascade use-case, computed in this process.
  */
+import { CascadeEntity, UserEntity, WorkspaceEntity } from '@gapwise/db';
 import type { DataSource } from 'typeorm';
 import { inlineCompute } from '../compute/compute-tasks';
 import { createCascade } from './cascade-use-case';
@@ -63,11 +64,11 @@ export async function seedDemoCascades(
   db: DataSource,
   options: { labName: string; editorEmail: string },
 ): Promise<number> {
-  const [workspace] = await db.query(
-    'SELECT id FROM workspaces WHERE name = $1 ORDER BY created_at LIMIT 1',
-    [options.labName],
-  );
-  const [editor] = await db.query('SELECT id FROM users WHERE email = $1', [options.editorEmail]);
+  const workspace = await db.getRepository(WorkspaceEntity).findOne({
+    where: { name: options.labName },
+    order: { createdAt: 'ASC' },
+  });
+  const editor = await db.getRepository(UserEntity).findOneBy({ email: options.editorEmail });
   if (!workspace || !editor) return 0;
   let added = 0;
   for (const [name, network, notes] of [
@@ -82,10 +83,10 @@ export async function seedDemoCascades(
       'The bridge relays the electron in two short steps: compare the long-lived yield with the dyad.',
     ],
   ] as const) {
-    const [exists] = await db.query(
-      'SELECT 1 FROM cascades WHERE workspace_id = $1 AND name = $2',
-      [workspace.id, name],
-    );
+    const exists = await db.getRepository(CascadeEntity).existsBy({
+      workspaceId: workspace.id,
+      name,
+    });
     if (exists) continue;
     await createCascade(db, inlineCompute, editor.id, workspace.id, {
       name,

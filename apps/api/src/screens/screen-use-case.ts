@@ -4,6 +4,7 @@
  */
 import { createHash } from 'node:crypto';
 import type { Readable } from 'node:stream';
+import { ScreenEntity } from '@gapwise/db';
 import type { DataSource, EntityManager } from 'typeorm';
 import {
   canEdit,
@@ -368,8 +369,9 @@ export async function openRowAsPair(
   const params: PairParameter[] = [];
   // The unit the file's header named for a column travels to the pair (a coupling uploaded in
   // cm⁻¹ opens in cm⁻¹); values stay canonical, as every pair parameter stores them.
-  const [{ column_units: columnUnits }]: Array<{ column_units: Record<string, string> | null }> =
-    await db.query('SELECT column_units FROM screens WHERE id = $1', [screenId]);
+  const { columnUnits } = await db
+    .getRepository(ScreenEntity)
+    .findOneOrFail({ where: { id: screenId }, select: { id: true, columnUnits: true } });
   const add = (
     kind: PairParameter['kind'],
     value: number | null,
