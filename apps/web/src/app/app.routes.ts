@@ -112,6 +112,10 @@ export const routes: Routes = [
             loadChildren: () => import('./screens/screens.routes').then((m) => m.screenRoutes),
           },
           {
+            path: 'cascades',
+            loadChildren: () => import('./cascades/cascades.routes').then((m) => m.cascadeRoutes),
+          },
+          {
             path: 'series',
             loadChildren: () => import('./series/series.routes').then((m) => m.seriesRoutes),
           },
