@@ -3,9 +3,9 @@
  * (CALC-API.md). The design keeps what the user typed and how each state energy was derived; the
  * network is what it resolves to, the request the API, the CLI and the report compute. Derived
  * quantities go through the calculation core (`drivingForce.rehmWeller`, `coupling.distanceDecay`,
- * `units.convert`), never re-derived here. Messages name fields by the labels the page shows.
+ * its unit table), never re-derived here. Messages name fields by the labels the page shows.
  */
-import { calculate } from '@gapwise/calc';
+import { calculate, photonEnergyEvFromNm, toCanonical } from '@gapwise/calc';
 import type { Provenance } from '@gapwise/contracts';
 
 /** State kinds as the page names them; the core knows ground/excited/chargeSeparated/product. */
@@ -187,11 +187,9 @@ export function stateName(s: Pick<StateDesign, 'id' | 'label'>): string {
   return s.label.trim() || s.id;
 }
 
-/** A value in eV from any energy unit, through the core's `units.convert`. */
+/** A value in eV from any energy unit, by the core's unit table. */
 export function toEv(value: number, unit: string): number {
-  if (unit === 'eV') return value;
-  const answer = calculate({ method: 'units.convert', inputs: { value, from: unit, to: 'eV' } });
-  return answer.ok ? answer.outputs.value : NaN;
+  return toCanonical(value, unit, 'energy');
 }
 
 const has = (x: number | null | undefined): x is number => x !== null && x !== undefined && Number.isFinite(x);
@@ -259,11 +257,7 @@ export function resolveStates(design: CascadeDesign, errors: DesignError[]): (Re
       case 'e00': {
         if (!has(s.e00) || s.e00 <= 0) return fail(i, 'e00', 'E₀₀', 'must be > 0.');
         if (s.e00Unit === 'nm') {
-          const ev = calculate({
-            method: 'units.convert',
-            inputs: { value: s.e00, from: 'nm', to: 'eV' },
-          });
-          const energyEv = ev.ok ? ev.outputs.value : NaN;
+          const energyEv = photonEnergyEvFromNm(s.e00);
           const sigma = sigmaOf(s.sigma);
           return {
             energy: { value: s.e00, unit: 'nm' },

@@ -1,10 +1,11 @@
 import { DestroyRef, Injectable, computed, inject, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { HttpErrorResponse } from '@angular/common/http';
-import type { AuditEvent, Pair } from '@gapwise/contracts';
+import { canReadAudit, type AuditEvent, type Pair } from '@gapwise/contracts';
 import { catchError, debounceTime, firstValueFrom, map, of } from 'rxjs';
 import { apiErrorOf } from '../session/api-errors';
 import { AuditApi } from '../workspaces/audit/audit-api';
+import { WorkspaceContext } from '../workspaces/workspace-context';
 import {
   computeNetwork,
   monteCarloRequest,
@@ -48,6 +49,7 @@ export function pairSource(pair: Pair): PairSource {
 export class CascadeStore {
   private readonly api = inject(CascadesApi);
   private readonly auditApi = inject(AuditApi);
+  private readonly workspace = inject(WorkspaceContext);
 
   readonly cascade = signal<Cascade | null>(null);
   readonly name = signal('');
@@ -105,11 +107,15 @@ export class CascadeStore {
       .versions(c.id)
       .pipe(catchError(() => of([])))
       .subscribe((v) => this.versions.set(v));
+    // Only owners and reviewers read the audit trail; others see the versions alone.
+    if (!canReadAudit(this.workspace.role())) {
+      this.audit.set(null);
+      return;
+    }
     this.auditApi
       .page(c.workspaceId, { cascadeId: c.id }, 0, 50)
       .pipe(
         map((p) => p.items),
-        // Only owners and reviewers read the audit trail; others see the versions alone.
         catchError(() => of(null)),
       )
       .subscribe((items) => this.audit.set(items));

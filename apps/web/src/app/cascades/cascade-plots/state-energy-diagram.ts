@@ -78,9 +78,13 @@ export class StateEnergyDiagram {
   protected readonly geometry = computed(() => {
     const states = this.states();
     const out = this.outputs();
+    // Columns left to right: ground, excited, charge-separated, products (a step reads forward).
+    const order = Object.keys(KIND_COLOURS);
+    const ordered = [...states].sort((a, b) => order.indexOf(a.kind) - order.indexOf(b.kind));
     const { levels, y } = energyLevels(
-      states.map((s) => ({ id: s.id, energy: s.energyEv })),
+      ordered.map((s) => ({ id: s.id, energy: s.energyEv })),
       BOX,
+      { columnPerState: true },
     );
     const at = new Map(levels.map((l) => [l.id, l]));
     const energies = states.map((s) => s.energyEv);
@@ -97,12 +101,14 @@ export class StateEnergyDiagram {
       const b = at.get(r.to);
       if (!a || !b) return [];
       const flux = fluxOf.get(`${r.from}>${r.to}`) ?? 0;
-      const ax = (a.x1 + a.x2) / 2 + (r.source === 'detailedBalance' ? 10 : -4);
-      const bx = (b.x1 + b.x2) / 2 + (r.source === 'detailedBalance' ? 10 : -4);
-      const bend = ((i % 3) - 1) * 28 + (ax === bx ? 36 : 0);
-      const mx = (ax + bx) / 2 + bend;
-      const my = (a.y + b.y) / 2;
-      const gap = b.y > a.y ? -4 : 4;
+      // Leave from the side of the level facing the target; reverse steps bow the other way.
+      const right = b.x1 >= a.x2;
+      const ax = right ? a.x2 - 6 : a.x1 + 6;
+      const bx = right ? b.x1 + 6 : b.x2 - 6;
+      const bow = (r.source === 'detailedBalance' ? -1 : 1) * (18 + (i % 3) * 8);
+      const mx = (ax + bx) / 2;
+      const my = (a.y + b.y) / 2 - bow;
+      const gap = 0;
       return [
         {
           key: `${r.from}>${r.to}>${r.link}`,
@@ -110,7 +116,7 @@ export class StateEnergyDiagram {
           width: (1 + 5 * Math.sqrt(flux / maxFlux)).toFixed(2),
           dashed: r.source !== 'electronTransfer' && r.source !== 'detailedBalance',
           lx: (ax + bx) / 4 + mx / 2,
-          ly: my,
+          ly: (a.y + b.y) / 4 + my / 2,
           label: `${formatScientific(r.k, 2)} s⁻¹`,
         },
       ];
