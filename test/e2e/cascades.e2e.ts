@@ -98,7 +98,9 @@ describe('cascades', () => {
     await page.getByRole('link', { name: 'Cascades', exact: true }).click();
     await page.waitForURL(/\/cascades$/);
     await expect
-      .poll(() => page.getByRole('link', { name: 'Sensitiser–bridge–acceptor triad (demo)' }).count())
+      .poll(() =>
+        page.getByRole('link', { name: 'Sensitiser–bridge–acceptor triad (demo)' }).count(),
+      )
       .toBe(1);
     await shoot(page, 'cascade-list-1440');
     await page.setViewportSize({ width: 390, height: 844 });
@@ -169,6 +171,14 @@ describe('cascades', () => {
       .poll(async () => Number(await yieldText.innerText()), { timeout: 15_000 })
       .toBeLessThan(before - 0.05);
 
+    // A σ on λ: Monte Carlo in the worker gives a 95 % interval on the long-lived yield.
+    await type(page.locator('fieldset.link-row').nth(3), 'σ of λ', '0.05');
+    await expect
+      .poll(() => page.locator('.long-lived .interval').count(), { timeout: 30_000 })
+      .toBeGreaterThan(0);
+    expect(await page.locator('.long-lived .interval').first().innerText()).toMatch(/95 %/);
+    expect(await page.locator('.mc-state').innerText()).toContain('2000 Monte Carlo samples');
+
     // Both pictures export as SVG (with the levels) and PNG.
     for (const what of ['the state-energy diagram', 'the energy landscape tree']) {
       const svgDownload = page.waitForEvent('download');
@@ -183,7 +193,7 @@ describe('cascades', () => {
       expect([...png.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
       expect(png.length).toBeGreaterThan(2000);
     }
-    const treeSvg = await page.locator('gw-landscape-tree svg').innerHTML();
+    const treeSvg = await page.locator('gw-landscape-tree svg.cascade-svg').innerHTML();
     expect(treeSvg).toContain('Decays (no transition state');
 
     await page.getByRole('button', { name: 'Save as new version' }).click();

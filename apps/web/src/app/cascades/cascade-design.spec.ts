@@ -33,7 +33,12 @@ describe('cascade design → kinetics.network', () => {
     const built = buildNetwork(dyadDesign());
     expect(built.errors).toEqual([]);
     const states = built.network!['states'] as { id: string; energy: unknown; kind: string }[];
-    expect(states[1]).toEqual({ id: 'S1', label: 'Singlet', energy: { value: 590, unit: 'nm' }, kind: 'excited' });
+    expect(states[1]).toEqual({
+      id: 'S1',
+      label: 'Singlet',
+      energy: { value: 590, unit: 'nm' },
+      kind: 'excited',
+    });
     // E = hc/λ = 1239.84198 eV nm / 590 nm (SCIENCE.md §4).
     expect(built.states[1]!.energyEv).toBeCloseTo(1239.84198 / 590, 6);
     expect(built.states[2]!.energyEv).toBeCloseTo(1239.84198 / 590 - 0.3, 6);
@@ -60,7 +65,10 @@ describe('cascade design → kinetics.network', () => {
     });
     expect(answer.ok && byHand.ok).toBe(true);
     if (!answer.ok || !byHand.ok) return;
-    expect(answer.outputs.formationYields['CS']).toBeCloseTo(byHand.outputs.formationYields['CS'], 9);
+    expect(answer.outputs.formationYields['CS']).toBeCloseTo(
+      byHand.outputs.formationYields['CS'],
+      9,
+    );
   });
 
   it('derives a charge-separated state from potentials with the charged-reactant correction', () => {
@@ -129,7 +137,13 @@ describe('cascade design → kinetics.network', () => {
       temperature: 298.15,
     };
     const d = designFromNetwork(network);
-    expect(d.states.map((s) => s.kind)).toEqual(['ground', 'singlet', 'triplet', 'csIntermediate', 'csFinal']);
+    expect(d.states.map((s) => s.kind)).toEqual([
+      'ground',
+      'singlet',
+      'triplet',
+      'csIntermediate',
+      'csFinal',
+    ]);
     const again = buildNetwork(d).network!;
     const a = computeNetwork(again);
     const b = computeNetwork(network);

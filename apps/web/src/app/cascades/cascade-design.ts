@@ -192,7 +192,8 @@ export function toEv(value: number, unit: string): number {
   return toCanonical(value, unit, 'energy');
 }
 
-const has = (x: number | null | undefined): x is number => x !== null && x !== undefined && Number.isFinite(x);
+const has = (x: number | null | undefined): x is number =>
+  x !== null && x !== undefined && Number.isFinite(x);
 const sigmaOf = (x: number | null) => (has(x) && x > 0 ? x : null);
 
 /** A quantity as the network takes it, with σ when `withSigma` (the Monte Carlo request). */
@@ -215,7 +216,10 @@ export interface ResolvedState {
  * Resolves every state energy (a state may build on another: pair and step modes), in eV.
  * Errors name the state's label and the field label; a cycle of references is refused.
  */
-export function resolveStates(design: CascadeDesign, errors: DesignError[]): (ResolvedState | null)[] {
+export function resolveStates(
+  design: CascadeDesign,
+  errors: DesignError[],
+): (ResolvedState | null)[] {
   const byId = new Map(design.states.map((s, i) => [s.id, i]));
   const done = new Map<number, ResolvedState | null>();
   const visiting = new Set<number>();
@@ -278,7 +282,12 @@ export function resolveStates(design: CascadeDesign, errors: DesignError[]): (Re
         if (!has(s.donorOxidationV))
           return fail(i, 'donorOxidationV', 'Donor oxidation potential E_ox', 'is required.');
         if (!has(s.acceptorReductionV))
-          return fail(i, 'acceptorReductionV', 'Acceptor reduction potential E_red', 'is required.');
+          return fail(
+            i,
+            'acceptorReductionV',
+            'Acceptor reduction potential E_red',
+            'is required.',
+          );
         if (!has(s.distanceA)) return fail(i, 'distanceA', 'Ion-pair distance R', 'is required.');
         if (!has(s.epsilon)) return fail(i, 'epsilon', 'Solvent ε_s', 'is required.');
         const inputs: Record<string, unknown> = {
@@ -380,7 +389,10 @@ function resolveLink(
   withSigma: boolean,
 ): ResolvedLink | null {
   const fail = (field: string, label: string, what: string): null => {
-    errors.push({ field: `links[${i}].${field}`, message: `Step ${linkName(design, l)}: ${label} ${what}` });
+    errors.push({
+      field: `links[${i}].${field}`,
+      message: `Step ${linkName(design, l)}: ${label} ${what}`,
+    });
     return null;
   };
   const ids = new Set(design.states.map((s) => s.id));
@@ -399,7 +411,10 @@ function resolveLink(
   if (l.type === 'lifetime') {
     if (!has(l.lifetime) || l.lifetime <= 0) return fail('lifetime', 'Lifetime τ', 'must be > 0.');
     return {
-      link: { ...base, lifetime: quantity(l.lifetime, l.lifetimeUnit, sigmaOf(l.lifetimeSigma), withSigma) },
+      link: {
+        ...base,
+        lifetime: quantity(l.lifetime, l.lifetimeUnit, sigmaOf(l.lifetimeSigma), withSigma),
+      },
       lambdaEv: null,
       couplingEv: null,
     };
@@ -448,7 +463,8 @@ function resolveLink(
   if (l.model === 'mlj') {
     link['model'] = 'mlj';
     link['lambdaVib'] = l.lambdaVibEv ?? 0;
-    if (!has(l.hbarOmegaEv) || l.hbarOmegaEv <= 0) return fail('hbarOmegaEv', 'ħω', 'must be > 0 eV.');
+    if (!has(l.hbarOmegaEv) || l.hbarOmegaEv <= 0)
+      return fail('hbarOmegaEv', 'ħω', 'must be > 0 eV.');
     link['hbarOmega'] = l.hbarOmegaEv;
   }
   return { link, lambdaEv, couplingEv };
@@ -472,16 +488,21 @@ export function buildNetwork(design: CascadeDesign, withSigma = false): NetworkB
   const errors: DesignError[] = [];
   const seen = new Set<string>();
   design.states.forEach((s, i) => {
-    if (!s.id.trim()) errors.push({ field: `states[${i}].id`, message: `State ${i + 1}: Id is required.` });
+    if (!s.id.trim())
+      errors.push({ field: `states[${i}].id`, message: `State ${i + 1}: Id is required.` });
     else if (seen.has(s.id))
-      errors.push({ field: `states[${i}].id`, message: `State ${stateName(s)}: Id ${s.id} is used twice.` });
+      errors.push({
+        field: `states[${i}].id`,
+        message: `State ${stateName(s)}: Id ${s.id} is used twice.`,
+      });
     seen.add(s.id);
   });
   const states = resolveStates(design, errors);
   const links = design.links.map((l, i) => resolveLink(design, l, i, errors, withSigma));
   if (design.states.length < 2)
     errors.push({ field: 'states', message: 'A cascade needs at least two states.' });
-  if (design.links.length < 1) errors.push({ field: 'links', message: 'A cascade needs at least one step.' });
+  if (design.links.length < 1)
+    errors.push({ field: 'links', message: 'A cascade needs at least one step.' });
   if (!(design.temperatureK > 0))
     errors.push({ field: 'temperature', message: 'Temperature must be > 0 K.' });
   let uncertain = 0;
@@ -498,7 +519,8 @@ export function buildNetwork(design: CascadeDesign, withSigma = false): NetworkB
     for (const sg of [l.kSigma, l.lifetimeSigma, l.lambdaSigma, l.couplingSigma])
       if (sigmaOf(sg) !== null) uncertain++;
   }
-  if (errors.length > 0) return { network: null, errors, states, links, uncertainInputs: uncertain };
+  if (errors.length > 0)
+    return { network: null, errors, states, links, uncertainInputs: uncertain };
   const network: Record<string, unknown> = {
     states: networkStates,
     links: links.map((l) => l!.link),
@@ -519,7 +541,12 @@ export function designFromNetwork(network: Record<string, unknown>): CascadeDesi
   type Q = number | { value: number; unit?: string };
   const num = (q: Q | undefined): [number | null, string | null] =>
     q === undefined ? [null, null] : typeof q === 'number' ? [q, null] : [q.value, q.unit ?? null];
-  const rawStates = (network['states'] ?? []) as { id: string; label?: string; energy: Q; kind?: string }[];
+  const rawStates = (network['states'] ?? []) as {
+    id: string;
+    label?: string;
+    energy: Q;
+    kind?: string;
+  }[];
   const rawLinks = (network['links'] ?? []) as Record<string, unknown>[];
   const kindOf = new Map(rawStates.map((s) => [s.id, s.kind ?? 'other']));
   const states = rawStates.map((s) => {
@@ -529,7 +556,8 @@ export function designFromNetwork(network: Record<string, unknown>): CascadeDesi
       kind = /triplet|^T\d|³/i.test(`${s.id} ${s.label ?? ''}`) ? 'triplet' : 'singlet';
     else if (s.kind === 'chargeSeparated')
       kind = rawLinks.some(
-        (l) => l['from'] === s.id && 'lambda' in l && kindOf.get(String(l['to'])) === 'chargeSeparated',
+        (l) =>
+          l['from'] === s.id && 'lambda' in l && kindOf.get(String(l['to'])) === 'chargeSeparated',
       )
         ? 'csIntermediate'
         : 'csFinal';

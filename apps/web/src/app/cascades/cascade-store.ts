@@ -182,7 +182,9 @@ export class CascadeStore {
     }
     if (!this.worker) {
       this.worker = new Worker(new URL('./cascade-mc.worker', import.meta.url), { type: 'module' });
-      this.worker.onmessage = ({ data }: MessageEvent<{ id: number; result: MonteCarloResult }>) => {
+      this.worker.onmessage = ({
+        data,
+      }: MessageEvent<{ id: number; result: MonteCarloResult }>) => {
         if (data.id === this.mcRequestId) this.monteCarlo.set(data.result);
       };
     }

@@ -81,8 +81,14 @@ export class CascadePage {
   private readonly router = inject(Router);
   protected readonly workspace = inject(WorkspaceContext);
 
-  protected readonly kinds = Object.entries(STATE_KINDS).map(([value, k]) => ({ value, label: k.label }));
-  protected readonly modes = Object.entries(ENERGY_MODES).map(([value, label]) => ({ value, label }));
+  protected readonly kinds = Object.entries(STATE_KINDS).map(([value, k]) => ({
+    value,
+    label: k.label,
+  }));
+  protected readonly modes = Object.entries(ENERGY_MODES).map(([value, label]) => ({
+    value,
+    label,
+  }));
   protected readonly energyUnits = ENERGY_UNITS;
   protected readonly e00Units = E00_UNITS;
   protected readonly couplingUnits = COUPLING_UNITS;
@@ -157,7 +163,9 @@ export class CascadePage {
       id: m.id,
       label: m.label,
       energyEv: m.energy,
-      kind: kinds.get(m.id) ?? (m.kind === 'excited' ? 'singlet' : m.kind === 'chargeSeparated' ? 'csFinal' : 'ground'),
+      kind:
+        kinds.get(m.id) ??
+        (m.kind === 'excited' ? 'singlet' : m.kind === 'chargeSeparated' ? 'csFinal' : 'ground'),
     }));
   });
 
@@ -227,7 +235,10 @@ export class CascadePage {
       entries: out.sensitivity.entries.map((e) => ({
         step: `${names.get(e.from) ?? e.from} → ${names.get(e.to) ?? e.to}`,
         parameter: e.parameter === 'lambda' ? 'λ' : '|H_AB|',
-        value: e.parameter === 'lambda' ? `${formatNumber(e.value, 3)} eV` : `${formatScientific(e.value, 3)} eV`,
+        value:
+          e.parameter === 'lambda'
+            ? `${formatNumber(e.value, 3)} eV`
+            : `${formatScientific(e.value, 3)} eV`,
         d: formatMeasured(e.dYieldDLn),
         magnitude: Math.abs(e.dYieldDLn),
       })),
@@ -242,7 +253,8 @@ export class CascadePage {
     const mc = this.store.monteCarlo();
     if (mc === 'running') return 'Monte Carlo over the inputs with σ is running…';
     if (mc && !mc.ok) return `Monte Carlo failed: ${mc.message}`;
-    if (mc && mc.ok) return `95 % intervals from ${mc.samplesUsed} Monte Carlo samples over every input with σ.`;
+    if (mc && mc.ok)
+      return `95 % intervals from ${mc.samplesUsed} Monte Carlo samples over every input with σ.`;
     return 'Give a σ to any energy, λ, |H_AB|, rate or lifetime for 95 % intervals (Monte Carlo).';
   });
 

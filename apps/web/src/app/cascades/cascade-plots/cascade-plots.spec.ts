@@ -66,7 +66,9 @@ describe('cascade pictures', () => {
 
   it('draws one population curve per state over the decades of the time grid', () => {
     const el = render(PopulationPlot);
-    const paths = [...el.querySelectorAll('svg path')].filter((p) => p.getAttribute('d')?.startsWith('M'));
+    const paths = [...el.querySelectorAll('svg path')].filter((p) =>
+      p.getAttribute('d')?.startsWith('M'),
+    );
     expect(paths.length).toBe(4);
     expect(el.textContent).toContain('10⁻¹⁵');
   });

@@ -21,6 +21,7 @@ export function energyTicks(lo: number, hi: number, count = 6): number[] {
   const power = 10 ** Math.floor(Math.log10(raw));
   const step = [1, 2, 5, 10].map((m) => m * power).find((s) => s >= raw) ?? raw;
   const ticks: number[] = [];
-  for (let t = Math.ceil(lo / step) * step; t <= hi + 1e-9; t += step) ticks.push(Number(t.toFixed(10)));
+  for (let t = Math.ceil(lo / step) * step; t <= hi + 1e-9; t += step)
+    ticks.push(Number(t.toFixed(10)));
   return ticks;
 }

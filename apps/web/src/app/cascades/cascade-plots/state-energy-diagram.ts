@@ -1,4 +1,11 @@
-import { ChangeDetectionStrategy, Component, computed, ElementRef, input, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  ElementRef,
+  input,
+  viewChild,
+} from '@angular/core';
 import { formatNumber, formatScientific } from '@gapwise/contracts';
 import { energyLevels, type PlotBox } from '@gapwise/plots';
 import { PlotExport } from '../../plots/plot-export/plot-export';
@@ -29,36 +36,107 @@ const BOX: PlotBox = { width: 720, height: 420, left: 64, right: 16, top: 24, bo
         <span>State-energy diagram</span>
         <gw-plot-export [svg]="svg()" [filename]="filename()" what="the state-energy diagram" />
       </figcaption>
-      <svg #plotSvg class="cascade-svg" [attr.viewBox]="'0 0 ' + box.width + ' ' + box.height" role="img"
-        aria-label="State-energy diagram: levels at their free energies, steps with their rates">
+      <svg
+        #plotSvg
+        class="cascade-svg"
+        [attr.viewBox]="'0 0 ' + box.width + ' ' + box.height"
+        role="img"
+        aria-label="State-energy diagram: levels at their free energies, steps with their rates"
+      >
         <title>State-energy diagram</title>
         <defs>
-          <marker id="sed-head" viewBox="0 0 10 10" refX="9" refY="5" markerWidth="6" markerHeight="6" orient="auto-start-reverse">
+          <marker
+            id="sed-head"
+            viewBox="0 0 10 10"
+            refX="9"
+            refY="5"
+            markerUnits="userSpaceOnUse"
+            markerWidth="9"
+            markerHeight="9"
+            orient="auto-start-reverse"
+          >
             <path d="M0,0 L10,5 L0,10 z" fill="#455a64" />
           </marker>
         </defs>
         <rect x="0" y="0" [attr.width]="box.width" [attr.height]="box.height" fill="#ffffff" />
         <g class="axis" font-size="11" fill="#455a64">
-          <line [attr.x1]="box.left - 8" [attr.x2]="box.left - 8" [attr.y1]="box.top" [attr.y2]="box.height - box.bottom" stroke="#90a4ae" />
+          <line
+            [attr.x1]="box.left - 8"
+            [attr.x2]="box.left - 8"
+            [attr.y1]="box.top"
+            [attr.y2]="box.height - box.bottom"
+            stroke="#90a4ae"
+          />
           @for (t of geometry().ticks; track t.value) {
-            <line [attr.x1]="box.left - 12" [attr.x2]="box.left - 8" [attr.y1]="t.y" [attr.y2]="t.y" stroke="#90a4ae" />
+            <line
+              [attr.x1]="box.left - 12"
+              [attr.x2]="box.left - 8"
+              [attr.y1]="t.y"
+              [attr.y2]="t.y"
+              stroke="#90a4ae"
+            />
             <text [attr.x]="box.left - 14" [attr.y]="t.y + 4" text-anchor="end">{{ t.text }}</text>
           }
-          <text [attr.transform]="'translate(14,' + box.height / 2 + ') rotate(-90)'" text-anchor="middle">G / eV</text>
+          <text
+            [attr.transform]="'translate(14,' + box.height / 2 + ') rotate(-90)'"
+            text-anchor="middle"
+          >
+            G / eV
+          </text>
         </g>
         @for (a of geometry().arrows; track a.key) {
           <g class="step">
-            <path [attr.d]="a.d" fill="none" stroke="#455a64" [attr.stroke-width]="a.width"
-              [attr.stroke-dasharray]="a.dashed ? '5 4' : null" marker-end="url(#sed-head)" opacity="0.85" />
-            <text [attr.x]="a.lx" [attr.y]="a.ly" font-size="10" fill="#263238" text-anchor="middle"
-              paint-order="stroke" stroke="#ffffff" stroke-width="3">{{ a.label }}</text>
+            <path
+              [attr.d]="a.d"
+              fill="none"
+              stroke="#455a64"
+              [attr.stroke-width]="a.width"
+              [attr.stroke-dasharray]="a.dashed ? '5 4' : null"
+              marker-end="url(#sed-head)"
+              opacity="0.85"
+            />
+            <text
+              [attr.x]="a.lx"
+              [attr.y]="a.ly"
+              font-size="10"
+              fill="#263238"
+              text-anchor="middle"
+              paint-order="stroke"
+              stroke="#ffffff"
+              stroke-width="3"
+            >
+              {{ a.label }}
+            </text>
           </g>
         }
         @for (l of geometry().levels; track l.id) {
           <g class="level" [attr.data-state]="l.id">
-            <line [attr.x1]="l.x1" [attr.x2]="l.x2" [attr.y1]="l.y" [attr.y2]="l.y" [attr.stroke]="l.colour" stroke-width="3" />
-            <text [attr.x]="(l.x1 + l.x2) / 2" [attr.y]="l.y - 6" font-size="12" text-anchor="middle" [attr.fill]="l.colour">{{ l.label }}</text>
-            <text [attr.x]="(l.x1 + l.x2) / 2" [attr.y]="l.y + 14" font-size="10" text-anchor="middle" fill="#546e7a">{{ l.energy }}</text>
+            <line
+              [attr.x1]="l.x1"
+              [attr.x2]="l.x2"
+              [attr.y1]="l.y"
+              [attr.y2]="l.y"
+              [attr.stroke]="l.colour"
+              stroke-width="3"
+            />
+            <text
+              [attr.x]="(l.x1 + l.x2) / 2"
+              [attr.y]="l.y - 6"
+              font-size="12"
+              text-anchor="middle"
+              [attr.fill]="l.colour"
+            >
+              {{ l.label }}
+            </text>
+            <text
+              [attr.x]="(l.x1 + l.x2) / 2"
+              [attr.y]="l.y + 14"
+              font-size="10"
+              text-anchor="middle"
+              fill="#546e7a"
+            >
+              {{ l.energy }}
+            </text>
           </g>
         }
       </svg>
@@ -94,7 +172,9 @@ export class StateEnergyDiagram {
     const fluxOf = new Map(out.flux.map((f) => [`${f.from}>${f.to}`, f.flux]));
     const maxFlux = Math.max(1e-300, ...out.flux.map((f) => f.flux));
     const shown = out.rates.filter(
-      (r) => r.included && (r.source !== 'detailedBalance' || (fluxOf.get(`${r.from}>${r.to}`) ?? 0) > 0.01 * maxFlux),
+      (r) =>
+        r.included &&
+        (r.source !== 'detailedBalance' || (fluxOf.get(`${r.from}>${r.to}`) ?? 0) > 0.01 * maxFlux),
     );
     const arrows = shown.flatMap((r, i) => {
       const a = at.get(r.from);
