@@ -7,7 +7,7 @@
 import { readFileSync } from 'node:fs';
 import type { Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { launchChromium, shoot, signIn, type Gapwise } from './support/browser';
+import { apiWrite, launchChromium, shoot, signIn, type Gapwise } from './support/browser';
 
 const baseUrl = inject('baseUrl');
 let gw: Gapwise;
@@ -203,6 +203,20 @@ describe('cascades', () => {
       longLivedYield: number;
     };
     expect(v2.longLivedYield).toBeLessThan(stored.longLivedYield - 0.05);
+
+    // Someone else saves version 3 meanwhile: this page's save is refused with a conflict.
+    const other = await apiWrite(page, baseUrl, 'put', `/api/cascades/${id}`, {
+      name: 'Triad built in the browser',
+      network: (await (await page.request.get(`${baseUrl}/api/cascades/${id}`)).json()).network,
+      version: 2,
+    });
+    expect(other.status()).toBe(200);
+    await page.getByRole('button', { name: 'Save as new version' }).click();
+    await expect
+      .poll(() => page.locator('.save-message').innerText())
+      .toContain('changed by someone else');
+    await page.getByRole('button', { name: 'Reload the stored version' }).click();
+    await expect.poll(() => page.locator('.version').innerText()).toContain('version 3');
     await context.close();
   });
 

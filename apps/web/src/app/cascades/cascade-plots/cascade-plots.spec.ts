@@ -1,3 +1,4 @@
+import type { Type } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { computeNetwork, type NetworkOutputs } from '../cascade-compute';
 import { LandscapeTree } from './landscape-tree';
@@ -31,7 +32,7 @@ function outputs(): NetworkOutputs {
   return a.outputs;
 }
 
-function render<T>(type: new (...args: never[]) => T) {
+function render<T>(type: Type<T>) {
   const fixture = TestBed.createComponent(type);
   fixture.componentRef.setInput('states', states);
   fixture.componentRef.setInput('outputs', outputs());
@@ -66,7 +67,7 @@ describe('cascade pictures', () => {
 
   it('draws one population curve per state over the decades of the time grid', () => {
     const el = render(PopulationPlot);
-    const paths = [...el.querySelectorAll('svg path')].filter((p) =>
+    const paths = [...el.querySelectorAll('svg.cascade-svg path')].filter((p) =>
       p.getAttribute('d')?.startsWith('M'),
     );
     expect(paths.length).toBe(4);
