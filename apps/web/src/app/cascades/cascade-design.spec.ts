@@ -170,4 +170,36 @@ describe('cascade design → kinetics.network', () => {
     expect(i.p975).toBeGreaterThanOrEqual(nominal.outputs.formationYields['CS']);
     expect(i.p975 - i.p025).toBeGreaterThan(0);
   });
+
+  it('takes ΔG°, λ and |H_AB| from a pair with their σ, keeping the pair and its provenance', () => {
+    const pair = {
+      id: 'p1',
+      name: 'DA-1',
+      version: 3,
+      values: {
+        deltaG0: { value: -0.35, sigma: 0.02 },
+        lambdaTotal: { value: 0.7, sigma: 0.05 },
+        coupling: { value: 0.002, sigma: null },
+      },
+      provenance: { lambdaTotal: { kind: 'measured' as const } },
+    };
+    const d = dyadDesign();
+    Object.assign(d.states[2], { mode: 'pair', fromState: 'S1', pair });
+    d.links[1].pair = pair;
+    const plain = buildNetwork(d);
+    expect(plain.errors).toEqual([]);
+    expect(plain.states[2]!.energyEv).toBeCloseTo(1239.84198 / 590 - 0.35, 6);
+    expect(plain.states[2]!.how).toContain('pair DA-1 (v3)');
+    const link = (plain.network!['links'] as Record<string, unknown>[])[1];
+    expect(link['lambda']).toEqual({ value: 0.7, unit: 'eV' });
+    expect(link['coupling']).toEqual({ value: 0.002, unit: 'eV' });
+    const withSigma = buildNetwork(d, true);
+    expect((withSigma.network!['links'] as Record<string, unknown>[])[1]['lambda']).toEqual({
+      value: 0.7,
+      sigma: 0.05,
+      unit: 'eV',
+    });
+    const cs = (withSigma.network!['states'] as { energy: unknown }[])[2];
+    expect(cs.energy).toEqual({ value: expect.any(Number), sigma: 0.02, unit: 'eV' });
+  });
 });

@@ -24,9 +24,9 @@ import { CascadesApi } from '../cascades-api';
         }
       </header>
       <p class="intro">
-        A cascade is multi-step electron transfer as a network of states: excited states, charge-
-        separated intermediates and final states joined by decays and electron-transfer steps. It
-        gives the yield and lifetime of the long-lived charge separation.
+        A cascade is multi-step electron transfer as a network of states: excited states,
+        charge-separated intermediates and final states joined by decays and electron-transfer
+        steps. It gives the yield and lifetime of the long-lived charge separation.
       </p>
       @if (cascades(); as list) {
         @if (list.length) {
