@@ -113,7 +113,13 @@ async function writeVersion(
   await tx.getRepository(CascadeVersionEntity).insert({
     cascadeId: row.id,
     version: row.version,
-    snapshot: { name: row.name, notes: row.notes, network: row.network, design: row.design },
+    snapshot: {
+      name: row.name,
+      notes: row.notes,
+      network: row.network,
+      // Left out (not null) for a bare network: the snapshot type takes no null leaf.
+      design: row.design ?? undefined,
+    },
     summary,
     createdBy: userId,
   });
