@@ -217,6 +217,22 @@ describe('cascades', () => {
       .toContain('changed by someone else');
     await page.getByRole('button', { name: 'Reload the stored version' }).click();
     await expect.poll(() => page.locator('.version').innerText()).toContain('version 3');
+
+    // Version 1's inputs back into the editor: λ 0.55 eV again, and the yield with it.
+    await expect.poll(() => page.locator('ul.versions li').count()).toBe(3);
+    await page
+      .locator('ul.versions li')
+      .last()
+      .getByRole('button', { name: 'Load into the editor' })
+      .click();
+    await expect
+      .poll(() =>
+        page.locator('fieldset.link-row').nth(3).getByLabel('λ', { exact: true }).inputValue(),
+      )
+      .toBe('0.55');
+    await expect
+      .poll(async () => Number(await yieldText.innerText()), { timeout: 15_000 })
+      .toBeCloseTo(before, 2);
     await context.close();
   });
 

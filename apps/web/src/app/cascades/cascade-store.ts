@@ -245,6 +245,26 @@ export class CascadeStore {
     }
   }
 
+  /**
+   * An older version's inputs into the editor (saving then writes them as a new version; the
+   * stored cascade is not touched until then).
+   */
+  loadVersion(v: CascadeVersion): void {
+    const snap = v.snapshot as {
+      name?: string;
+      notes?: string;
+      network?: Record<string, unknown>;
+      design?: unknown;
+    };
+    this.name.set(snap.name ?? this.name());
+    this.notes.set(snap.notes ?? '');
+    this.design.set(readDesign(snap.design ?? null, snap.network ?? {}));
+    this.saveMessage.set({
+      kind: 'ok',
+      text: `Version ${v.version} loaded into the editor; save to make it the current version.`,
+    });
+  }
+
   /** After a conflict: take the stored version (the edit is dropped). */
   async reload(): Promise<void> {
     const c = this.cascade();
