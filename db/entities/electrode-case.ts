@@ -1,4 +1,5 @@
 import {
+  Check,
   Column,
   CreateDateColumn,
   Entity,
@@ -28,6 +29,7 @@ export interface ElectrodePointRecord {
  */
 @Entity({ name: 'electrode_cases' })
 @Index('idx_electrode_cases_workspace', ['workspaceId'])
+@Check('CHK_electrode_cases_rate_source', `"rate_source" IN ('k0', 'coupling')`)
 export class ElectrodeCaseEntity {
   @PrimaryGeneratedColumn('uuid')
   id: string;

@@ -100,6 +100,11 @@ export class ElectrodePage {
     return c ? caseLog10k0(c) : null;
   });
 
+  protected readonly absoluteK0 = computed(() => {
+    const l = this.log10k0();
+    return l === null ? '—' : `${formatMeasured(10 ** l)} s⁻¹`;
+  });
+
   /** Curves at the case's λ, T and k⁰; Butler–Volmer with the fitted α once there is a fit. */
   protected readonly curves = computed<ElectrodeCurves | null>(() => {
     const c = this.current();
