@@ -1,9 +1,10 @@
 /**
  * Demo electrode case (invented numbers) for the lab: a ferrocene-terminated monolayer on gold
  * with rate constants k(η) that bend away from Butler–Volmer at large overpotential, so the fit
- * on the page prefers Marcus–Hush–Chidsey. The points are MHC rates with λ = 0.75 eV and
- * k⁰ = 3 s⁻¹ with a fixed, invented scatter of a few hundredths in log10 k. Idempotent (matched by
- * name in the workspace); written through the electrode-case use-case.
+ * on the page prefers Marcus–Hush–Chidsey (the points fit λ ≈ 0.57 eV, k⁰ ≈ 1.2 s⁻¹, with an
+ * invented scatter of a few hundredths in log10 k). The case as typed carries an earlier
+ * (invented) estimate, λ = 0.7 eV and k⁰ = 3 s⁻¹, so fitting and applying visibly moves it.
+ * Idempotent (matched by name in the workspace); written through the electrode-case use-case.
  */
 import { ElectrodeCaseEntity, UserEntity, WorkspaceEntity } from '@gapwise/db';
 import type { DataSource } from 'typeorm';
@@ -54,7 +55,7 @@ export async function seedDemoElectrodeCases(
     provenance: 'Demo values (invented).',
     points: DEMO_ELECTRODE_POINTS.map(([overpotentialV, log10k]) => ({
       overpotentialV,
-      k: 10 ** log10k,
+      k: Number((10 ** log10k).toPrecision(3)),
       direction: overpotentialV <= 0 ? 'reduction' : 'oxidation',
     })),
     dataNote:

@@ -78,7 +78,7 @@ export function plotDomains(
           >
         }
         @if (markers().length) {
-          <span class="key">● measured</span>
+          <span class="key">● {{ markerLabel() }}</span>
         }
       </p>
     </figure>
@@ -93,6 +93,7 @@ export class ElectrodePlot {
   readonly yLabel = input.required<string>();
   readonly curves = input.required<readonly PlotCurve[]>();
   readonly markers = input<readonly PlotMarker[]>([]);
+  readonly markerLabel = input('measured');
   readonly yClip = input<readonly [number, number] | undefined>(undefined);
   readonly filename = input('gapwise-electrode');
 
