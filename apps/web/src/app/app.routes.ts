@@ -120,6 +120,11 @@ export const routes: Routes = [
             loadChildren: () => import('./series/series.routes').then((m) => m.seriesRoutes),
           },
           {
+            path: 'electrodes',
+            loadChildren: () =>
+              import('./electrodes/electrodes.routes').then((m) => m.electrodeRoutes),
+          },
+          {
             path: 'members',
             title: 'Members · Gapwise',
             loadComponent: () => import('./workspaces/members/members').then((m) => m.Members),
