@@ -1,4 +1,4 @@
-import { DatePipe } from '@angular/common';
+import { GwDatePipe } from '../../shared/date/gw-date';
 import {
   ChangeDetectionStrategy,
   Component,
@@ -50,7 +50,7 @@ interface Filters {
 @Component({
   selector: 'gw-pair-table',
   imports: [
-    DatePipe,
+    GwDatePipe,
     ReactiveFormsModule,
     RouterLink,
     MatTableModule,

@@ -1,4 +1,5 @@
-import { DatePipe, DecimalPipe } from '@angular/common';
+import { GwDatePipe } from '../../shared/date/gw-date';
+import { DecimalPipe } from '@angular/common';
 import {
   ChangeDetectionStrategy,
   Component,
@@ -45,7 +46,7 @@ interface NumberRow {
 @Component({
   selector: 'gw-trace-analysis',
   imports: [
-    DatePipe,
+    GwDatePipe,
     DecimalPipe,
     RouterLink,
     MatButtonModule,

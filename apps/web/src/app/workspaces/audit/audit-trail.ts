@@ -1,4 +1,4 @@
-import { DatePipe } from '@angular/common';
+import { GwDatePipe } from '../../shared/date/gw-date';
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormsModule } from '@angular/forms';
@@ -35,7 +35,7 @@ type Loaded = { ok: true; page: Page<AuditEvent> } | { ok: false; message: strin
 @Component({
   selector: 'gw-audit-trail',
   imports: [
-    DatePipe,
+    GwDatePipe,
     FormsModule,
     RouterLink,
     MatButtonModule,
