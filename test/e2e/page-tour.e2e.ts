@@ -140,6 +140,19 @@ describe('a tour of every page', () => {
     ];
     const wide = await tour(page, pages);
     expect({ wide, errors }).toEqual({ wide: [], errors: [] });
+
+    // A dialog opened from a menu gives focus back to the control that opened the menu.
+    await page.setViewportSize({ width: 1440, height: 900 });
+    await page.locator('.app-bar .workspace-switch').click();
+    await page.getByRole('menuitem', { name: /New workspace/ }).click();
+    await expect.poll(() => page.getByRole('dialog').count()).toBe(1);
+    await page.keyboard.press('Escape');
+    await expect.poll(() => page.getByRole('dialog').count()).toBe(0);
+    await expect
+      .poll(() =>
+        page.evaluate(() => document.activeElement?.classList.contains('workspace-switch')),
+      )
+      .toBe(true);
     await context.close();
   }, 900_000);
 });
