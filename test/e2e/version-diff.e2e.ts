@@ -79,8 +79,7 @@ describe('the version comparison', () => {
 
     await page.goto(`${baseUrl}/w/${wid}/pairs/${v1.id}/history`);
     const effects = page.getByTestId('version-effects');
-    const row = (field: string) =>
-      effects.locator('tbody tr', { has: page.locator('th', { hasText: field }) });
+    const row = (field: string) => effects.locator(`tbody tr[data-field="${field}"]`);
     await expect.poll(() => row('log₁₀ k_CS').count(), { timeout: 15_000 }).toBe(1);
     const cells = async (field: string) =>
       (await row(field).locator('td').allInnerTexts()).map((t) => t.trim());
