@@ -112,6 +112,11 @@ const SCHEMAS: Record<string, Schema> = {
       items: str,
       description: 'ids of workspaces deleted with it',
     },
+    deletedWorkspaceNames: {
+      type: 'array',
+      items: str,
+      description: 'their names, in the same order',
+    },
   }),
   EndedSessions: obj({ endedSessions: num }),
   UserSummary: obj({ id: str, email: str, displayName: str }),
