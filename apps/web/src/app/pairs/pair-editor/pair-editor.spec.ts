@@ -75,7 +75,7 @@ describe('PairEditor', { timeout: 40_000 }, () => {
       'Derived with the distance-decay helper from coupling H₀ at the reference distance = 0.05 eV, ' +
         'reference distance R₀ = 3.5 Å, decay constant β of the rate = 1.1 Å⁻¹, distance R = 10 Å.',
     );
-    const group = fixture.componentInstance['form']().controls.parameters.controls.coupling;
+    const group = fixture.componentInstance['store'].form().controls.parameters.controls.coupling;
     expect(group.controls.value.value).toBe(coupling);
     expect(group.controls.provenance.getRawValue()).toMatchObject({
       kind: 'derived',
