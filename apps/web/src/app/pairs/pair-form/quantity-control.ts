@@ -6,7 +6,7 @@ import {
   ValidatorFn,
 } from '@angular/forms';
 import type { Quantity } from '@gapwise/calc';
-import { editableText, parseStrictNumber } from '../../units/number-format';
+import { editableText, measuredText, parseStrictNumber } from '../../units/number-format';
 import {
   canonicalDifference,
   canonicalOf,
@@ -28,6 +28,10 @@ export type ValueRule = (canonical: number) => string | null;
  * committed with Enter. A pending value takes the unit picked next (type 25, pick °C: 25 °C);
  * a confirmed one is converted (25 K → −248.15 °C). Either way `switchQuantityUnit` says what
  * happened and how to undo it.
+ *
+ * `rounded` is true while the text shows a derived value (from a helper, or stored as derived)
+ * rounded to the digits its uncertainty supports; `value` keeps the full number, which is saved.
+ * Typing clears it; a unit change keeps the rounding in the new unit.
  */
 export type QuantityGroup = FormGroup<{
   text: FormControl<string>;
@@ -36,6 +40,7 @@ export type QuantityGroup = FormGroup<{
   uncertaintyText: FormControl<string>;
   uncertainty: FormControl<number | null>;
   pending: FormControl<boolean>;
+  rounded: FormControl<boolean>;
 }>;
 
 export interface QuantitySpec {
@@ -90,14 +95,27 @@ function numberValidator(
 
 export function createQuantityGroup(
   spec: QuantitySpec,
-  initial: { value: number | null; unit: string; uncertainty?: number | null },
+  initial: {
+    value: number | null;
+    unit: string;
+    uncertainty?: number | null;
+    /** Show the value rounded to what its uncertainty supports (a derived value). */
+    rounded?: boolean;
+  },
 ): QuantityGroup {
   const unit = new FormControl(initial.unit, { nonNullable: true });
+  const rounded = !!initial.rounded && initial.value !== null;
   const group: QuantityGroup = new FormGroup({
     text: new FormControl(
       initial.value === null
         ? ''
-        : editableText(displayOf(initial.value, initial.unit, spec.quantity)),
+        : shownText(
+            displayOf(initial.value, initial.unit, spec.quantity),
+            initial.uncertainty == null
+              ? null
+              : displayDifference(initial.uncertainty, initial.unit, spec.quantity),
+            rounded,
+          ),
       {
         nonNullable: true,
         validators: numberValidator(spec, () => unit.value, !spec.required, false),
@@ -115,8 +133,14 @@ export function createQuantityGroup(
     ),
     uncertainty: new FormControl<number | null>(initial.uncertainty ?? null),
     pending: new FormControl(false, { nonNullable: true }),
+    rounded: new FormControl(rounded, { nonNullable: true }),
   });
   return group;
+}
+
+/** The field's text for a display value: as stored (12 figures), or rounded when derived. */
+function shownText(display: number, displaySigma: number | null, rounded: boolean): string {
+  return rounded ? measuredText(display, displaySigma) : editableText(display);
 }
 
 /** The user committed the value (Enter): a later unit change converts it. */
@@ -140,6 +164,7 @@ function shown(text: string, unit: string): string {
 export function typeQuantityText(group: QuantityGroup, spec: QuantitySpec, text: string): void {
   group.controls.text.setValue(text);
   group.controls.pending.setValue(true);
+  group.controls.rounded.setValue(false);
   const parsed = group.controls.text.valid ? parseStrictNumber(text) : null;
   group.controls.value.setValue(
     parsed === null ? null : canonicalOf(parsed, group.controls.unit.value, spec.quantity),
@@ -167,7 +192,7 @@ export function switchQuantityUnit(
   spec: QuantitySpec,
   unit: string,
 ): UnitChange | null {
-  const { value, uncertainty, text, uncertaintyText, pending } = group.controls;
+  const { value, uncertainty, text, uncertaintyText, pending, rounded } = group.controls;
   const before = {
     unit: group.controls.unit.value,
     text: text.value,
@@ -175,6 +200,7 @@ export function switchQuantityUnit(
     uncertaintyText: uncertaintyText.value,
     uncertainty: uncertainty.value,
     pending: pending.value,
+    rounded: rounded.value,
   };
   if (before.unit === unit) return null;
   group.controls.unit.setValue(unit);
@@ -185,12 +211,14 @@ export function switchQuantityUnit(
     uncertaintyText.setValue(before.uncertaintyText);
     uncertainty.setValue(before.uncertainty);
     pending.setValue(before.pending);
+    rounded.setValue(before.rounded);
   };
   if (before.pending || value.value === null) {
     // Re-read the typed text (and its uncertainty) in the new unit.
     typeQuantityText(group, spec, text.value);
     typeUncertaintyText(group, spec, uncertaintyText.value);
     pending.setValue(before.pending);
+    rounded.setValue(before.rounded);
     if (value.value === null || text.value.trim() === '') return null;
     const canonicalUnit = spec.quantity === 'temperature' ? 'K' : '';
     const echo =
@@ -203,7 +231,13 @@ export function switchQuantityUnit(
       undo,
     };
   }
-  text.setValue(editableText(displayOf(value.value, unit, spec.quantity)));
+  text.setValue(
+    shownText(
+      displayOf(value.value, unit, spec.quantity),
+      uncertainty.value === null ? null : displayDifference(uncertainty.value, unit, spec.quantity),
+      rounded.value,
+    ),
+  );
   if (uncertainty.value !== null) {
     if (unit === 'nm' && spec.quantity === 'photonEnergy') {
       // No wavelength spread stands for an energy spread: the σ text stays and is flagged.
@@ -221,16 +255,25 @@ export function switchQuantityUnit(
   };
 }
 
-/** Puts a canonical value (e.g. from a derivation) into the group, shown in its current unit. */
+/**
+ * Puts a canonical value (e.g. from a derivation) into the group, shown in its current unit with
+ * the digits it supports (`measuredText`); the full value is kept and saved.
+ */
 export function setCanonicalQuantity(
   group: QuantityGroup,
   spec: QuantitySpec,
   canonical: number,
 ): void {
+  const unit = group.controls.unit.value;
+  const sigma = group.controls.uncertainty.value;
   group.controls.value.setValue(canonical);
   group.controls.pending.setValue(false);
+  group.controls.rounded.setValue(true);
   group.controls.text.setValue(
-    editableText(displayOf(canonical, group.controls.unit.value, spec.quantity)),
+    measuredText(
+      displayOf(canonical, unit, spec.quantity),
+      sigma === null ? null : displayDifference(sigma, unit, spec.quantity),
+    ),
   );
   group.controls.text.markAsDirty();
 }
