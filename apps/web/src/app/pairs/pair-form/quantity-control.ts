@@ -6,7 +6,8 @@ import {
   ValidatorFn,
 } from '@angular/forms';
 import type { Quantity } from '@gapwise/calc';
-import { editableText, measuredText, parseStrictNumber } from '../../units/number-format';
+import { roundMeasured } from '@gapwise/contracts';
+import { editableText, parseStrictNumber } from '../../units/number-format';
 import {
   canonicalDifference,
   canonicalOf,
@@ -110,10 +111,10 @@ export function createQuantityGroup(
       initial.value === null
         ? ''
         : shownText(
-            displayOf(initial.value, initial.unit, spec.quantity),
-            initial.uncertainty == null
-              ? null
-              : displayDifference(initial.uncertainty, initial.unit, spec.quantity),
+            initial.value,
+            initial.uncertainty ?? null,
+            initial.unit,
+            spec.quantity,
             rounded,
           ),
       {
@@ -138,9 +139,21 @@ export function createQuantityGroup(
   return group;
 }
 
-/** The field's text for a display value: as stored (12 figures), or rounded when derived. */
-function shownText(display: number, displaySigma: number | null, rounded: boolean): string {
-  return rounded ? measuredText(display, displaySigma) : editableText(display);
+/**
+ * The field's text for a canonical value: as stored (12 figures), or, when derived, rounded in
+ * the canonical unit to what σ supports (`roundMeasured`) and then shown in the field's unit
+ * (77 K stays −196.15 °C; −0.683425360906 eV reads −0.6834 eV).
+ */
+function shownText(
+  canonical: number,
+  canonicalSigma: number | null,
+  unit: string,
+  quantity: Quantity,
+  rounded: boolean,
+): string {
+  if (!rounded) return editableText(displayOf(canonical, unit, quantity));
+  const display = displayOf(roundMeasured(canonical, canonicalSigma), unit, quantity);
+  return editableText(Number(display.toPrecision(6)));
 }
 
 /** The user committed the value (Enter): a later unit change converts it. */
@@ -231,13 +244,7 @@ export function switchQuantityUnit(
       undo,
     };
   }
-  text.setValue(
-    shownText(
-      displayOf(value.value, unit, spec.quantity),
-      uncertainty.value === null ? null : displayDifference(uncertainty.value, unit, spec.quantity),
-      rounded.value,
-    ),
-  );
+  text.setValue(shownText(value.value, uncertainty.value, unit, spec.quantity, rounded.value));
   if (uncertainty.value !== null) {
     if (unit === 'nm' && spec.quantity === 'photonEnergy') {
       // No wavelength spread stands for an energy spread: the σ text stays and is flagged.
@@ -257,7 +264,7 @@ export function switchQuantityUnit(
 
 /**
  * Puts a canonical value (e.g. from a derivation) into the group, shown in its current unit with
- * the digits it supports (`measuredText`); the full value is kept and saved.
+ * the digits it supports (`shownText`); the full value is kept and saved.
  */
 export function setCanonicalQuantity(
   group: QuantityGroup,
@@ -269,12 +276,7 @@ export function setCanonicalQuantity(
   group.controls.value.setValue(canonical);
   group.controls.pending.setValue(false);
   group.controls.rounded.setValue(true);
-  group.controls.text.setValue(
-    measuredText(
-      displayOf(canonical, unit, spec.quantity),
-      sigma === null ? null : displayDifference(sigma, unit, spec.quantity),
-    ),
-  );
+  group.controls.text.setValue(shownText(canonical, sigma, unit, spec.quantity, true));
   group.controls.text.markAsDirty();
 }
 

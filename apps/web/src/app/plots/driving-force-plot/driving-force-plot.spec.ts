@@ -27,14 +27,14 @@ describe('DrivingForcePlot', () => {
     expect(el.querySelector('.empty')?.textContent).toMatch(
       /Enter λ, \|H\s*AB\| and the temperature/,
     );
-    expect(el.querySelector('svg')!.children.length).toBe(0);
+    expect(el.querySelector('svg[preserveAspectRatio]')!.children.length).toBe(0);
     expect(el.querySelector('.legend')).toBeNull();
     expect(redrawn).toHaveBeenCalled();
   });
 
   it('draws the classical curve, shades the inverted region from −ΔG° = λ and marks the pair', () => {
     const { el } = render(CLASSICAL, 'marcus');
-    const svg = el.querySelector('svg')!;
+    const svg = el.querySelector('svg[preserveAspectRatio]')!;
     expect(svg.querySelector('path.curve.marcus')?.getAttribute('d')).toMatch(/^M[\d.]+,[\d.]+L/);
     expect(svg.querySelector('path.curve.mlj')).toBeNull();
     expect(svg.querySelector('rect.inverted')).not.toBeNull();
@@ -71,6 +71,6 @@ describe('DrivingForcePlot', () => {
     fixture.componentRef.setInput('inputs', null);
     fixture.detectChanges();
     TestBed.tick();
-    expect(el.querySelector('svg')!.children.length).toBe(0);
+    expect(el.querySelector('svg[preserveAspectRatio]')!.children.length).toBe(0);
   });
 });
