@@ -4,6 +4,7 @@ import { describe, expect, it } from 'vitest';
 import {
   computePairResults,
   formatMeasured,
+  roundMeasured,
   lambdaParts,
   pairEffectDifferences,
   pairMonteCarloRequest,
@@ -208,6 +209,15 @@ describe('what views show', () => {
     expect(formatMeasured(-0.683425360906)).toBe('−0.6834');
     expect(formatMeasured(12345.678, 23)).toBe('12346 ± 23');
     expect(formatMeasured(null)).toBe('—');
+  });
+
+  it('rounds a value for an editable field to the digits formatMeasured prints', () => {
+    expect(roundMeasured(-0.683425360906)).toBe(-0.6834);
+    expect(roundMeasured(-0.683425360906, 0.05)).toBe(-0.683);
+    expect(roundMeasured(-0.683425360906, 0.0123)).toBe(-0.683);
+    expect(roundMeasured(12345.678, 23)).toBe(12346);
+    expect(roundMeasured(12345.678, 230)).toBe(12350);
+    expect(roundMeasured(9.1093837e-31)).toBe(9.109e-31);
   });
 
   it('says which step is faster and by how much', () => {

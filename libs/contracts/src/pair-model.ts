@@ -514,6 +514,22 @@ export function formatMeasured(value: number | null, sigma?: number | null, unit
   return `${formatNumber(value, sig, true)} ± ${formatNumber(sigma, 2, true)}${u}`;
 }
 
+/**
+ * The number `formatMeasured` prints, for a field that must hold plain editable text: rounded at
+ * the decimal place of σ's second significant digit, or to 4 significant figures without σ
+ * (−0.683425360906 → −0.6834). For display only; storage and exports keep full precision.
+ */
+export function roundMeasured(value: number, sigma?: number | null): number {
+  if (!Number.isFinite(value)) return value;
+  if (!(sigma !== null && sigma !== undefined && sigma > 0 && Number.isFinite(sigma))) {
+    return Number(value.toPrecision(4));
+  }
+  const place = Math.floor(Math.log10(sigma)) - 1;
+  if (place < 0) return Number(value.toFixed(Math.min(100, -place)));
+  const step = 10 ** place;
+  return Math.round(value / step) * step;
+}
+
 /** "Normal", "Inverted", "Activationless", or an em dash. */
 export function regimeLabel(regime: string | null | undefined): string {
   return regime ? regime.charAt(0).toUpperCase() + regime.slice(1) : '—';

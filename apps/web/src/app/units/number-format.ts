@@ -4,7 +4,7 @@
  * (report-format.ts), so a page and its PDF print a number alike; this module adds the pages'
  * default precision and the reading of typed numbers.
  */
-import { formatMeasured, formatNumber } from '@gapwise/contracts';
+import { formatMeasured, formatNumber, roundMeasured } from '@gapwise/contracts';
 
 export { formatFixed, formatScientific } from '@gapwise/contracts';
 
@@ -28,6 +28,16 @@ export function formatScientificAscii(value: number, digits = 4): string {
 export function editableText(value: number | null | undefined): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '';
   return String(Number(value.toPrecision(12)));
+}
+
+/**
+ * Editable text for a derived value (a helper's result, a value the pair records as derived):
+ * the digits its uncertainty supports (`roundMeasured` of contracts, as `formatMeasured` prints
+ * them), so −0.683425360906 reads −0.6834. The full value stays in the form and is saved.
+ */
+export function measuredText(value: number | null | undefined, sigma?: number | null): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '';
+  return editableText(roundMeasured(value, sigma));
 }
 
 /**

@@ -65,8 +65,13 @@ describe('PairEditor', { timeout: 40_000 }, () => {
     expect(open).toHaveBeenCalledTimes(1);
     fixture.detectChanges();
 
-    // Shown in the field's unit (cm⁻¹), stored canonically (eV).
-    expect(Number(await field.getValue())).toBeCloseTo(coupling * CM1_PER_EV, 6);
+    // Shown in the field's unit (cm⁻¹) with the digits a derived value supports (4 significant
+    // figures, no σ), stored canonically (eV) at full precision.
+    const shownText = await field.getValue();
+    expect(shownText).toBe(
+      String(Number((Number(coupling.toPrecision(4)) * CM1_PER_EV).toPrecision(6))),
+    );
+    expect(shownText.replace(/[^0-9]/g, '').length).toBeLessThanOrEqual(7);
     expect(await field.getProvenance()).toBe('Derived');
     expect(await field.getDerivedMethod()).toBe('distance-decay');
     // The badge's tooltip is the provenance sentence the report prints: labels and units, no JSON.
@@ -75,7 +80,7 @@ describe('PairEditor', { timeout: 40_000 }, () => {
       'Derived with the distance-decay helper from coupling H₀ at the reference distance = 0.05 eV, ' +
         'reference distance R₀ = 3.5 Å, decay constant β of the rate = 1.1 Å⁻¹, distance R = 10 Å.',
     );
-    const group = fixture.componentInstance['form']().controls.parameters.controls.coupling;
+    const group = fixture.componentInstance['store'].form().controls.parameters.controls.coupling;
     expect(group.controls.value.value).toBe(coupling);
     expect(group.controls.provenance.getRawValue()).toMatchObject({
       kind: 'derived',

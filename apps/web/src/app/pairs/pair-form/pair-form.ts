@@ -98,6 +98,8 @@ export function createParameterGroup(kind: ParameterKind, p?: PairParameter): Pa
     value: p ? potentialFromShe(p.value, code) : null,
     unit: (split ? split.unit : p?.unit) || defaultUnit(kind),
     uncertainty: p?.uncertainty ?? null,
+    // A derived value reads with the digits it supports; the stored full value is kept.
+    rounded: p?.provenance.kind === 'derived',
   }) as unknown as FormGroup;
   group.addControl('reference', new FormControl(code ?? '', { nonNullable: true }));
   const prov = p?.provenance;

@@ -6,6 +6,7 @@ import {
   ValidatorFn,
 } from '@angular/forms';
 import type { Quantity } from '@gapwise/calc';
+import { roundMeasured } from '@gapwise/contracts';
 import { editableText, parseStrictNumber } from '../../units/number-format';
 import {
   canonicalDifference,
@@ -28,6 +29,10 @@ export type ValueRule = (canonical: number) => string | null;
  * committed with Enter. A pending value takes the unit picked next (type 25, pick °C: 25 °C);
  * a confirmed one is converted (25 K → −248.15 °C). Either way `switchQuantityUnit` says what
  * happened and how to undo it.
+ *
+ * `rounded` is true while the text shows a derived value (from a helper, or stored as derived)
+ * rounded to the digits its uncertainty supports; `value` keeps the full number, which is saved.
+ * Typing clears it; a unit change keeps the rounding in the new unit.
  */
 export type QuantityGroup = FormGroup<{
   text: FormControl<string>;
@@ -36,6 +41,7 @@ export type QuantityGroup = FormGroup<{
   uncertaintyText: FormControl<string>;
   uncertainty: FormControl<number | null>;
   pending: FormControl<boolean>;
+  rounded: FormControl<boolean>;
 }>;
 
 export interface QuantitySpec {
@@ -90,14 +96,27 @@ function numberValidator(
 
 export function createQuantityGroup(
   spec: QuantitySpec,
-  initial: { value: number | null; unit: string; uncertainty?: number | null },
+  initial: {
+    value: number | null;
+    unit: string;
+    uncertainty?: number | null;
+    /** Show the value rounded to what its uncertainty supports (a derived value). */
+    rounded?: boolean;
+  },
 ): QuantityGroup {
   const unit = new FormControl(initial.unit, { nonNullable: true });
+  const rounded = !!initial.rounded && initial.value !== null;
   const group: QuantityGroup = new FormGroup({
     text: new FormControl(
       initial.value === null
         ? ''
-        : editableText(displayOf(initial.value, initial.unit, spec.quantity)),
+        : shownText(
+            initial.value,
+            initial.uncertainty ?? null,
+            initial.unit,
+            spec.quantity,
+            rounded,
+          ),
       {
         nonNullable: true,
         validators: numberValidator(spec, () => unit.value, !spec.required, false),
@@ -115,8 +134,26 @@ export function createQuantityGroup(
     ),
     uncertainty: new FormControl<number | null>(initial.uncertainty ?? null),
     pending: new FormControl(false, { nonNullable: true }),
+    rounded: new FormControl(rounded, { nonNullable: true }),
   });
   return group;
+}
+
+/**
+ * The field's text for a canonical value: as stored (12 figures), or, when derived, rounded in
+ * the canonical unit to what σ supports (`roundMeasured`) and then shown in the field's unit
+ * (77 K stays −196.15 °C; −0.683425360906 eV reads −0.6834 eV).
+ */
+function shownText(
+  canonical: number,
+  canonicalSigma: number | null,
+  unit: string,
+  quantity: Quantity,
+  rounded: boolean,
+): string {
+  if (!rounded) return editableText(displayOf(canonical, unit, quantity));
+  const display = displayOf(roundMeasured(canonical, canonicalSigma), unit, quantity);
+  return editableText(Number(display.toPrecision(6)));
 }
 
 /** The user committed the value (Enter): a later unit change converts it. */
@@ -140,6 +177,7 @@ function shown(text: string, unit: string): string {
 export function typeQuantityText(group: QuantityGroup, spec: QuantitySpec, text: string): void {
   group.controls.text.setValue(text);
   group.controls.pending.setValue(true);
+  group.controls.rounded.setValue(false);
   const parsed = group.controls.text.valid ? parseStrictNumber(text) : null;
   group.controls.value.setValue(
     parsed === null ? null : canonicalOf(parsed, group.controls.unit.value, spec.quantity),
@@ -167,7 +205,7 @@ export function switchQuantityUnit(
   spec: QuantitySpec,
   unit: string,
 ): UnitChange | null {
-  const { value, uncertainty, text, uncertaintyText, pending } = group.controls;
+  const { value, uncertainty, text, uncertaintyText, pending, rounded } = group.controls;
   const before = {
     unit: group.controls.unit.value,
     text: text.value,
@@ -175,6 +213,7 @@ export function switchQuantityUnit(
     uncertaintyText: uncertaintyText.value,
     uncertainty: uncertainty.value,
     pending: pending.value,
+    rounded: rounded.value,
   };
   if (before.unit === unit) return null;
   group.controls.unit.setValue(unit);
@@ -185,12 +224,14 @@ export function switchQuantityUnit(
     uncertaintyText.setValue(before.uncertaintyText);
     uncertainty.setValue(before.uncertainty);
     pending.setValue(before.pending);
+    rounded.setValue(before.rounded);
   };
   if (before.pending || value.value === null) {
     // Re-read the typed text (and its uncertainty) in the new unit.
     typeQuantityText(group, spec, text.value);
     typeUncertaintyText(group, spec, uncertaintyText.value);
     pending.setValue(before.pending);
+    rounded.setValue(before.rounded);
     if (value.value === null || text.value.trim() === '') return null;
     const canonicalUnit = spec.quantity === 'temperature' ? 'K' : '';
     const echo =
@@ -203,7 +244,7 @@ export function switchQuantityUnit(
       undo,
     };
   }
-  text.setValue(editableText(displayOf(value.value, unit, spec.quantity)));
+  text.setValue(shownText(value.value, uncertainty.value, unit, spec.quantity, rounded.value));
   if (uncertainty.value !== null) {
     if (unit === 'nm' && spec.quantity === 'photonEnergy') {
       // No wavelength spread stands for an energy spread: the σ text stays and is flagged.
@@ -221,17 +262,21 @@ export function switchQuantityUnit(
   };
 }
 
-/** Puts a canonical value (e.g. from a derivation) into the group, shown in its current unit. */
+/**
+ * Puts a canonical value (e.g. from a derivation) into the group, shown in its current unit with
+ * the digits it supports (`shownText`); the full value is kept and saved.
+ */
 export function setCanonicalQuantity(
   group: QuantityGroup,
   spec: QuantitySpec,
   canonical: number,
 ): void {
+  const unit = group.controls.unit.value;
+  const sigma = group.controls.uncertainty.value;
   group.controls.value.setValue(canonical);
   group.controls.pending.setValue(false);
-  group.controls.text.setValue(
-    editableText(displayOf(canonical, group.controls.unit.value, spec.quantity)),
-  );
+  group.controls.rounded.setValue(true);
+  group.controls.text.setValue(shownText(canonical, sigma, unit, spec.quantity, true));
   group.controls.text.markAsDirty();
 }
 

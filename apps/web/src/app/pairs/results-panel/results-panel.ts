@@ -13,15 +13,8 @@ import {
   formatSignificant,
 } from '../../units/number-format';
 import { RichText } from '../../shared/rich-text/rich-text';
-import { histogramGeometry } from '@gapwise/plots';
 import type { MonteCarloState } from './monte-carlo';
-
-/** Drawing units of the histogram's viewBox: room left and below for ticks and axis titles. */
-const HISTOGRAM_FRAME = {
-  width: 320,
-  height: 132,
-  margin: { left: 38, bottom: 32, top: 6, right: 10 },
-} as const;
+import { MonteCarloPanel } from './monte-carlo-panel';
 
 const MODEL_NAMES: Record<string, string> = {
   marcus: 'classical nonadiabatic Marcus',
@@ -48,7 +41,7 @@ const FIELD_LABELS: Record<string, string> = {
 /** k, log10 k, ΔG‡, regime, warnings and the Monte Carlo interval of the pair being edited. */
 @Component({
   selector: 'gw-results-panel',
-  imports: [MatButtonModule, MatIconModule, MatTooltipModule, RichText],
+  imports: [MatButtonModule, MatIconModule, MatTooltipModule, MonteCarloPanel, RichText],
   templateUrl: './results-panel.html',
   styleUrl: './results-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -73,10 +66,6 @@ export class ResultsPanel {
 
   protected readonly fmtSci = formatScientific;
   protected readonly fmtFixed = formatFixed;
-  /** A round tick value ("12.5", "−3"): at most 3 significant figures, U+2212 minus. */
-  protected fmtTick(v: number): string {
-    return formatSignificant(v, 3);
-  }
   protected readonly fmtSig = formatSignificant;
   protected readonly modelName = computed(
     () => MODEL_NAMES[this.results().model] ?? this.results().model,
@@ -127,26 +116,6 @@ export class ResultsPanel {
             : 'Nonadiabatic: |H_AB| is well below k_BT.';
     return { nuclearCode: r.regime, couplingCode: r.couplingRegime ?? null, nuclear, electronic };
   });
-
-  /** The log10 k distribution with axes (share of samples against log10 k), as the PDF prints it. */
-  protected readonly histogram = computed(() => {
-    const mc = this.monteCarlo();
-    if (mc.status !== 'done' || !mc.histogram) return null;
-    return histogramGeometry(
-      {
-        edges: mc.histogram.edges,
-        counts: mc.histogram.counts,
-        low: mc.p025,
-        high: mc.p975,
-        median: mc.median,
-      },
-      HISTOGRAM_FRAME,
-    );
-  });
-
-  protected readonly histogramFrame = HISTOGRAM_FRAME;
-  /** As the PDF's axis title reads. */
-  protected readonly xTitle = 'log10 (k / s⁻¹)';
 
   protected fieldLabel(field: string): string {
     return FIELD_LABELS[field] ?? field;
