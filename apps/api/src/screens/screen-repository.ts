@@ -7,7 +7,12 @@
  * screen-results-writer.ts.
  */
 import { In, Not, type EntityManager } from 'typeorm';
-import { ScreenChunkEntity, ScreenEntity, ScreenResultEntity } from '@gapwise/db';
+import {
+  ScreenChunkEntity,
+  ScreenEntity,
+  ScreenInputEntity,
+  ScreenResultEntity,
+} from '@gapwise/db';
 import type { InputChunk } from './screen-parser';
 import {
   SCREEN_NUMERIC_COLUMNS,
@@ -352,56 +357,83 @@ export interface ResultQuery {
   readonly custom?: readonly CustomScoreTerm[];
 }
 
-/**
- * The SQL of the custom score, weights as parameters after `first` (columns come from the
- * COLUMN_SQL whitelist, never from the request text).
- */
-function customSql(query: ResultQuery, first: number): { sql: string; params: number[] } {
-  const terms = query.custom ?? [];
-  if (!terms.length) return { sql: 'NULL::double precision', params: [] };
-  return {
-    sql: `(${terms.map((t, i) => `$${first + i}::double precision * ${COLUMN_SQL[t.column]}`).join(' + ')})`,
-    params: terms.map((t) => t.weight),
-  };
-}
+type ResultQueryBuilder = ReturnType<typeof resultsOf>;
 
-function whereOf(screenId: string, query: ResultQuery): { sql: string; params: unknown[] } {
-  const params: unknown[] = [screenId];
-  const parts = ['screen_id = $1'];
-  for (const r of query.ranges) {
-    const col = COLUMN_SQL[r.column];
-    if (r.min !== undefined) {
-      params.push(r.min);
-      parts.push(`${col} >= $${params.length}`);
-    }
-    if (r.max !== undefined) {
-      params.push(r.max);
-      parts.push(`${col} <= $${params.length}`);
-    }
-  }
-  if (query.regimeCs) {
-    params.push(query.regimeCs);
-    parts.push(`regime_cs = $${params.length}`);
-  }
-  if (query.regimeCr) {
-    params.push(query.regimeCr);
-    parts.push(`regime_cr = $${params.length}`);
-  }
-  if (query.warningMask) {
-    params.push(query.warningMask);
-    parts.push(`(warning_mask & $${params.length}) <> 0`);
-  }
-  if (query.noWarnings) parts.push('warning_mask = 0');
+/** A query over one screen's results, filtered as asked. */
+function resultsOf(db: EntityManager, screenId: string, query: ResultQuery) {
+  const q = db
+    .getRepository(ScreenResultEntity)
+    .createQueryBuilder('r')
+    .where('r.screen_id = :screenId', { screenId });
+  // Column names come from the COLUMN_SQL whitelist, never from the request text; values are
+  // parameters.
+  query.ranges.forEach((range, i) => {
+    const col = `r.${COLUMN_SQL[range.column]}`;
+    if (range.min !== undefined) q.andWhere(`${col} >= :min${i}`, { [`min${i}`]: range.min });
+    if (range.max !== undefined) q.andWhere(`${col} <= :max${i}`, { [`max${i}`]: range.max });
+  });
+  if (query.regimeCs) q.andWhere('r.regime_cs = :regimeCs', { regimeCs: query.regimeCs });
+  if (query.regimeCr) q.andWhere('r.regime_cr = :regimeCr', { regimeCr: query.regimeCr });
+  if (query.warningMask)
+    q.andWhere('(r.warning_mask & :warningMask) <> 0', { warningMask: query.warningMask });
+  if (query.noWarnings) q.andWhere('r.warning_mask = 0');
   if (query.q) {
-    params.push(`%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`);
-    parts.push(`(donor ILIKE $${params.length} OR acceptor ILIKE $${params.length})`);
+    const like = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    q.andWhere('(r.donor ILIKE :like OR r.acceptor ILIKE :like)', { like });
   }
-  return { sql: parts.join(' AND '), params };
+  return q;
 }
 
-const RESULT_COLUMNS = `row_number, donor, acceptor, solvent, delta_g_cs, delta_g_cr, lambda_inner, lambda_outer,
-  lambda_total, coupling, temperature_k, log10k_cs_marcus, log10k_cr_marcus, log10k_cs_mlj, log10k_cr_mlj,
-  regime_cs, regime_cr, warning_mask, score`;
+/**
+ * One page of filtered rows in the asked order, with the custom score Σ weight × column
+ * (weights as parameters, columns from the whitelist) selected as `custom_score`.
+ */
+function resultPage(
+  q: ResultQueryBuilder,
+  query: ResultQuery,
+  limit: number,
+  offset: number,
+): ResultQueryBuilder {
+  const terms = query.custom ?? [];
+  const custom = terms.length
+    ? `(${terms.map((t, i) => `CAST(:weight${i} AS double precision) * r.${COLUMN_SQL[t.column]}`).join(' + ')})`
+    : 'CAST(NULL AS double precision)';
+  terms.forEach((t, i) => q.setParameter(`weight${i}`, t.weight));
+  const dir = query.descending ? 'DESC' : 'ASC';
+  return q
+    .select(RESULT_COLUMNS.map((c) => `r.${c} AS ${c}`))
+    .addSelect(custom, 'custom_score')
+    .orderBy(
+      query.sort === 'custom' ? 'custom_score' : `r.${COLUMN_SQL[query.sort]}`,
+      dir,
+      'NULLS LAST',
+    )
+    .addOrderBy('r.row_number', dir)
+    .limit(limit)
+    .offset(offset);
+}
+
+const RESULT_COLUMNS = [
+  'row_number',
+  'donor',
+  'acceptor',
+  'solvent',
+  'delta_g_cs',
+  'delta_g_cr',
+  'lambda_inner',
+  'lambda_outer',
+  'lambda_total',
+  'coupling',
+  'temperature_k',
+  'log10k_cs_marcus',
+  'log10k_cr_marcus',
+  'log10k_cs_mlj',
+  'log10k_cr_mlj',
+  'regime_cs',
+  'regime_cr',
+  'warning_mask',
+  'score',
+] as const;
 
 interface ResultRow {
   row_number: number;
@@ -469,48 +501,21 @@ export function toResultRow(r: ResultRow): ScreenResultRow {
   };
 }
 
-function orderOf(query: ResultQuery): string {
-  const dir = query.descending ? 'DESC' : 'ASC';
-  const key = query.sort === 'custom' ? 'custom_score' : COLUMN_SQL[query.sort];
-  return `ORDER BY ${key} ${dir} NULLS LAST, row_number ${dir}`;
-}
-
-/** SELECT … FROM … WHERE … ORDER BY … LIMIT/OFFSET with the custom score, and its parameters. */
-function pageSql(
-  screenId: string,
-  query: ResultQuery,
-  limit: number,
-  offset: number,
-): { sql: string; params: unknown[] } {
-  const where = whereOf(screenId, query);
-  const custom = customSql(query, where.params.length + 1);
-  const n = where.params.length + custom.params.length;
-  return {
-    sql: `SELECT ${RESULT_COLUMNS}, ${custom.sql} AS custom_score FROM screen_results WHERE ${where.sql} ${orderOf(query)} LIMIT $${n + 1} OFFSET $${n + 2}`,
-    params: [...where.params, ...custom.params, limit, offset],
-  };
-}
-
 export async function queryResults(
   db: EntityManager,
   screenId: string,
   query: ResultQuery,
 ): Promise<ScreenResultPage> {
-  const where = whereOf(screenId, query);
-  const page = pageSql(screenId, query, query.limit, query.offset);
-  const [rows, count] = await Promise.all([
-    db.query(page.sql, page.params) as Promise<ResultRow[]>,
-    db.query(
-      `SELECT count(*)::int AS n FROM screen_results WHERE ${where.sql}`,
-      where.params,
-    ) as Promise<Array<{ n: number }>>,
+  const [rows, total] = await Promise.all([
+    resultPage(
+      resultsOf(db, screenId, query),
+      query,
+      query.limit,
+      query.offset,
+    ).getRawMany<ResultRow>(),
+    resultsOf(db, screenId, query).getCount(),
   ]);
-  return {
-    items: rows.map(toResultRow),
-    total: count[0].n,
-    offset: query.offset,
-    limit: query.limit,
-  };
+  return { items: rows.map(toResultRow), total, offset: query.offset, limit: query.limit };
 }
 
 /** Every filtered row in order, in batches (for the streamed CSV export). */
@@ -521,8 +526,12 @@ export async function* streamResults(
   batch = 5000,
 ): AsyncGenerator<ScreenResultRow[]> {
   for (let offset = 0; ; offset += batch) {
-    const page = pageSql(screenId, query, batch, offset);
-    const rows: ResultRow[] = await db.query(page.sql, page.params);
+    const rows = await resultPage(
+      resultsOf(db, screenId, query),
+      query,
+      batch,
+      offset,
+    ).getRawMany<ResultRow>();
     if (rows.length === 0) return;
     yield rows.map(toResultRow);
     if (rows.length < batch) return;
@@ -534,11 +543,13 @@ export async function findResult(
   screenId: string,
   row: number,
 ): Promise<ScreenResultRow | null> {
-  const rows: ResultRow[] = await db.query(
-    `SELECT ${RESULT_COLUMNS} FROM screen_results WHERE screen_id = $1 AND row_number = $2`,
-    [screenId, row],
-  );
-  return rows[0] ? toResultRow(rows[0]) : null;
+  const found = await db
+    .getRepository(ScreenResultEntity)
+    .createQueryBuilder('r')
+    .select(RESULT_COLUMNS.map((c) => `r.${c} AS ${c}`))
+    .where('r.screen_id = :screenId AND r.row_number = :row', { screenId, row })
+    .getRawOne<ResultRow>();
+  return found ? toResultRow(found) : null;
 }
 
 /** The stored input chunk holding a line of the uploaded file. */
@@ -547,13 +558,20 @@ export async function inputPayloadForLine(
   screenId: string,
   line: number,
 ): Promise<{ chunkIndex: number; payload: string } | null> {
-  const rows: Array<{ chunk_index: number; payload: string }> = await db.query(
-    `SELECT i.chunk_index, i.payload FROM screen_chunks c
-       JOIN screen_inputs i ON i.screen_id = c.screen_id AND i.chunk_index = c.chunk_index
-      WHERE c.screen_id = $1 AND c.first_line <= $2 AND c.last_line >= $2`,
-    [screenId, line],
-  );
-  return rows[0] ? { chunkIndex: rows[0].chunk_index, payload: rows[0].payload } : null;
+  const input = await db
+    .getRepository(ScreenInputEntity)
+    .createQueryBuilder('i')
+    .innerJoin(
+      ScreenChunkEntity,
+      'c',
+      'c.screen_id = i.screen_id AND c.chunk_index = i.chunk_index',
+    )
+    .where('c.screen_id = :screenId AND c.first_line <= :line AND c.last_line >= :line', {
+      screenId,
+      line,
+    })
+    .getOne();
+  return input ? { chunkIndex: input.chunkIndex, payload: input.payload } : null;
 }
 
 export { SCREEN_NUMERIC_COLUMNS };

@@ -11,6 +11,17 @@ import type {
 import { SeriesEntity, SeriesPointEntity } from '@gapwise/db';
 import { isUuid } from '../http/validate';
 
+/** The series columns of a save, picked from what the use-case normalised. */
+const columnsOf = (c: SeriesColumns) => ({
+  name: c.name,
+  temperatureK: c.temperatureK,
+  temperatureUnit: c.temperatureUnit,
+  energyUnit: c.energyUnit,
+  notes: c.notes,
+  modelOptions: { ...c.modelOptions },
+  pairIds: [...c.pairIds],
+});
+
 /** What a save writes (canonical units). */
 export interface SeriesColumns {
   readonly name: string;
@@ -77,7 +88,7 @@ export async function insertSeries(
 ): Promise<string> {
   const repo = db.getRepository(SeriesEntity);
   const saved = await repo.save(
-    repo.create({ ...columns, pairIds: [...columns.pairIds], workspaceId, createdBy: userId }),
+    repo.create({ ...columnsOf(columns), workspaceId, createdBy: userId }),
   );
   return saved.id;
 }
@@ -92,9 +103,7 @@ export async function updateSeriesColumns(
     .createQueryBuilder()
     .update(SeriesEntity)
     .set({
-      ...columns,
-      modelOptions: { ...columns.modelOptions },
-      pairIds: [...columns.pairIds],
+      ...columnsOf(columns),
       fit: null,
       version: () => 'version + 1',
     })
