@@ -8,6 +8,7 @@ import {
   PrimaryColumn,
   type Relation,
 } from 'typeorm';
+import type { Role } from '@gapwise/contracts';
 import { UserEntity } from './user';
 import { WorkspaceEntity } from './workspace';
 
@@ -22,7 +23,7 @@ export class MembershipEntity {
   userId: string;
 
   @Column({ type: 'text' })
-  role: string;
+  role: Role;
 
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' })
   createdAt: Date;

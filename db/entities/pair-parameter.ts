@@ -7,6 +7,7 @@ import {
   PrimaryGeneratedColumn,
   type Relation,
 } from 'typeorm';
+import type { ParameterKind, ProvenanceKind } from '@gapwise/contracts';
 import { PairEntity } from './pair';
 
 /** One parameter of a pair: canonical value, typed unit, uncertainty and provenance. */
@@ -23,7 +24,7 @@ export class PairParameterEntity {
   position: number;
 
   @Column({ type: 'text' })
-  kind: string;
+  kind: ParameterKind;
 
   @Column({ type: 'double precision' })
   value: number;
@@ -35,7 +36,7 @@ export class PairParameterEntity {
   uncertainty: number | null;
 
   @Column({ type: 'text', name: 'provenance_kind' })
-  provenanceKind: string;
+  provenanceKind: ProvenanceKind;
 
   @Column({ type: 'text', nullable: true })
   citation: string | null;

@@ -8,6 +8,7 @@ import {
   Unique,
   type Relation,
 } from 'typeorm';
+import type { Pair } from '@gapwise/contracts';
 import { PairEntity } from './pair';
 import { UserEntity } from './user';
 
@@ -25,7 +26,7 @@ export class PairVersionEntity {
   version: number;
 
   @Column({ type: 'jsonb' })
-  snapshot: unknown;
+  snapshot: Pair;
 
   @Column({ type: 'text' })
   summary: string;

@@ -9,6 +9,7 @@ import {
   UpdateDateColumn,
   type Relation,
 } from 'typeorm';
+import type { PairResults, PairStatus, RateModel } from '@gapwise/contracts';
 import { UserEntity } from './user';
 import { WorkspaceEntity } from './workspace';
 
@@ -48,19 +49,19 @@ export class PairEntity {
   notes: string;
 
   @Column({ type: 'text', default: 'draft' })
-  status: string;
+  status: PairStatus;
 
   @Column({ type: 'text', array: true, default: () => "'{}'" })
   tags: string[];
 
   @Column({ type: 'text', default: 'marcus' })
-  model: string;
+  model: RateModel;
 
   @Column({ type: 'integer', default: 1 })
   version: number;
 
   @Column({ type: 'jsonb', nullable: true })
-  results: unknown;
+  results: PairResults | null;
 
   @Column({ type: 'double precision', name: 'delta_g0', nullable: true })
   deltaG0: number | null;

@@ -9,6 +9,7 @@ import {
   UpdateDateColumn,
   type Relation,
 } from 'typeorm';
+import type { SeriesFit, SeriesModelOptions } from '@gapwise/contracts';
 import { WorkspaceEntity } from './workspace';
 
 /**
@@ -38,13 +39,13 @@ export class SeriesEntity {
   energyUnit: string;
 
   @Column({ type: 'jsonb', name: 'model_options', default: () => "'{}'" })
-  modelOptions: Record<string, unknown>;
+  modelOptions: SeriesModelOptions;
 
   @Column({ type: 'uuid', name: 'pair_ids', array: true, default: () => "'{}'" })
   pairIds: string[];
 
   @Column({ type: 'jsonb', nullable: true })
-  fit: Record<string, unknown> | null;
+  fit: SeriesFit | null;
 
   @Column({ type: 'text', default: '' })
   notes: string;

@@ -1,4 +1,5 @@
 import type { EntityManager } from 'typeorm';
+import { PendingRegistrationEntity } from '@gapwise/db';
 
 export interface PendingRegistration {
   readonly id: string;
@@ -22,16 +23,18 @@ export async function upsertPendingRegistration(
     expiresAt: Date;
   },
 ): Promise<string> {
-  const rows: Array<{ id: string }> = await db.query(
-    `INSERT INTO pending_registrations (email, display_name, password_hash, token_hash, expires_at)
-     VALUES ($1, $2, $3, $4, $5)
-     ON CONFLICT (email) DO UPDATE SET display_name = EXCLUDED.display_name,
-       password_hash = EXCLUDED.password_hash, token_hash = EXCLUDED.token_hash,
-       expires_at = EXCLUDED.expires_at, created_at = now()
-     RETURNING id`,
-    [v.email, v.displayName, v.passwordHash, v.tokenHash, v.expiresAt],
-  );
-  return rows[0]!.id;
+  const result = await db
+    .createQueryBuilder()
+    .insert()
+    .into(PendingRegistrationEntity)
+    .values({ ...v, createdAt: () => 'now()' })
+    .orUpdate(
+      ['display_name', 'password_hash', 'token_hash', 'expires_at', 'created_at'],
+      ['email'],
+    )
+    .returning(['id'])
+    .execute();
+  return (result.raw as Array<{ id: string }>)[0]!.id;
 }
 
 /** Removes and returns the pending registration of a token (used or not, a token works once). */
@@ -39,15 +42,14 @@ export async function takePendingRegistration(
   db: EntityManager,
   tokenHash: string,
 ): Promise<PendingRegistration | null> {
-  // A SELECT over the DELETE, so TypeORM answers rows (a bare DELETE … RETURNING gives [rows, count]).
-  const rows: Array<Record<string, unknown>> = await db.query(
-    `WITH taken AS (
-       DELETE FROM pending_registrations WHERE token_hash = $1
-       RETURNING id, email, display_name, password_hash, expires_at
-     ) SELECT * FROM taken`,
-    [tokenHash],
-  );
-  const r = rows[0];
+  const result = await db
+    .createQueryBuilder()
+    .delete()
+    .from(PendingRegistrationEntity)
+    .where('token_hash = :tokenHash', { tokenHash })
+    .returning('id, email, display_name, password_hash, expires_at')
+    .execute();
+  const r = (result.raw as Array<Record<string, unknown>>)[0];
   if (!r) return null;
   return {
     id: r['id'] as string,
@@ -60,5 +62,10 @@ export async function takePendingRegistration(
 
 /** Forgets registrations whose link expired more than a day ago. */
 export async function deleteStalePendingRegistrations(db: EntityManager): Promise<void> {
-  await db.query(`DELETE FROM pending_registrations WHERE expires_at < now() - interval '1 day'`);
+  await db
+    .createQueryBuilder()
+    .delete()
+    .from(PendingRegistrationEntity)
+    .where(`expires_at < now() - interval '1 day'`)
+    .execute();
 }

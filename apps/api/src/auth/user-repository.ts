@@ -1,6 +1,6 @@
 import type { EntityManager } from 'typeorm';
-import type { MembershipSummary, Role, UserSummary } from '@gapwise/contracts';
-import { UserEntity } from '@gapwise/db';
+import type { MembershipSummary, UserSummary } from '@gapwise/contracts';
+import { MembershipEntity, UserEntity } from '@gapwise/db';
 import { isUuid } from '../http/validate';
 
 export interface UserWithHash extends UserSummary {
@@ -58,24 +58,34 @@ export async function insertUser(
   db: EntityManager,
   input: { email: string; displayName: string; passwordHash: string },
 ): Promise<UserSummary | null> {
-  const rows: Array<{ id: string; email: string; display_name: string }> = await db.query(
-    `INSERT INTO users (email, display_name, password_hash) VALUES ($1, $2, $3)
-     ON CONFLICT (email) DO NOTHING RETURNING id, email, display_name`,
-    [input.email.toLowerCase(), input.displayName, input.passwordHash],
-  );
-  const row = rows[0];
-  return row ? { id: row.id, email: row.email, displayName: row.display_name } : null;
+  const email = input.email.toLowerCase();
+  const result = await db
+    .createQueryBuilder()
+    .insert()
+    .into(UserEntity)
+    .values({ email, displayName: input.displayName, passwordHash: input.passwordHash })
+    .orIgnore()
+    .returning(['id'])
+    .execute();
+  const id = (result.raw as Array<{ id: string }>)[0]?.id;
+  return id ? { id, email, displayName: input.displayName } : null;
 }
 
 export async function membershipsOf(
   db: EntityManager,
   userId: string,
 ): Promise<MembershipSummary[]> {
-  const rows: Array<{ workspace_id: string; name: string; role: Role }> = await db.query(
-    `SELECT m.workspace_id, w.name, m.role FROM memberships m
-       JOIN workspaces w ON w.id = m.workspace_id
-      WHERE m.user_id = $1 ORDER BY lower(w.name), w.id`,
-    [userId],
-  );
-  return rows.map((r) => ({ workspaceId: r.workspace_id, workspaceName: r.name, role: r.role }));
+  const memberships = await db
+    .getRepository(MembershipEntity)
+    .createQueryBuilder('m')
+    .innerJoinAndSelect('m.workspace', 'w')
+    .where('m.userId = :userId', { userId })
+    .orderBy('lower(w.name)')
+    .addOrderBy('w.id')
+    .getMany();
+  return memberships.map((m) => ({
+    workspaceId: m.workspaceId,
+    workspaceName: m.workspace.name,
+    role: m.role,
+  }));
 }

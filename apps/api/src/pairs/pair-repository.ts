@@ -8,66 +8,58 @@ import type {
   PairResults,
   PairStatus,
   PairVersionSummary,
-  ParameterKind,
-  RateModel,
 } from '@gapwise/contracts';
+import { PairEntity, PairParameterEntity, PairVersionEntity } from '@gapwise/db';
 import { isUuid } from '../http/validate';
 import { parameterValue, totalLambdaEv } from '@gapwise/contracts';
 
-type Row = Record<string, unknown>;
-const iso = (d: unknown) => (d instanceof Date ? d.toISOString() : String(d));
-
-const PAIR_COLUMNS = `p.id, p.workspace_id, p.name, p.donor, p.acceptor, p.medium, p.temperature_k,
-  p.temperature_unit, p.notes, p.status, p.tags, p.model, p.version, p.results, p.created_at,
-  p.updated_at, p.updated_by, u.display_name AS updated_by_name`;
-
-function toParameter(r: Row): PairParameter {
+function toParameter(r: PairParameterEntity): PairParameter {
   return {
-    kind: r['kind'] as ParameterKind,
-    value: r['value'] as number,
-    unit: r['unit'] as string,
-    uncertainty: (r['uncertainty'] as number | null) ?? null,
+    kind: r.kind,
+    value: r.value,
+    unit: r.unit,
+    uncertainty: r.uncertainty,
     provenance: {
-      kind: r['provenance_kind'] as PairParameter['provenance']['kind'],
-      citation: (r['citation'] as string | null) ?? null,
-      methodId: (r['method_id'] as string | null) ?? null,
-      methodInputs: (r['method_inputs'] as Record<string, unknown> | null) ?? null,
-      sources: (r['sources'] as Array<{ type: string; id: string }> | null) ?? null,
-      note: (r['note'] as string | null) ?? null,
+      kind: r.provenanceKind,
+      citation: r.citation,
+      methodId: r.methodId,
+      methodInputs: r.methodInputs,
+      sources: r.sources,
+      note: r.note,
     },
   };
 }
 
-function toPair(r: Row, parameters: PairParameter[]): Pair {
+function toPair(p: PairEntity, parameters: PairParameter[]): Pair {
   return {
-    id: r['id'] as string,
-    workspaceId: r['workspace_id'] as string,
-    name: r['name'] as string,
-    donor: r['donor'] as string,
-    acceptor: r['acceptor'] as string,
-    medium: r['medium'] as string,
-    temperature: r['temperature_k'] as number,
-    temperatureUnit: r['temperature_unit'] as string,
-    notes: r['notes'] as string,
-    status: r['status'] as PairStatus,
-    tags: (r['tags'] as string[]) ?? [],
-    model: r['model'] as RateModel,
-    version: r['version'] as number,
+    id: p.id,
+    workspaceId: p.workspaceId,
+    name: p.name,
+    donor: p.donor,
+    acceptor: p.acceptor,
+    medium: p.medium,
+    temperature: p.temperatureK,
+    temperatureUnit: p.temperatureUnit,
+    notes: p.notes,
+    status: p.status,
+    tags: p.tags ?? [],
+    model: p.model,
+    version: p.version,
     parameters,
-    results: (r['results'] as PairResults | null) ?? null,
-    createdAt: iso(r['created_at']),
-    updatedAt: iso(r['updated_at']),
-    updatedBy: r['updated_by']
-      ? { id: r['updated_by'] as string, displayName: (r['updated_by_name'] as string) ?? '' }
-      : null,
+    results: p.results,
+    createdAt: p.createdAt.toISOString(),
+    updatedAt: p.updatedAt.toISOString(),
+    updatedBy: p.updatedBy ? { id: p.updatedBy, displayName: p.updater?.displayName ?? '' } : null,
   };
 }
 
 /** Workspace of a pair (for the membership check), or null when there is no such pair. */
 export async function pairWorkspace(db: EntityManager, pairId: string): Promise<string | null> {
   if (!isUuid(pairId)) return null;
-  const rows = await db.query('SELECT workspace_id FROM pairs WHERE id = $1', [pairId]);
-  return rows[0]?.workspace_id ?? null;
+  const pair = await db
+    .getRepository(PairEntity)
+    .findOne({ where: { id: pairId }, select: { id: true, workspaceId: true } });
+  return pair?.workspaceId ?? null;
 }
 
 export async function findPair(
@@ -76,17 +68,20 @@ export async function findPair(
   lock = false,
 ): Promise<Pair | null> {
   if (!isUuid(pairId)) return null;
-  const rows: Row[] = await db.query(
-    `SELECT ${PAIR_COLUMNS} FROM pairs p LEFT JOIN users u ON u.id = p.updated_by WHERE p.id = $1
-     ${lock ? 'FOR UPDATE OF p' : ''}`,
-    [pairId],
-  );
-  if (!rows[0]) return null;
-  const params: Row[] = await db.query(
-    'SELECT * FROM pair_parameters WHERE pair_id = $1 ORDER BY position',
-    [pairId],
-  );
-  return toPair(rows[0], params.map(toParameter));
+  const query = db
+    .getRepository(PairEntity)
+    .createQueryBuilder('p')
+    .leftJoin('p.updater', 'u')
+    .addSelect(['u.id', 'u.displayName'])
+    .where('p.id = :pairId', { pairId });
+  // FOR UPDATE OF p: the pair row is locked, the (outer-joined) user is not.
+  if (lock) query.setLock('pessimistic_write', undefined, ['p']);
+  const pair = await query.getOne();
+  if (!pair) return null;
+  const params = await db
+    .getRepository(PairParameterEntity)
+    .find({ where: { pairId }, order: { position: 'ASC' } });
+  return toPair(pair, params.map(toParameter));
 }
 
 /** Values repeated in columns so that the list can sort and filter in SQL. */
@@ -101,6 +96,30 @@ function listColumns(input: Required<PairInput>, results: PairResults) {
   };
 }
 
+/** The columns a save writes, from the input and its results. */
+function pairColumns(input: Required<PairInput>, results: PairResults, userId: string) {
+  const c = listColumns(input, results);
+  return {
+    name: input.name,
+    donor: input.donor,
+    acceptor: input.acceptor,
+    medium: input.medium,
+    temperatureK: input.temperature,
+    temperatureUnit: input.temperatureUnit,
+    notes: input.notes,
+    status: input.status,
+    tags: [...input.tags],
+    model: input.model,
+    results,
+    deltaG0: c.deltaG0,
+    lambdaTotal: c.lambda,
+    couplingAbs: c.coupling,
+    log10k: c.log10k,
+    regime: c.regime,
+    updatedBy: userId,
+  };
+}
+
 export async function insertPair(
   db: EntityManager,
   workspaceId: string,
@@ -108,34 +127,14 @@ export async function insertPair(
   results: PairResults,
   userId: string,
 ): Promise<string> {
-  const c = listColumns(input, results);
-  const rows = await db.query(
-    `INSERT INTO pairs (workspace_id, name, donor, acceptor, medium, temperature_k, temperature_unit,
-       notes, status, tags, model, version, results, delta_g0, lambda_total, coupling_abs, log10k,
-       regime, created_by, updated_by)
-     VALUES ($1,$2,$3,$4,$5,$6,$7,$8,$9,$10,$11,1,$12,$13,$14,$15,$16,$17,$18,$18) RETURNING id`,
-    [
-      workspaceId,
-      input.name,
-      input.donor,
-      input.acceptor,
-      input.medium,
-      input.temperature,
-      input.temperatureUnit,
-      input.notes,
-      input.status,
-      input.tags,
-      input.model,
-      JSON.stringify(results),
-      c.deltaG0,
-      c.lambda,
-      c.coupling,
-      c.log10k,
-      c.regime,
-      userId,
-    ],
-  );
-  const id = rows[0].id as string;
+  const result = await db
+    .createQueryBuilder()
+    .insert()
+    .into(PairEntity)
+    .values({ ...pairColumns(input, results, userId), workspaceId, version: 1, createdBy: userId })
+    .returning(['id'])
+    .execute();
+  const id = (result.raw as Array<{ id: string }>)[0]!.id;
   await replaceParameters(db, id, input.parameters);
   return id;
 }
@@ -148,33 +147,12 @@ export async function updatePair(
   results: PairResults,
   userId: string,
 ): Promise<void> {
-  const c = listColumns(input, results);
-  await db.query(
-    `UPDATE pairs SET name=$2, donor=$3, acceptor=$4, medium=$5, temperature_k=$6, temperature_unit=$7,
-       notes=$8, status=$9, tags=$10, model=$11, results=$12, delta_g0=$13, lambda_total=$14,
-       coupling_abs=$15, log10k=$16, regime=$17, updated_by=$18, version = version + 1, updated_at = now()
-     WHERE id = $1`,
-    [
-      pairId,
-      input.name,
-      input.donor,
-      input.acceptor,
-      input.medium,
-      input.temperature,
-      input.temperatureUnit,
-      input.notes,
-      input.status,
-      input.tags,
-      input.model,
-      JSON.stringify(results),
-      c.deltaG0,
-      c.lambda,
-      c.coupling,
-      c.log10k,
-      c.regime,
-      userId,
-    ],
-  );
+  await db
+    .createQueryBuilder()
+    .update(PairEntity)
+    .set({ ...pairColumns(input, results, userId), version: () => 'version + 1' })
+    .where('id = :pairId', { pairId })
+    .execute();
   await replaceParameters(db, pairId, input.parameters);
 }
 
@@ -183,32 +161,31 @@ async function replaceParameters(
   pairId: string,
   parameters: readonly PairParameter[],
 ) {
-  await db.query('DELETE FROM pair_parameters WHERE pair_id = $1', [pairId]);
-  for (const [i, p] of parameters.entries()) {
-    await db.query(
-      `INSERT INTO pair_parameters (pair_id, position, kind, value, unit, uncertainty, provenance_kind,
-         citation, method_id, method_inputs, sources, note)
-       VALUES ($1,$2,$3,$4,$5,$6,$7,$8,$9,$10,$11,$12)`,
-      [
+  await db.getRepository(PairParameterEntity).delete({ pairId });
+  if (parameters.length === 0) return;
+  const repo = db.getRepository(PairParameterEntity);
+  await repo.save(
+    parameters.map((p, position) =>
+      repo.create({
         pairId,
-        i,
-        p.kind,
-        p.value,
-        p.unit,
-        p.uncertainty,
-        p.provenance.kind,
-        p.provenance.citation ?? null,
-        p.provenance.methodId ?? null,
-        p.provenance.methodInputs == null ? null : JSON.stringify(p.provenance.methodInputs),
-        p.provenance.sources == null ? null : JSON.stringify(p.provenance.sources),
-        p.provenance.note ?? null,
-      ],
-    );
-  }
+        position,
+        kind: p.kind,
+        value: p.value,
+        unit: p.unit,
+        uncertainty: p.uncertainty,
+        provenanceKind: p.provenance.kind,
+        citation: p.provenance.citation ?? null,
+        methodId: p.provenance.methodId ?? null,
+        methodInputs: p.provenance.methodInputs ?? null,
+        sources: p.provenance.sources ? [...p.provenance.sources] : null,
+        note: p.provenance.note ?? null,
+      }),
+    ),
+  );
 }
 
 export async function deletePair(db: EntityManager, pairId: string): Promise<void> {
-  await db.query('DELETE FROM pairs WHERE id = $1', [pairId]);
+  await db.getRepository(PairEntity).delete({ id: pairId });
 }
 
 export async function insertVersion(
@@ -217,9 +194,15 @@ export async function insertVersion(
   summary: string,
   userId: string,
 ): Promise<void> {
-  await db.query(
-    `INSERT INTO pair_versions (pair_id, version, snapshot, summary, created_by) VALUES ($1,$2,$3,$4,$5)`,
-    [pair.id, pair.version, JSON.stringify(pair), summary, userId],
+  const repo = db.getRepository(PairVersionEntity);
+  await repo.save(
+    repo.create({
+      pairId: pair.id,
+      version: pair.version,
+      snapshot: pair,
+      summary,
+      createdBy: userId,
+    }),
   );
 }
 
@@ -227,16 +210,20 @@ export async function listVersions(
   db: EntityManager,
   pairId: string,
 ): Promise<PairVersionSummary[]> {
-  const rows: Row[] = await db.query(
-    `SELECT v.version, v.created_at, v.summary, u.display_name FROM pair_versions v
-       LEFT JOIN users u ON u.id = v.created_by WHERE v.pair_id = $1 ORDER BY v.version DESC`,
-    [pairId],
-  );
-  return rows.map((r) => ({
-    version: r['version'] as number,
-    createdAt: iso(r['created_at']),
-    createdBy: (r['display_name'] as string | null) ?? null,
-    summary: r['summary'] as string,
+  const versions = await db
+    .getRepository(PairVersionEntity)
+    .createQueryBuilder('v')
+    .select(['v.version', 'v.createdAt', 'v.summary'])
+    .leftJoin('v.creator', 'u')
+    .addSelect(['u.id', 'u.displayName'])
+    .where('v.pairId = :pairId', { pairId })
+    .orderBy('v.version', 'DESC')
+    .getMany();
+  return versions.map((v) => ({
+    version: v.version,
+    createdAt: v.createdAt.toISOString(),
+    createdBy: v.creator?.displayName ?? null,
+    summary: v.summary,
   }));
 }
 
@@ -245,11 +232,10 @@ export async function findVersion(
   pairId: string,
   version: number,
 ): Promise<Pair | null> {
-  const rows: Row[] = await db.query(
-    'SELECT snapshot FROM pair_versions WHERE pair_id = $1 AND version = $2',
-    [pairId, version],
-  );
-  return (rows[0]?.['snapshot'] as Pair | undefined) ?? null;
+  const row = await db
+    .getRepository(PairVersionEntity)
+    .findOne({ where: { pairId, version }, select: { id: true, snapshot: true } });
+  return row?.snapshot ?? null;
 }
 
 export const SORT_COLUMNS = {
@@ -276,67 +262,104 @@ export interface PairListQuery {
   readonly status?: PairStatus | 'all';
 }
 
+/** One list row as the query builder answers it (raw columns, aliased below). */
+interface ListRow {
+  id: string;
+  name: string;
+  donor: string;
+  acceptor: string;
+  status: PairStatus;
+  tags: string[] | null;
+  delta_g0: number | null;
+  lambda_total: number | null;
+  coupling_abs: number | null;
+  log10k: number | null;
+  regime: string | null;
+  version: number;
+  updated_at: Date;
+  display_name: string | null;
+  log10k_cr: number | null;
+  regime_cr: string | null;
+  log10_ratio: number | null;
+  total: number;
+}
+
 export async function listPairs(
   db: EntityManager,
   workspaceId: string,
   q: PairListQuery,
 ): Promise<Page<PairListItem>> {
-  const where = ['p.workspace_id = $1'];
-  const params: unknown[] = [workspaceId];
-  if (q.q) {
-    const like = '%' + q.q.replace(/[\\%_]/g, (c) => '\\' + c) + '%';
-    const n = params.push(like);
-    where.push(
-      `(p.name ILIKE $${n} OR p.donor ILIKE $${n} OR p.acceptor ILIKE $${n} OR p.medium ILIKE $${n} OR p.notes ILIKE $${n})`,
-    );
-  }
-  if (q.regime) where.push(`p.regime = $${params.push(q.regime)}`);
-  if (q.tag) where.push(`$${params.push(q.tag)} = ANY(p.tags)`);
-  if (q.status === undefined) where.push(`p.status <> 'archived'`);
-  else if (q.status !== 'all') where.push(`p.status = $${params.push(q.status)}`);
-  const sqlWhere = where.join(' AND ');
-  const order = `${SORT_COLUMNS[q.sort]} ${q.descending ? 'DESC' : 'ASC'} NULLS LAST, p.id`;
-  // The total rides along as a window count: one round trip for the page and its total.
-  const rows: Row[] = await db.query(
-    `SELECT p.id, p.name, p.donor, p.acceptor, p.status, p.tags, p.delta_g0, p.lambda_total,
-            p.coupling_abs, p.log10k, p.regime, p.version, p.updated_at, u.display_name,
-            -- Recombination is read from the stored results (pair-model.ts computed them on save):
-            -- the table shows k_CR without a column of its own to keep in step.
-            (p.results->'recombination'->>'log10k')::float8 AS log10k_cr,
-            p.results->'recombination'->>'regime' AS regime_cr,
-            (p.results->>'log10Ratio')::float8 AS log10_ratio,
-            count(*) OVER ()::int AS total
-       FROM pairs p LEFT JOIN users u ON u.id = p.updated_by
-      WHERE ${sqlWhere} ORDER BY ${order}
-      OFFSET $${params.length + 1} LIMIT $${params.length + 2}`,
-    [...params, q.offset, q.limit],
-  );
+  const filtered = () => {
+    const query = db
+      .getRepository(PairEntity)
+      .createQueryBuilder('p')
+      .where('p.workspace_id = :workspaceId', { workspaceId });
+    if (q.q) {
+      const like = '%' + q.q.replace(/[\\%_]/g, (c) => '\\' + c) + '%';
+      query.andWhere(
+        '(p.name ILIKE :like OR p.donor ILIKE :like OR p.acceptor ILIKE :like OR p.medium ILIKE :like OR p.notes ILIKE :like)',
+        { like },
+      );
+    }
+    if (q.regime) query.andWhere('p.regime = :regime', { regime: q.regime });
+    if (q.tag) query.andWhere(':tag = ANY(p.tags)', { tag: q.tag });
+    if (q.status === undefined) query.andWhere(`p.status <> 'archived'`);
+    else if (q.status !== 'all') query.andWhere('p.status = :status', { status: q.status });
+    return query;
+  };
+  // Selected as raw columns: the list reads a projection and two values out of the results'
+  // JSON, not whole entities. The total rides along as a window count: one round trip for the
+  // page and its total.
+  const rows = await filtered()
+    .leftJoin('p.updater', 'u')
+    .select([
+      'p.id AS id',
+      'p.name AS name',
+      'p.donor AS donor',
+      'p.acceptor AS acceptor',
+      'p.status AS status',
+      'p.tags AS tags',
+      'p.delta_g0 AS delta_g0',
+      'p.lambda_total AS lambda_total',
+      'p.coupling_abs AS coupling_abs',
+      'p.log10k AS log10k',
+      'p.regime AS regime',
+      'p.version AS version',
+      'p.updated_at AS updated_at',
+      'u.display_name AS display_name',
+      // Recombination is read from the stored results (pair-model.ts computed them on save):
+      // the table shows k_CR without a column of its own to keep in step.
+      `(p.results->'recombination'->>'log10k')::float8 AS log10k_cr`,
+      `p.results->'recombination'->>'regime' AS regime_cr`,
+      `(p.results->>'log10Ratio')::float8 AS log10_ratio`,
+      'count(*) OVER ()::int AS total',
+    ])
+    .orderBy(SORT_COLUMNS[q.sort], q.descending ? 'DESC' : 'ASC', 'NULLS LAST')
+    .addOrderBy('p.id')
+    .offset(q.offset)
+    .limit(q.limit)
+    .getRawMany<ListRow>();
   // A page past the end has no row to carry the total: only then is it counted apart.
-  const total: number = rows[0]
-    ? (rows[0]['total'] as number)
-    : q.offset === 0
-      ? 0
-      : (await db.query(`SELECT count(*)::int AS total FROM pairs p WHERE ${sqlWhere}`, params))[0]
-          .total;
+  const total = rows[0] ? rows[0].total : q.offset === 0 ? 0 : await filtered().getCount();
   return {
     items: rows.map((r) => ({
-      id: r['id'] as string,
-      name: r['name'] as string,
-      donor: r['donor'] as string,
-      acceptor: r['acceptor'] as string,
-      status: r['status'] as PairStatus,
-      tags: (r['tags'] as string[]) ?? [],
-      deltaG0: (r['delta_g0'] as number | null) ?? null,
-      lambda: (r['lambda_total'] as number | null) ?? null,
-      coupling: (r['coupling_abs'] as number | null) ?? null,
-      log10k: (r['log10k'] as number | null) ?? null,
-      regime: (r['regime'] as string | null) ?? null,
-      log10kCr: (r['log10k_cr'] as number | null) ?? null,
-      regimeCr: (r['regime_cr'] as string | null) ?? null,
-      log10Ratio: (r['log10_ratio'] as number | null) ?? null,
-      version: r['version'] as number,
-      updatedAt: iso(r['updated_at']),
-      updatedBy: (r['display_name'] as string | null) ?? null,
+      id: r.id,
+      name: r.name,
+      donor: r.donor,
+      acceptor: r.acceptor,
+      status: r.status,
+      tags: r.tags ?? [],
+      deltaG0: r.delta_g0,
+      lambda: r.lambda_total,
+      coupling: r.coupling_abs,
+      log10k: r.log10k,
+      regime: r.regime,
+      log10kCr: r.log10k_cr,
+      regimeCr: r.regime_cr,
+      log10Ratio: r.log10_ratio,
+      version: r.version,
+      updatedAt: r.updated_at.toISOString(),
+      updatedBy: r.display_name,
     })),
     total,
     offset: q.offset,

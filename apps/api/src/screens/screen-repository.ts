@@ -1,5 +1,19 @@
-/** SQL for screens; returns plain objects (contracts shapes), never entities. */
-import type { EntityManager } from 'typeorm';
+/**
+ * Screens, their chunks and results through the TypeORM entities; answers plain objects
+ * (contracts shapes). Raw SQL stays where a statement does what the query builder cannot in one
+ * round trip, each with its reason: the chunk store (CTE over two tables, per streamed chunk) and
+ * the copy of reused results (INSERT … SELECT inside the database, up to a million rows). The
+ * chunk queue's claims (FOR UPDATE SKIP LOCKED) live in screen-queue.ts, the result COPY in
+ * screen-results-writer.ts.
+ */
+import { In, Not, type EntityManager } from 'typeorm';
+import {
+  ScreenChunkEntity,
+  ScreenEntity,
+  ScreenInputEntity,
+  ScreenResultEntity,
+} from '@gapwise/db';
+import type { InputChunk } from './screen-parser';
 import {
   SCREEN_NUMERIC_COLUMNS,
   type BadRowChoice,
@@ -31,96 +45,291 @@ export const COLUMN_SQL: Record<ScreenNumericColumn | 'donor' | 'acceptor', stri
   acceptor: 'acceptor',
 };
 
-interface ScreenRow {
-  id: string;
-  workspace_id: string;
-  name: string;
-  status: string;
-  input_hash: string;
-  software_version: string;
-  row_count: number;
-  bad_row_count: number;
-  bad_rows: Array<{ line: number; message: string }>;
-  bad_row_choice: string;
-  score_kind: string;
-  score_floor_ev: number | null;
-  score_hbar_omega_ev: number | null;
-  chunk_count: number;
-  chunks_done: number;
-  rows_done: number;
-  reused_from: string | null;
-  error: string | null;
-  upload_ms: number | null;
-  created_at: Date;
-  started_at: Date | null;
-  finished_at: Date | null;
-  now: Date;
-}
+type ScreenWithNow = ScreenEntity & { readonly now: Date };
 
-function toScreen(r: ScreenRow): Screen {
-  const start = r.started_at?.getTime() ?? null;
-  const end = (r.finished_at ?? r.now).getTime();
+function toScreen(r: ScreenWithNow): Screen {
+  const start = r.startedAt?.getTime() ?? null;
+  const end = (r.finishedAt ?? r.now).getTime();
   const seconds = start === null ? null : Math.max((end - start) / 1000, 1e-3);
-  const rate = seconds === null || r.rows_done === 0 ? null : r.rows_done / seconds;
-  const left = r.row_count - r.rows_done;
+  const rate = seconds === null || r.rowsDone === 0 ? null : r.rowsDone / seconds;
+  const left = r.rowCount - r.rowsDone;
   return {
     id: r.id,
-    workspaceId: r.workspace_id,
+    workspaceId: r.workspaceId,
     name: r.name,
     status: r.status as ScreenStatus,
-    inputHash: r.input_hash,
-    softwareVersion: r.software_version,
-    rowCount: r.row_count,
-    badRowCount: r.bad_row_count,
-    badRows: r.bad_rows,
-    badRowChoice: r.bad_row_choice as BadRowChoice,
+    inputHash: r.inputHash,
+    softwareVersion: r.softwareVersion,
+    rowCount: r.rowCount,
+    badRowCount: r.badRowCount,
+    badRows: r.badRows,
+    badRowChoice: r.badRowChoice as BadRowChoice,
     score: {
-      kind: r.score_kind as ScreenScoreKind,
-      floorEv: r.score_floor_ev,
-      assumedHbarOmegaEv: r.score_hbar_omega_ev,
+      kind: r.scoreKind as ScreenScoreKind,
+      floorEv: r.scoreFloorEv,
+      assumedHbarOmegaEv: r.scoreHbarOmegaEv,
     },
     progress: {
-      rowsDone: r.rows_done,
-      rowCount: r.row_count,
-      chunksDone: r.chunks_done,
-      chunkCount: r.chunk_count,
+      rowsDone: r.rowsDone,
+      rowCount: r.rowCount,
+      chunksDone: r.chunksDone,
+      chunkCount: r.chunkCount,
       rowsPerSecond: rate,
       etaSeconds: r.status === 'running' && rate ? left / rate : null,
     },
-    reusedFrom: r.reused_from,
+    reusedFrom: r.reusedFrom,
     error: r.error,
-    uploadMs: r.upload_ms,
-    createdAt: r.created_at.toISOString(),
-    startedAt: r.started_at?.toISOString() ?? null,
-    finishedAt: r.finished_at?.toISOString() ?? null,
+    uploadMs: r.uploadMs,
+    createdAt: r.createdAt.toISOString(),
+    startedAt: r.startedAt?.toISOString() ?? null,
+    finishedAt: r.finishedAt?.toISOString() ?? null,
   };
 }
 
-const SCREEN_COLUMNS = `id, workspace_id, name, status, input_hash, software_version, row_count, bad_row_count,
-  bad_rows, bad_row_choice, score_kind, score_floor_ev, score_hbar_omega_ev, chunk_count, chunks_done, rows_done, reused_from,
-  error, upload_ms, created_at, started_at, finished_at, now() AS now`;
+/**
+ * Screens with the database's clock (`now`): the rate and ETA of a running screen are measured
+ * against the same clock that wrote `started_at`.
+ */
+async function screensWithNow(
+  db: EntityManager,
+  where: (q: ReturnType<typeof screenQuery>) => ReturnType<typeof screenQuery>,
+): Promise<Screen[]> {
+  const { entities, raw } = await where(screenQuery(db))
+    .addSelect('now()', 'db_now')
+    .getRawAndEntities<{ db_now: Date }>();
+  return entities.map((e, i) => toScreen({ ...e, now: raw[i]!.db_now }));
+}
+
+const screenQuery = (db: EntityManager) => db.getRepository(ScreenEntity).createQueryBuilder('s');
 
 export async function findScreen(db: EntityManager, id: string): Promise<Screen | null> {
-  const rows: ScreenRow[] = await db.query(`SELECT ${SCREEN_COLUMNS} FROM screens WHERE id = $1`, [
-    id,
-  ]);
-  return rows[0] ? toScreen(rows[0]) : null;
+  const [screen] = await screensWithNow(db, (q) => q.where('s.id = :id', { id }));
+  return screen ?? null;
 }
 
 export async function screenWorkspace(db: EntityManager, id: string): Promise<string | null> {
-  const rows: Array<{ workspace_id: string }> = await db.query(
-    'SELECT workspace_id FROM screens WHERE id = $1',
-    [id],
-  );
-  return rows[0]?.workspace_id ?? null;
+  const screen = await db
+    .getRepository(ScreenEntity)
+    .findOne({ where: { id }, select: { id: true, workspaceId: true } });
+  return screen?.workspaceId ?? null;
 }
 
 export async function listScreens(db: EntityManager, workspaceId: string): Promise<Screen[]> {
-  const rows: ScreenRow[] = await db.query(
-    `SELECT ${SCREEN_COLUMNS} FROM screens WHERE workspace_id = $1 ORDER BY created_at DESC LIMIT 200`,
-    [workspaceId],
+  return screensWithNow(db, (q) =>
+    q
+      .where('s.workspaceId = :workspaceId', { workspaceId })
+      .orderBy('s.createdAt', 'DESC')
+      .limit(200),
   );
-  return rows.map(toScreen);
+}
+
+/** The units the file's header named, by column. */
+export async function screenColumnUnits(
+  db: EntityManager,
+  screenId: string,
+): Promise<Record<string, string>> {
+  const screen = await db
+    .getRepository(ScreenEntity)
+    .findOneOrFail({ where: { id: screenId }, select: { id: true, columnUnits: true } });
+  return screen.columnUnits ?? {};
+}
+
+/** A new screen row (status `uploaded`, no input hash yet); answers its id. */
+export async function insertScreen(
+  db: EntityManager,
+  v: {
+    workspaceId: string;
+    name: string;
+    softwareVersion: string;
+    scoreKind: string;
+    scoreFloorEv: number | null;
+    scoreHbarOmegaEv: number;
+    chunkSize: number;
+    createdBy: string;
+  },
+): Promise<string> {
+  const repo = db.getRepository(ScreenEntity);
+  const saved = await repo.save(repo.create({ ...v, status: 'uploaded', inputHash: '' }));
+  return saved.id;
+}
+
+/** What the parse found, written once the whole file has been read. */
+export async function recordUploadSummary(
+  db: EntityManager,
+  screenId: string,
+  v: {
+    inputHash: string;
+    rowCount: number;
+    badRowCount: number;
+    badRows: ReadonlyArray<{ line: number; message: string }>;
+    badRowChoice: BadRowChoice;
+    chunkCount: number;
+    uploadMs: number;
+    columnUnits: Readonly<Record<string, string>>;
+  },
+): Promise<void> {
+  await db
+    .getRepository(ScreenEntity)
+    .update(
+      { id: screenId },
+      { ...v, badRows: v.badRows.map((b) => ({ ...b })), columnUnits: { ...v.columnUnits } },
+    );
+}
+
+/** Stores a chunk's inputs and its chunk row. */
+export async function storeChunk(
+  tx: EntityManager,
+  screenId: string,
+  chunk: InputChunk,
+  encoded: string,
+): Promise<void> {
+  // Raw on purpose: one statement (a CTE over both tables) per streamed chunk is one round trip
+  // instead of two, and the upload of a large screen is bound by these round trips.
+  await tx.query(
+    `WITH input AS (INSERT INTO screen_inputs (screen_id, chunk_index, payload) VALUES ($1, $2, $3))
+     INSERT INTO screen_chunks (screen_id, chunk_index, first_line, last_line, row_count) VALUES ($1, $2, $4, $5, $6)`,
+    [
+      screenId,
+      chunk.index,
+      encoded,
+      chunk.lines[0],
+      chunk.lines[chunk.lines.length - 1],
+      chunk.lines.length,
+    ],
+  );
+}
+
+/** The latest finished screen of the workspace with the same inputs and software version. */
+export async function finishedScreenWithInputs(
+  db: EntityManager,
+  workspaceId: string,
+  inputHash: string,
+  softwareVersion: string,
+  exceptId: string,
+): Promise<string | null> {
+  const screen = await db.getRepository(ScreenEntity).findOne({
+    where: { workspaceId, inputHash, softwareVersion, status: 'done', id: Not(exceptId) },
+    select: { id: true },
+    order: { finishedAt: 'DESC' },
+  });
+  return screen?.id ?? null;
+}
+
+/** Copies the results of a finished screen with the same inputs and marks this one done. */
+export async function reuseResults(
+  tx: EntityManager,
+  screenId: string,
+  fromId: string,
+): Promise<void> {
+  // Raw on purpose: INSERT … SELECT copies up to a million rows inside the database; reading
+  // them into entities and writing them back would move every row over the wire twice.
+  await tx.query(
+    `INSERT INTO screen_results (screen_id, row_number, donor, acceptor, solvent, delta_g_cs, delta_g_cr,
+       lambda_inner, lambda_outer, lambda_total, coupling, temperature_k, log10k_cs_marcus, log10k_cr_marcus,
+       log10k_cs_mlj, log10k_cr_mlj, regime_cs, regime_cr, warning_mask, score)
+     SELECT $1, row_number, donor, acceptor, solvent, delta_g_cs, delta_g_cr, lambda_inner, lambda_outer,
+       lambda_total, coupling, temperature_k, log10k_cs_marcus, log10k_cr_marcus, log10k_cs_mlj, log10k_cr_mlj,
+       regime_cs, regime_cr, warning_mask, score FROM screen_results WHERE screen_id = $2
+     ON CONFLICT DO NOTHING`,
+    [screenId, fromId],
+  );
+  await tx
+    .getRepository(ScreenChunkEntity)
+    .update({ screenId }, { status: 'done', finishedAt: () => 'now()' });
+  await tx.getRepository(ScreenEntity).update(
+    { id: screenId },
+    {
+      status: 'done',
+      reusedFrom: fromId,
+      rowsDone: () => 'row_count',
+      chunksDone: () => 'chunk_count',
+      startedAt: () => 'now()',
+      finishedAt: () => 'now()',
+    },
+  );
+}
+
+export async function markScreenRunning(db: EntityManager, screenId: string): Promise<void> {
+  await db
+    .getRepository(ScreenEntity)
+    .update({ id: screenId }, { status: 'running', startedAt: () => 'now()' });
+}
+
+/** Queued chunks of a screen are skipped from now on. */
+export async function cancelPendingChunks(db: EntityManager, screenId: string): Promise<void> {
+  await db
+    .getRepository(ScreenChunkEntity)
+    .update({ screenId, status: 'pending' }, { status: 'cancelled' });
+}
+
+/** Cancels an uploaded or running screen; false when it was neither. */
+export async function markScreenCancelled(db: EntityManager, screenId: string): Promise<boolean> {
+  const result = await db
+    .getRepository(ScreenEntity)
+    .update(
+      { id: screenId, status: In(['uploaded', 'running']) },
+      { status: 'cancelled', finishedAt: () => 'now()' },
+    );
+  return (result.affected ?? 0) > 0;
+}
+
+/** Status and software version of a screen, its row locked (FOR UPDATE) for a re-run. */
+export async function lockScreenState(
+  db: EntityManager,
+  screenId: string,
+): Promise<{ status: string; softwareVersion: string } | null> {
+  const screen = await screenQuery(db)
+    .select(['s.id', 's.status', 's.softwareVersion'])
+    .where('s.id = :screenId', { screenId })
+    .setLock('pessimistic_write')
+    .getOne();
+  return screen ? { status: screen.status, softwareVersion: screen.softwareVersion } : null;
+}
+
+/** Drops every result and queues every chunk again (results of another software version). */
+export async function resetScreenResults(
+  db: EntityManager,
+  screenId: string,
+  softwareVersion: string,
+): Promise<void> {
+  await db.getRepository(ScreenResultEntity).delete({ screenId });
+  await db.getRepository(ScreenChunkEntity).update({ screenId }, { status: 'pending' });
+  await db
+    .getRepository(ScreenEntity)
+    .update({ id: screenId }, { rowsDone: 0, chunksDone: 0, softwareVersion });
+}
+
+/** Queues again every chunk that did not finish. */
+export async function requeueUnfinishedChunks(db: EntityManager, screenId: string): Promise<void> {
+  await db
+    .getRepository(ScreenChunkEntity)
+    .update({ screenId, status: Not('done') }, { status: 'pending' });
+}
+
+export async function pendingChunkIndexes(db: EntityManager, screenId: string): Promise<number[]> {
+  const chunks = await db.getRepository(ScreenChunkEntity).find({
+    where: { screenId, status: 'pending' },
+    select: { screenId: true, chunkIndex: true },
+    order: { chunkIndex: 'ASC' },
+  });
+  return chunks.map((c) => c.chunkIndex);
+}
+
+/** Restarts a screen: running while chunks are pending, else done at once. */
+export async function markScreenRestarted(
+  db: EntityManager,
+  screenId: string,
+  pending: number,
+): Promise<void> {
+  await db.getRepository(ScreenEntity).update(
+    { id: screenId },
+    {
+      status: pending === 0 ? 'done' : 'running',
+      error: null,
+      startedAt: () => 'now()',
+      finishedAt: pending === 0 ? () => 'now()' : null,
+    },
+  );
 }
 
 /** One term of a custom score: weight × column. */
@@ -148,56 +357,83 @@ export interface ResultQuery {
   readonly custom?: readonly CustomScoreTerm[];
 }
 
-/**
- * The SQL of the custom score, weights as parameters after `first` (columns come from the
- * COLUMN_SQL whitelist, never from the request text).
- */
-function customSql(query: ResultQuery, first: number): { sql: string; params: number[] } {
-  const terms = query.custom ?? [];
-  if (!terms.length) return { sql: 'NULL::double precision', params: [] };
-  return {
-    sql: `(${terms.map((t, i) => `$${first + i}::double precision * ${COLUMN_SQL[t.column]}`).join(' + ')})`,
-    params: terms.map((t) => t.weight),
-  };
-}
+type ResultQueryBuilder = ReturnType<typeof resultsOf>;
 
-function whereOf(screenId: string, query: ResultQuery): { sql: string; params: unknown[] } {
-  const params: unknown[] = [screenId];
-  const parts = ['screen_id = $1'];
-  for (const r of query.ranges) {
-    const col = COLUMN_SQL[r.column];
-    if (r.min !== undefined) {
-      params.push(r.min);
-      parts.push(`${col} >= $${params.length}`);
-    }
-    if (r.max !== undefined) {
-      params.push(r.max);
-      parts.push(`${col} <= $${params.length}`);
-    }
-  }
-  if (query.regimeCs) {
-    params.push(query.regimeCs);
-    parts.push(`regime_cs = $${params.length}`);
-  }
-  if (query.regimeCr) {
-    params.push(query.regimeCr);
-    parts.push(`regime_cr = $${params.length}`);
-  }
-  if (query.warningMask) {
-    params.push(query.warningMask);
-    parts.push(`(warning_mask & $${params.length}) <> 0`);
-  }
-  if (query.noWarnings) parts.push('warning_mask = 0');
+/** A query over one screen's results, filtered as asked. */
+function resultsOf(db: EntityManager, screenId: string, query: ResultQuery) {
+  const q = db
+    .getRepository(ScreenResultEntity)
+    .createQueryBuilder('r')
+    .where('r.screen_id = :screenId', { screenId });
+  // Column names come from the COLUMN_SQL whitelist, never from the request text; values are
+  // parameters.
+  query.ranges.forEach((range, i) => {
+    const col = `r.${COLUMN_SQL[range.column]}`;
+    if (range.min !== undefined) q.andWhere(`${col} >= :min${i}`, { [`min${i}`]: range.min });
+    if (range.max !== undefined) q.andWhere(`${col} <= :max${i}`, { [`max${i}`]: range.max });
+  });
+  if (query.regimeCs) q.andWhere('r.regime_cs = :regimeCs', { regimeCs: query.regimeCs });
+  if (query.regimeCr) q.andWhere('r.regime_cr = :regimeCr', { regimeCr: query.regimeCr });
+  if (query.warningMask)
+    q.andWhere('(r.warning_mask & :warningMask) <> 0', { warningMask: query.warningMask });
+  if (query.noWarnings) q.andWhere('r.warning_mask = 0');
   if (query.q) {
-    params.push(`%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`);
-    parts.push(`(donor ILIKE $${params.length} OR acceptor ILIKE $${params.length})`);
+    const like = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    q.andWhere('(r.donor ILIKE :like OR r.acceptor ILIKE :like)', { like });
   }
-  return { sql: parts.join(' AND '), params };
+  return q;
 }
 
-const RESULT_COLUMNS = `row_number, donor, acceptor, solvent, delta_g_cs, delta_g_cr, lambda_inner, lambda_outer,
-  lambda_total, coupling, temperature_k, log10k_cs_marcus, log10k_cr_marcus, log10k_cs_mlj, log10k_cr_mlj,
-  regime_cs, regime_cr, warning_mask, score`;
+/**
+ * One page of filtered rows in the asked order, with the custom score Σ weight × column
+ * (weights as parameters, columns from the whitelist) selected as `custom_score`.
+ */
+function resultPage(
+  q: ResultQueryBuilder,
+  query: ResultQuery,
+  limit: number,
+  offset: number,
+): ResultQueryBuilder {
+  const terms = query.custom ?? [];
+  const custom = terms.length
+    ? `(${terms.map((t, i) => `CAST(:weight${i} AS double precision) * r.${COLUMN_SQL[t.column]}`).join(' + ')})`
+    : 'CAST(NULL AS double precision)';
+  terms.forEach((t, i) => q.setParameter(`weight${i}`, t.weight));
+  const dir = query.descending ? 'DESC' : 'ASC';
+  return q
+    .select(RESULT_COLUMNS.map((c) => `r.${c} AS ${c}`))
+    .addSelect(custom, 'custom_score')
+    .orderBy(
+      query.sort === 'custom' ? 'custom_score' : `r.${COLUMN_SQL[query.sort]}`,
+      dir,
+      'NULLS LAST',
+    )
+    .addOrderBy('r.row_number', dir)
+    .limit(limit)
+    .offset(offset);
+}
+
+const RESULT_COLUMNS = [
+  'row_number',
+  'donor',
+  'acceptor',
+  'solvent',
+  'delta_g_cs',
+  'delta_g_cr',
+  'lambda_inner',
+  'lambda_outer',
+  'lambda_total',
+  'coupling',
+  'temperature_k',
+  'log10k_cs_marcus',
+  'log10k_cr_marcus',
+  'log10k_cs_mlj',
+  'log10k_cr_mlj',
+  'regime_cs',
+  'regime_cr',
+  'warning_mask',
+  'score',
+] as const;
 
 interface ResultRow {
   row_number: number;
@@ -265,48 +501,21 @@ export function toResultRow(r: ResultRow): ScreenResultRow {
   };
 }
 
-function orderOf(query: ResultQuery): string {
-  const dir = query.descending ? 'DESC' : 'ASC';
-  const key = query.sort === 'custom' ? 'custom_score' : COLUMN_SQL[query.sort];
-  return `ORDER BY ${key} ${dir} NULLS LAST, row_number ${dir}`;
-}
-
-/** SELECT … FROM … WHERE … ORDER BY … LIMIT/OFFSET with the custom score, and its parameters. */
-function pageSql(
-  screenId: string,
-  query: ResultQuery,
-  limit: number,
-  offset: number,
-): { sql: string; params: unknown[] } {
-  const where = whereOf(screenId, query);
-  const custom = customSql(query, where.params.length + 1);
-  const n = where.params.length + custom.params.length;
-  return {
-    sql: `SELECT ${RESULT_COLUMNS}, ${custom.sql} AS custom_score FROM screen_results WHERE ${where.sql} ${orderOf(query)} LIMIT $${n + 1} OFFSET $${n + 2}`,
-    params: [...where.params, ...custom.params, limit, offset],
-  };
-}
-
 export async function queryResults(
   db: EntityManager,
   screenId: string,
   query: ResultQuery,
 ): Promise<ScreenResultPage> {
-  const where = whereOf(screenId, query);
-  const page = pageSql(screenId, query, query.limit, query.offset);
-  const [rows, count] = await Promise.all([
-    db.query(page.sql, page.params) as Promise<ResultRow[]>,
-    db.query(
-      `SELECT count(*)::int AS n FROM screen_results WHERE ${where.sql}`,
-      where.params,
-    ) as Promise<Array<{ n: number }>>,
+  const [rows, total] = await Promise.all([
+    resultPage(
+      resultsOf(db, screenId, query),
+      query,
+      query.limit,
+      query.offset,
+    ).getRawMany<ResultRow>(),
+    resultsOf(db, screenId, query).getCount(),
   ]);
-  return {
-    items: rows.map(toResultRow),
-    total: count[0].n,
-    offset: query.offset,
-    limit: query.limit,
-  };
+  return { items: rows.map(toResultRow), total, offset: query.offset, limit: query.limit };
 }
 
 /** Every filtered row in order, in batches (for the streamed CSV export). */
@@ -317,8 +526,12 @@ export async function* streamResults(
   batch = 5000,
 ): AsyncGenerator<ScreenResultRow[]> {
   for (let offset = 0; ; offset += batch) {
-    const page = pageSql(screenId, query, batch, offset);
-    const rows: ResultRow[] = await db.query(page.sql, page.params);
+    const rows = await resultPage(
+      resultsOf(db, screenId, query),
+      query,
+      batch,
+      offset,
+    ).getRawMany<ResultRow>();
     if (rows.length === 0) return;
     yield rows.map(toResultRow);
     if (rows.length < batch) return;
@@ -330,11 +543,13 @@ export async function findResult(
   screenId: string,
   row: number,
 ): Promise<ScreenResultRow | null> {
-  const rows: ResultRow[] = await db.query(
-    `SELECT ${RESULT_COLUMNS} FROM screen_results WHERE screen_id = $1 AND row_number = $2`,
-    [screenId, row],
-  );
-  return rows[0] ? toResultRow(rows[0]) : null;
+  const found = await db
+    .getRepository(ScreenResultEntity)
+    .createQueryBuilder('r')
+    .select(RESULT_COLUMNS.map((c) => `r.${c} AS ${c}`))
+    .where('r.screen_id = :screenId AND r.row_number = :row', { screenId, row })
+    .getRawOne<ResultRow>();
+  return found ? toResultRow(found) : null;
 }
 
 /** The stored input chunk holding a line of the uploaded file. */
@@ -343,13 +558,20 @@ export async function inputPayloadForLine(
   screenId: string,
   line: number,
 ): Promise<{ chunkIndex: number; payload: string } | null> {
-  const rows: Array<{ chunk_index: number; payload: string }> = await db.query(
-    `SELECT i.chunk_index, i.payload FROM screen_chunks c
-       JOIN screen_inputs i ON i.screen_id = c.screen_id AND i.chunk_index = c.chunk_index
-      WHERE c.screen_id = $1 AND c.first_line <= $2 AND c.last_line >= $2`,
-    [screenId, line],
-  );
-  return rows[0] ? { chunkIndex: rows[0].chunk_index, payload: rows[0].payload } : null;
+  const input = await db
+    .getRepository(ScreenInputEntity)
+    .createQueryBuilder('i')
+    .innerJoin(
+      ScreenChunkEntity,
+      'c',
+      'c.screen_id = i.screen_id AND c.chunk_index = i.chunk_index',
+    )
+    .where('c.screen_id = :screenId AND c.first_line <= :line AND c.last_line >= :line', {
+      screenId,
+      line,
+    })
+    .getOne();
+  return input ? { chunkIndex: input.chunkIndex, payload: input.payload } : null;
 }
 
 export { SCREEN_NUMERIC_COLUMNS };

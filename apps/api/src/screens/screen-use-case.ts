@@ -4,7 +4,6 @@
  */
 import { createHash } from 'node:crypto';
 import type { Readable } from 'node:stream';
-import { ScreenEntity } from '@gapwise/db';
 import type { DataSource, EntityManager } from 'typeorm';
 import {
   canEdit,
@@ -28,6 +27,7 @@ import {
   ScreenTooManyRowsError,
   type InputChunk,
 } from './screen-parser';
+import * as repo from './screen-repository';
 import { findResult, findScreen, inputPayloadForLine, screenWorkspace } from './screen-repository';
 import { unitsForKind } from '../pairs/pair-rules';
 import { DEFAULT_ASSUMED_HBAR_OMEGA_EV, type ScoreChoice } from './screen-score';
@@ -76,22 +76,16 @@ export async function uploadScreen(
   const chunkSize = options.chunkSize ?? DEFAULT_CHUNK_SIZE;
   const id = await db.transaction(async (tx) => {
     await requireRole(tx, workspaceId, userId, canEdit);
-    const inserted: Array<{ id: string }> = await tx.query(
-      `INSERT INTO screens (workspace_id, name, status, input_hash, software_version, score_kind, score_floor_ev,
-         score_hbar_omega_ev, chunk_size, created_by)
-       VALUES ($1, $2, 'uploaded', '', $3, $4, $5, $6, $7, $8) RETURNING id`,
-      [
-        workspaceId,
-        options.name,
-        SCREEN_SOFTWARE_VERSION,
-        options.score.kind,
-        options.score.floorEv ?? null,
-        options.score.assumedHbarOmegaEv ?? DEFAULT_ASSUMED_HBAR_OMEGA_EV,
-        chunkSize,
-        userId,
-      ],
-    );
-    const screenId = inserted[0].id;
+    const screenId = await repo.insertScreen(tx, {
+      workspaceId,
+      name: options.name,
+      softwareVersion: SCREEN_SOFTWARE_VERSION,
+      scoreKind: options.score.kind,
+      scoreFloorEv: options.score.floorEv ?? null,
+      scoreHbarOmegaEv: options.score.assumedHbarOmegaEv ?? DEFAULT_ASSUMED_HBAR_OMEGA_EV,
+      chunkSize,
+      createdBy: userId,
+    });
     // Parsing and storing overlap: each chunk's insert is queued on the transaction's connection
     // while the parser reads on; at most STORE_AHEAD chunks wait, so memory stays flat.
     let stored: Promise<void> = Promise.resolve();
@@ -102,7 +96,7 @@ export async function uploadScreen(
       onChunk: async (chunk, encoded) => {
         waiting += 1;
         stored = stored
-          .then(() => storeChunk(tx, screenId, chunk, encoded))
+          .then(() => repo.storeChunk(tx, screenId, chunk, encoded))
           .finally(() => (waiting -= 1));
         stored.catch(() => undefined);
         if (waiting >= STORE_AHEAD) await stored;
@@ -148,31 +142,26 @@ export async function uploadScreen(
       .digest('hex');
     const choice: BadRowChoice =
       summary.badRowCount > 0 ? 'run-good' : (options.badRowChoice ?? 'none');
-    await tx.query(
-      `UPDATE screens SET input_hash = $2, row_count = $3, bad_row_count = $4, bad_rows = $5, bad_row_choice = $6,
-         chunk_count = $7, upload_ms = $8, column_units = $9 WHERE id = $1`,
-      [
-        screenId,
-        inputHash,
-        summary.goodRows,
-        summary.badRowCount,
-        JSON.stringify(summary.badRows),
-        choice,
-        summary.chunks,
-        Date.now() - started,
-        JSON.stringify(summary.units),
-      ],
+    await repo.recordUploadSummary(tx, screenId, {
+      inputHash,
+      rowCount: summary.goodRows,
+      badRowCount: summary.badRowCount,
+      badRows: summary.badRows,
+      badRowChoice: choice,
+      chunkCount: summary.chunks,
+      uploadMs: Date.now() - started,
+      columnUnits: summary.units,
+    });
+    const reusable = await repo.finishedScreenWithInputs(
+      tx,
+      workspaceId,
+      inputHash,
+      SCREEN_SOFTWARE_VERSION,
+      screenId,
     );
-    const reusable: Array<{ id: string }> = await tx.query(
-      `SELECT id FROM screens WHERE workspace_id = $1 AND input_hash = $2 AND software_version = $3
-         AND status = 'done' AND id <> $4 ORDER BY finished_at DESC LIMIT 1`,
-      [workspaceId, inputHash, SCREEN_SOFTWARE_VERSION, screenId],
-    );
-    if (reusable[0]) await reuseResults(tx, screenId, reusable[0].id);
+    if (reusable) await repo.reuseResults(tx, screenId, reusable);
     else {
-      await tx.query(`UPDATE screens SET status = 'running', started_at = now() WHERE id = $1`, [
-        screenId,
-      ]);
+      await repo.markScreenRunning(tx, screenId);
       await service.enqueue(
         tx,
         screenId,
@@ -195,50 +184,6 @@ export async function uploadScreen(
 /** Chunks whose insert may be queued ahead of the parser. */
 const STORE_AHEAD = 4;
 
-/** Stores a chunk's inputs and its chunk row in one statement (one round trip). */
-async function storeChunk(
-  tx: EntityManager,
-  screenId: string,
-  chunk: InputChunk,
-  encoded: string,
-): Promise<void> {
-  await tx.query(
-    `WITH input AS (INSERT INTO screen_inputs (screen_id, chunk_index, payload) VALUES ($1, $2, $3))
-     INSERT INTO screen_chunks (screen_id, chunk_index, first_line, last_line, row_count) VALUES ($1, $2, $4, $5, $6)`,
-    [
-      screenId,
-      chunk.index,
-      encoded,
-      chunk.lines[0],
-      chunk.lines[chunk.lines.length - 1],
-      chunk.lines.length,
-    ],
-  );
-}
-
-/** Copies the results of a finished screen with the same inputs and software version. */
-async function reuseResults(tx: EntityManager, screenId: string, fromId: string): Promise<void> {
-  await tx.query(
-    `INSERT INTO screen_results (screen_id, row_number, donor, acceptor, solvent, delta_g_cs, delta_g_cr,
-       lambda_inner, lambda_outer, lambda_total, coupling, temperature_k, log10k_cs_marcus, log10k_cr_marcus,
-       log10k_cs_mlj, log10k_cr_mlj, regime_cs, regime_cr, warning_mask, score)
-     SELECT $1, row_number, donor, acceptor, solvent, delta_g_cs, delta_g_cr, lambda_inner, lambda_outer,
-       lambda_total, coupling, temperature_k, log10k_cs_marcus, log10k_cr_marcus, log10k_cs_mlj, log10k_cr_mlj,
-       regime_cs, regime_cr, warning_mask, score FROM screen_results WHERE screen_id = $2
-     ON CONFLICT DO NOTHING`,
-    [screenId, fromId],
-  );
-  await tx.query(
-    `UPDATE screen_chunks SET status = 'done', finished_at = now() WHERE screen_id = $1`,
-    [screenId],
-  );
-  await tx.query(
-    `UPDATE screens SET status = 'done', reused_from = $2, rows_done = row_count, chunks_done = chunk_count,
-       started_at = now(), finished_at = now() WHERE id = $1`,
-    [screenId, fromId],
-  );
-}
-
 /** Stops a screen: queued chunks are skipped, finished chunks and their results stay. */
 export async function cancelScreen(
   db: DataSource,
@@ -248,18 +193,9 @@ export async function cancelScreen(
   await db.transaction(async (tx) => {
     const workspaceId = await screenForCaller(tx, screenId, userId, canEdit);
     // Chunks first, then the screen: the same lock order as the chunk writer (no deadlock).
-    await tx.query(
-      `UPDATE screen_chunks SET status = 'cancelled' WHERE screen_id = $1 AND status = 'pending'`,
-      [screenId],
-    );
-    // TypeORM answers UPDATE … RETURNING with [rows, affected count], never the rows alone; the
-    // throw below rolls back the chunk update too (nothing written for a finished screen).
-    const [rows]: [Array<{ id: string }>, number] = await tx.query(
-      `UPDATE screens SET status = 'cancelled', finished_at = now() WHERE id = $1 AND status IN ('uploaded', 'running')
-       RETURNING id`,
-      [screenId],
-    );
-    if (rows.length === 0)
+    await repo.cancelPendingChunks(tx, screenId);
+    // The throw below rolls back the chunk update too (nothing written for a finished screen).
+    if (!(await repo.markScreenCancelled(tx, screenId)))
       throw new AppError(
         409,
         'screen-not-running',
@@ -289,44 +225,17 @@ export async function rerunScreen(
 ): Promise<{ screen: Screen; reused: boolean }> {
   const reused = await db.transaction(async (tx) => {
     const workspaceId = await screenForCaller(tx, screenId, userId, canEdit);
-    const rows: Array<{ status: string; software_version: string }> = await tx.query(
-      'SELECT status, software_version FROM screens WHERE id = $1 FOR UPDATE',
-      [screenId],
-    );
-    const current = rows[0];
+    const current = (await repo.lockScreenState(tx, screenId))!;
     if (current.status === 'running')
       throw new AppError(409, 'screen-running', 'The screen is already running.');
-    if (current.status === 'done' && current.software_version === SCREEN_SOFTWARE_VERSION)
+    if (current.status === 'done' && current.softwareVersion === SCREEN_SOFTWARE_VERSION)
       return true;
-    if (current.software_version !== SCREEN_SOFTWARE_VERSION) {
-      await tx.query('DELETE FROM screen_results WHERE screen_id = $1', [screenId]);
-      await tx.query(`UPDATE screen_chunks SET status = 'pending' WHERE screen_id = $1`, [
-        screenId,
-      ]);
-      await tx.query(
-        'UPDATE screens SET rows_done = 0, chunks_done = 0, software_version = $2 WHERE id = $1',
-        [screenId, SCREEN_SOFTWARE_VERSION],
-      );
-    } else {
-      await tx.query(
-        `UPDATE screen_chunks SET status = 'pending' WHERE screen_id = $1 AND status <> 'done'`,
-        [screenId],
-      );
-    }
-    const pending: Array<{ chunk_index: number }> = await tx.query(
-      `SELECT chunk_index FROM screen_chunks WHERE screen_id = $1 AND status = 'pending' ORDER BY chunk_index`,
-      [screenId],
-    );
-    await tx.query(
-      `UPDATE screens SET status = CASE WHEN $2 = 0 THEN 'done' ELSE 'running' END, error = NULL, started_at = now(),
-         finished_at = CASE WHEN $2 = 0 THEN now() ELSE NULL END WHERE id = $1`,
-      [screenId, pending.length],
-    );
-    await service.enqueue(
-      tx,
-      screenId,
-      pending.map((p) => p.chunk_index),
-    );
+    if (current.softwareVersion !== SCREEN_SOFTWARE_VERSION)
+      await repo.resetScreenResults(tx, screenId, SCREEN_SOFTWARE_VERSION);
+    else await repo.requeueUnfinishedChunks(tx, screenId);
+    const pending = await repo.pendingChunkIndexes(tx, screenId);
+    await repo.markScreenRestarted(tx, screenId, pending.length);
+    await service.enqueue(tx, screenId, pending);
     await recordAudit(tx, {
       workspaceId,
       actorId: userId,
@@ -369,9 +278,7 @@ export async function openRowAsPair(
   const params: PairParameter[] = [];
   // The unit the file's header named for a column travels to the pair (a coupling uploaded in
   // cm⁻¹ opens in cm⁻¹); values stay canonical, as every pair parameter stores them.
-  const { columnUnits } = await db
-    .getRepository(ScreenEntity)
-    .findOneOrFail({ where: { id: screenId }, select: { id: true, columnUnits: true } });
+  const columnUnits = await repo.screenColumnUnits(db.manager, screenId);
   const add = (
     kind: PairParameter['kind'],
     value: number | null,

@@ -11,14 +11,15 @@ import {
   type PairSeriesPoint,
   type Provenance,
   type Series,
-  type SeriesFit,
   type SeriesListItem,
   type SeriesModel,
+  type SeriesModelOptions,
   type SeriesPoint,
 } from '@gapwise/contracts';
 import { recordAudit } from '../audit/audit-repository';
 import { AppError, notFound, validationFailed } from '../http/app-error';
 import { findPair } from '../pairs/pair-repository';
+import * as repo from './series-repository';
 import {
   inputOf,
   pairForCaller,
@@ -39,7 +40,7 @@ interface Normalised {
   temperatureUnit: string;
   energyUnit: string;
   notes: string;
-  modelOptions: Record<string, unknown>;
+  modelOptions: SeriesModelOptions;
   pairIds: string[];
   points: SeriesPoint[];
 }
@@ -92,84 +93,6 @@ export function normaliseSeries(dto: SeriesInputDto): Normalised {
   };
 }
 
-interface SeriesRow {
-  id: string;
-  workspace_id: string;
-  name: string;
-  temperature_k: number;
-  temperature_unit: string;
-  energy_unit: string;
-  model_options: Record<string, unknown>;
-  pair_ids: string[];
-  fit: SeriesFit | null;
-  notes: string;
-  version: number;
-  created_at: Date;
-  updated_at: Date;
-}
-
-async function loadSeries(db: EntityManager, id: string, lock = false): Promise<Series | null> {
-  const rows: SeriesRow[] = await db.query(
-    `SELECT * FROM series WHERE id = $1${lock ? ' FOR UPDATE' : ''}`,
-    [id],
-  );
-  const r = rows[0];
-  if (!r) return null;
-  const points: Array<{
-    label: string;
-    delta_g0: number;
-    log10k: number;
-    sigma_log10k: number | null;
-    pair_id: string | null;
-  }> = await db.query(
-    'SELECT label, delta_g0, log10k, sigma_log10k, pair_id FROM series_points WHERE series_id = $1 ORDER BY position',
-    [id],
-  );
-  return {
-    id: r.id,
-    workspaceId: r.workspace_id,
-    name: r.name,
-    temperature: r.temperature_k,
-    energyUnit: r.energy_unit,
-    notes: r.notes,
-    modelOptions: r.model_options,
-    pairIds: r.pair_ids,
-    fit: r.fit,
-    version: r.version,
-    createdAt: r.created_at.toISOString(),
-    updatedAt: r.updated_at.toISOString(),
-    points: points.map((p) => ({
-      label: p.label,
-      deltaG0: p.delta_g0,
-      log10k: p.log10k,
-      sigmaLog10k: p.sigma_log10k,
-      pairId: p.pair_id,
-    })),
-  };
-}
-
-async function writePoints(
-  tx: EntityManager,
-  seriesId: string,
-  points: readonly SeriesPoint[],
-): Promise<void> {
-  await tx.query('DELETE FROM series_points WHERE series_id = $1', [seriesId]);
-  if (!points.length) return;
-  await tx.query(
-    `INSERT INTO series_points (series_id, position, label, delta_g0, log10k, sigma_log10k, pair_id)
-     SELECT $1, * FROM unnest($2::int[], $3::text[], $4::float8[], $5::float8[], $6::float8[], $7::uuid[])`,
-    [
-      seriesId,
-      points.map((_, i) => i),
-      points.map((p) => p.label),
-      points.map((p) => p.deltaG0),
-      points.map((p) => p.log10k),
-      points.map((p) => p.sigmaLog10k),
-      points.map((p) => p.pairId),
-    ],
-  );
-}
-
 /** The series' workspace after checking the caller's role (404 for non-members). */
 export async function seriesForCaller(
   db: EntityManager,
@@ -177,13 +100,10 @@ export async function seriesForCaller(
   userId: string,
   allowed: Parameters<typeof requireRole>[3] = () => true,
 ): Promise<string> {
-  const rows: Array<{ workspace_id: string }> = await db.query(
-    'SELECT workspace_id FROM series WHERE id = $1',
-    [id],
-  );
-  if (!rows[0]) throw notFound('series');
-  await requireRole(db, rows[0].workspace_id, userId, allowed, 'series');
-  return rows[0].workspace_id;
+  const workspaceId = await repo.seriesWorkspace(db, id);
+  if (!workspaceId) throw notFound('series');
+  await requireRole(db, workspaceId, userId, allowed, 'series');
+  return workspaceId;
 }
 
 export async function createSeries(
@@ -192,69 +112,39 @@ export async function createSeries(
   workspaceId: string,
   dto: SeriesInputDto,
 ): Promise<Series> {
-  const n = normaliseSeries(dto);
   const id = await db.transaction(async (tx) => {
+    // Membership first: a non-member learns nothing from the validation of what it sent.
     await requireRole(tx, workspaceId, userId, canEdit);
+    const n = normaliseSeries(dto);
     await requireWorkspaceReferences(tx, workspaceId, seriesReferences(n));
-    const rows: Array<{ id: string }> = await tx.query(
-      `INSERT INTO series (workspace_id, name, temperature_k, temperature_unit, energy_unit, model_options, pair_ids, notes, created_by)
-       VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9) RETURNING id`,
-      [
-        workspaceId,
-        n.name,
-        n.temperatureK,
-        n.temperatureUnit,
-        n.energyUnit,
-        JSON.stringify(n.modelOptions),
-        n.pairIds,
-        n.notes,
-        userId,
-      ],
-    );
-    await writePoints(tx, rows[0].id, n.points);
+    const seriesId = await repo.insertSeries(tx, workspaceId, n, userId);
+    await repo.replaceSeriesPoints(tx, seriesId, n.points);
     await recordAudit(tx, {
       workspaceId,
       actorId: userId,
       action: 'series.created',
       entityType: 'series',
-      entityId: rows[0].id,
+      entityId: seriesId,
       summary: `series ${n.name}: ${n.points.length} ${n.points.length === 1 ? 'point' : 'points'}`,
     });
-    return rows[0].id;
+    return seriesId;
   });
-  return (await loadSeries(db.manager, id))!;
+  return (await repo.findSeries(db.manager, id))!;
 }
 
+/** A workspace's series (members only). */
 export async function listSeries(
-  db: EntityManager,
+  db: DataSource,
+  userId: string,
   workspaceId: string,
 ): Promise<SeriesListItem[]> {
-  const rows: Array<{
-    id: string;
-    name: string;
-    temperature_k: number;
-    n: number;
-    fitted: boolean;
-    updated_at: Date;
-  }> = await db.query(
-    `SELECT s.id, s.name, s.temperature_k, (SELECT count(*)::int FROM series_points p WHERE p.series_id = s.id) AS n,
-            s.fit IS NOT NULL AS fitted, s.updated_at
-       FROM series s WHERE s.workspace_id = $1 ORDER BY s.updated_at DESC`,
-    [workspaceId],
-  );
-  return rows.map((r) => ({
-    id: r.id,
-    name: r.name,
-    temperature: r.temperature_k,
-    pointCount: r.n,
-    fitted: r.fitted,
-    updatedAt: r.updated_at.toISOString(),
-  }));
+  await requireRole(db.manager, workspaceId, userId);
+  return repo.listSeriesOf(db.manager, workspaceId);
 }
 
 export async function readSeries(db: DataSource, userId: string, id: string): Promise<Series> {
   await seriesForCaller(db.manager, id, userId);
-  return (await loadSeries(db.manager, id))!;
+  return (await repo.findSeries(db.manager, id))!;
 }
 
 /**
@@ -267,32 +157,7 @@ export async function seriesPointsOfPair(
   pairId: string,
 ): Promise<PairSeriesPoint[]> {
   const { workspaceId } = await pairForCaller(db.manager, pairId, userId);
-  const rows: Array<{
-    series_id: string;
-    series_name: string;
-    label: string;
-    delta_g0: number;
-    log10k: number;
-    sigma_log10k: number | null;
-    pair_id: string | null;
-  }> = await db.manager.query(
-    `SELECT s.id AS series_id, s.name AS series_name, p.label, p.delta_g0, p.log10k, p.sigma_log10k, p.pair_id
-       FROM series s JOIN series_points p ON p.series_id = s.id
-      WHERE s.workspace_id = $1
-        AND ($2 = ANY(s.pair_ids)
-             OR EXISTS (SELECT 1 FROM series_points q WHERE q.series_id = s.id AND q.pair_id = $2))
-      ORDER BY s.name, s.id, p.position`,
-    [workspaceId, pairId],
-  );
-  return rows.map((r) => ({
-    seriesId: r.series_id,
-    seriesName: r.series_name,
-    label: r.label,
-    deltaG0: r.delta_g0,
-    log10k: r.log10k,
-    sigmaLog10k: r.sigma_log10k,
-    pairId: r.pair_id,
-  }));
+  return repo.seriesPointsLinking(db.manager, workspaceId, pairId);
 }
 
 /** Saves a new state from `version`; a stale version answers 409. The old fit is dropped. */
@@ -305,7 +170,7 @@ export async function updateSeries(
   const n = normaliseSeries(dto);
   await db.transaction(async (tx) => {
     const workspaceId = await seriesForCaller(tx, id, userId, canEdit);
-    const current = (await loadSeries(tx, id, true))!;
+    const current = (await repo.findSeries(tx, id, true))!;
     if (current.version !== dto.version) {
       throw new AppError(
         409,
@@ -315,21 +180,8 @@ export async function updateSeries(
       );
     }
     await requireWorkspaceReferences(tx, workspaceId, seriesReferences(n));
-    await tx.query(
-      `UPDATE series SET name = $2, temperature_k = $3, temperature_unit = $4, energy_unit = $5, model_options = $6,
-         pair_ids = $7, notes = $8, fit = NULL, version = version + 1, updated_at = now() WHERE id = $1`,
-      [
-        id,
-        n.name,
-        n.temperatureK,
-        n.temperatureUnit,
-        n.energyUnit,
-        JSON.stringify(n.modelOptions),
-        n.pairIds,
-        n.notes,
-      ],
-    );
-    await writePoints(tx, id, n.points);
+    await repo.updateSeriesColumns(tx, id, n);
+    await repo.replaceSeriesPoints(tx, id, n.points);
     await recordAudit(tx, {
       workspaceId,
       actorId: userId,
@@ -339,7 +191,7 @@ export async function updateSeries(
       summary: `series ${n.name} v${current.version + 1}`,
     });
   });
-  return (await loadSeries(db.manager, id))!;
+  return (await repo.findSeries(db.manager, id))!;
 }
 
 export async function fitSeriesUseCase(
@@ -352,7 +204,7 @@ export async function fitSeriesUseCase(
   // The fit runs in the compute pool before any transaction opens (no transaction is held open
   // while a calculation runs); the write then checks the series is still the version fitted.
   await seriesForCaller(db.manager, id, userId, canEdit);
-  const fitted = (await loadSeries(db.manager, id))!;
+  const fitted = (await repo.findSeries(db.manager, id))!;
   if (dto.model === 'mlj' && (dto.hbarOmega === undefined || dto.lambdaVib === undefined)) {
     throw validationFailed([
       { field: 'hbarOmega', message: 'MLJ needs hbarOmega and lambdaVib (eV).' },
@@ -365,7 +217,7 @@ export async function fitSeriesUseCase(
   });
   await db.transaction(async (tx) => {
     const workspaceId = await seriesForCaller(tx, id, userId, canEdit);
-    const series = (await loadSeries(tx, id, true))!;
+    const series = (await repo.findSeries(tx, id, true))!;
     if (series.version !== fitted.version)
       throw new AppError(
         409,
@@ -373,14 +225,11 @@ export async function fitSeriesUseCase(
         'The series changed while it was being fitted; fit it again.',
         { current: series },
       );
-    await tx.query(
-      `UPDATE series SET fit = $2, model_options = $3, updated_at = now() WHERE id = $1`,
-      [
-        id,
-        JSON.stringify(fit),
-        JSON.stringify({ model: dto.model, hbarOmega: dto.hbarOmega, lambdaVib: dto.lambdaVib }),
-      ],
-    );
+    await repo.saveSeriesFit(tx, id, fit, {
+      model: dto.model,
+      hbarOmega: dto.hbarOmega,
+      lambdaVib: dto.lambdaVib,
+    });
     const main = fit.fits[dto.model]!;
     await recordAudit(tx, {
       workspaceId,
@@ -392,7 +241,7 @@ export async function fitSeriesUseCase(
       summary: `series ${series.name} fitted with ${modelName(dto.model)}: λ = ${formatNumber(main.lambda, 3)} eV, coupling = ${formatNumber(main.coupling * 1000, 3)} meV`,
     });
   });
-  return (await loadSeries(db.manager, id))!;
+  return (await repo.findSeries(db.manager, id))!;
 }
 
 /**
@@ -410,7 +259,7 @@ export async function applySeries(
   dto: SeriesApplyDto,
 ): Promise<Pair[]> {
   const workspaceId = await seriesForCaller(db.manager, id, userId, canEdit);
-  const series = (await loadSeries(db.manager, id))!;
+  const series = (await repo.findSeries(db.manager, id))!;
   const model: SeriesModel = dto.model ?? series.fit?.model ?? 'marcus';
   const fit = series.fit?.fits[model];
   if (!fit)

@@ -1,19 +1,19 @@
-import type { EntityManager } from 'typeorm';
+import { IsNull, type EntityManager } from 'typeorm';
 import type { ApiToken, ApiTokenScope } from '@gapwise/contracts';
+import { ApiTokenEntity } from '@gapwise/db';
 import { hashToken } from '../auth/session-tokens';
 import { isUuid } from '../http/validate';
 import { authCache, cacheable, forgetToken, tokenTag, userTag } from '../http/auth-cache';
 
-type Row = Record<string, unknown>;
-const toToken = (r: Row): ApiToken => ({
-  id: r['id'] as string,
-  name: r['name'] as string,
-  prefix: r['prefix'] as string,
-  createdAt: (r['created_at'] as Date).toISOString(),
-  lastUsedAt: r['last_used_at'] ? (r['last_used_at'] as Date).toISOString() : null,
-  revokedAt: r['revoked_at'] ? (r['revoked_at'] as Date).toISOString() : null,
-  scope: r['scope'] as ApiTokenScope,
-  expiresAt: r['expires_at'] ? (r['expires_at'] as Date).toISOString() : null,
+const toToken = (t: ApiTokenEntity): ApiToken => ({
+  id: t.id,
+  name: t.name,
+  prefix: t.prefix,
+  createdAt: t.createdAt.toISOString(),
+  lastUsedAt: t.lastUsedAt?.toISOString() ?? null,
+  revokedAt: t.revokedAt?.toISOString() ?? null,
+  scope: t.scope,
+  expiresAt: t.expiresAt?.toISOString() ?? null,
 });
 
 interface TokenGrant {
@@ -39,18 +39,19 @@ export async function findApiTokenGrant(
   if (token.length > 200) return null;
   const hash = hashToken(token);
   const fetch = async (): Promise<TokenGrant | null> => {
-    const rows: Row[] = await db.query(
-      `SELECT id, user_id, scope, expires_at FROM api_tokens WHERE token_hash = $1
-         AND revoked_at IS NULL AND (expires_at IS NULL OR expires_at > now())`,
-      [hash],
-    );
-    const row = rows[0];
+    const row = await db
+      .getRepository(ApiTokenEntity)
+      .createQueryBuilder('t')
+      .select(['t.id', 't.userId', 't.scope', 't.expiresAt'])
+      .where('t.tokenHash = :hash AND t.revokedAt IS NULL', { hash })
+      .andWhere('(t.expiresAt IS NULL OR t.expiresAt > now())')
+      .getOne();
     if (!row) return null;
     return {
-      userId: row['user_id'] as string,
-      scope: row['scope'] as ApiTokenScope,
-      tokenId: row['id'] as string,
-      expiresAt: row['expires_at'] ? (row['expires_at'] as Date).getTime() : Infinity,
+      userId: row.userId,
+      scope: row.scope,
+      tokenId: row.id,
+      expiresAt: row.expiresAt ? row.expiresAt.getTime() : Infinity,
     };
   };
   // The cache key is the hash: the token itself is a secret and stays out of memory dumps.
@@ -68,17 +69,18 @@ export async function findApiTokenGrant(
   if ((lastMarked.get(grant.tokenId) ?? 0) + LAST_USED_RESOLUTION_MS <= now) {
     if (lastMarked.size > 50_000) lastMarked.clear();
     lastMarked.set(grant.tokenId, now);
-    await db.query('UPDATE api_tokens SET last_used_at = now() WHERE id = $1', [grant.tokenId]);
+    await db
+      .getRepository(ApiTokenEntity)
+      .update({ id: grant.tokenId }, { lastUsedAt: () => 'now()' });
   }
   return { userId: grant.userId, scope: grant.scope, tokenId: grant.tokenId };
 }
 
 export async function listTokens(db: EntityManager, userId: string): Promise<ApiToken[]> {
-  const rows: Row[] = await db.query(
-    'SELECT * FROM api_tokens WHERE user_id = $1 ORDER BY created_at DESC, id',
-    [userId],
-  );
-  return rows.map(toToken);
+  const tokens = await db
+    .getRepository(ApiTokenEntity)
+    .find({ where: { userId }, order: { createdAt: 'DESC', id: 'ASC' } });
+  return tokens.map(toToken);
 }
 
 export async function insertToken(
@@ -89,25 +91,26 @@ export async function insertToken(
   scope: ApiTokenScope,
   expiresAt: Date | null,
 ): Promise<ApiToken> {
-  const rows: Row[] = await db.query(
-    `INSERT INTO api_tokens (user_id, name, prefix, token_hash, scope, expires_at)
-     VALUES ($1, $2, $3, $4, $5, $6) RETURNING *`,
-    [userId, name, token.slice(0, 10), hashToken(token), scope, expiresAt],
+  const repo = db.getRepository(ApiTokenEntity);
+  const saved = await repo.save(
+    repo.create({
+      userId,
+      name,
+      prefix: token.slice(0, 10),
+      tokenHash: hashToken(token),
+      scope,
+      expiresAt,
+    }),
   );
-  return toToken(rows[0]!);
+  return toToken(saved);
 }
 
 /** Revokes one of the user's tokens; false when the user has no such token. */
 export async function revokeToken(db: EntityManager, userId: string, id: string): Promise<boolean> {
   if (!isUuid(id)) return false;
-  const rows: Row[] = await db.query('SELECT id FROM api_tokens WHERE id = $1 AND user_id = $2', [
-    id,
-    userId,
-  ]);
-  if (!rows[0]) return false;
+  const repo = db.getRepository(ApiTokenEntity);
+  if (!(await repo.exists({ where: { id, userId } }))) return false;
   forgetToken(id);
-  await db.query('UPDATE api_tokens SET revoked_at = coalesce(revoked_at, now()) WHERE id = $1', [
-    id,
-  ]);
+  await repo.update({ id, revokedAt: IsNull() }, { revokedAt: () => 'now()' });
   return true;
 }

@@ -1,5 +1,6 @@
 import type { EntityManager } from 'typeorm';
 import type { Role } from '@gapwise/contracts';
+import { MembershipEntity } from '@gapwise/db';
 import { forbidden, notFound } from '../http/app-error';
 import { isUuid } from '../http/validate';
 import { authCache, cacheable, roleKey, userTag, workspaceTag } from '../http/auth-cache';
@@ -15,11 +16,10 @@ export async function roleIn(
 ): Promise<Role | null> {
   if (!isUuid(workspaceId)) return null;
   const fetch = async (): Promise<Role | null> => {
-    const rows: Array<{ role: Role }> = await db.query(
-      'SELECT role FROM memberships WHERE workspace_id = $1 AND user_id = $2',
-      [workspaceId, userId],
-    );
-    return rows[0]?.role ?? null;
+    const membership = await db
+      .getRepository(MembershipEntity)
+      .findOne({ where: { workspaceId, userId }, select: { role: true } });
+    return membership?.role ?? null;
   };
   if (!cacheable(db)) return fetch();
   return authCache.get(
