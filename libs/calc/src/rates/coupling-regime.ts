@@ -99,9 +99,10 @@ export function warnAdiabaticity(
     corrected
       ? `Not in the weak-coupling limit (${reasons.join('; ')}; ${measures.regime}): the ` +
           'golden-rule rate overestimates; this result includes the adiabatic correction, whose ' +
-          'own inputs (τ_L, ν_n) now decide it (SCIENCE.md §3).'
+          'own inputs (τ_L, ν_n) now decide it.'
       : `Nonadiabatic (golden-rule) formula overestimates (${reasons.join('; ')}; ` +
-          `${measures.regime}); adiabatic/solvent-controlled correction needed: rate.crossover ` +
-          'with τ_L, rate.landauZener, or evb.adiabaticBarrier (SCIENCE.md §3).',
+          `${measures.regime}); an adiabatic or solvent-controlled correction is needed: the ` +
+          'solvent-controlled crossover (with the solvent relaxation time τ_L), the Landau–Zener ' +
+          'transmission, or the adiabatic barrier.',
   );
 }

@@ -133,7 +133,7 @@ function warnApparentEntropy(entropyJPerMolK: number, sink: WarningSink): void {
     sink.warn(
       'eyring-entropy-apparent',
       `ΔS‡ = ${entropyJPerMolK.toFixed(1)} J mol⁻¹ K⁻¹ < 0: for a nonadiabatic rate a negative ` +
-        'Eyring ΔS‡ reflects the small electronic factor, not a real entropy (SCIENCE.md §15).',
+        'Eyring ΔS‡ reflects the small electronic factor, not a real entropy.',
     );
   }
 }

@@ -229,8 +229,8 @@ export const adiabaticBarrierMethod = {
       sink.warn(
         'adiabatic-rate-weak-coupling',
         `Weak coupling (Landau–Zener γ = ${measures.gamma.toExponential(2)} < 0.1): the ` +
-          'adiabatic rate ν_n exp(−ΔG‡_ad/k_BT) overestimates; use rate.marcus or ' +
-          'rate.landauZener.',
+          'adiabatic rate ν_n exp(−ΔG‡_ad/k_BT) overestimates; use the Marcus (golden-rule) rate or ' +
+          'the Landau–Zener transmission.',
       );
     }
     const thermalEv = BOLTZMANN_EV_PER_K * temperatureK;

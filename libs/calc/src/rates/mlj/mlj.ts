@@ -267,8 +267,8 @@ export const mljMethod = {
     if (hbarOmegaEv < 4 * thermalEv && lambdaVibEv > 0) {
       sink.warn(
         WARNING_CODES.lowFrequencyMode,
-        `Low-frequency mode (ħω = ${hbarOmegaEv} eV < 4k_BT): use rate.mljThermal (the ` +
-          'finite-temperature form) or include the mode in λ_s.',
+        `Low-frequency mode (ħω = ${hbarOmegaEv} eV < 4k_BT): use the thermal MLJ form ` +
+          '(finite temperature) or include the mode in λ_s.',
       );
     }
     const sum = mljRateLog(
