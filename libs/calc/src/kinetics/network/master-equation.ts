@@ -291,7 +291,7 @@ const TAYLOR_NORM = 1 / 64;
  * grid squares a 20 × 20 propagator ~160 times per recompute, and arrays of arrays cost most of
  * that time in allocation and garbage collection (measured: 9 ms → under 2 ms per grid).
  */
-type Flat = Float64Array;
+type Flat = Float64Array<ArrayBuffer>;
 
 /**
  * The propagator P(t) = exp(K t) (P_ji = probability of being in j at t after starting in i) for
