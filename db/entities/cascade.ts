@@ -37,6 +37,13 @@ export class CascadeEntity {
   @Column({ type: 'jsonb' })
   network: Record<string, unknown>;
 
+  /**
+   * The web editor's design (derivations of the energies, σ, pairs a step came from); the
+   * network above is what it resolves to. Null for cascades written as a bare network.
+   */
+  @Column({ type: 'jsonb', nullable: true })
+  design: Record<string, unknown> | null;
+
   @Column({ type: 'jsonb', nullable: true })
   results: Record<string, unknown> | null;
 

@@ -25,3 +25,6 @@ export { ReportTransitionEntity } from './report-transition';
 export { WorkspaceDeletionEntity } from './workspace-deletion';
 export { CascadeEntity } from './cascade';
 export { CascadeVersionEntity } from './cascade-version';
+export { ElectrodeCaseEntity } from './electrode-case';
+export type { ElectrodePointRecord } from './electrode-case';
+export { ElectrodeCaseVersionEntity } from './electrode-case-version';

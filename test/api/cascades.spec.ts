@@ -60,12 +60,17 @@ describe('cascades API', () => {
     const list = await editor.get(`/api/workspaces/${wid}/cascades`);
     expect(list.body.map((c: { id: string }) => c.id)).toContain(id);
 
+    expect(created.body.design).toBeNull();
+    const design = { states: [{ id: 'X', derivation: { mode: 'e00', value: 620, unit: 'nm' } }] };
     const updated = await editor.put(`/api/cascades/${id}`, {
       name: 'Dyad',
       network: network(1e8),
+      design,
       version: 1,
     });
     expect(updated.status).toBe(200);
+    // The editor's design is stored beside the network and kept in the version snapshot.
+    expect(updated.body.design).toEqual(design);
     expect(updated.body.version).toBe(2);
     expect(updated.body.longLivedYield).toBeCloseTo(0.5, 12);
     const stale = await editor.put(`/api/cascades/${id}`, {
@@ -77,6 +82,7 @@ describe('cascades API', () => {
     const versions = await editor.get(`/api/cascades/${id}/versions`);
     expect(versions.body.map((v: { version: number }) => v.version)).toEqual([2, 1]);
     expect(versions.body[1].snapshot.network.links[0].k).toBe(3e8);
+    expect(versions.body[0].snapshot.design).toEqual(design);
     expect(await count('audit_events', id, 'entity_id')).toBe(2);
 
     // A draft computes without saving.

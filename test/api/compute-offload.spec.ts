@@ -412,6 +412,8 @@ describe('the API description', () => {
     'post /pairs/:id/duplicate',
     'post /series/:id/fit',
     'post /series/:id/apply',
+    'post /electrode-cases/:id/fit',
+    'post /electrode-cases/:id/apply-fit',
     'post /screens/:id/results/:row/open-as-pair',
     'post /trace-analyses/:id/attach',
     'post /workspaces/:wid/reports',

@@ -9,7 +9,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { calculate, serializeAnswer } from '@gapwise/calc';
-import { isBoundedClosedForm } from '../../apps/api/src/calc/routes';
 import { pairBody } from './support/fixtures';
 import { registerUser, startTestApp, type Session, type TestApp } from './support/test-app';
 
@@ -77,6 +76,19 @@ describe('with the default pool', () => {
     expect(c.body.ok).toBe(true);
     expect(c.body.outputs.samplesUsed).toBe(300);
   }, 60_000);
+
+  it('computes a plain rate.marcus request in a worker thread, not on the HTTP thread', async () => {
+    const marcus = {
+      method: 'rate.marcus',
+      inputs: { deltaG0: -0.5, lambda: 0.8, coupling: 0.01, temperature: 298.15 },
+    };
+    const before = t.runtime.compute.completed;
+    const res = await user.post('/api/calc', marcus);
+    expect(res.status).toBe(200);
+    expect(res.text).toBe(serializeAnswer(calculate(marcus)));
+    // piscina's count of tasks its worker threads finished went up by this one request.
+    expect(t.runtime.compute.completed).toBe(before + 1);
+  });
 
   it('keeps the CALC-API answer shape: a refusal is 400 with the field named', async () => {
     const res = await user.post('/api/calc', {
@@ -158,8 +170,7 @@ describe('with a budget of 0.3 s, one thread and a queue of one', () => {
     expect(res.body.error.message).toMatch(/fewer Monte Carlo samples/);
     expect(res.body.error.message).toMatch(/larger ħω/);
     expect(res.body.error.message).toMatch(/CALC_BUDGET_MS/);
-    // The pool is usable again: a small calculation is answered (rate.mlj: computed in the pool,
-    // unlike rate.marcus, which runs on the HTTP thread).
+    // The pool is usable again: a small calculation is answered.
     const small = await user.post('/api/calc', {
       method: 'rate.mlj',
       inputs: {
@@ -184,8 +195,8 @@ describe('with a budget of 0.3 s, one thread and a queue of one', () => {
     expect(third.status).toBe(503);
     expect(third.body.error.code).toBe('calculation-pool-busy');
     expect(Number(third.headers['retry-after'])).toBeGreaterThan(0);
-    // A bounded closed form is computed on the HTTP thread: the full pool does not refuse it,
-    // and the bytes are those of the calculation core.
+    // Even the cheapest closed form goes through the pool: with the only thread busy and the
+    // queue full, a plain rate.marcus request is refused too.
     const marcus = {
       method: 'rate.marcus',
       inputs: {
@@ -195,37 +206,30 @@ describe('with a budget of 0.3 s, one thread and a queue of one', () => {
         temperature: 298.15,
       },
     };
-    const inline = await user.post('/api/calc', marcus);
-    expect(inline.status).toBe(200);
-    expect(inline.text).toBe(serializeAnswer(calculate(marcus)));
+    const refused = await user.post('/api/calc', marcus);
+    expect(refused.status).toBe(503);
+    expect(refused.body.error.code).toBe('calculation-pool-busy');
     expect((await first).status).toBe(422);
     expect((await second).status).toBe(422);
+    const answered = await user.post('/api/calc', marcus);
+    expect(answered.status).toBe(200);
+    expect(answered.text).toBe(serializeAnswer(calculate(marcus)));
   }, 60_000);
-});
 
-describe('calculations run on the HTTP thread', () => {
-  it('are only closed forms whose cost is bounded before they run', () => {
-    const inputs = { deltaG0: -0.5, lambda: 0.8, coupling: 0.01, temperature: 298.15 };
-    expect(isBoundedClosedForm({ method: 'rate.marcus', inputs })).toBe(true);
-    expect(
-      isBoundedClosedForm({
-        method: 'rate.marcus',
-        inputs: { ...inputs, coupling: { value: 50, unit: 'cm-1' } },
-      }),
-    ).toBe(true);
-    // Anything else goes to the pool and its budget.
-    expect(isBoundedClosedForm({ method: 'rate.mlj', inputs })).toBe(false);
-    expect(isBoundedClosedForm(EXPENSIVE)).toBe(false);
-    expect(
-      isBoundedClosedForm({ method: 'rate.marcus', inputs: { ...inputs, deltaG0: [-0.5] } }),
-    ).toBe(false);
-    expect(isBoundedClosedForm({ method: 'rate.marcus', inputs, extra: 1 })).toBe(false);
-    expect(
-      isBoundedClosedForm({
-        method: 'rate.marcus',
-        inputs: Object.fromEntries(Array.from({ length: 20 }, (_, i) => [`x${i}`, i])),
-      }),
-    ).toBe(false);
-    expect(isBoundedClosedForm([{ method: 'rate.marcus', inputs }])).toBe(false);
-  });
+  it('answers a plain rate.marcus request only after the calculation ahead of it in the pool', async () => {
+    const order: string[] = [];
+    const expensive = user.post('/api/calc', EXPENSIVE).then((r) => (order.push('expensive'), r));
+    await waitFor(() => t.runtime.compute.running > 0, 'the expensive calculation to start');
+    const marcus = {
+      method: 'rate.marcus',
+      inputs: { deltaG0: -0.5, lambda: 0.8, coupling: 0.01, temperature: 298.15 },
+    };
+    const small = user.post('/api/calc', marcus).then((r) => (order.push('marcus'), r));
+    await waitFor(() => t.runtime.compute.queued > 0, 'the marcus request to wait for the thread');
+    // Computed on the HTTP thread it would have been answered at once; in the pool it waits for
+    // the one thread, which the expensive calculation holds until its budget stops it.
+    expect((await expensive).status).toBe(422);
+    expect((await small).status).toBe(200);
+    expect(order).toEqual(['expensive', 'marcus']);
+  }, 60_000);
 });

@@ -219,6 +219,7 @@ describe('server-side sessions', () => {
     await a.patch(`/api/workspaces/${shared}/members/${b.userId}`, { role: 'owner' }).expect(200);
     const done = await a.call('delete', '/api/auth/account', { password: PASSWORD }).expect(200);
     expect(done.body.deletedWorkspaces).toEqual([solo]);
+    expect(done.body.deletedWorkspaceNames).toEqual(['Only mine']);
     expect(await t.db.query('SELECT id FROM users WHERE id = $1', [a.userId])).toEqual([]);
     expect(await t.db.query('SELECT id FROM workspaces WHERE id = $1', [solo])).toEqual([]);
     expect(await t.db.query('SELECT id FROM workspaces WHERE id = $1', [shared])).toHaveLength(1);

@@ -25,6 +25,7 @@ export type { MhcOutputs } from './electrode/mhc/mhc';
 export type { MultiStateOutputs } from './evb/multi-state/multi-state';
 export type { TwoStateOutputs } from './evb/two-state/two-state';
 export type { DrivingForceSeriesOutputs } from './fit/driving-force-series/driving-force-series';
+export type { ElectrodeKineticsFitOutputs } from './fit/electrode-kinetics/electrode-kinetics';
 export type { GapSamplesOutputs } from './gap/gap-samples/gap-samples';
 export type { DiffusionOutputs } from './quench/diffusion/diffusion';
 export type { CrossRelationOutputs } from './rates/cross-relation/cross-relation';
@@ -122,6 +123,9 @@ export type { Eigensystem } from './evb/multi-state/multi-state';
 // Driving-force series fit and its confidence band (series page, API).
 export { confidenceBandLog10k, fitDrivingForceSeries, modelLog10k } from './fit/index';
 export type { ConfidenceBand, DrivingForceFit } from './fit/index';
+// Electrode-kinetics fit (electrode page, API).
+export { butlerVolmerLog10k, fitElectrodeKinetics, mhcLog10k } from './fit/index';
+export type { ElectrodeFit, ElectrodeModelFit, ElectrodePoint } from './fit/index';
 
 // Energy-gap samples: the streaming pieces the server's trace analyses use (two passes over files).
 export {

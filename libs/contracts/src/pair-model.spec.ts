@@ -5,6 +5,7 @@ import {
   computePairResults,
   formatMeasured,
   lambdaParts,
+  pairEffectDifferences,
   pairMonteCarloRequest,
   pairPlotInputs,
   pairRatesView,
@@ -223,5 +224,71 @@ describe('what views show', () => {
     expect(v.recombination?.regime).toBe('Inverted');
     expect(v.separation.rate).toMatch(/ s⁻¹$/);
     expect(v.ratio).toMatch(/outpaces/);
+  });
+});
+
+describe('what a change did', () => {
+  const source = (deltaG0: number, lambda: number, extra: PairModelParameter[] = []) => ({
+    temperature: 298.15,
+    model: 'marcus' as const,
+    parameters: [p('deltaG0', deltaG0), p('lambdaTotal', lambda), p('coupling', 0.01), ...extra],
+  });
+
+  it('shows the shift in log k_CS computed by hand, and the regime crossing into inverted', () => {
+    const rows = pairEffectDifferences(source(-0.3, 0.8), source(-1.2, 0.8));
+    const log = rows.find((r) => r.field === 'log₁₀ k_CS')!;
+    const before = Math.log10(marcusByHand(-0.3, 0.8, 0.01, 298.15));
+    const after = Math.log10(marcusByHand(-1.2, 0.8, 0.01, 298.15));
+    expect(log.left).toBe(before.toFixed(2));
+    expect(log.right).toBe(after.toFixed(2));
+    expect(Number(log.shift.replace('−', '-'))).toBeCloseTo(after - before, 2);
+    expect(log.changed).toBe(true);
+    const regime = rows.find((r) => r.field === 'Regime (separation)')!;
+    expect([regime.left, regime.right]).toEqual(['Normal', 'Inverted']);
+    // No ΔG°_CR on either side: no recombination rows.
+    expect(rows.some((r) => r.field.includes('k_CR'))).toBe(false);
+  });
+
+  it('adds recombination, its model and the ratio; onlyChanged keeps what moved', () => {
+    const parts = (extra: PairModelParameter[]) => ({
+      temperature: 298.15,
+      model: 'marcus' as const,
+      parameters: [
+        p('deltaG0', -0.3),
+        p('lambdaInner', 0.2),
+        p('lambdaOuter', 0.6),
+        p('coupling', 0.01),
+        p('deltaG0Recombination', -1.6),
+        ...extra,
+      ],
+    });
+    const withCr = parts([]);
+    const withMode = parts([p('hbarOmega', 0.18)]);
+    const rows = pairEffectDifferences(withCr, withMode, true);
+    const fields = rows.map((r) => r.field);
+    expect(fields).toContain('log₁₀ k_CR');
+    expect(fields).toContain('Recombination model');
+    expect(fields).toContain('log₁₀ (k_CS/k_CR)');
+    // Separation does not use ħω under the classical model: unchanged, dropped.
+    expect(fields).not.toContain('log₁₀ k_CS');
+    const cr = rows.find((r) => r.field === 'log₁₀ k_CR')!;
+    // MLJ opens the inverted-region channels: recombination gets faster.
+    expect(cr.shift.startsWith('+')).toBe(true);
+    const ratio = rows.find((r) => r.field === 'log₁₀ (k_CS/k_CR)')!;
+    expect(ratio.shift.startsWith('−')).toBe(true);
+  });
+
+  it('names the missing input with its label when one side cannot be computed', () => {
+    const rows = pairEffectDifferences(
+      {
+        temperature: 298.15,
+        model: 'marcus',
+        parameters: [p('deltaG0', -0.3), p('coupling', 0.01)],
+      },
+      source(-0.3, 0.8),
+    );
+    const warn = rows.find((r) => r.field === 'Warnings (separation)')!;
+    expect(warn.left).toContain('Cannot compute: Outer reorganization energy λₒ is needed');
+    expect(rows.find((r) => r.field === 'log₁₀ k_CS')!.shift).toBe('');
   });
 });

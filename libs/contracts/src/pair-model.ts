@@ -1,5 +1,5 @@
 import { calculate, marcusRegime, type CalcRequest } from '@gapwise/calc';
-import type { PairResults, ParameterKind, RateModel } from './pairs';
+import { PARAMETER_KINDS, type PairResults, type ParameterKind, type RateModel } from './pairs';
 import type { ReportPairSnapshot } from './reports';
 import {
   displayUnit,
@@ -608,4 +608,76 @@ export function snapshotRatesView(pair: ReportPairSnapshot): PairRatesView | nul
     recombination: pair.recombination,
     log10Ratio: pair.log10Ratio ?? null,
   });
+}
+
+// ——— What a change did ——————————————————————————————————————————————————————————————
+
+/** One row of "what the change did": a result before and after, and the shift when numeric. */
+export interface PairEffectRow {
+  readonly field: string;
+  readonly left: string;
+  readonly right: string;
+  /** "+1.23" for log k rows; empty when not numeric or not computable on both sides. */
+  readonly shift: string;
+  readonly changed: boolean;
+}
+
+function signedFixed(x: number, decimals: number): string {
+  const text = formatFixed(x, decimals);
+  return x > 0 && Number(x.toFixed(decimals)) !== 0 ? `+${text}` : text;
+}
+
+function warningList(step: Pick<StepResults, 'warnings' | 'errors'> | null | undefined): string {
+  if (!step) return '—';
+  const lines = [
+    ...step.errors.map((e) => {
+      const label = PARAMETER_KINDS[e.field as ParameterKind]?.label ?? e.field;
+      return `Cannot compute: ${label} ${e.message}`;
+    }),
+    ...step.warnings.map((w) => w.message),
+  ];
+  return lines.length > 0 ? lines.join('\n') : 'None';
+}
+
+/**
+ * The effect of going from one state of a pair to another, computed through this model (the same
+ * results the pair page shows): log k and regime of charge separation and recombination, the
+ * k_CS/k_CR ratio, the recombination model, and the warnings. `onlyChanged` drops equal rows.
+ */
+export function pairEffectDifferences(
+  left: PairRateSource,
+  right: PairRateSource,
+  onlyChanged = false,
+): PairEffectRow[] {
+  const a = computePairResults(left);
+  const b = computePairResults(right);
+  const rows: PairEffectRow[] = [];
+  const add = (field: string, l: string, r: string, shift = '') =>
+    rows.push({ field, left: l, right: r, shift, changed: l !== r });
+  const logShift = (x: number | null | undefined, y: number | null | undefined) =>
+    x != null && y != null ? signedFixed(y - x, 2) : '';
+  add('log₁₀ k_CS', formatLog10(a.log10k), formatLog10(b.log10k), logShift(a.log10k, b.log10k));
+  add('Regime (separation)', regimeLabel(a.regime), regimeLabel(b.regime));
+  add('Coupling regime', regimeLabel(a.couplingRegime), regimeLabel(b.couplingRegime));
+  add('Warnings (separation)', warningList(a), warningList(b));
+  const ra = a.recombination;
+  const rb = b.recombination;
+  if (ra || rb) {
+    add(
+      'log₁₀ k_CR',
+      formatLog10(ra?.log10k ?? null),
+      formatLog10(rb?.log10k ?? null),
+      logShift(ra?.log10k, rb?.log10k),
+    );
+    add('Regime (recombination)', regimeLabel(ra?.regime), regimeLabel(rb?.regime));
+    add('Recombination model', ra ? modelName(ra.model) : '—', rb ? modelName(rb.model) : '—');
+    add(
+      'log₁₀ (k_CS/k_CR)',
+      formatLog10(a.log10Ratio ?? null),
+      formatLog10(b.log10Ratio ?? null),
+      logShift(a.log10Ratio, b.log10Ratio),
+    );
+    add('Warnings (recombination)', warningList(ra), warningList(rb));
+  }
+  return onlyChanged ? rows.filter((r) => r.changed) : rows;
 }

@@ -26,6 +26,20 @@ describe('cascade plot geometry', () => {
     expect(levels[1].x2).toBeLessThanOrEqual(levels[2].x1);
   });
 
+  it('gives every state its own column, in the order given, when asked', () => {
+    const { levels } = energyLevels(
+      [
+        { id: 'G', energy: 0 },
+        { id: 'X', energy: 2 },
+        { id: 'C', energy: 1 },
+      ],
+      box,
+      { columnPerState: true },
+    );
+    expect(levels[0].x2).toBeLessThanOrEqual(levels[1].x1);
+    expect(levels[1].x2).toBeLessThanOrEqual(levels[2].x1);
+  });
+
   it('joins two minima at the join energy between them', () => {
     const { points, segments } = disconnectivityLayout(
       [

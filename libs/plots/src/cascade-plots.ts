@@ -50,11 +50,14 @@ export interface Level {
 
 /**
  * The state-energy diagram: one horizontal level per state at its energy; states that would
- * overlap (within 6 % of the energy span) go side by side in columns.
+ * overlap (within 6 % of the energy span) go side by side in columns. With `columnPerState`,
+ * every state gets its own column in the order given (the page orders them ground → excited →
+ * charge-separated, so the steps read left to right).
  */
 export function energyLevels(
   states: readonly LevelInput[],
   box: PlotBox,
+  options: { readonly columnPerState?: boolean } = {},
 ): {
   levels: Level[];
   y: (energy: number) => number;
@@ -68,6 +71,10 @@ export function energyLevels(
   const sorted = states.map((s, i) => ({ s, i })).sort((a, b) => a.s.energy - b.s.energy);
   const placed: { energy: number; column: number }[] = [];
   for (const { s, i } of sorted) {
+    if (options.columnPerState) {
+      columns[i] = i;
+      continue;
+    }
     let column = 0;
     while (placed.some((p) => p.column === column && Math.abs(p.energy - s.energy) < 0.06 * span))
       column++;

@@ -5,3 +5,4 @@ export * from './rate-curves';
 export * from './label-placement';
 export * from './histogram';
 export * from './cascade-plots';
+export * from './electrode-curves';

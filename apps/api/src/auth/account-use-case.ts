@@ -169,7 +169,7 @@ export async function deleteAccount(
   config: Config,
   userId: string,
   password: string,
-): Promise<{ deletedWorkspaces: string[] }> {
+): Promise<{ deletedWorkspaces: string[]; deletedWorkspaceNames: string[] }> {
   await checkPassword(db, config, userId, password, 'password');
   return db.transaction(async (tx) => {
     const memberships = tx.getRepository(MembershipEntity);
@@ -203,9 +203,11 @@ export async function deleteAccount(
         `You are the only owner of ${blocking.map((n) => `"${n}"`).join(', ')}, which other people use. Make another member an owner (or remove the other members) first, then delete your account.`,
       );
     }
+    // Names read before the delete, for the page to say what went with the account.
+    const names = solo.map((id) => all.find((m) => m.workspaceId === id)!.workspace.name);
     for (const id of solo) await deleteWorkspace(tx, id);
     forgetUser(userId);
     await tx.getRepository(UserEntity).delete({ id: userId });
-    return { deletedWorkspaces: solo };
+    return { deletedWorkspaces: solo, deletedWorkspaceNames: names };
   });
 }

@@ -24,6 +24,14 @@ export class CascadeInputDto {
   /** The `kinetics.network` inputs (states, links, initial, temperature, …; CALC-API.md). */
   @IsObject({ message: 'Field network must be an object: the kinetics.network inputs.' })
   network: Record<string, unknown>;
+
+  /**
+   * The web editor's design (how each energy was derived, σ of the inputs, the pair a step was
+   * taken from), stored beside the network; never computed from.
+   */
+  @IsOptional()
+  @IsObject({ message: 'Field design must be an object.' })
+  design?: Record<string, unknown>;
 }
 
 export class CascadeUpdateDto extends CascadeInputDto {

@@ -19,9 +19,15 @@ const network = {
     'The kinetics.network inputs (CALC-API.md): states [{ id, label?, energy, kind? }], links [{ from, to, k | lifetime | lambda + coupling (+ model) }], initial?, temperature?, timeStart?, timeEnd?, target?',
 };
 
+const design = {
+  type: 'object',
+  description:
+    "The web editor's design stored beside the network (how each energy was derived, σ of the inputs, the pair a step was taken from); never computed from",
+};
+
 export const CASCADE_SCHEMAS: Record<string, Schema> = {
-  CascadeInput: obj({ name: str, notes: str, network }, ['name', 'network']),
-  CascadeUpdate: obj({ name: str, notes: str, network, version: int }, [
+  CascadeInput: obj({ name: str, notes: str, network, design }, ['name', 'network']),
+  CascadeUpdate: obj({ name: str, notes: str, network, design, version: int }, [
     'name',
     'network',
     'version',
@@ -43,6 +49,7 @@ export const CASCADE_SCHEMAS: Record<string, Schema> = {
     name: str,
     notes: str,
     network,
+    design: nullable(design),
     results: nullable({ type: 'object', description: 'the kinetics.network outputs' }),
     warnings: { type: 'array', items: obj({ code: str, message: str }) },
     longLivedYield: nullable(num),

@@ -21,6 +21,8 @@ export interface Cascade {
   readonly name: string;
   readonly notes: string;
   readonly network: Record<string, unknown>;
+  /** The web editor's design (derivations, σ, pair sources); null for a bare network. */
+  readonly design: Record<string, unknown> | null;
   readonly results: Record<string, unknown> | null;
   readonly warnings: unknown[];
   readonly longLivedYield: number | null;
@@ -30,7 +32,7 @@ export interface Cascade {
   readonly updatedAt: string;
 }
 
-export type CascadeListItem = Omit<Cascade, 'network' | 'results' | 'warnings'>;
+export type CascadeListItem = Omit<Cascade, 'network' | 'design' | 'results' | 'warnings'>;
 
 const ADVICE = 'Make the network smaller (fewer states or links) or ask for report: yields.';
 
@@ -45,6 +47,7 @@ function toCascade(row: CascadeEntity): Cascade {
     name: row.name,
     notes: row.notes,
     network: row.network,
+    design: row.design ?? null,
     results: stored?.outputs ?? null,
     warnings: stored?.warnings ?? [],
     longLivedYield: row.longLivedYield,
@@ -56,7 +59,7 @@ function toCascade(row: CascadeEntity): Cascade {
 }
 
 function listItem(row: CascadeEntity): CascadeListItem {
-  const { network: _n, results: _r, warnings: _w, ...item } = toCascade(row);
+  const { network: _n, design: _d, results: _r, warnings: _w, ...item } = toCascade(row);
   return item;
 }
 
@@ -110,7 +113,13 @@ async function writeVersion(
   await tx.getRepository(CascadeVersionEntity).insert({
     cascadeId: row.id,
     version: row.version,
-    snapshot: { name: row.name, notes: row.notes, network: row.network },
+    snapshot: {
+      name: row.name,
+      notes: row.notes,
+      network: row.network,
+      // Left out (not null) for a bare network: the snapshot type takes no null leaf.
+      design: row.design ?? undefined,
+    },
     summary,
     createdBy: userId,
   });
@@ -135,6 +144,7 @@ export async function createCascade(
         name: dto.name.trim(),
         notes: dto.notes ?? '',
         network: dto.network,
+        design: dto.design ?? null,
         results,
         ...headline(results.outputs),
         version: 1,
@@ -203,6 +213,7 @@ export async function updateCascade(
       name: dto.name.trim(),
       notes: dto.notes ?? '',
       network: dto.network,
+      design: dto.design ?? null,
       results,
       ...headline(results.outputs),
       version: locked.version + 1,

@@ -11,12 +11,11 @@
  */
 import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
-import { MessageChannel } from 'node:worker_threads';
 import { Piscina } from 'piscina';
 import { REPO_ROOT } from '../config';
 import { AppError } from '../http/app-error';
 import type { ComputeRunner, ComputeTaskName, ComputeTasks } from './compute-tasks';
-import type { ComputeJob, ComputeOutcome } from './compute-worker';
+import type { ComputeJob, ComputeOutcome, ComputeWorkerData } from './compute-worker';
 
 export interface ComputePoolOptions {
   /** Worker threads at most. */
@@ -63,22 +62,34 @@ async function workerFilename(): Promise<string> {
 
 export class ComputePool implements ComputeRunner {
   private closed = false;
-  private started = 0;
   /** Tasks handed to piscina (at most `threads`: piscina never queues). */
   private active = 0;
+  /** Slots of `starts` not held by a task. */
+  private readonly freeSlots: number[];
   /** Tasks waiting for a thread, first come first served (at most `queue`). */
-  private readonly waiting: { resolve(): void; reject(error: Error): void }[] = [];
+  private readonly waiting: { resolve(slot: number): void; reject(error: Error): void }[] = [];
 
   private constructor(
     private readonly piscina: Piscina,
     readonly options: ComputePoolOptions,
     /** The file the worker threads run (tests check the bundled server uses its bundle). */
     readonly workerFile: string,
-  ) {}
+    /**
+     * One slot per admitted task (at most `threads`), shared with every worker thread: the
+     * worker writes the time (Date.now(), ms) its task started, the pool clears it when the task
+     * ends. The budget counts from that time, without a message per task (a MessageChannel per
+     * task cost ~50 µs of a ~130 µs round trip, apps/api/bench/api-reads.bench.ts).
+     */
+    private readonly starts: Float64Array,
+  ) {
+    this.freeSlots = Array.from({ length: options.threads }, (_, i) => options.threads - 1 - i);
+  }
 
   /** Calculations a worker thread is computing now (tests wait on it). */
   get running(): number {
-    return this.started;
+    let n = 0;
+    for (const start of this.starts) if (start > 0) n++;
+    return n;
   }
 
   /** Calculations waiting for a thread now (tests wait on it). */
@@ -86,18 +97,33 @@ export class ComputePool implements ComputeRunner {
     return this.waiting.length;
   }
 
+  /** Tasks the worker threads have finished since the pool started (piscina's counter). */
+  get completed(): number {
+    return this.piscina.completed;
+  }
+
   static async start(options: ComputePoolOptions): Promise<ComputePool> {
     const filename = await workerFilename();
+    const starts = new Float64Array(new SharedArrayBuffer(8 * options.threads));
+    const workerData: ComputeWorkerData = { starts };
     const piscina = new Piscina({
       filename,
+      workerData,
       // As many threads as allowed, kept: piscina replaces a thread it terminated (over budget)
-      // only up to minThreads, and a replacement is then ready for the next task.
+      // only up to minThreads, and a replacement is then ready for the next task. Idle threads
+      // are never ended (no start-up cost on the next request).
       minThreads: options.threads,
       maxThreads: options.threads,
+      idleTimeout: Number.MAX_SAFE_INTEGER,
       // One calculation per thread: a second one would share the thread's CPU and its budget.
       concurrentTasksPerWorker: 1,
+      // An idle worker waits for its next task with Atomics.wait (piscina's default, stated):
+      // the hand-off needs no turn of the worker's event loop.
+      atomics: 'sync',
+      // No run/wait-time histograms: nothing reads them, and they cost on every task.
+      recordTiming: false,
     });
-    return new ComputePool(piscina, options, filename);
+    return new ComputePool(piscina, options, filename, starts);
   }
 
   /** Runs `task(...args)` in a worker thread within its budget. */
@@ -106,12 +132,18 @@ export class ComputePool implements ComputeRunner {
     args: Parameters<ComputeTasks[T]>,
     options: ComputeRunOptions = { budget: 'interactive', advice: DEFAULT_ADVICE },
   ): Promise<Awaited<ReturnType<ComputeTasks[T]>>> {
-    await this.acquire();
+    const slot =
+      this.active < this.options.threads && !this.closed ? this.take() : await this.acquire();
     try {
-      return await this.runNow(task, args, options);
+      return await this.runNow(task, args, options, slot);
     } finally {
-      this.release();
+      this.release(slot);
     }
+  }
+
+  private take(): number {
+    this.active++;
+    return this.freeSlots.pop()!;
   }
 
   /**
@@ -119,58 +151,64 @@ export class ComputePool implements ComputeRunner {
    * than in piscina so that admission is exact (a task handed over always has a thread) and a
    * waiting task never follows a thread that is being terminated.
    */
-  private async acquire(): Promise<void> {
+  private async acquire(): Promise<number> {
     if (this.closed) throw poolBusy('The server is stopping.');
-    if (this.active < this.options.threads) {
-      this.active++;
-      return;
-    }
+    if (this.active < this.options.threads) return this.take();
     if (this.waiting.length >= this.options.queue)
       throw poolBusy(
         `All ${this.options.threads} calculation thread(s) are busy and ${this.waiting.length} calculation(s) are waiting.`,
       );
     // The slot is handed over by release() (active stays counted).
-    await new Promise<void>((resolve, reject) => this.waiting.push({ resolve, reject }));
+    return new Promise<number>((resolve, reject) => this.waiting.push({ resolve, reject }));
   }
 
-  private release(): void {
+  private release(slot: number): void {
+    this.starts[slot] = 0;
     const next = this.waiting.shift();
-    if (next) next.resolve();
-    else this.active--;
+    if (next) next.resolve(slot);
+    else {
+      this.active--;
+      this.freeSlots.push(slot);
+    }
   }
 
   private async runNow<T extends ComputeTaskName>(
     task: T,
     args: Parameters<ComputeTasks[T]>,
     options: ComputeRunOptions,
+    slot: number,
   ): Promise<Awaited<ReturnType<ComputeTasks[T]>>> {
     const budgetMs =
       options.budget === 'interactive'
         ? this.options.interactiveBudgetMs
         : this.options.backgroundBudgetMs;
     const abort = new AbortController();
-    const stop = () => abort.abort(options.signal?.reason);
-    if (options.signal?.aborted) stop();
-    else options.signal?.addEventListener('abort', stop, { once: true });
-    const channel = new MessageChannel();
-    let timer: NodeJS.Timeout | undefined;
+    const signal = options.signal;
+    const stop = signal ? () => abort.abort(signal.reason) : undefined;
+    if (signal?.aborted) stop!();
+    else if (stop) signal!.addEventListener('abort', stop, { once: true });
     let overBudget = false;
-    let counted = false;
-    channel.port1.once('message', () => {
-      counted = true;
-      this.started++;
-      timer = setTimeout(() => {
+    // Fires one budget after the hand-off, then again until the budget counted from the moment
+    // the worker started (a thread being replaced may start the task late) has passed.
+    const check = () => {
+      const started = this.starts[slot]!;
+      const left = started > 0 ? started + budgetMs - Date.now() : budgetMs;
+      if (left > 0) timer = setTimeout(check, left);
+      else {
         overBudget = true;
         abort.abort();
-      }, budgetMs);
-      channel.port1.close();
-    });
-    const job: ComputeJob = { task, args, started: channel.port2 };
+      }
+    };
+    let timer = setTimeout(check, budgetMs);
+    this.starts[slot] = 0;
+    const job: ComputeJob = { task, args, slot };
     try {
-      const outcome = (await this.piscina.run(job, {
-        signal: abort.signal,
-        transferList: [channel.port2, ...(options.transferList ?? [])] as never,
-      })) as ComputeOutcome;
+      const outcome = (await this.piscina.run(
+        job,
+        options.transferList
+          ? { signal: abort.signal, transferList: options.transferList as never }
+          : { signal: abort.signal },
+      )) as ComputeOutcome;
       if ('appError' in outcome) {
         const e = outcome.appError;
         throw new AppError(e.status, e.code, e.message, e.details);
@@ -181,10 +219,8 @@ export class ComputePool implements ComputeRunner {
       if (this.closed) throw poolBusy('The server is stopping.');
       throw error;
     } finally {
-      if (counted) this.started--;
       clearTimeout(timer);
-      options.signal?.removeEventListener('abort', stop);
-      channel.port1.close();
+      if (stop) signal!.removeEventListener('abort', stop);
     }
   }
 

@@ -35,6 +35,13 @@ export const computeTasks = {
       ? { ok: true as const, outputs: answer.outputs, warnings: answer.warnings }
       : { ok: false as const, errors: answer.errors };
   },
+  /** `POST /api/electrode-cases/{id}/fit` and apply-fit: `fit.electrodeKinetics` (issue 18). */
+  electrodeFit: (inputs: Record<string, unknown>) => {
+    const answer = calculate({ method: 'fit.electrodeKinetics', inputs });
+    return answer.ok
+      ? { ok: true as const, outputs: answer.outputs, warnings: answer.warnings }
+      : { ok: false as const, errors: answer.errors };
+  },
   /** `POST /api/series/{id}/fit`: both models' fits, band and information criteria. */
   seriesFit: fitSeries,
   /** `POST /api/pairs/{id}/compute`: a pair's results by the shared dispatcher. */

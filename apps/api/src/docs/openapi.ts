@@ -10,6 +10,7 @@ import { REPORT_SCHEMAS } from '../reports/report-route-docs';
 import { TRACE_SCHEMAS } from '../traces/trace-route-docs';
 import { SCREEN_SCHEMAS } from '../screens/screen-route-docs';
 import { CASCADE_SCHEMAS } from '../cascades/cascade-route-docs';
+import { ELECTRODE_SCHEMAS } from '../electrodes/electrode-route-docs';
 import { nullable, num, obj, ref, str, type Schema } from './schema';
 
 const role = { type: 'string', enum: [...ROLES] };
@@ -110,6 +111,11 @@ const SCHEMAS: Record<string, Schema> = {
       type: 'array',
       items: str,
       description: 'ids of workspaces deleted with it',
+    },
+    deletedWorkspaceNames: {
+      type: 'array',
+      items: str,
+      description: 'their names, in the same order',
     },
   }),
   EndedSessions: obj({ endedSessions: num }),
@@ -250,6 +256,7 @@ const SCHEMAS: Record<string, Schema> = {
   ...TRACE_SCHEMAS,
   ...SCREEN_SCHEMAS,
   ...CASCADE_SCHEMAS,
+  ...ELECTRODE_SCHEMAS,
 };
 
 const ERROR_TEXT: Record<number, string> = {

@@ -1,4 +1,9 @@
-import type { Pair, PairFieldDifference } from '@gapwise/contracts';
+import {
+  PARAMETER_KINDS,
+  type Pair,
+  type PairFieldDifference,
+  type ParameterKind,
+} from '@gapwise/contracts';
 
 const SCALAR_FIELDS = [
   'name',
@@ -11,6 +16,19 @@ const SCALAR_FIELDS = [
   'status',
   'model',
 ] as const;
+/** The labels of the pair form, for the version summary. */
+const FIELD_LABELS: Readonly<Record<string, string>> = {
+  name: 'name',
+  donor: 'donor',
+  acceptor: 'acceptor',
+  medium: 'medium',
+  temperature: 'temperature',
+  temperatureUnit: 'temperature unit',
+  notes: 'notes',
+  status: 'status',
+  model: 'rate model',
+  tags: 'tags',
+};
 const PARAMETER_FIELDS = ['value', 'unit', 'uncertainty', 'provenance'] as const;
 const RESULT_FIELDS = ['k', 'log10k', 'activationFreeEnergy', 'regime'] as const;
 
@@ -63,8 +81,12 @@ export function summariseChange(before: Pair | null, after: Pair, action?: strin
       diffs.filter((d) => d.field.startsWith('parameters.')).map((d) => d.field.split('.')[1]),
     ),
   ];
+  // Written with the labels the user sees (the version list shows this sentence).
   const parts: string[] = [];
-  if (plain.length) parts.push(`changed ${plain.join(', ')}`);
-  if (params.length) parts.push(`parameters: ${params.join(', ')}`);
+  if (plain.length) parts.push(`changed ${plain.map((f) => FIELD_LABELS[f] ?? f).join(', ')}`);
+  if (params.length) {
+    const labels = params.map((k) => PARAMETER_KINDS[k as ParameterKind]?.label ?? k);
+    parts.push(`parameters: ${labels.join(', ')}`);
+  }
   return parts.join('; ');
 }

@@ -188,7 +188,7 @@ function rulerResult(pair: Pair): ReportModelResult | null {
     return {
       ...base,
       applies: false,
-      reason: answer.errors.map((e) => `${e.field}: ${e.message}`).join('; '),
+      reason: missingText(answer.errors),
       k: null,
       log10k: null,
       activationFreeEnergy: null,
@@ -209,10 +209,21 @@ function rulerResult(pair: Pair): ReportModelResult | null {
   };
 }
 
+/** Calculation-request fields that are not pair parameter kinds, by the labels the user sees. */
+const REQUEST_FIELD_LABELS: Readonly<Record<string, string>> = {
+  lambda: 'Total reorganization energy λ',
+  temperature: 'Temperature',
+};
+
+/**
+ * Why a model was not computed, with the labels the user sees; each clause without its own full
+ * stop, since the clauses are joined with "; " and the sentence is closed by whoever prints it.
+ */
 function missingText(errors: ReadonlyArray<{ field: string; message: string }>): string {
   const labels = errors.map((e) => {
-    const def = PARAMETER_KINDS[e.field as ParameterKind];
-    return def ? `${def.label} ${e.message}` : `${e.field}: ${e.message}`;
+    const label = PARAMETER_KINDS[e.field as ParameterKind]?.label ?? REQUEST_FIELD_LABELS[e.field];
+    const message = e.message.trim().replace(/\.$/, '');
+    return label ? `${label} ${message}` : `${e.field}: ${message}`;
   });
   return labels.join('; ');
 }

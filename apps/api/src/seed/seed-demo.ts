@@ -10,6 +10,7 @@ import { seedDemoReport } from '../reports/demo-report-seed';
 import { seedDemoScreensAndSeries } from '../screens/demo-screen-seed';
 import { seedDemoTraces } from '../traces/demo-trace-seed';
 import { seedDemoCascades } from '../cascades/demo-cascade-seed';
+import { seedDemoElectrodeCases } from '../electrodes/demo-electrode-seed';
 import { TraceObjectStore } from '../traces/trace-object-store';
 import { loadConfig } from '../config';
 
@@ -52,6 +53,12 @@ try {
     editorEmail: 'editor@gapwise.test',
   });
   if (cascades) console.log(`demo seed: ${cascades} cascade(s) added`);
+  // A ferrocenyl monolayer electrode case with measured k(η) (apps/api/src/electrodes/demo-electrode-seed.ts).
+  const electrodes = await seedDemoElectrodeCases(dataSource, {
+    labName: DEMO_LAB,
+    editorEmail: 'editor@gapwise.test',
+  });
+  if (electrodes) console.log(`demo seed: ${electrodes} electrode case(s) added`);
   // Demo energy-gap traces (lab) in object storage with a finished analysis: needs the S3 store.
   if (config.objectStore.endpointSet) {
     const store = new TraceObjectStore(config.objectStore);

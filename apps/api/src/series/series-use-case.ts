@@ -3,7 +3,9 @@ import type { DataSource, EntityManager } from 'typeorm';
 import { toCanonical } from '@gapwise/calc';
 import {
   canEdit,
+  formatNumber,
   magnitudeProblem,
+  modelName,
   type Pair,
   type PairParameter,
   type PairSeriesPoint,
@@ -216,7 +218,7 @@ export async function createSeries(
       action: 'series.created',
       entityType: 'series',
       entityId: rows[0].id,
-      summary: `series ${n.name}: ${n.points.length} point(s)`,
+      summary: `series ${n.name}: ${n.points.length} ${n.points.length === 1 ? 'point' : 'points'}`,
     });
     return rows[0].id;
   });
@@ -386,7 +388,8 @@ export async function fitSeriesUseCase(
       action: 'series.fitted',
       entityType: 'series',
       entityId: id,
-      summary: `series ${series.name}: ${dto.model} λ = ${main.lambda.toFixed(3)} eV, |H| = ${main.coupling.toExponential(2)} eV`,
+      // Read by people on the audit page: the model by name, |H_AB| in meV, 3 significant figures.
+      summary: `series ${series.name} fitted with ${modelName(dto.model)}: λ = ${formatNumber(main.lambda, 3)} eV, coupling = ${formatNumber(main.coupling * 1000, 3)} meV`,
     });
   });
   return (await loadSeries(db.manager, id))!;

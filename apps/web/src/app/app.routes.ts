@@ -112,8 +112,17 @@ export const routes: Routes = [
             loadChildren: () => import('./screens/screens.routes').then((m) => m.screenRoutes),
           },
           {
+            path: 'cascades',
+            loadChildren: () => import('./cascades/cascades.routes').then((m) => m.cascadeRoutes),
+          },
+          {
             path: 'series',
             loadChildren: () => import('./series/series.routes').then((m) => m.seriesRoutes),
+          },
+          {
+            path: 'electrodes',
+            loadChildren: () =>
+              import('./electrodes/electrodes.routes').then((m) => m.electrodeRoutes),
           },
           {
             path: 'members',

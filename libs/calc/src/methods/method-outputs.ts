@@ -23,6 +23,7 @@ import type { MhcOutputs } from '../electrode/mhc/mhc';
 import type { MultiStateOutputs } from '../evb/multi-state/multi-state';
 import type { TwoStateOutputs } from '../evb/two-state/two-state';
 import type { DrivingForceSeriesOutputs } from '../fit/driving-force-series/driving-force-series';
+import type { ElectrodeKineticsFitOutputs } from '../fit/electrode-kinetics/electrode-kinetics';
 import type { GapSamplesOutputs } from '../gap/gap-samples/gap-samples';
 import type { DiffusionOutputs } from '../quench/diffusion/diffusion';
 import type { CrossRelationOutputs } from '../rates/cross-relation/cross-relation';
@@ -67,6 +68,7 @@ export interface MethodOutputs {
   'quench.sternVolmer': SternVolmerOutputs;
   'analysis.temperature': TemperatureOutputs;
   'fit.drivingForceSeries': DrivingForceSeriesOutputs;
+  'fit.electrodeKinetics': ElectrodeKineticsFitOutputs;
   'uncertainty.monteCarlo': MonteCarloOutputs;
   'units.convert': ConvertOutputs;
 }

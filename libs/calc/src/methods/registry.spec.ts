@@ -80,6 +80,7 @@ describe('typed outputs', () => {
       'quench.sternVolmer': true,
       'analysis.temperature': true,
       'fit.drivingForceSeries': true,
+      'fit.electrodeKinetics': true,
       'uncertainty.monteCarlo': true,
       'units.convert': true,
     };

@@ -1,5 +1,7 @@
 import {
+  formatMeasured,
   PARAMETER_KINDS,
+  provenanceText,
   potentialFromShe,
   potentialScaleName,
   splitPotentialUnit,
@@ -17,7 +19,11 @@ export interface DiffRow {
   readonly changed: boolean;
 }
 
-/** A parameter as a reader sees it: value in its typed unit, σ, source. */
+/**
+ * A parameter as a reader sees it: value in its typed unit, σ, source. A typed value reads as
+ * typed; a derived one (a helper's, a trace's, a fit's) with the digits its σ supports
+ * (`formatMeasured`), since its 12 stored digits are arithmetic, not knowledge.
+ */
 export function describeParameter(p: PairParameter | undefined): string {
   if (!p) return '—';
   const q = PARAMETER_KINDS[p.kind].quantity as Quantity;
@@ -26,22 +32,28 @@ export function describeParameter(p: PairParameter | undefined): string {
   const unit = split ? split.unit : p.unit;
   const typed = split?.code ? potentialFromShe(p.value, split.code) : p.value;
   const scale = split?.code ? ` vs ${potentialScaleName(split.code)}` : '';
-  const value = `${editableText(displayOf(typed, unit, q))}${unit ? ' ' + unitLabel(unit) : ''}${scale}`;
-  const sigma =
-    p.uncertainty == null
-      ? ''
-      : unit === 'nm'
-        ? ` ± ${editableText(p.uncertainty)} eV`
-        : ` ± ${editableText(displayDifference(p.uncertainty, unit, q))}`;
-  const prov = p.provenance;
-  const source =
-    prov.kind === 'literature' && prov.citation
-      ? `literature: ${prov.citation}`
-      : prov.kind === 'derived' && prov.methodId
-        ? `derived by ${prov.methodId}`
-        : prov.kind;
-  const note = prov.note ? ` — ${prov.note}` : '';
-  return `${value}${sigma} (${source})${note}`;
+  const shown = displayOf(typed, unit, q);
+  const unitText = `${unit ? ' ' + unitLabel(unit) : ''}${scale}`;
+  const sigmaEv = unit === 'nm' ? p.uncertainty : null;
+  const sigmaShown =
+    p.uncertainty == null || unit === 'nm' ? null : displayDifference(p.uncertainty, unit, q);
+  let value: string;
+  if (p.provenance.kind === 'derived') {
+    value =
+      sigmaShown !== null
+        ? `${formatMeasured(shown, sigmaShown)}${unitText}`
+        : `${formatMeasured(shown)}${unitText}`;
+    if (sigmaEv !== null && sigmaEv !== undefined) value += ` ± ${formatMeasured(sigmaEv)} eV`;
+  } else {
+    const sigma =
+      p.uncertainty == null
+        ? ''
+        : unit === 'nm'
+          ? ` ± ${editableText(p.uncertainty)} eV`
+          : ` ± ${editableText(sigmaShown)}`;
+    value = `${editableText(shown)}${unitText}${sigma}`;
+  }
+  return `${value} (${provenanceText(p.provenance).replace(/\.$/, '')})`;
 }
 
 /** Field-by-field comparison of two states of a pair (left = older or mine, right = other). */

@@ -117,12 +117,17 @@ export class Session {
   }
 
   /** Deletes the account (password again); see the account page for the workspace rule. */
-  deleteAccount(password: string): Observable<{ deletedWorkspaces: string[] }> {
+  deleteAccount(
+    password: string,
+  ): Observable<{ deletedWorkspaces: string[]; deletedWorkspaceNames: string[] }> {
     return this.http
-      .delete<{ deletedWorkspaces: string[] }>('/api/auth/account', {
-        body: { password },
-        context: quiet(),
-      })
+      .delete<{ deletedWorkspaces: string[]; deletedWorkspaceNames: string[] }>(
+        '/api/auth/account',
+        {
+          body: { password },
+          context: quiet(),
+        },
+      )
       .pipe(tap(() => this.clear()));
   }
 

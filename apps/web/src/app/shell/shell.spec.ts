@@ -40,6 +40,7 @@ describe('Shell', () => {
       a.getAttribute('href'),
     ]);
     expect(nav).toContainEqual(['Pairs', '/w/w1/pairs']);
+    expect(nav).toContainEqual(['Cascades', '/w/w1/cascades']);
     expect(nav).toContainEqual(['Members', '/w/w1/members']);
     expect(el.querySelector('.user-name')?.textContent).toContain('Ada Editor');
     expect(el.querySelector('main#gw-main')).not.toBeNull();

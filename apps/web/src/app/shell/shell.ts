@@ -81,7 +81,9 @@ export class Shell {
 
   protected createWorkspace(): void {
     this.dialog
-      .open(NewWorkspaceDialog)
+      // Opened from a menu item that is gone when the dialog closes: focus returns to the
+      // workspace switcher that opened the menu.
+      .open(NewWorkspaceDialog, { restoreFocus: '.app-bar .workspace-switch' })
       .afterClosed()
       .subscribe((ws) => {
         if (!ws) return;

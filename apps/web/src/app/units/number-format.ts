@@ -4,7 +4,7 @@
  * (report-format.ts), so a page and its PDF print a number alike; this module adds the pages'
  * default precision and the reading of typed numbers.
  */
-import { formatNumber } from '@gapwise/contracts';
+import { formatMeasured, formatNumber } from '@gapwise/contracts';
 
 export { formatFixed, formatScientific } from '@gapwise/contracts';
 
@@ -39,4 +39,18 @@ export function parseStrictNumber(text: string): number | null {
   if (!/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(t)) return null;
   const v = Number(t);
   return Number.isFinite(v) ? v : null;
+}
+
+/**
+ * A derived value and its σ as two cells, rounded together by the one rule (`formatMeasured`:
+ * σ to 2 significant digits, the value to the same decimal place): { value: "0.812",
+ * sigma: "0.013" }. Without σ the value has 4 significant figures and `sigma` is null.
+ */
+export function measuredParts(
+  value: number | null | undefined,
+  sigma: number | null | undefined,
+): { value: string; sigma: string | null } {
+  const text = formatMeasured(value ?? null, sigma ?? null);
+  const [v, s] = text.split(' ± ');
+  return { value: v!, sigma: s ?? null };
 }

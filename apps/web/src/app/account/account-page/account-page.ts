@@ -13,6 +13,16 @@ import { ApiTokens } from '../api-tokens/api-tokens';
 
 type Outcome = { ok: boolean; message: string } | null;
 
+/** What the sign-in page says after a deletion: the account, and the workspaces that went with it. */
+export function deletedAccountNotice(deletedWorkspaces: readonly string[]): string {
+  if (deletedWorkspaces.length === 0) {
+    return 'Your account was deleted. No workspace was deleted with it: in shared workspaces your membership ended and your work stays.';
+  }
+  const names = deletedWorkspaces.map((n) => `“${n}”`).join(', ');
+  const one = deletedWorkspaces.length === 1;
+  return `Your account was deleted, and with it ${one ? 'the workspace' : 'the workspaces'} where you were the only member: ${names}.`;
+}
+
 /** The signed-in person's account: name, password, sessions, API tokens, deletion. */
 @Component({
   selector: 'gw-account-page',
@@ -114,7 +124,10 @@ export class AccountPage {
     }
     this.deleteFailure.set(null);
     this.session.deleteAccount(this.deleteForm.getRawValue().password).subscribe({
-      next: () => void this.router.navigate(['/sign-in']),
+      next: ({ deletedWorkspaceNames }) =>
+        void this.router.navigate(['/sign-in'], {
+          state: { notice: deletedAccountNotice(deletedWorkspaceNames ?? []) },
+        }),
       error: (err: unknown) => {
         const error = apiErrorOf(err);
         const rest = applyFieldErrors(this.deleteForm, error);

@@ -1,4 +1,4 @@
-import { DatePipe } from '@angular/common';
+import { GwDatePipe } from '../../shared/date/gw-date';
 import { ChangeDetectionStrategy, Component, OnInit, inject, signal } from '@angular/core';
 import {
   FormControl,
@@ -33,7 +33,7 @@ export const SCOPE_WORDS: Record<ApiTokenScope, string> = {
 @Component({
   selector: 'gw-api-tokens',
   imports: [
-    DatePipe,
+    GwDatePipe,
     ReactiveFormsModule,
     MatButtonModule,
     MatFormFieldModule,

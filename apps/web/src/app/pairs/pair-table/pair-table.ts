@@ -1,4 +1,4 @@
-import { DatePipe } from '@angular/common';
+import { GwDatePipe } from '../../shared/date/gw-date';
 import {
   ChangeDetectionStrategy,
   Component,
@@ -22,7 +22,13 @@ import { MatSortModule, Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { Router, RouterLink } from '@angular/router';
-import { ratioText, type Page, type PairListItem, type PairStatus } from '@gapwise/contracts';
+import {
+  ratioText,
+  regimeLabel,
+  type Page,
+  type PairListItem,
+  type PairStatus,
+} from '@gapwise/contracts';
 import {
   catchError,
   combineLatest,
@@ -50,7 +56,7 @@ interface Filters {
 @Component({
   selector: 'gw-pair-table',
   imports: [
-    DatePipe,
+    GwDatePipe,
     ReactiveFormsModule,
     RouterLink,
     MatTableModule,
@@ -106,6 +112,8 @@ export class PairTable {
   protected readonly failed = signal(false);
   protected readonly fmt = formatSignificant;
   protected readonly fmtLog = formatFixed;
+  /** "Inverted", as the pair page and the PDF print a regime. */
+  protected readonly regime = regimeLabel;
   protected readonly ratioText = ratioText;
 
   private readonly filters$ = this.filters.valueChanges.pipe(

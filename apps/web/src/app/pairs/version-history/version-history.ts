@@ -1,4 +1,4 @@
-import { DatePipe } from '@angular/common';
+import { GwDatePipe } from '../../shared/date/gw-date';
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -7,7 +7,12 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
-import type { Pair, PairVersionSummary } from '@gapwise/contracts';
+import {
+  PARAMETER_KINDS,
+  pairEffectDifferences,
+  type Pair,
+  type PairVersionSummary,
+} from '@gapwise/contracts';
 import { catchError, combineLatest, filter, forkJoin, of, switchMap, tap } from 'rxjs';
 import { RichText } from '../../shared/rich-text/rich-text';
 import { pairDifferences } from '../pair-diff';
@@ -17,7 +22,7 @@ import { PairsApi } from '../pairs-api';
 @Component({
   selector: 'gw-version-history',
   imports: [
-    DatePipe,
+    GwDatePipe,
     RouterLink,
     MatButtonModule,
     MatIconModule,
@@ -68,5 +73,27 @@ export class VersionHistory {
     const p = this.pairs();
     return p ? pairDifferences(p[0], p[1], this.onlyChanged()) : [];
   });
+  /** What the change did to the results, computed in the browser through the pair model. */
+  protected readonly effects = computed(() => {
+    const p = this.pairs();
+    if (!p) return [];
+    const [a, b] = p;
+    return pairEffectDifferences(
+      { temperature: a.temperature, model: a.model, parameters: a.parameters },
+      { temperature: b.temperature, model: b.model, parameters: b.parameters },
+      this.onlyChanged(),
+    );
+  });
+  /**
+   * A version's summary with the labels the user sees: versions saved before summaries were
+   * written with labels name parameters by their stored kind ("parameters: lambdaOuter").
+   */
+  protected summaryText(summary: string): string {
+    return summary.replace(/\b[a-zA-Z][a-zA-Z0-9]*\b/g, (word) =>
+      Object.hasOwn(PARAMETER_KINDS, word)
+        ? PARAMETER_KINDS[word as keyof typeof PARAMETER_KINDS].label
+        : word,
+    );
+  }
   protected readonly current = computed(() => this.pairs()?.[1] ?? null);
 }

@@ -158,4 +158,26 @@ describe('ReportViewPage', () => {
     expect(done.textContent).toContain('New snapshot taken');
     expect(done.classList.contains('error')).toBe(false);
   });
+
+  it('shows a derived input with the digits its σ supports and a typed one as typed', () => {
+    const report = structuredClone(DEMO_REPORT) as ReportView;
+    const inputs = report.snapshot.pairs[0]!.inputs as unknown as Array<Record<string, unknown>>;
+    const dg = inputs.find((i) => i['kind'] === 'deltaG0')!;
+    // A helper's result carries all its arithmetic digits; σ = 0.05 eV supports three decimals.
+    Object.assign(dg, { value: -1.620473921, typedValue: -1.620473921, uncertainty: 0.05 });
+    const t = inputs.find((i) => i['kind'] === 'temperature')!;
+    Object.assign(t, { value: 298.15, typedValue: 298.15 });
+    const { el } = setup({
+      role: 'reviewer',
+      userId: REVIEWER_ID,
+      api: { get: () => of(report) },
+    });
+    const cells = (kind: string) =>
+      Array.from(el.querySelectorAll(`tr[data-kind="${kind}"] td.num`), (c) =>
+        c.textContent!.trim(),
+      );
+    expect(cells('deltaG0')).toEqual(['−1.620 eV', '−1.620 eV', '± 0.050 eV']);
+    expect(el.textContent).not.toContain('1.62047');
+    expect(cells('temperature').slice(0, 2)).toEqual(['298.15 K', '298.15 K']);
+  });
 });

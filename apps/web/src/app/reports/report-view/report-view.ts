@@ -9,7 +9,9 @@ import {
   canEdit,
   canReview,
   formatEnergyEv,
+  displayUnit,
   formatInputQuantity,
+  formatMeasured,
   formatLog10,
   formatNumber,
   formatRate,
@@ -33,6 +35,7 @@ import {
   type ReportCommentView,
   type ReportPairSnapshot,
   type ReportView as Report,
+  type ReportInput,
 } from '@gapwise/contracts';
 import type { DrivingForceInputs } from '@gapwise/plots';
 import { DrivingForcePlot } from '../../plots/driving-force-plot/driving-force-plot';
@@ -103,6 +106,38 @@ export class ReportViewPage {
     rateWithLog: formatRateWithLog,
     num: formatNumber,
   };
+
+  /**
+   * An input as the report reads it: a typed value as typed (up to 6 significant figures); a
+   * derived one (a helper's, a trace's, a fit's) with the digits its σ supports — its stored
+   * 12 digits are arithmetic, not knowledge (full precision stays in the snapshot and exports).
+   */
+  protected inputText(i: ReportInput, which: 'typed' | 'canonical'): string {
+    const canonical = which === 'canonical';
+    const value = canonical ? i.value : i.typedValue;
+    const unit = canonical ? i.canonicalUnit : i.typedUnit;
+    if (i.provenance.kind !== 'derived') {
+      return formatInputQuantity(value, unit, canonical && i.typedUnit !== i.canonicalUnit ? 5 : 6);
+    }
+    // σ is stored in the canonical unit. A linear unit scales it with the value; a temperature
+    // offset (°C) leaves it as it is; nm (reciprocal in energy) has no single factor, so a value
+    // in nm gets 4 significant figures.
+    const scale = canonical || i.kind === 'temperature' ? 1 : i.typedValue / i.value;
+    const sigma =
+      i.uncertainty === null || unit === 'nm' || !Number.isFinite(scale)
+        ? null
+        : i.uncertainty * Math.abs(scale);
+    const text = formatMeasured(value, sigma).split(' ± ')[0]!;
+    const u = displayUnit(unit);
+    return u ? `${text} ${u}` : text;
+  }
+
+  /** ± 1σ in the canonical unit, 2 significant digits (the rule of `formatMeasured`). */
+  protected sigmaText(i: ReportInput): string {
+    if (i.uncertainty === null) return '—';
+    const u = displayUnit(i.canonicalUnit);
+    return `± ${formatNumber(i.uncertainty, 2, true)}${u ? ' ' + u : ''}`;
+  }
 
   /** "Approved, revision 2": revisions count the submissions a reviewer saw. */
   protected readonly reviewStatus = computed(() => {

@@ -1,3 +1,4 @@
+import { formatReportDate } from '@gapwise/contracts';
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -35,37 +36,39 @@ const count = new Intl.NumberFormat('en-GB');
       </p>
       @if (screens(); as list) {
         @if (list.length) {
-          <table class="gw-table screens">
-            <thead>
-              <tr>
-                <th scope="col">Name</th>
-                <th scope="col">Status</th>
-                <th scope="col" class="num">Rows</th>
-                <th scope="col" class="num">Computed</th>
-                <th scope="col" class="num">Bad rows</th>
-                <th scope="col">Uploaded</th>
-              </tr>
-            </thead>
-            <tbody>
-              @for (s of list; track s.id) {
+          <div class="gw-table-scroll">
+            <table class="gw-table screens">
+              <thead>
                 <tr>
-                  <th scope="row">
-                    <a [routerLink]="['/w', wid(), 'screens', s.id]">{{ s.name }}</a>
-                  </th>
-                  <td>
-                    <span class="status"
-                      ><mat-icon aria-hidden="true" [svgIcon]="icons[s.status]"></mat-icon>
-                      {{ labels[s.status] }}</span
-                    >
-                  </td>
-                  <td class="num">{{ n(s.rowCount) }}</td>
-                  <td class="num">{{ percent(s) }}</td>
-                  <td class="num">{{ s.badRowCount ? n(s.badRowCount) : '—' }}</td>
-                  <td>{{ date(s.createdAt) }}</td>
+                  <th scope="col">Name</th>
+                  <th scope="col">Status</th>
+                  <th scope="col" class="num">Rows</th>
+                  <th scope="col" class="num">Computed</th>
+                  <th scope="col" class="num">Bad rows</th>
+                  <th scope="col">Uploaded</th>
                 </tr>
-              }
-            </tbody>
-          </table>
+              </thead>
+              <tbody>
+                @for (s of list; track s.id) {
+                  <tr>
+                    <th scope="row">
+                      <a [routerLink]="['/w', wid(), 'screens', s.id]">{{ s.name }}</a>
+                    </th>
+                    <td>
+                      <span class="status"
+                        ><mat-icon aria-hidden="true" [svgIcon]="icons[s.status]"></mat-icon>
+                        {{ labels[s.status] }}</span
+                      >
+                    </td>
+                    <td class="num">{{ n(s.rowCount) }}</td>
+                    <td class="num">{{ percent(s) }}</td>
+                    <td class="num">{{ s.badRowCount ? n(s.badRowCount) : '—' }}</td>
+                    <td>{{ date(s.createdAt) }}</td>
+                  </tr>
+                }
+              </tbody>
+            </table>
+          </div>
         } @else {
           <p class="muted">
             No screens yet. Download the template, fill one row per pair, and upload it as a new
@@ -103,6 +106,6 @@ export class ScreenList {
   }
 
   protected date(iso: string): string {
-    return new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
+    return formatReportDate(iso);
   }
 }

@@ -1,5 +1,10 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
-import type { SeriesFit, SeriesModel, SeriesModelFit } from '@gapwise/contracts';
+import {
+  formatMeasured,
+  type SeriesFit,
+  type SeriesModel,
+  type SeriesModelFit,
+} from '@gapwise/contracts';
 import { RichText } from '../../shared/rich-text/rich-text';
 import { formatFixed, formatSignificant } from '../../units/number-format';
 import { MODEL_NAMES } from '../series-plot/series-plot';
@@ -15,15 +20,9 @@ const CM1_PER_EV = 8065.543937;
     <div class="gw-table-scroll">
       <table class="gw-table fit-table">
         <caption>
-          Fitted parameters (± one standard error; T =
           {{
-            temperature()
+            caption()
           }}
-          K
-          @if (f.hbarOmega !== null) {
-            ; fixed mode ħω = {{ sig(f.hbarOmega) }} eV, λ<sub>v</sub> = {{ sig(f.lambdaVib) }} eV
-          }
-          )
         </caption>
         <thead>
           <tr>
@@ -46,12 +45,12 @@ const CM1_PER_EV = 8065.543937;
                   <span class="preferred">lower AIC</span>
                 }
               </th>
-              <td class="num">{{ fx(row.lambda, 3) }} ± {{ fx(row.standardErrors.lambda, 3) }}</td>
+              <td class="num">{{ measured(row.lambda, row.standardErrors.lambda) }}</td>
               <td class="num">
-                {{ sig(row.coupling * 1000) }} ± {{ sig(row.standardErrors.coupling * 1000, 2) }}
+                {{ measured(row.coupling * 1000, row.standardErrors.coupling * 1000) }}
               </td>
               <td class="num">
-                {{ sig(row.coupling * cm) }} ± {{ sig(row.standardErrors.coupling * cm, 2) }}
+                {{ measured(row.coupling * cm, row.standardErrors.coupling * cm) }}
               </td>
               <td class="num">{{ fx(row.correlation, 2) }}</td>
               <td class="num">{{ fx(row.rmsLog10Residual, 2) }}</td>
@@ -87,7 +86,21 @@ export class FitTable {
   protected readonly names = MODEL_NAMES;
   protected readonly cm = CM1_PER_EV;
   protected readonly fx = formatFixed;
+  /** A fitted value ± its standard error, rounded to what the error supports. */
+  protected readonly measured = (v: number, se: number | null) => formatMeasured(v, se);
   protected readonly sig = (v: number | null, d = 3) => formatSignificant(v, d);
+  /**
+   * "Fitted parameters (± one standard error; T = 298.15 K; fixed mode ħω = 0.18 eV, λ_v = 0.2 eV)",
+   * built here so that no template line break puts a space before a semicolon.
+   */
+  protected readonly caption = computed(() => {
+    const f = this.fit();
+    const mode =
+      f.hbarOmega !== null
+        ? `; fixed mode ħω = ${this.sig(f.hbarOmega)} eV, λᵥ = ${this.sig(f.lambdaVib)} eV`
+        : '';
+    return `Fitted parameters (± one standard error; T = ${this.sig(this.temperature(), 5)} K${mode})`;
+  });
   protected readonly rows = computed(() =>
     (['marcus', 'mlj'] as const)
       .map((m) => this.fit().fits[m])

@@ -1,3 +1,4 @@
+import { formatReportDate } from '@gapwise/contracts';
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -76,6 +77,6 @@ export class SeriesList {
   );
 
   protected date(iso: string): string {
-    return new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
+    return formatReportDate(iso);
   }
 }

@@ -75,7 +75,7 @@ describe('SeriesPlot and FitTable', () => {
     const rows = Array.from<HTMLElement>(fixture.nativeElement.querySelectorAll('tbody tr'));
     expect(rows).toHaveLength(2);
     expect(rows[0].textContent).toContain('0.970 ± 0.030');
-    expect(rows[0].textContent).toContain('0.4 ± 0.04'); // meV
+    expect(rows[0].textContent).toContain('0.400 ± 0.040'); // meV
     expect(rows[0].textContent).toContain('lower AIC');
     expect(rows[0].classList).toContain('primary');
     expect(fixture.nativeElement.querySelector('.warnings')?.textContent).toContain(

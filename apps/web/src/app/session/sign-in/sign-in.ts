@@ -38,6 +38,11 @@ export class SignIn {
     }),
     password: new FormControl('', { nonNullable: true, validators: [Validators.required] }),
   });
+  /** A message handed over by the page that sent the user here (the account deletion says what went). */
+  protected readonly notice = (() => {
+    const state = this.router.currentNavigation()?.extras.state as { notice?: unknown } | undefined;
+    return typeof state?.notice === 'string' ? state.notice : null;
+  })();
   protected readonly busy = signal(false);
   protected readonly failure = signal<string | null>(null);
 

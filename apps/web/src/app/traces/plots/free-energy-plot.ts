@@ -156,6 +156,10 @@ export class FreeEnergyPlot {
       .attr('x', f.x(0) + 6)
       .attr('y', 14)
       .attr('fill', '#3c4747')
+      // A white halo: the dashed relation curve passes under the label without crossing its text.
+      .attr('stroke', '#fff')
+      .attr('stroke-width', 4)
+      .attr('paint-order', 'stroke')
       .text(`ΔE = 0: ΔG‡ = ${o.activationFreeEnergy.toFixed(3)} eV`);
   }
 }

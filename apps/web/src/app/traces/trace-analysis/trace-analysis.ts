@@ -1,4 +1,5 @@
-import { DatePipe, DecimalPipe } from '@angular/common';
+import { GwDatePipe } from '../../shared/date/gw-date';
+import { DecimalPipe } from '@angular/common';
 import {
   ChangeDetectionStrategy,
   Component,
@@ -16,11 +17,11 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router, RouterLink } from '@angular/router';
-import type { Pair, Trace, TraceAnalysis } from '@gapwise/contracts';
+import { formatMeasured, type Pair, type Trace, type TraceAnalysis } from '@gapwise/contracts';
 import { filter, finalize, switchMap } from 'rxjs';
 import { apiErrorOf } from '../../session/api-errors';
 import { RichText } from '../../shared/rich-text/rich-text';
-import { formatSignificant } from '../../units/number-format';
+import { formatSignificant, measuredParts } from '../../units/number-format';
 import { WorkspaceContext } from '../../workspaces/workspace-context';
 import { AttachDialog, type AttachDialogData } from '../attach-dialog/attach-dialog';
 import type { GapOutputs } from '../gap-outputs';
@@ -45,7 +46,7 @@ interface NumberRow {
 @Component({
   selector: 'gw-trace-analysis',
   imports: [
-    DatePipe,
+    GwDatePipe,
     DecimalPipe,
     RouterLink,
     MatButtonModule,
@@ -176,6 +177,9 @@ export class TraceAnalysisPage {
   });
 
   protected readonly fmt = formatSignificant;
+  /** Value and σ with the digits σ supports (the one rule of contracts' `formatMeasured`). */
+  protected readonly measured = measuredParts;
+  protected readonly measuredText = (v: number, s: number | null) => formatMeasured(v, s);
 
   constructor() {
     effect(() => this.load(this.wid(), this.aid()));

@@ -1,4 +1,5 @@
-import { DatePipe, DecimalPipe } from '@angular/common';
+import { GwDatePipe } from '../../shared/date/gw-date';
+import { DecimalPipe } from '@angular/common';
 import {
   ChangeDetectionStrategy,
   Component,
@@ -73,7 +74,7 @@ export function formatBytes(bytes: number): string {
 @Component({
   selector: 'gw-trace-list',
   imports: [
-    DatePipe,
+    GwDatePipe,
     DecimalPipe,
     ReactiveFormsModule,
     RouterLink,

@@ -7,6 +7,8 @@ import type { Observable } from 'rxjs';
 export interface AuditFilters {
   readonly actorId?: string;
   readonly pairId?: string;
+  /** One cascade's events (`entityType=cascade&entityId=…`). */
+  readonly cascadeId?: string;
   readonly from?: string;
   readonly to?: string;
 }
@@ -16,6 +18,8 @@ export function auditParams(filters: AuditFilters): HttpParams {
   let params = new HttpParams();
   if (filters.actorId) params = params.set('actorId', filters.actorId);
   if (filters.pairId) params = params.set('entityType', 'pair').set('entityId', filters.pairId);
+  if (filters.cascadeId)
+    params = params.set('entityType', 'cascade').set('entityId', filters.cascadeId);
   if (filters.from) params = params.set('from', filters.from);
   if (filters.to) params = params.set('to', filters.to);
   return params;

@@ -1,4 +1,4 @@
-import { DatePipe } from '@angular/common';
+import { GwDatePipe } from '../../shared/date/gw-date';
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormsModule } from '@angular/forms';
@@ -35,7 +35,7 @@ type Loaded = { ok: true; page: Page<AuditEvent> } | { ok: false; message: strin
 @Component({
   selector: 'gw-audit-trail',
   imports: [
-    DatePipe,
+    GwDatePipe,
     FormsModule,
     RouterLink,
     MatButtonModule,
@@ -71,6 +71,30 @@ export class AuditTrail {
     from: this.from() || undefined,
     to: this.to() || undefined,
   }));
+  /** A day typed in another form than the page's one (YYYY-MM-DD), said and not sent. */
+  protected readonly dayError = signal<string | null>(null);
+
+  /**
+   * A day filter as typed. The page writes every date as YYYY-MM-DD (UTC), so the day fields
+   * take the same form rather than the browser's locale date picker (which showed mm/dd/yyyy).
+   */
+  protected setDay(which: 'from' | 'to', text: string): void {
+    const value = (text ?? '').trim();
+    const label = which === 'from' ? 'From (first day)' : 'To (last day)';
+    const day = new Date(`${value}T00:00:00Z`);
+    const valid =
+      value === '' ||
+      (/^\d{4}-\d{2}-\d{2}$/.test(value) &&
+        !Number.isNaN(day.getTime()) &&
+        day.toISOString().slice(0, 10) === value);
+    if (!valid) {
+      this.dayError.set(`${label} must be a day written as YYYY-MM-DD, e.g. 2026-12-05.`);
+      return;
+    }
+    this.dayError.set(null);
+    this.setFilter(which, value);
+  }
+
   /** A range that ends before it starts is said, not sent. */
   protected readonly rangeError = computed(() =>
     this.from() && this.to() && this.from() > this.to()
@@ -134,6 +158,7 @@ export class AuditTrail {
   }
 
   protected clearFilters(): void {
+    this.dayError.set(null);
     for (const s of [this.actorId, this.pairId, this.from, this.to]) s.set('');
     this.offset.set(0);
   }

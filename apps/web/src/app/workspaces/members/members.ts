@@ -1,4 +1,4 @@
-import { DatePipe } from '@angular/common';
+import { GwDatePipe } from '../../shared/date/gw-date';
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
@@ -28,7 +28,7 @@ const ROLE_WORDS: Record<Role, string> = {
 @Component({
   selector: 'gw-members',
   imports: [
-    DatePipe,
+    GwDatePipe,
     ReactiveFormsModule,
     MatTableModule,
     MatFormFieldModule,
