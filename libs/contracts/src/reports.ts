@@ -132,7 +132,7 @@ export interface ReportCascadeStep {
   readonly deltaG0Ev: number | null;
   readonly regime: string | null;
   readonly couplingRegime: string | null;
-  /** Integrated flux ∫k p dt (probability that the step is taken). */
+  /** Integrated flux ∫k p dt: expected number of times the step is taken (can exceed 1). */
   readonly flux: number;
   /** The step's provenance as a sentence: inputs with the units the user typed, or the rule. */
   readonly source: string;

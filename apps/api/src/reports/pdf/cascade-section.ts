@@ -13,6 +13,7 @@ import {
 } from '@gapwise/contracts';
 import { disconnectivityLayout, energyLevels, populationPaths } from '@gapwise/plots';
 import { COLORS, drawTable, type Cursor, type Doc } from './page-layout';
+import { FONT_REGULAR } from './fonts';
 import { drawAxes, SERIES_COLORS, strokePath, type Frame } from './plots';
 import { drawRich } from './rich-text';
 
@@ -84,8 +85,8 @@ export function drawCascade(cursor: Cursor, c: ReportCascadeSnapshot): void {
       { header: 'k (s⁻¹)', width: 0.12, align: 'right' },
       { header: 'ΔG° (eV)', width: 0.09, align: 'right' },
       { header: 'Regime', width: 0.1 },
-      { header: 'Flux', width: 0.08, align: 'right' },
-      { header: 'Source', width: 0.32 },
+      { header: 'Integrated flux', width: 0.11, align: 'right' },
+      { header: 'Source', width: 0.29 },
     ],
     c.steps.map((s) => [
       `${name(s.from)} → ${name(s.to)}`,
@@ -100,7 +101,8 @@ export function drawCascade(cursor: Cursor, c: ReportCascadeSnapshot): void {
   );
   cursor.gap(4);
   cursor.text(
-    'Flux: the integrated ∫k p dt of the step (the probability that it is taken). Reverse ET steps ' +
+    'Integrated flux: ∫k p dt of the step, the expected number of times it is taken (it can ' +
+      'exceed 1 when a step runs back and forth). Reverse ET steps ' +
       'follow from detailed balance; reverse steps slower than 10⁻¹⁰ of every given rate are left out.',
     { size: 8, color: COLORS.muted },
   );
@@ -170,22 +172,31 @@ function drawEnergyDiagram(doc: Doc, frame: Frame, c: ReportCascadeSnapshot): vo
     top: inner.y,
     bottom: 0,
   };
+  // One column per state, ground → excited → charge-separated → products, as the cascade page
+  // draws it: a step reads left to right and no two arrows share a column.
+  const order = Object.keys(STATE_KIND_TEXT);
+  const rank = (kind: string) => (order.includes(kind) ? order.indexOf(kind) : order.length);
+  const ordered = [...c.states].sort((a, b) => rank(a.kind) - rank(b.kind));
   const { levels } = energyLevels(
-    c.states.map((s) => ({ id: s.id, energy: s.energyEv })),
+    ordered.map((s) => ({ id: s.id, energy: s.energyEv })),
     box,
+    { columnPerState: true },
   );
   // energyLevels spans min(0, E) … max(E); map its y onto this frame's scale (hi has headroom).
   const span = hi - lo;
   const y = (e: number) => inner.y + (1 - (e - lo) / span) * inner.height;
-  const at = new Map(levels.map((l, i) => [l.id, { ...l, y: y(c.states[i].energyEv) }]));
+  const at = new Map(levels.map((l, i) => [l.id, { ...l, y: y(ordered[i]!.energyEv) }]));
   const maxFlux = Math.max(1e-12, ...c.steps.map((s) => s.flux));
   for (const s of c.steps) {
     if (s.type === 'detailedBalance') continue;
     const a = at.get(s.from);
     const b = at.get(s.to);
     if (!a || !b) continue;
-    const xa = (a.x1 + a.x2) / 2;
-    const xb = (b.x1 + b.x2) / 2;
+    // From the end of one level to the near end of the other (each state has its own column),
+    // so arrows leave the labels centred over the levels clear.
+    const rightward = a.x1 < b.x1;
+    const xa = rightward ? a.x2 : a.x1;
+    const xb = rightward ? b.x1 : b.x2;
     const color = s.type === 'fixed' ? COLORS.muted : COLORS.teal;
     const width = 0.5 + 2.5 * Math.sqrt(s.flux / maxFlux);
     doc.save();
@@ -203,7 +214,18 @@ function drawEnergyDiagram(doc: Doc, frame: Frame, c: ReportCascadeSnapshot): vo
   }
   for (const l of at.values()) {
     doc.moveTo(l.x1, l.y).lineTo(l.x2, l.y).lineWidth(1.6).strokeColor(COLORS.charcoal).stroke();
-    drawRich(doc, label(c, l.id), l.x1, l.y - 9, l.x2 - l.x1 + 20, { size: 6.5 });
+    // The label centred over its level across the whole column; a long one takes two lines
+    // and moves up so it never sits on the level or its arrows' heads.
+    const text = label(c, l.id);
+    const column = (box.width - box.left) / Math.max(1, at.size);
+    const centre = (l.x1 + l.x2) / 2;
+    doc.font(FONT_REGULAR).fontSize(6.5);
+    // Word wrapping loses some of each line: allow for it.
+    const lines = Math.min(3, Math.ceil((doc.widthOfString(text) * 1.2) / (column - 4)));
+    drawRich(doc, text, centre - column / 2 + 2, l.y - 2 - 8 * lines, column - 4, {
+      size: 6.5,
+      align: 'center',
+    });
   }
   drawRich(
     doc,
@@ -221,28 +243,48 @@ function label(c: ReportCascadeSnapshot, id: string): string {
 
 /** The disconnectivity tree: minima at their energies, joined at transition-state energies. */
 function drawLandscapeTree(doc: Doc, frame: Frame, c: ReportCascadeSnapshot): void {
+  if (c.tree.nodes.length === 0) return;
   const energies = c.tree.nodes.map((n) => n.energy);
   const lo = Math.min(...energies);
   const hi = Math.max(...energies);
-  const { inner } = energyFrame(doc, frame, 'Energy landscape tree', lo, hi);
+  // Room below the lowest minimum for its label (it would otherwise run into the footnote) and
+  // above the highest join for its energy.
+  const pad = 0.12 * (hi - lo || 1);
+  const { inner, y } = energyFrame(doc, frame, 'Energy landscape tree', lo - pad, hi + pad / 2);
+  // The layout maps lo … hi onto top … height − bottom; place that span on the frame's scale.
   const box = {
     width: inner.x + inner.width,
-    height: inner.y + inner.height,
+    height: y(lo),
     left: inner.x + 4,
     right: 0,
-    top: inner.y,
+    top: y(hi),
     bottom: 0,
   };
   const { points, segments } = disconnectivityLayout(c.tree.nodes, c.tree.roots, box);
+  // Edges: a vertical from each child up to the join's energy and the join's horizontal bar.
+  doc.save();
+  doc.lineCap('round');
   for (const s of segments) {
-    doc.moveTo(s.x1, s.y1).lineTo(s.x2, s.y2).lineWidth(1.2).strokeColor(COLORS.teal).stroke();
+    const bar = s.y1 === s.y2;
+    doc
+      .moveTo(s.x1, s.y1)
+      .lineTo(s.x2, s.y2)
+      .lineWidth(bar ? 2 : 1.2)
+      .strokeColor(bar ? COLORS.teal : COLORS.charcoal)
+      .stroke();
   }
+  doc.restore();
   for (const n of c.tree.nodes) {
     const p = points[n.id];
     if (!p) continue;
     if (n.kind === 'minimum') {
       doc.circle(p.x, p.y, 2).fill(COLORS.charcoal);
       drawRich(doc, label(c, n.id), p.x - 30, p.y + 3, 60, { size: 6.5, align: 'center' });
+    } else {
+      drawRich(doc, `${formatNumber(n.energy, 3)} eV`, p.x + 3, p.y - 9, 50, {
+        size: 6,
+        color: COLORS.muted,
+      });
     }
   }
   drawRich(
