@@ -82,7 +82,7 @@ describe('cascade reports in chromium', () => {
     const text = (await results.innerText()).replace(/\s+/g, ' ');
     for (const y of yields) {
       expect(text).toContain(y.label);
-      expect(text).toContain(formatNumber(y.value, 3));
+      expect(text).toContain(formatNumber(y.value, 3, true));
     }
     expect(await reviewer.locator('table[aria-label="States"] tbody tr').count()).toBe(
       report.snapshot.cascade!.states.length,

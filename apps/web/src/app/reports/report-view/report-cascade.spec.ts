@@ -130,9 +130,12 @@ describe('ReportCascade', () => {
     expect(el.textContent).toContain('No validity warnings for this cascade.');
   });
 
-  it('leaves out the interval when no uncertainty was stated', () => {
+  it('leaves out the interval when no uncertainty was stated; a yield keeps its three figures', () => {
     expect(cascadeValueText({ label: 'y', value: 0.5, unit: '', low: null, high: null })).toBe(
-      '0.5',
+      '0.500',
+    );
+    expect(cascadeValueText({ label: 'y', value: 0.99999, unit: '', low: null, high: null })).toBe(
+      '1.00',
     );
   });
 });

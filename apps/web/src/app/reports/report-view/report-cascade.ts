@@ -30,7 +30,8 @@ const STEP_TYPE_TEXT: Record<string, string> = {
  */
 export function cascadeValueText(v: ReportCascadeValue): string {
   const unit = v.unit ? ` ${v.unit}` : '';
-  const show = (x: number) => (v.unit === 's' ? formatScientific(x, 3) : formatNumber(x, 3));
+  // A yield keeps its trailing zeros (1.00, not 1: three figures are known either way).
+  const show = (x: number) => (v.unit === 's' ? formatScientific(x, 3) : formatNumber(x, 3, true));
   const main = `${show(v.value)}${unit}`;
   if (v.low === null || v.high === null) return main;
   return `${main} (95 % interval ${show(v.low)} to ${show(v.high)}${unit})`;
@@ -94,7 +95,7 @@ export function cascadeValueText(v: ReportCascadeValue): string {
           <tbody>
             @for (s of c.states; track s.id) {
               <tr [attr.data-state]="s.id">
-                <th scope="row">{{ s.label }}</th>
+                <th scope="row" class="state">{{ s.label }}</th>
                 <td>{{ kindText(s.kind) }}</td>
                 <td class="num">{{ energy(s.energyEv) }}</td>
                 <td class="provenance"><gw-rich-text [text]="s.source" /></td>
