@@ -9,6 +9,7 @@ import { Sessions1796700000000 } from './1796700000000-sessions';
 import { ReportTransitionSnapshots1796760000000 } from './1796760000000-report-transition-snapshots';
 import { ScreenScoreHbarOmega1796770000000 } from './1796770000000-screen-score-hbar-omega';
 import { Cascades1796800000000 } from './1796800000000-cascades';
+import { CascadeReports1796810000000 } from './1796810000000-cascade-reports';
 import { CascadeDesign1796815000000 } from './1796815000000-cascade-design';
 import { ElectrodeCases1796820000000 } from './1796820000000-electrode-cases';
 
@@ -25,6 +26,7 @@ export const migrations = [
   ReportTransitionSnapshots1796760000000,
   ScreenScoreHbarOmega1796770000000,
   Cascades1796800000000,
+  CascadeReports1796810000000,
   CascadeDesign1796815000000,
   ElectrodeCases1796820000000,
 ];

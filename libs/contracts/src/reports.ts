@@ -11,7 +11,7 @@ import type { PairStepResults, ParameterKind, Provenance, RateModel } from './pa
 export const REPORT_STATUSES = ['draft', 'submitted', 'changes-requested', 'approved'] as const;
 export type ReportStatus = (typeof REPORT_STATUSES)[number];
 
-export const REPORT_KINDS = ['pair', 'comparison'] as const;
+export const REPORT_KINDS = ['pair', 'comparison', 'cascade'] as const;
 export type ReportKind = (typeof REPORT_KINDS)[number];
 
 /** Review actions and the statuses they move between (draft → submitted → …). */
@@ -111,6 +111,80 @@ export interface ReportPairSnapshot {
   readonly log10Ratio?: number | null;
 }
 
+/** One state of a cascade as a report shows it. */
+export interface ReportCascadeState {
+  readonly id: string;
+  readonly label: string;
+  readonly kind: string;
+  /** Free energy, eV (the ground state at 0). */
+  readonly energyEv: number;
+  /** How the energy was given, as a sentence ("E₀₀ typed as 590 nm", "typed as 1.8 eV"). */
+  readonly source: string;
+}
+
+/** One directed step of a cascade: its rate and where it comes from. */
+export interface ReportCascadeStep {
+  readonly from: string;
+  readonly to: string;
+  /** `fixed` (a given rate or lifetime), `electronTransfer`, `detailedBalance` (reverse). */
+  readonly type: 'fixed' | 'electronTransfer' | 'detailedBalance';
+  readonly k: number;
+  readonly deltaG0Ev: number | null;
+  readonly regime: string | null;
+  readonly couplingRegime: string | null;
+  /** Integrated flux ∫k p dt: expected number of times the step is taken (can exceed 1). */
+  readonly flux: number;
+  /** The step's provenance as a sentence: inputs with the units the user typed, or the rule. */
+  readonly source: string;
+}
+
+/** A yield, lifetime or other number of a cascade, with its Monte Carlo interval when known. */
+export interface ReportCascadeValue {
+  readonly label: string;
+  readonly value: number;
+  readonly unit: string;
+  /** 2.5 % and 97.5 % points over the stated uncertainties, or null (none stated). */
+  readonly low: number | null;
+  readonly high: number | null;
+}
+
+/** Everything a cascade report shows (issue 17). */
+export interface ReportCascadeSnapshot {
+  readonly cascadeId: string;
+  readonly cascadeVersion: number;
+  readonly name: string;
+  readonly notes: string;
+  readonly temperatureK: number;
+  readonly states: readonly ReportCascadeState[];
+  readonly steps: readonly ReportCascadeStep[];
+  /** Final-state yields, formation yields and lifetimes, with intervals. */
+  readonly yields: readonly ReportCascadeValue[];
+  readonly lifetimes: readonly ReportCascadeValue[];
+  readonly dominantPathway: readonly string[];
+  /** Populations on the log time grid, for the population plot. */
+  readonly times: readonly number[];
+  readonly populations: Readonly<Record<string, readonly number[]>>;
+  /** The landscape: transition states of the ET steps and the disconnectivity tree. */
+  readonly transitionStates: ReadonlyArray<{
+    readonly from: string;
+    readonly to: string;
+    readonly energyEv: number;
+  }>;
+  readonly tree: {
+    readonly nodes: ReadonlyArray<{
+      readonly id: string;
+      readonly kind: 'minimum' | 'join';
+      readonly energy: number;
+      readonly children: readonly string[];
+    }>;
+    readonly roots: readonly string[];
+  };
+  /** How the intervals were obtained, or why there are none. */
+  readonly monteCarlo: { readonly samples: number; readonly seed: number } | null;
+  readonly monteCarloNote: string;
+  readonly warnings: ReadonlyArray<{ readonly code: string; readonly message: string }>;
+}
+
 export interface ReportSnapshot {
   readonly schema: 1;
   readonly kind: ReportKind;
@@ -123,6 +197,8 @@ export interface ReportSnapshot {
   /** Physical constants' standard, e.g. `CODATA 2018`. */
   readonly constants: string;
   readonly pairs: readonly ReportPairSnapshot[];
+  /** A cascade report's network (kind `cascade`; `pairs` is then empty). */
+  readonly cascade?: ReportCascadeSnapshot;
   readonly methods: readonly ReportMethod[];
   /** The "limits of this estimate" note, as printed. */
   readonly limitsNote: string;
@@ -250,6 +326,7 @@ export interface ReportListItem {
 /** Body of `POST /api/workspaces/:wid/reports`: one pair, or several for a comparison. */
 export type ReportCreate =
   | { readonly pairId: string; readonly title?: string }
+  | { readonly cascadeId: string; readonly title?: string }
   | { readonly pairIds: readonly string[]; readonly title?: string };
 
 export interface ReportCommentCreate {

@@ -10,6 +10,10 @@ import { computePairResults } from '@gapwise/contracts';
 import type { Pair, ReportReviewState } from '@gapwise/contracts';
 import { renderReportPdf } from '../reports/pdf/render-report';
 import {
+  buildCascadeReportSnapshot,
+  type CascadeForReport,
+} from '../reports/cascade-report-snapshot';
+import {
   buildReportSnapshot,
   snapshotIdOf,
   type SnapshotContext,
@@ -49,6 +53,11 @@ export const computeTasks = {
   /** Report creation and revision: the frozen snapshot (Monte Carlo included) and its hash. */
   reportSnapshot: (context: SnapshotContext, pairs: readonly Pair[]) => {
     const snapshot = buildReportSnapshot(context, pairs);
+    return { snapshot, snapshotId: snapshotIdOf(snapshot) };
+  },
+  /** A cascade report's frozen snapshot (full network, Monte Carlo of yields) and its hash. */
+  cascadeReportSnapshot: (context: SnapshotContext, cascade: CascadeForReport) => {
+    const snapshot = buildCascadeReportSnapshot(context, cascade);
     return { snapshot, snapshotId: snapshotIdOf(snapshot) };
   },
   /** A report's PDF (layout, plots, embedded fonts). A Buffer crosses threads as a Uint8Array. */

@@ -10,8 +10,15 @@ import {
 } from 'class-validator';
 import { NotBlank } from '../workspaces/workspace-dto';
 
-/** `POST /workspaces/:wid/reports`: `pairId` for one pair, or `pairIds` (2–50) for a comparison. */
+/**
+ * `POST /workspaces/:wid/reports`: `pairId` for one pair, `pairIds` (2–50) for a comparison, or
+ * `cascadeId` for a cascade (a network of states, issue 17).
+ */
 export class ReportCreateDto {
+  @IsOptional()
+  @IsUUID('all', { message: 'cascadeId must be a cascade id' })
+  cascadeId?: string;
+
   @IsOptional()
   @IsUUID('all', { message: 'pairId must be a pair id' })
   pairId?: string;

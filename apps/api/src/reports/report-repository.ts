@@ -21,6 +21,8 @@ export interface ReportRow {
   readonly authorId: string | null;
   readonly authorName: string;
   readonly pairIds: string[];
+  /** A cascade report's cascade (null otherwise, or once the cascade is deleted). */
+  readonly cascadeId: string | null;
   readonly snapshot: ReportSnapshot;
   readonly snapshotId: string;
   readonly revision: number;
@@ -32,7 +34,7 @@ export interface ReportRow {
 const iso = (v: unknown) => (v instanceof Date ? v.toISOString() : String(v));
 
 const SELECT_REPORT = `
-  SELECT r.id, r.workspace_id, r.kind, r.title, r.status, r.author_id, r.pair_ids, r.snapshot,
+  SELECT r.id, r.workspace_id, r.kind, r.title, r.status, r.author_id, r.pair_ids, r.cascade_id, r.snapshot,
          r.snapshot_id, r.revision, r.pdf_key, r.created_at, r.updated_at,
          COALESCE(u.display_name, 'former member') AS author_name, w.name AS workspace_name
     FROM reports r
@@ -49,6 +51,7 @@ function toRow(r: any): ReportRow {
     authorId: r.author_id,
     authorName: r.author_name,
     pairIds: r.pair_ids ?? [],
+    cascadeId: r.cascade_id ?? null,
     snapshot: r.snapshot,
     snapshotId: r.snapshot_id,
     revision: r.revision,
@@ -95,14 +98,17 @@ export interface NewReport {
   readonly title: string;
   readonly authorId: string;
   readonly pairIds: readonly string[];
+  /** A cascade report's cascade and the version frozen. */
+  readonly cascade?: { readonly id: string; readonly version: number };
   readonly snapshot: ReportSnapshot;
   readonly snapshotId: string;
 }
 
 export async function insertReport(db: EntityManager, r: NewReport): Promise<string> {
   const rows = await db.query(
-    `INSERT INTO reports (workspace_id, kind, title, status, author_id, pair_ids, snapshot, snapshot_id)
-     VALUES ($1, $2, $3, 'draft', $4, $5, $6, $7) RETURNING id`,
+    `INSERT INTO reports (workspace_id, kind, title, status, author_id, pair_ids, snapshot, snapshot_id,
+                          cascade_id, cascade_version)
+     VALUES ($1, $2, $3, 'draft', $4, $5, $6, $7, $8, $9) RETURNING id`,
     [
       r.workspaceId,
       r.kind,
@@ -111,6 +117,8 @@ export async function insertReport(db: EntityManager, r: NewReport): Promise<str
       r.pairIds,
       JSON.stringify(r.snapshot),
       r.snapshotId,
+      r.cascade?.id ?? null,
+      r.cascade?.version ?? null,
     ],
   );
   return rows[0].id;

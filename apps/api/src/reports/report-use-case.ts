@@ -28,6 +28,8 @@ import { isUuid } from '../http/validate';
 import { recordAudit } from '../audit/audit-repository';
 import { insertOutbox } from '../mail/outbox-repository';
 import { findPair } from '../pairs/pair-repository';
+import { CascadeEntity } from '@gapwise/db';
+import type { CascadeForReport } from './cascade-report-snapshot';
 import { requireRole } from '../workspaces/workspace-access';
 import { reportPdfKey, type ReportPdfStore } from './report-pdf-store';
 import * as repo from './report-repository';
@@ -222,6 +224,126 @@ export async function createReport(
   return readReport(db, userId, id);
 }
 
+export interface CreateCascadeReportInput {
+  readonly cascadeId: string;
+  readonly title?: string;
+}
+
+const CASCADE_REPORT_ADVICE =
+  'Make the cascade smaller (fewer states or links), or state fewer uncertainties.';
+
+/** The cascade of a workspace at its current version; 400 naming `cascadeId` otherwise. */
+async function loadCascade(
+  db: EntityManager,
+  workspaceId: string,
+  cascadeId: string | null,
+  lock = false,
+): Promise<CascadeForReport> {
+  const row =
+    cascadeId && isUuid(cascadeId)
+      ? await db.getRepository(CascadeEntity).findOne({
+          where: { id: cascadeId },
+          ...(lock ? { lock: { mode: 'pessimistic_write' as const } } : {}),
+        })
+      : null;
+  if (!row || row.workspaceId !== workspaceId) {
+    throw validationFailed([{ field: 'cascadeId', message: 'no such cascade in this workspace' }]);
+  }
+  return {
+    id: row.id,
+    version: row.version,
+    name: row.name,
+    notes: row.notes,
+    network: row.network,
+  };
+}
+
+/** Inside the writing transaction: the cascade must still be at the version frozen (else 409). */
+async function requireSameCascade(tx: EntityManager, cascade: CascadeForReport): Promise<void> {
+  const now = await tx
+    .getRepository(CascadeEntity)
+    .findOne({ where: { id: cascade.id }, lock: { mode: 'pessimistic_write' } });
+  if (!now || now.version !== cascade.version) {
+    throw conflict(
+      'cascade-changed',
+      `Cascade "${cascade.name}" changed while the report was being computed; try again.`,
+    );
+  }
+}
+
+/** The cascade snapshot computed in the pool (full network, Monte Carlo), before any transaction. */
+async function freezeCascade(
+  deps: ReportDeps,
+  title: string,
+  workspaceId: string,
+  authorId: string,
+  authorName: string,
+  cascade: CascadeForReport,
+) {
+  const context = {
+    kind: 'cascade' as const,
+    title,
+    workspace: {
+      id: workspaceId,
+      name: await repo.workspaceName(deps.dataSource.manager, workspaceId),
+    },
+    author: { id: authorId, displayName: authorName },
+    createdAt: new Date().toISOString(),
+    softwareVersion: softwareVersion(),
+  };
+  return deps.compute.run('cascadeReportSnapshot', [context, cascade], {
+    budget: 'interactive',
+    advice: CASCADE_REPORT_ADVICE,
+  });
+}
+
+/** A report of a cascade at its current version (kind `cascade`); same review as pair reports. */
+export async function createCascadeReport(
+  deps: ReportDeps,
+  userId: string,
+  workspaceId: string,
+  input: CreateCascadeReportInput,
+): Promise<ReportView> {
+  const db = deps.dataSource;
+  await requireRole(db.manager, workspaceId, userId, canEdit);
+  const cascade = await loadCascade(db.manager, workspaceId, input.cascadeId);
+  const me = await repo.userContact(db.manager, userId);
+  const title = input.title?.trim() || `${cascade.name}: yields and lifetimes of the cascade`;
+  const { snapshot, snapshotId } = await freezeCascade(
+    deps,
+    title,
+    workspaceId,
+    userId,
+    me?.displayName ?? '',
+    cascade,
+  );
+  const id = await db.transaction(async (tx) => {
+    await requireSameCascade(tx, cascade);
+    const reportId = await repo.insertReport(tx, {
+      workspaceId,
+      kind: 'cascade',
+      title,
+      authorId: userId,
+      pairIds: [],
+      cascade: { id: cascade.id, version: cascade.version },
+      snapshot,
+      snapshotId,
+    });
+    await repo.insertTransition(tx, reportId, null, 'draft', userId, null, snapshotId);
+    await recordAudit(tx, {
+      workspaceId,
+      actorId: userId,
+      action: 'report.create',
+      entityType: 'report',
+      entityId: reportId,
+      summary: `Report "${title}" created from cascade ${cascade.name} v${cascade.version}`,
+      after: { snapshotId, cascade: { id: cascade.id, version: cascade.version } },
+    });
+    return reportId;
+  });
+  return readReport(db, userId, id);
+}
+
 export async function readReport(
   db: DataSource,
   userId: string,
@@ -389,6 +511,39 @@ export async function reviseReport(
     }
   };
   revisable(seen);
+  if (seen.kind === 'cascade') {
+    // The cascade at its current version, frozen in the pool before the transaction.
+    const cascade = await loadCascade(db.manager, seen.workspaceId, seen.cascadeId);
+    const frozenCascade = await freezeCascade(
+      deps,
+      seen.title,
+      seen.workspaceId,
+      seen.authorId ?? userId,
+      seen.authorName,
+      cascade,
+    );
+    await db.transaction(async (tx) => {
+      const report = await repo.findReport(tx, reportId, true);
+      if (!report) throw notFound('report');
+      revisable(report);
+      await requireSameCascade(tx, cascade);
+      await repo.replaceSnapshot(tx, reportId, frozenCascade.snapshot, frozenCascade.snapshotId);
+      await recordAudit(tx, {
+        workspaceId: report.workspaceId,
+        actorId: userId,
+        action: 'report.revise',
+        entityType: 'report',
+        entityId: reportId,
+        summary: `Report "${report.title}" revised from cascade ${cascade.name} v${cascade.version}`,
+        before: { snapshotId: report.snapshotId },
+        after: {
+          snapshotId: frozenCascade.snapshotId,
+          cascade: { id: cascade.id, version: cascade.version },
+        },
+      });
+    });
+    return readReport(db, userId, reportId);
+  }
   // Read and computed before the transaction opens: no transaction waits on the calculation.
   const pairs = await loadPairs(db.manager, seen.workspaceId, seen.pairIds);
   const { snapshot, snapshotId } = await freeze(

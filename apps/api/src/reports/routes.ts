@@ -10,6 +10,7 @@ import type { ReportPdfStore } from './report-pdf-store';
 import type { ReportListQuery } from './report-repository';
 import {
   commentOnReport,
+  createCascadeReport,
   createReport,
   deleteReportUseCase,
   listWorkspaceReports,
@@ -53,10 +54,23 @@ export function registerReportRoutes(
 
   router.post('/workspaces/:wid/reports', requireAuth, async (req, res) => {
     const dto = parseBody(ReportCreateDto, req.body);
-    if ((dto.pairId === undefined) === (dto.pairIds === undefined)) {
+    const subjects = [dto.pairId, dto.pairIds, dto.cascadeId].filter((x) => x !== undefined);
+    if (subjects.length !== 1) {
       throw validationFailed([
-        { field: 'pairId', message: 'give either pairId (one pair) or pairIds (a comparison)' },
+        {
+          field: 'pairId',
+          message: 'give one of pairId (one pair), pairIds (a comparison) or cascadeId (a cascade)',
+        },
       ]);
+    }
+    if (dto.cascadeId !== undefined) {
+      res.status(201).json(
+        await createCascadeReport(deps, userIdOf(req), String(req.params['wid']), {
+          cascadeId: dto.cascadeId,
+          title: dto.title,
+        }),
+      );
+      return;
     }
     const pairIds = dto.pairId ? [dto.pairId] : [...new Set(dto.pairIds)];
     if (dto.pairIds && pairIds.length < 2) {

@@ -27,7 +27,7 @@ import { COLORS, type Cursor, type Doc } from './page-layout';
 import { drawRich, measureRich } from './rich-text';
 import { inputValue, primaryResult, sourceOf, totalLambda } from './report-text';
 
-interface Frame {
+export interface Frame {
   readonly x: number;
   readonly y: number;
   readonly width: number;
@@ -40,7 +40,7 @@ interface Axes {
   readonly inner: Frame;
 }
 
-const SERIES_COLORS = [
+export const SERIES_COLORS = [
   COLORS.teal,
   COLORS.product,
   COLORS.reactant,
@@ -112,7 +112,7 @@ function drawLegend(doc: Doc, x0: number, y0: number, width: number, items: read
  * Frame with title, legend (above the data area), axes, ticks, grid and labels; returns the
  * scales of the inner plotting area.
  */
-function drawAxes(
+export function drawAxes(
   doc: Doc,
   frame: Frame,
   xDomain: readonly [number, number],
@@ -198,7 +198,7 @@ function clipTo(doc: Doc, inner: Frame): void {
   doc.rect(inner.x, inner.y, inner.width, inner.height).clip();
 }
 
-function strokePath(doc: Doc, d: string, color: string, width = 1.4, dash?: number): void {
+export function strokePath(doc: Doc, d: string, color: string, width = 1.4, dash?: number): void {
   if (!d) return;
   doc.save();
   if (dash) doc.dash(dash, { space: dash * 0.8 });

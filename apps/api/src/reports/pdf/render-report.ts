@@ -23,6 +23,7 @@ import { FONT_REGULAR, FONT_SEMIBOLD, reportFonts } from './fonts';
 import { COLORS, Cursor, PAGE, drawNote, drawTable, type Doc } from './page-layout';
 import { drawRich, measureRich } from './rich-text';
 import { drawComparisonPlot, drawMonteCarlo, drawPairPlots } from './plots';
+import { cascadeValueText, drawCascade } from './cascade-section';
 import {
   comparisonRow,
   hasUncertainties,
@@ -81,6 +82,7 @@ export async function renderReportPdf(
   drawTitleBlock(cursor, snapshot, review);
   if (snapshot.kind === 'comparison') drawComparison(cursor, snapshot);
   for (const pair of snapshot.pairs) drawPair(cursor, snapshot, pair);
+  if (snapshot.cascade) drawCascade(cursor, snapshot.cascade);
   drawMethods(cursor, snapshot);
   drawWarnings(cursor, snapshot);
   cursor.heading('Limits of this estimate', 40);
@@ -102,7 +104,9 @@ function drawTitleBlock(cursor: Cursor, snapshot: ReportSnapshot, review: Report
   const kindLine =
     snapshot.kind === 'comparison'
       ? 'GAPWISE · COMPARISON REPORT'
-      : 'GAPWISE · ELECTRON-TRANSFER RATE REPORT';
+      : snapshot.kind === 'cascade'
+        ? 'GAPWISE · CASCADE REPORT (MULTI-STEP ELECTRON TRANSFER)'
+        : 'GAPWISE · ELECTRON-TRANSFER RATE REPORT';
   drawRich(doc, kindLine, cursor.left, cursor.y, cursor.width, {
     size: 8,
     bold: true,
@@ -136,6 +140,12 @@ function drawTitleBlock(cursor: Cursor, snapshot: ReportSnapshot, review: Report
     meta.push(['Medium', single.medium || '—']);
     meta.push(['Temperature', `${formatNumber(single.temperatureK, 5)} K`]);
     meta.push(['Rate model', modelName(single.model)]);
+  } else if (snapshot.cascade) {
+    const c = snapshot.cascade;
+    meta.push(['Cascade', `${c.name}, version ${c.cascadeVersion}`]);
+    meta.push(['States and steps', `${c.states.length} states, ${c.steps.length} directed steps`]);
+    meta.push(['Temperature', `${formatNumber(c.temperatureK, 5)} K`]);
+    if (c.notes) meta.push(['Notes', c.notes]);
   } else {
     meta.push(['Pairs', snapshot.pairs.map((p) => `${p.name} (v${p.pairVersion})`).join(', ')]);
   }
@@ -161,6 +171,15 @@ function drawTitleBlock(cursor: Cursor, snapshot: ReportSnapshot, review: Report
         `regime: ${formatRegime(r.regime)}${r.couplingRegime ? `; coupling regime: ${formatRegime(r.couplingRegime)}` : ''}${r.warnings.length > 0 ? `; ${r.warnings.length} warning(s), see below` : ''}.`
       : `No rate: ${r?.reason ?? 'the chosen model does not apply to these inputs'}.`;
     drawNote(cursor, `Result (${modelName(single.model)})`, body, COLORS.tealLight, COLORS.teal);
+  }
+  if (snapshot.cascade) {
+    const c = snapshot.cascade;
+    const key = [...c.yields.filter((v) => v.label.startsWith('Formation')), ...c.lifetimes];
+    const body =
+      key.length > 0
+        ? `${key.map((v) => `${v.label}: ${cascadeValueText(v)}`).join('; ')}.`
+        : `${c.yields.map((v) => `${v.label}: ${cascadeValueText(v)}`).join('; ')}.`;
+    drawNote(cursor, 'Key results', body, COLORS.tealLight, COLORS.teal);
   }
 }
 
@@ -315,6 +334,11 @@ function drawWarnings(cursor: Cursor, snapshot: ReportSnapshot): void {
       cursor.text(`⚠ ${w.message}`, { size: 9, color: COLORS.amber });
       cursor.gap(2);
     }
+  }
+  for (const w of snapshot.cascade?.warnings ?? []) {
+    any = true;
+    cursor.text(`⚠ ${w.message}`, { size: 9, color: COLORS.amber });
+    cursor.gap(2);
   }
   if (!any) cursor.text('No validity warnings for these inputs.', { size: 9, color: COLORS.muted });
 }

@@ -42,6 +42,12 @@ export class ReportsApi {
     return this.http.post<ReportView>(`/api/workspaces/${workspaceId}/reports`, body);
   }
 
+  /** A cascade report: the cascade's current version frozen with its yields and lifetimes. */
+  createForCascade(workspaceId: string, cascadeId: string): Observable<ReportView> {
+    const body = { cascadeId };
+    return this.http.post<ReportView>(`/api/workspaces/${workspaceId}/reports`, body);
+  }
+
   decide(id: string, action: ReportAction, note: string): Observable<ReportView> {
     return this.http.post<ReportView>(`/api/reports/${id}/${action}`, note.trim() ? { note } : {});
   }

@@ -25,6 +25,7 @@ import {
   rateTable,
   reachProbability,
   relaxationModes,
+  TransientFactor,
   type RateLink,
 } from './master-equation';
 
@@ -222,6 +223,19 @@ function indexRates(states: readonly NetworkState[], rates: readonly NetworkRate
     .map((r) => ({ from: position.get(r.from)!, to: position.get(r.to)!, kPerS: r.k }));
 }
 
+/** ln k of a link forward and (ET steps) in reverse by detailed balance, as `networkRates`. */
+function linkLnK(
+  states: readonly NetworkState[],
+  link: NetworkLink,
+  temperatureK: number,
+): { forward: number; reverse?: number } {
+  if (link.type === 'fixed') return { forward: Math.log(link.kPerS) };
+  const gFrom = states[link.from].energyEv;
+  const gTo = states[link.to].energyEv;
+  const forward = electronTransferLnK(link, gTo - gFrom, temperatureK);
+  return { forward, reverse: detailedBalanceReverseLnK(forward, gFrom, gTo, temperatureK) };
+}
+
 /** Yields only: the part Monte Carlo and the sensitivity repeat. */
 export interface NetworkYields {
   readonly rates: NetworkRate[];
@@ -230,12 +244,15 @@ export interface NetworkYields {
   readonly formationYields: number[];
   readonly occupationS: number[];
   readonly transient: boolean[];
+  /** The GTH factor of −K_TT, reused for the relaxation modes. */
+  readonly factor: TransientFactor;
 }
 
 export function networkYields(inputs: NetworkInputs): NetworkYields {
   const rates = networkRates(inputs);
   const table = rateTable(inputs.states.length, indexRates(inputs.states, rates));
-  const absorption = absorb(table, inputs.initial);
+  const factor = new TransientFactor(table);
+  const absorption = absorb(table, inputs.initial, factor);
   const formationYields = absorption.reached;
   return {
     rates,
@@ -244,6 +261,7 @@ export function networkYields(inputs: NetworkInputs): NetworkYields {
     formationYields,
     occupationS: absorption.occupationS,
     transient: absorption.transient,
+    factor,
   };
 }
 
@@ -340,9 +358,27 @@ function defaultTarget(
  * 1e-3): the change of the target's formation yield per relative change of the input.
  */
 export function yieldSensitivity(inputs: NetworkInputs, target: number) {
-  const yieldOf = (links: NetworkLink[]) => {
-    const rates = networkRates({ ...inputs, links });
-    const table = rateTable(inputs.states.length, indexRates(inputs.states, rates));
+  // Only the varied link's two rates change: the other links' ln k are computed once, and each
+  // varied request rebuilds the table from numbers (the rule of `networkRates` for negligible
+  // reverses applied again, since the slowest forward rate may move).
+  const { states, temperatureK } = inputs;
+  const n = states.length;
+  const perLink = inputs.links.map((link) => linkLnK(states, link, temperatureK));
+  const yieldOf = (index: number, varied: { forward: number; reverse?: number }) => {
+    let slowest = Infinity;
+    perLink.forEach(
+      (k, i) => (slowest = Math.min(slowest, i === index ? varied.forward : k.forward)),
+    );
+    const table = Array.from({ length: n }, () => new Array<number>(n).fill(0));
+    inputs.links.forEach((link, i) => {
+      const k = i === index ? varied : perLink[i];
+      if (link.from !== link.to) table[link.from][link.to] += Math.exp(k.forward);
+      if (k.reverse !== undefined && link.from !== link.to) {
+        const reverse = Math.exp(k.reverse);
+        if (!(reverse < NEGLIGIBLE_REVERSE * Math.exp(slowest)))
+          table[link.to][link.from] += reverse;
+      }
+    });
     return reachProbability(table, inputs.initial, target);
   };
   const entries: {
@@ -358,9 +394,7 @@ export function yieldSensitivity(inputs: NetworkInputs, target: number) {
     for (const parameter of ['lambda', 'coupling'] as const) {
       const key = parameter === 'lambda' ? 'lambdaEv' : 'couplingEv';
       const at = (factor: number) =>
-        yieldOf(
-          inputs.links.map((l, i) => (i === index ? { ...link, [key]: link[key] * factor } : l)),
-        );
+        yieldOf(index, linkLnK(states, { ...link, [key]: link[key] * factor }, temperatureK));
       const up = at(Math.exp(SENSITIVITY_STEP));
       const down = at(Math.exp(-SENSITIVITY_STEP));
       entries.push({
@@ -388,7 +422,7 @@ export function computeNetwork(inputs: NetworkInputs, sink: WarningSink) {
   const solved = networkYields(inputs);
   const { rates, table, occupationS, transient } = solved;
   warnSteps(inputs, rates, sink);
-  const { modes, order } = relaxationModes(table, transient);
+  const { modes, order } = relaxationModes(table, transient, solved.factor);
   // A state's lifetime: the slowest relaxation mode in which it takes part (|shape| ≥ 0.05).
   const lifetimes: (number | undefined)[] = states.map((_, i) => {
     const row = order.indexOf(i);

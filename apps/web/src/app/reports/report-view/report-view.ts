@@ -47,6 +47,7 @@ import { ReportsApi } from '../reports-api';
 import { ReportStatusChip } from '../report-status-chip';
 import { RichText } from '../../shared/rich-text/rich-text';
 import { ProvenanceSentence } from '../../shared/provenance-sentence/provenance-sentence';
+import { ReportCascade } from './report-cascade';
 
 interface Thread {
   readonly comment: ReportCommentView;
@@ -69,6 +70,7 @@ interface Thread {
     TemperaturePlot,
     RichText,
     ProvenanceSentence,
+    ReportCascade,
   ],
   templateUrl: './report-view.html',
   styleUrl: '../reports.scss',
