@@ -28,6 +28,8 @@ import {
   WorkspaceDeletionEntity,
   CascadeEntity,
   CascadeVersionEntity,
+  MaterialEntity,
+  MaterialVersionEntity,
 } from './entities/index';
 import { migrations } from './migrations/index';
 
@@ -60,6 +62,8 @@ export const entities = [
   WorkspaceDeletionEntity,
   CascadeEntity,
   CascadeVersionEntity,
+  MaterialEntity,
+  MaterialVersionEntity,
 ];
 
 /** Development database of docker-free-scripts/postgres-start.sh. */

@@ -25,3 +25,5 @@ export { ReportTransitionEntity } from './report-transition';
 export { WorkspaceDeletionEntity } from './workspace-deletion';
 export { CascadeEntity } from './cascade';
 export { CascadeVersionEntity } from './cascade-version';
+export { MaterialEntity } from './material';
+export { MaterialVersionEntity } from './material-version';

@@ -9,6 +9,7 @@ import { Sessions1796700000000 } from './1796700000000-sessions';
 import { ReportTransitionSnapshots1796760000000 } from './1796760000000-report-transition-snapshots';
 import { ScreenScoreHbarOmega1796770000000 } from './1796770000000-screen-score-hbar-omega';
 import { Cascades1796800000000 } from './1796800000000-cascades';
+import { Materials1796830000000 } from './1796830000000-materials';
 
 /** Every migration, in order (listed explicitly; see STACK.md). */
 export const migrations = [
@@ -23,4 +24,5 @@ export const migrations = [
   ReportTransitionSnapshots1796760000000,
   ScreenScoreHbarOmega1796770000000,
   Cascades1796800000000,
+  Materials1796830000000,
 ];

@@ -17,6 +17,7 @@ import { DEMO_LAB, DEMO_MEDIATORS, seedDemo } from '../../apps/api/src/seed/demo
 import { seedDemoReport } from '../../apps/api/src/reports/demo-report-seed';
 import { seedDemoScreensAndSeries } from '../../apps/api/src/screens/demo-screen-seed';
 import { seedDemoCascades } from '../../apps/api/src/cascades/demo-cascade-seed';
+import { seedDemoMaterials } from '../../apps/api/src/materials/demo-material-seed';
 import { seedDemoTraces } from '../../apps/api/src/traces/demo-trace-seed';
 import { TraceObjectStore } from '../../apps/api/src/traces/trace-object-store';
 import { loadObjectStoreConfig } from '../../apps/api/src/config';
@@ -129,6 +130,10 @@ export default async function setup(project: TestProject) {
         editorEmail: 'editor@gapwise.test',
       });
       await seedDemoCascades(dataSource, { labName: DEMO_LAB, editorEmail: 'editor@gapwise.test' });
+      await seedDemoMaterials(dataSource, {
+        labName: DEMO_LAB,
+        editorEmail: 'editor@gapwise.test',
+      });
       // The demo traces go into this run's S3 store (started above), as npm start's seed does.
       const traceStore = new TraceObjectStore(
         loadObjectStoreConfig({ S3_ENDPOINT: store.endpoint, S3_BUCKET: store.bucket }),

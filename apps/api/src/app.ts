@@ -26,6 +26,7 @@ import { registerScreenRoutes } from './screens/routes';
 import { registerTraceRoutes } from './traces/routes';
 import { registerSeriesRoutes } from './series/routes';
 import { registerCascadeRoutes } from './cascades/routes';
+import { registerMaterialRoutes } from './materials/routes';
 import { registerTokenRoutes } from './tokens/routes';
 import { registerWorkspaceRoutes } from './workspaces/routes';
 import { serveWeb } from './web/serve-web';
@@ -88,6 +89,7 @@ export function createApiRouter(deps: AppDeps): Router {
   registerTraceRoutes(router, deps);
   registerSeriesRoutes(router, deps);
   registerCascadeRoutes(router, deps);
+  registerMaterialRoutes(router, deps);
   return router;
 }
 

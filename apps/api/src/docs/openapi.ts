@@ -10,6 +10,7 @@ import { REPORT_SCHEMAS } from '../reports/report-route-docs';
 import { TRACE_SCHEMAS } from '../traces/trace-route-docs';
 import { SCREEN_SCHEMAS } from '../screens/screen-route-docs';
 import { CASCADE_SCHEMAS } from '../cascades/cascade-route-docs';
+import { MATERIAL_SCHEMAS } from '../materials/material-route-docs';
 import { nullable, num, obj, ref, str, type Schema } from './schema';
 
 const role = { type: 'string', enum: [...ROLES] };
@@ -250,6 +251,7 @@ const SCHEMAS: Record<string, Schema> = {
   ...TRACE_SCHEMAS,
   ...SCREEN_SCHEMAS,
   ...CASCADE_SCHEMAS,
+  ...MATERIAL_SCHEMAS,
 };
 
 const ERROR_TEXT: Record<number, string> = {

@@ -2,6 +2,7 @@ import { REPORT_ROUTE_DOCS } from '../reports/report-route-docs';
 import { TRACE_ROUTE_DOCS } from '../traces/trace-route-docs';
 import { SCREEN_ROUTE_DOCS } from '../screens/screen-route-docs';
 import { CASCADE_ROUTE_DOCS } from '../cascades/cascade-route-docs';
+import { MATERIAL_ROUTE_DOCS } from '../materials/material-route-docs';
 /** One documented route; `path` is written as Express mounts it (under /api). */
 export interface RouteDoc {
   readonly method: 'get' | 'post' | 'put' | 'patch' | 'delete';
@@ -582,4 +583,5 @@ export const ROUTE_DOCS: readonly RouteDoc[] = [
   ...TRACE_ROUTE_DOCS,
   ...SCREEN_ROUTE_DOCS,
   ...CASCADE_ROUTE_DOCS,
+  ...MATERIAL_ROUTE_DOCS,
 ];
