@@ -79,6 +79,12 @@ export const routes: Routes = [
               import('./pairs/version-history/version-history').then((m) => m.VersionHistory),
           },
           {
+            path: 'pairs/:pairId/solvents',
+            title: 'Solvent choice · Gapwise',
+            loadComponent: () =>
+              import('./pairs/solvent-choice/solvent-choice').then((m) => m.SolventChoice),
+          },
+          {
             path: 'reports',
             title: 'Reports · Gapwise',
             loadComponent: () =>
@@ -114,6 +120,11 @@ export const routes: Routes = [
           {
             path: 'series',
             loadChildren: () => import('./series/series.routes').then((m) => m.seriesRoutes),
+          },
+          {
+            path: 'materials',
+            loadChildren: () =>
+              import('./materials/materials.routes').then((m) => m.materialRoutes),
           },
           {
             path: 'members',
