@@ -20,8 +20,8 @@ export function sigmaOf(summary: MonteCarloSummary | undefined): number | null {
 export function headline(results: MaterialResults): { diffusion: string; mobility: string } {
   const mc = results.monteCarlo;
   return {
-    diffusion: formatMeasured(results.diffusion, sigmaOf(mc?.diffusion), 'cm2 s-1'),
-    mobility: formatMeasured(results.mobility, sigmaOf(mc?.mobility), 'cm2 V-1 s-1'),
+    diffusion: `${formatMeasured(results.diffusion, sigmaOf(mc?.diffusion))} cm² s⁻¹`,
+    mobility: `${formatMeasured(results.mobility, sigmaOf(mc?.mobility))} cm² V⁻¹ s⁻¹`,
   };
 }
 
