@@ -45,13 +45,26 @@ function marcus(J: number, lambda: number, T: number) {
     Math.exp(-lambda / (4 * kT))
   );
 }
-/** The number in "1.23e-4 cm² …" or "0.0123 ± 0.0010 …" as shown (first number). */
-const first = (text: string) =>
-  Number(
-    /[-−]?\d+(?:\.\d+)?(?:e[-−+]?\d+)?(?:\s*×\s*10[-−⁰¹²³⁴⁵⁶⁷⁸⁹]+)?/
-      .exec(text)![0]
-      .replace(/−/g, '-'),
-  );
+const SUPERSCRIPT: Record<string, string> = {
+  '⁰': '0',
+  '¹': '1',
+  '²': '2',
+  '³': '3',
+  '⁴': '4',
+  '⁵': '5',
+  '⁶': '6',
+  '⁷': '7',
+  '⁸': '8',
+  '⁹': '9',
+  '⁻': '-',
+};
+/** The first number shown, "1.23 × 10⁻⁴ cm² …" or "0.0123 ± 0.0010 …", as a number. */
+function first(text: string): number {
+  const m = /([-−]?\d+(?:\.\d+)?)(?:\s*×\s*10([⁻⁰¹²³⁴⁵⁶⁷⁸⁹]+))?/.exec(text)!;
+  const mantissa = Number(m[1].replace('−', '-'));
+  const exponent = m[2] ? Number([...m[2]].map((c) => SUPERSCRIPT[c]).join('')) : 0;
+  return mantissa * 10 ** exponent;
+}
 
 describe('materials in chromium', () => {
   it('shows the demo layer and makes, computes and saves a chain from pasted CSV', async () => {

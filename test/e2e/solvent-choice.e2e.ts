@@ -63,14 +63,14 @@ describe('solvent choice in chromium', () => {
       0,
     );
     // Toluene: the Born term raises ΔG°_CS by far more than the ion pair lowers it (SCIENCE.md §4).
-    const dg = async (key: string) =>
+    const shownDg = async (key: string) =>
       Number(
         (await page.locator(`tr[data-solvent="${key}"] [data-testid="dg-cs"]`).innerText()).replace(
           '−',
           '-',
         ),
       );
-    expect((await dg('toluene')) - (await dg('acetonitrile'))).toBeGreaterThan(0.3);
+    expect((await shownDg('toluene')) - (await shownDg('acetonitrile'))).toBeGreaterThan(0.3);
     await shootBoth(page, 'solvent-choice');
 
     await page.getByRole('button', { name: 'Use Dichloromethane' }).click();

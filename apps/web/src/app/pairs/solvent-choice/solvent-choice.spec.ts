@@ -79,7 +79,7 @@ describe('SolventChoice', () => {
     TestBed.configureTestingModule({
       imports: [SolventChoice],
       providers: [
-        provideRouter([]),
+        provideRouter([{ path: '**', children: [] }]),
         {
           provide: ActivatedRoute,
           useValue: { paramMap: of(convertToParamMap({ wid: 'w1', pairId: 'p1' })) },
