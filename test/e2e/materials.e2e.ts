@@ -101,7 +101,7 @@ describe('materials in chromium', () => {
     expect(mu / (D / (KB * 300))).toBeCloseTo(1, 2);
     await page.getByRole('button', { name: 'Save' }).click();
     await poll(() => page.url()).toMatch(/materials\/[0-9a-f-]{36}$/);
-    await poll(() => page.getByRole('status').innerText()).toContain('version 1');
+    await poll(() => page.locator('header.head').innerText()).toContain('version 1');
 
     // A class III coupling (2|J| ≥ λ) is refused by the core, named by the neighbour's label.
     await page.getByLabel('Neighbour 2 coupling J').fill('0.15');
