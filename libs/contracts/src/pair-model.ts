@@ -1,4 +1,5 @@
 import { calculate, marcusRegime, type CalcRequest } from '@gapwise/calc';
+import { PARAMETER_KINDS } from './pairs';
 import type { PairResults, ParameterKind, Provenance, RateModel } from './pairs';
 import { pekarFactor, SOLVENTS, type Solvent } from './solvents';
 import type { ReportPairSnapshot } from './reports';
@@ -655,6 +656,51 @@ function derivedInputs(
   return { ...prov.methodInputs };
 }
 
+/** Labels of the core's input names that are not pair parameter kinds (solvent choice). */
+const SCAN_FIELD_LABELS: Record<string, string> = {
+  lambdaSolvent: PARAMETER_KINDS.lambdaOuter.label,
+  lambdaVib: PARAMETER_KINDS.lambdaInner.label,
+  lambda: PARAMETER_KINDS.lambdaTotal.label,
+  temperature: 'Temperature',
+  epsilon: PARAMETER_KINDS.epsilonStatic.label,
+  epsilonReference: PARAMETER_KINDS.epsilonMeasurement.label,
+  chargeDonor: 'Donor charge',
+  chargeAcceptor: 'Acceptor charge',
+};
+
+/** The label the user sees for a core field (`inputs.` prefix dropped), else the field itself. */
+export function scanFieldLabel(field: string): string {
+  const plain = field.replace(/^inputs\./, '');
+  if (plain in SCAN_FIELD_LABELS) return SCAN_FIELD_LABELS[plain]!;
+  const kind = PARAMETER_KINDS[plain as ParameterKind] as { label: string } | undefined;
+  return kind?.label ?? plain;
+}
+
+/** The sentence for a rate refused because λₒ is 0 in a non-polar solvent (rate needs λ > 0). */
+export const NON_POLAR_NO_RATE =
+  'No rate: the outer reorganization energy λₒ is zero in this non-polar solvent (1/n² − 1/ε_s ≤ 0), and the rate formula needs λ > 0.';
+
+/**
+ * The solvent-choice row's messages in the user's labels: a refused rate because λₒ was set to 0
+ * becomes one plain sentence; other core messages name the field by its label.
+ */
+function scanMessages(
+  errors: ReadonlyArray<{ readonly field: string; readonly message: string }>,
+  lambdaOuterZero: boolean,
+  prefix = '',
+): string[] {
+  const out: string[] = [];
+  for (const e of errors) {
+    const field = e.field.replace(/^inputs\./, '');
+    const text =
+      lambdaOuterZero && (field === 'lambdaSolvent' || field === 'lambda')
+        ? NON_POLAR_NO_RATE
+        : `${prefix}${scanFieldLabel(field)} ${e.message.startsWith('is ') ? e.message : `— ${e.message}`}`;
+    if (!out.includes(text)) out.push(text);
+  }
+  return out;
+}
+
 /**
  * Charge separation and recombination of a pair across solvents (issue 18). Needs ΔG° derived by
  * `drivingForce.rehmWeller` and λₒ by `reorg.twoSphere` (their stored inputs, SCIENCE.md §4–§5):
@@ -714,8 +760,8 @@ export function pairSolventScan(
     const rowNote = nonPolar
       ? 'Non-polar: 1/n² − 1/ε_s < 0 with the tabulated values, so λₒ is set to 0.'
       : null;
-    if (!a.ok) errors.push(...a.errors.map((e) => `ΔG° ${e.field}: ${e.message}`));
-    if (!b.ok) errors.push(...b.errors.map((e) => `λₒ ${e.field}: ${e.message}`));
+    if (!a.ok) errors.push(...scanMessages(a.errors, false, 'ΔG° (Rehm–Weller): '));
+    if (!b.ok) errors.push(...scanMessages(b.errors, false, 'λₒ (two-sphere): '));
     const base = { solvent, pekar: pekarFactor(solvent) };
     if (!a.ok || !b.ok) {
       return {
@@ -786,7 +832,12 @@ export function pairSolventScan(
       }
     }
     const results = computePairResults({ ...source, parameters });
-    errors.push(...results.errors.map((e) => `${e.field}: ${e.message}`));
+    const zero = lambdaOuter <= 0;
+    errors.push(...scanMessages(results.errors, zero));
+    // Recombination refused for the same reason is said once, with the same sentence.
+    for (const m of scanMessages(results.recombination?.errors ?? [], zero, 'Recombination: ')) {
+      if (!errors.includes(m)) errors.push(m);
+    }
     return {
       ...base,
       deltaG0CS,

@@ -1,6 +1,11 @@
 import { calculate } from '@gapwise/calc';
 import { describe, expect, it } from 'vitest';
-import { computePairResults, pairSolventScan } from './pair-model';
+import {
+  computePairResults,
+  NON_POLAR_NO_RATE,
+  pairSolventScan,
+  scanFieldLabel,
+} from './pair-model';
 import { findSolvent, pekarFactor, SOLVENTS } from './solvents';
 
 /** A pair whose ΔG° and λₒ were derived from potentials and geometry (as on the pair page). */
@@ -122,6 +127,35 @@ describe('pairSolventScan (solvent choice, issue 18)', () => {
       parameters: source.parameters.map((p) => ({ ...p, provenance: null })),
     };
     expect(pairSolventScan(plain).unavailable).toMatch(/Rehm–Weller.*two-sphere/);
+  });
+
+  it('says in plain words why Marcus–Levich–Jortner gives no rate where λₒ is set to 0', () => {
+    const source = pair();
+    const mlj = {
+      ...source,
+      model: 'mlj' as const,
+      parameters: [...source.parameters, { kind: 'hbarOmega', value: 0.18 }],
+    };
+    const scan = pairSolventScan(mlj);
+    for (const key of ['n-hexane', 'cyclohexane']) {
+      const row = scan.rows.find((r) => r.solvent.key === key)!;
+      expect(row.pekar).toBeLessThan(0);
+      expect(row.lambdaOuter).toBe(0);
+      expect(row.log10kCS).toBeNull();
+      expect(row.errors).toEqual([NON_POLAR_NO_RATE]);
+    }
+    // A polar solvent keeps its rate; no message shown anywhere carries a core field code.
+    expect(scan.rows.find((r) => r.solvent.key === 'acetonitrile')!.log10kCS).not.toBeNull();
+    for (const row of scan.rows) {
+      for (const e of row.errors) expect(e).not.toMatch(/lambdaSolvent|lambdaVib|deltaG0|inputs\./);
+    }
+  });
+
+  it('names core fields by the labels the user sees', () => {
+    expect(scanFieldLabel('inputs.lambdaSolvent')).toBe('Outer reorganization energy λₒ');
+    expect(scanFieldLabel('hbarOmega')).toBe('Effective mode energy ħω');
+    expect(scanFieldLabel('deltaG0Recombination')).toBe('Recombination ΔG°');
+    expect(scanFieldLabel('epsilon')).toBe('Static dielectric constant ε_s');
   });
 
   it('has a published source on every value, marked verified or not', () => {
