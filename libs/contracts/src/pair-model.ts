@@ -676,6 +676,35 @@ export function scanFieldLabel(field: string): string {
   return kind?.label ?? plain;
 }
 
+/**
+ * The label of a field the API names when it refuses a pair save (`parameters.3.value`, `name`,
+ * `version`), given the parameters sent, so the solvent choice shows no field codes.
+ */
+export function pairSaveFieldLabel(
+  field: string,
+  parameters: ReadonlyArray<{ readonly kind: string }>,
+): string {
+  const m = /^parameters\.(\d+)(?:\.(\w+))?$/.exec(field);
+  if (m) {
+    const kind = parameters[Number(m[1])]?.kind;
+    const label = kind ? scanFieldLabel(kind) : 'A parameter';
+    const part: Record<string, string> = {
+      value: '',
+      unit: ' (unit)',
+      uncertainty: ' (uncertainty)',
+    };
+    return `${label}${m[2] ? (part[m[2]] ?? ` (${m[2]})`) : ''}`;
+  }
+  const top: Record<string, string> = {
+    name: 'Name',
+    medium: 'Medium',
+    temperature: 'Temperature',
+    model: 'Rate model',
+    version: 'Version',
+  };
+  return top[field] ?? scanFieldLabel(field);
+}
+
 /** The sentence for a rate refused because λₒ is 0 in a non-polar solvent (rate needs λ > 0). */
 export const NON_POLAR_NO_RATE =
   'No rate: the outer reorganization energy λₒ is zero in this non-polar solvent (1/n² − 1/ε_s ≤ 0), and the rate formula needs λ > 0.';

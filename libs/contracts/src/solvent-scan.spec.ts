@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import {
   computePairResults,
   NON_POLAR_NO_RATE,
+  pairSaveFieldLabel,
   pairSolventScan,
   scanFieldLabel,
 } from './pair-model';
@@ -156,6 +157,10 @@ describe('pairSolventScan (solvent choice, issue 18)', () => {
     expect(scanFieldLabel('hbarOmega')).toBe('Effective mode energy ħω');
     expect(scanFieldLabel('deltaG0Recombination')).toBe('Recombination ΔG°');
     expect(scanFieldLabel('epsilon')).toBe('Static dielectric constant ε_s');
+    const sent = [{ kind: 'deltaG0' }, { kind: 'lambdaOuter' }];
+    expect(pairSaveFieldLabel('parameters.1.value', sent)).toBe('Outer reorganization energy λₒ');
+    expect(pairSaveFieldLabel('parameters.0.unit', sent)).toBe('Driving force ΔG° (unit)');
+    expect(pairSaveFieldLabel('version', sent)).toBe('Version');
   });
 
   it('has a published source on every value, marked verified or not', () => {

@@ -4,6 +4,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { ActivatedRoute, Router, RouterLink } from '@angular/router';
 import {
+  pairSaveFieldLabel,
   formatNumber,
   pairSolventScan,
   PARAMETER_KINDS,
@@ -116,7 +117,9 @@ export class SolventChoice {
           const err = apiErrorOf(e);
           this.error.set(
             err.fields?.length
-              ? err.fields.map((f) => `${f.field}: ${f.message}`).join('; ')
+              ? err.fields
+                  .map((f) => `${pairSaveFieldLabel(f.field, parameters)}: ${f.message}`)
+                  .join('; ')
               : err.message,
           );
         },
