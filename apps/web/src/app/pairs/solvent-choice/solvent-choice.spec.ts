@@ -25,7 +25,7 @@ const ts = {
   refractiveIndex: 1.3442,
 };
 
-function pair(): Pair {
+function pair(model = 'marcus', extra: { kind: string; value: number }[] = []): Pair {
   const dg = calculate({ method: 'drivingForce.rehmWeller', inputs: rw });
   const lo = calculate({ method: 'reorg.twoSphere', inputs: ts });
   if (!dg.ok || !lo.ok) throw new Error('fixture');
@@ -52,7 +52,7 @@ function pair(): Pair {
     version: 3,
     status: 'active',
     tags: [],
-    model: 'marcus',
+    model,
     results: null,
     createdAt: '',
     updatedAt: '',
@@ -69,6 +69,7 @@ function pair(): Pair {
       par('coupling', 0.005),
       par('epsilonStatic', 35.94),
       par('refractiveIndex', 1.3442),
+      ...extra.map((e) => par(e.kind, e.value)),
     ],
   } as unknown as Pair;
 }
@@ -118,5 +119,36 @@ describe('SolventChoice', () => {
     expect(body.medium).toBe('Dichloromethane');
     expect(body.version).toBe(3);
     expect(body.parameters.find((p) => p.kind === 'epsilonStatic')!.value).toBe(8.93);
+  });
+
+  it('says in plain words why n-hexane has no Marcus–Levich–Jortner rate, with no field code', async () => {
+    TestBed.configureTestingModule({
+      imports: [SolventChoice],
+      providers: [
+        provideRouter([{ path: '**', children: [] }]),
+        {
+          provide: ActivatedRoute,
+          useValue: { paramMap: of(convertToParamMap({ wid: 'w1', pairId: 'p1' })) },
+        },
+        {
+          provide: PairsApi,
+          useValue: { get: () => of(pair('mlj', [{ kind: 'hbarOmega', value: 0.18 }])) },
+        },
+        { provide: WorkspaceContext, useValue: { canEdit: () => true } },
+      ],
+    });
+    const fixture = TestBed.createComponent(SolventChoice);
+    fixture.detectChanges();
+    await fixture.whenStable();
+    const el = fixture.nativeElement as HTMLElement;
+    const hexane = el.querySelector('tr[data-solvent="n-hexane"]')!;
+    expect(hexane.querySelector('.errors')!.textContent).toContain(
+      'outer reorganization energy λₒ is zero in this non-polar solvent',
+    );
+    expect(el.textContent).not.toMatch(/lambdaSolvent|must be a positive number/);
+    // Every value cell carries its column label for the stacked phone layout.
+    for (const td of Array.from(hexane.querySelectorAll('td:not(.action)'))) {
+      expect(td.getAttribute('data-label')).toBeTruthy();
+    }
   });
 });
