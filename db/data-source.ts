@@ -30,6 +30,8 @@ import {
   CascadeVersionEntity,
   ElectrodeCaseEntity,
   ElectrodeCaseVersionEntity,
+  MaterialEntity,
+  MaterialVersionEntity,
 } from './entities/index';
 import { migrations } from './migrations/index';
 
@@ -64,6 +66,8 @@ export const entities = [
   CascadeVersionEntity,
   ElectrodeCaseEntity,
   ElectrodeCaseVersionEntity,
+  MaterialEntity,
+  MaterialVersionEntity,
 ];
 
 /** Development database of docker-free-scripts/postgres-start.sh. */

@@ -28,3 +28,5 @@ export { CascadeVersionEntity } from './cascade-version';
 export { ElectrodeCaseEntity } from './electrode-case';
 export type { ElectrodePointRecord } from './electrode-case';
 export { ElectrodeCaseVersionEntity } from './electrode-case-version';
+export { MaterialEntity } from './material';
+export { MaterialVersionEntity } from './material-version';

@@ -12,6 +12,7 @@ import { Cascades1796800000000 } from './1796800000000-cascades';
 import { CascadeReports1796810000000 } from './1796810000000-cascade-reports';
 import { CascadeDesign1796815000000 } from './1796815000000-cascade-design';
 import { ElectrodeCases1796820000000 } from './1796820000000-electrode-cases';
+import { Materials1796830000000 } from './1796830000000-materials';
 
 /** Every migration, in order (listed explicitly; see STACK.md). */
 export const migrations = [
@@ -29,4 +30,5 @@ export const migrations = [
   CascadeReports1796810000000,
   CascadeDesign1796815000000,
   ElectrodeCases1796820000000,
+  Materials1796830000000,
 ];

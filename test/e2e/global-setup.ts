@@ -18,6 +18,7 @@ import { seedDemoReport } from '../../apps/api/src/reports/demo-report-seed';
 import { seedDemoScreensAndSeries } from '../../apps/api/src/screens/demo-screen-seed';
 import { seedDemoCascades } from '../../apps/api/src/cascades/demo-cascade-seed';
 import { seedDemoElectrodeCases } from '../../apps/api/src/electrodes/demo-electrode-seed';
+import { seedDemoMaterials } from '../../apps/api/src/materials/demo-material-seed';
 import { seedDemoTraces } from '../../apps/api/src/traces/demo-trace-seed';
 import { TraceObjectStore } from '../../apps/api/src/traces/trace-object-store';
 import { loadObjectStoreConfig } from '../../apps/api/src/config';
@@ -131,6 +132,10 @@ export default async function setup(project: TestProject) {
       });
       await seedDemoCascades(dataSource, { labName: DEMO_LAB, editorEmail: 'editor@gapwise.test' });
       await seedDemoElectrodeCases(dataSource, {
+        labName: DEMO_LAB,
+        editorEmail: 'editor@gapwise.test',
+      });
+      await seedDemoMaterials(dataSource, {
         labName: DEMO_LAB,
         editorEmail: 'editor@gapwise.test',
       });

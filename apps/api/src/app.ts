@@ -27,6 +27,7 @@ import { registerTraceRoutes } from './traces/routes';
 import { registerSeriesRoutes } from './series/routes';
 import { registerCascadeRoutes } from './cascades/routes';
 import { registerElectrodeRoutes } from './electrodes/routes';
+import { registerMaterialRoutes } from './materials/routes';
 import { registerTokenRoutes } from './tokens/routes';
 import { registerWorkspaceRoutes } from './workspaces/routes';
 import { serveWeb } from './web/serve-web';
@@ -90,6 +91,7 @@ export function createApiRouter(deps: AppDeps): Router {
   registerSeriesRoutes(router, deps);
   registerCascadeRoutes(router, deps);
   registerElectrodeRoutes(router, deps);
+  registerMaterialRoutes(router, deps);
   return router;
 }
 

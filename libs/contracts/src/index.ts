@@ -20,4 +20,5 @@ export * from './rich-text';
 export * from './csv';
 export * from './plausibility';
 export * from './solvents';
+export * from './materials';
 export * from './potential-reference';

@@ -1,5 +1,7 @@
 import { calculate, marcusRegime, type CalcRequest } from '@gapwise/calc';
-import { PARAMETER_KINDS, type PairResults, type ParameterKind, type RateModel } from './pairs';
+import { PARAMETER_KINDS } from './pairs';
+import type { PairResults, ParameterKind, Provenance, RateModel } from './pairs';
+import { pekarFactor, SOLVENTS, type Solvent } from './solvents';
 import type { ReportPairSnapshot } from './reports';
 import {
   displayUnit,
@@ -696,4 +698,275 @@ export function pairEffectDifferences(
     add('Warnings (recombination)', warningList(ra), warningList(rb));
   }
   return onlyChanged ? rows.filter((r) => r.changed) : rows;
+}
+
+/** A parameter with its provenance (what the solvent choice reads the derivations from). */
+export interface PairModelParameterWithProvenance extends PairModelParameter {
+  readonly provenance?: Provenance | null;
+}
+
+/** One solvent of a pair's solvent choice. */
+export interface SolventScanRow {
+  readonly solvent: Solvent;
+  /** 1/n² − 1/ε_s. */
+  readonly pekar: number;
+  readonly deltaG0CS: number | null;
+  readonly deltaG0CR: number | null;
+  /** Born/Weller correction of ΔG° for this solvent against the measurement solvent (eV). */
+  readonly solventCorrection: number | null;
+  readonly lambdaOuter: number | null;
+  readonly log10kCS: number | null;
+  readonly log10kCR: number | null;
+  /** The pair's parameters with ΔG°, ΔG°_CR, λₒ, ε_s and n of this solvent (for a new version). */
+  readonly parameters: PairModelParameterWithProvenance[] | null;
+  readonly errors: string[];
+  /** Said with the row (e.g. λₒ set to 0 in a non-polar solvent), or null. */
+  readonly note: string | null;
+}
+
+export interface SolventScan {
+  /** Why the scan cannot run (no derived ΔG° or λₒ), or null. */
+  readonly unavailable: string | null;
+  /** Assumptions the scan made (e.g. the measurement solvent), shown with the table. */
+  readonly notes: string[];
+  readonly rows: SolventScanRow[];
+}
+
+function derivedInputs(
+  parameters: ReadonlyArray<PairModelParameterWithProvenance>,
+  kind: ParameterKind,
+  methodId: string,
+): Record<string, unknown> | null {
+  const prov = parameters.find((p) => p.kind === kind)?.provenance;
+  if (!prov || prov.kind !== 'derived' || prov.methodId !== methodId || !prov.methodInputs) {
+    return null;
+  }
+  return { ...prov.methodInputs };
+}
+
+/** Labels of the core's input names that are not pair parameter kinds (solvent choice). */
+const SCAN_FIELD_LABELS: Record<string, string> = {
+  lambdaSolvent: PARAMETER_KINDS.lambdaOuter.label,
+  lambdaVib: PARAMETER_KINDS.lambdaInner.label,
+  lambda: PARAMETER_KINDS.lambdaTotal.label,
+  temperature: 'Temperature',
+  epsilon: PARAMETER_KINDS.epsilonStatic.label,
+  epsilonReference: PARAMETER_KINDS.epsilonMeasurement.label,
+  chargeDonor: 'Donor charge',
+  chargeAcceptor: 'Acceptor charge',
+};
+
+/** The label the user sees for a core field (`inputs.` prefix dropped), else the field itself. */
+export function scanFieldLabel(field: string): string {
+  const plain = field.replace(/^inputs\./, '');
+  if (plain in SCAN_FIELD_LABELS) return SCAN_FIELD_LABELS[plain]!;
+  const kind = PARAMETER_KINDS[plain as ParameterKind] as { label: string } | undefined;
+  return kind?.label ?? plain;
+}
+
+/**
+ * The label of a field the API names when it refuses a pair save (`parameters.3.value`, `name`,
+ * `version`), given the parameters sent, so the solvent choice shows no field codes.
+ */
+export function pairSaveFieldLabel(
+  field: string,
+  parameters: ReadonlyArray<{ readonly kind: string }>,
+): string {
+  const m = /^parameters\.(\d+)(?:\.(\w+))?$/.exec(field);
+  if (m) {
+    const kind = parameters[Number(m[1])]?.kind;
+    const label = kind ? scanFieldLabel(kind) : 'A parameter';
+    const part: Record<string, string> = {
+      value: '',
+      unit: ' (unit)',
+      uncertainty: ' (uncertainty)',
+    };
+    return `${label}${m[2] ? (part[m[2]] ?? ` (${m[2]})`) : ''}`;
+  }
+  const top: Record<string, string> = {
+    name: 'Name',
+    medium: 'Medium',
+    temperature: 'Temperature',
+    model: 'Rate model',
+    version: 'Version',
+  };
+  return top[field] ?? scanFieldLabel(field);
+}
+
+/** The sentence for a rate refused because λₒ is 0 in a non-polar solvent (rate needs λ > 0). */
+export const NON_POLAR_NO_RATE =
+  'No rate: the outer reorganization energy λₒ is zero in this non-polar solvent (1/n² − 1/ε_s ≤ 0), and the rate formula needs λ > 0.';
+
+/**
+ * The solvent-choice row's messages in the user's labels: a refused rate because λₒ was set to 0
+ * becomes one plain sentence; other core messages name the field by its label.
+ */
+function scanMessages(
+  errors: ReadonlyArray<{ readonly field: string; readonly message: string }>,
+  lambdaOuterZero: boolean,
+  prefix = '',
+): string[] {
+  const out: string[] = [];
+  for (const e of errors) {
+    const field = e.field.replace(/^inputs\./, '');
+    const text =
+      lambdaOuterZero && (field === 'lambdaSolvent' || field === 'lambda')
+        ? NON_POLAR_NO_RATE
+        : `${prefix}${scanFieldLabel(field)} ${e.message.startsWith('is ') ? e.message : `— ${e.message}`}`;
+    if (!out.includes(text)) out.push(text);
+  }
+  return out;
+}
+
+/**
+ * Charge separation and recombination of a pair across solvents (issue 18). Needs ΔG° derived by
+ * `drivingForce.rehmWeller` and λₒ by `reorg.twoSphere` (their stored inputs, SCIENCE.md §4–§5):
+ * for each solvent both are recomputed with its ε_s (and n for λₒ) — the Born/Weller correction
+ * with the charges the derivation used (never the neutral form for charged reactants, §4) — then
+ * the rates go through `computePairResults`, the one rate path of every pair view.
+ *
+ * The potentials' measurement solvent is the `epsilonReference` of the stored derivation, else the
+ * pair's `epsilonMeasurement`, else the ε of the stored derivation (said in `notes`). Radii missing
+ * from the stored ΔG° derivation come from the pair's radii or the λₒ derivation.
+ */
+export function pairSolventScan(
+  source: PairRateSource & { readonly parameters: ReadonlyArray<PairModelParameterWithProvenance> },
+  solvents: readonly Solvent[] = SOLVENTS,
+): SolventScan {
+  const p = source.parameters;
+  const dg = derivedInputs(p, 'deltaG0', 'drivingForce.rehmWeller');
+  const lo = derivedInputs(p, 'lambdaOuter', 'reorg.twoSphere');
+  const missing: string[] = [];
+  if (!dg) missing.push('ΔG° derived from redox potentials (Rehm–Weller)');
+  if (!lo) missing.push('λₒ derived from the two-sphere model');
+  if (!dg || !lo) {
+    return {
+      unavailable: `Solvent choice needs ${missing.join(' and ')}; derive them on the pair page first.`,
+      notes: [],
+      rows: [],
+    };
+  }
+  const notes: string[] = [];
+  const rw: Record<string, unknown> = { ...dg };
+  rw['radiusDonor'] ??= lo['radiusDonor'] ?? parameterValue(p, 'radiusDonor');
+  rw['radiusAcceptor'] ??= lo['radiusAcceptor'] ?? parameterValue(p, 'radiusAcceptor');
+  if (rw['epsilonReference'] === undefined) {
+    const measured = parameterValue(p, 'epsilonMeasurement');
+    rw['epsilonReference'] = measured ?? dg['epsilon'];
+    notes.push(
+      measured !== undefined
+        ? `Potentials measured in a solvent of ε = ${measured} (the pair's measurement-solvent ε).`
+        : `No measurement-solvent ε given: the potentials are taken as measured in the solvent of the stored ΔG° derivation (ε = ${String(typeof dg['epsilon'] === 'object' ? JSON.stringify(dg['epsilon']) : dg['epsilon'])}).`,
+    );
+  }
+  const rows = solvents.map((solvent): SolventScanRow => {
+    const errors: string[] = [];
+    const a = calculate({
+      method: 'drivingForce.rehmWeller',
+      inputs: { ...rw, epsilon: solvent.epsilon },
+    });
+    // A non-polar solvent whose tabulated n² exceeds ε_s (1/n² − 1/ε_s < 0) has λₒ = 0, set
+    // explicitly as the two-sphere method asks (SCIENCE.md §5 rejects a negative Pekar factor).
+    const nonPolar = pekarFactor(solvent) < 0;
+    const b = nonPolar
+      ? ({ ok: true, outputs: { lambdaOuter: 0 }, warnings: [] } as const)
+      : calculate({
+          method: 'reorg.twoSphere',
+          inputs: { ...lo, epsilon: solvent.epsilon, refractiveIndex: solvent.refractiveIndex },
+        });
+    const rowNote = nonPolar
+      ? 'Non-polar: 1/n² − 1/ε_s < 0 with the tabulated values, so λₒ is set to 0.'
+      : null;
+    if (!a.ok) errors.push(...scanMessages(a.errors, false, 'ΔG° (Rehm–Weller): '));
+    if (!b.ok) errors.push(...scanMessages(b.errors, false, 'λₒ (two-sphere): '));
+    const base = { solvent, pekar: pekarFactor(solvent) };
+    if (!a.ok || !b.ok) {
+      return {
+        ...base,
+        deltaG0CS: null,
+        deltaG0CR: null,
+        solventCorrection: null,
+        lambdaOuter: null,
+        log10kCS: null,
+        log10kCR: null,
+        parameters: null,
+        errors,
+        note: rowNote,
+      };
+    }
+    const deltaG0CS = a.outputs['deltaG0CS'] as number;
+    const deltaG0CR = a.outputs['deltaG0CR'] as number;
+    const lambdaOuter = b.outputs['lambdaOuter'] as number;
+    const note = `Solvent choice: ${solvent.name} (ε_s = ${solvent.epsilon}, n = ${solvent.refractiveIndex}; ${solvent.source})`;
+    const rwInputs = { ...rw, epsilon: solvent.epsilon };
+    const loInputs = { ...lo, epsilon: solvent.epsilon, refractiveIndex: solvent.refractiveIndex };
+    const replaced: Partial<Record<ParameterKind, { value: number; provenance: Provenance }>> = {
+      deltaG0: {
+        value: deltaG0CS,
+        provenance: {
+          kind: 'derived',
+          methodId: 'drivingForce.rehmWeller',
+          methodInputs: rwInputs,
+          note,
+        },
+      },
+      deltaG0Recombination: {
+        value: deltaG0CR,
+        provenance: {
+          kind: 'derived',
+          methodId: 'drivingForce.rehmWeller',
+          methodInputs: rwInputs,
+          note: `Charge recombination to the ground state. ${note}`,
+        },
+      },
+      lambdaOuter: {
+        value: lambdaOuter,
+        provenance: nonPolar
+          ? { kind: 'assumed', note: `${rowNote} ${note}` }
+          : { kind: 'derived', methodId: 'reorg.twoSphere', methodInputs: loInputs, note },
+      },
+      epsilonStatic: {
+        value: solvent.epsilon,
+        provenance: { kind: 'literature', citation: solvent.sources.epsilon.citation, note },
+      },
+      refractiveIndex: {
+        value: solvent.refractiveIndex,
+        provenance: {
+          kind: 'literature',
+          citation: solvent.sources.refractiveIndex.citation,
+          note,
+        },
+      },
+    };
+    const parameters: PairModelParameterWithProvenance[] = p.map((q) => {
+      const r = replaced[q.kind as ParameterKind];
+      return r ? { ...q, value: r.value, provenance: r.provenance } : q;
+    });
+    for (const kind of ['epsilonStatic', 'refractiveIndex', 'deltaG0Recombination'] as const) {
+      const r = replaced[kind]!;
+      if (!p.some((q) => q.kind === kind)) {
+        parameters.push({ kind, value: r.value, uncertainty: null, provenance: r.provenance });
+      }
+    }
+    const results = computePairResults({ ...source, parameters });
+    const zero = lambdaOuter <= 0;
+    errors.push(...scanMessages(results.errors, zero));
+    // Recombination refused for the same reason is said once, with the same sentence.
+    for (const m of scanMessages(results.recombination?.errors ?? [], zero, 'Recombination: ')) {
+      if (!errors.includes(m)) errors.push(m);
+    }
+    return {
+      ...base,
+      deltaG0CS,
+      deltaG0CR,
+      solventCorrection: (a.outputs['solventCorrection'] as number | undefined) ?? null,
+      lambdaOuter,
+      log10kCS: results.log10k,
+      log10kCR: results.recombination?.log10k ?? null,
+      parameters,
+      errors,
+      note: rowNote,
+    };
+  });
+  return { unavailable: null, notes, rows };
 }

@@ -6,7 +6,7 @@
  * files; the trace analysis writes its scratch files).
  */
 import { calculate, serializeAnswer } from '@gapwise/calc';
-import { computePairResults } from '@gapwise/contracts';
+import { computeMaterialResults, computePairResults } from '@gapwise/contracts';
 import type { Pair, ReportReviewState } from '@gapwise/contracts';
 import { renderReportPdf } from '../reports/pdf/render-report';
 import {
@@ -42,6 +42,8 @@ export const computeTasks = {
       ? { ok: true as const, outputs: answer.outputs, warnings: answer.warnings }
       : { ok: false as const, errors: answer.errors };
   },
+  /** A material case's hopping transport, μ(T) and Monte Carlo (issue 18): /api/materials. */
+  materialResults: computeMaterialResults,
   /** `POST /api/series/{id}/fit`: both models' fits, band and information criteria. */
   seriesFit: fitSeries,
   /** `POST /api/pairs/{id}/compute`: a pair's results by the shared dispatcher. */

@@ -11,6 +11,7 @@ import { TRACE_SCHEMAS } from '../traces/trace-route-docs';
 import { SCREEN_SCHEMAS } from '../screens/screen-route-docs';
 import { CASCADE_SCHEMAS } from '../cascades/cascade-route-docs';
 import { ELECTRODE_SCHEMAS } from '../electrodes/electrode-route-docs';
+import { MATERIAL_SCHEMAS } from '../materials/material-route-docs';
 import { nullable, num, obj, ref, str, type Schema } from './schema';
 
 const role = { type: 'string', enum: [...ROLES] };
@@ -257,6 +258,7 @@ const SCHEMAS: Record<string, Schema> = {
   ...SCREEN_SCHEMAS,
   ...CASCADE_SCHEMAS,
   ...ELECTRODE_SCHEMAS,
+  ...MATERIAL_SCHEMAS,
 };
 
 const ERROR_TEXT: Record<number, string> = {

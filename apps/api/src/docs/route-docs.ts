@@ -3,6 +3,7 @@ import { TRACE_ROUTE_DOCS } from '../traces/trace-route-docs';
 import { SCREEN_ROUTE_DOCS } from '../screens/screen-route-docs';
 import { CASCADE_ROUTE_DOCS } from '../cascades/cascade-route-docs';
 import { ELECTRODE_ROUTE_DOCS } from '../electrodes/electrode-route-docs';
+import { MATERIAL_ROUTE_DOCS } from '../materials/material-route-docs';
 /** One documented route; `path` is written as Express mounts it (under /api). */
 export interface RouteDoc {
   readonly method: 'get' | 'post' | 'put' | 'patch' | 'delete';
@@ -584,4 +585,5 @@ export const ROUTE_DOCS: readonly RouteDoc[] = [
   ...SCREEN_ROUTE_DOCS,
   ...CASCADE_ROUTE_DOCS,
   ...ELECTRODE_ROUTE_DOCS,
+  ...MATERIAL_ROUTE_DOCS,
 ];

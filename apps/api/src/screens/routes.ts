@@ -40,7 +40,7 @@ import {
   uploadScreen,
   type UploadOptions,
 } from './screen-use-case';
-import { SOLVENTS } from './solvents';
+import { SOLVENTS } from '@gapwise/contracts';
 
 type FieldError = { field: string; message: string };
 

@@ -14,7 +14,7 @@ import {
   type NumericKey,
   type ResolvedColumn,
 } from './screen-columns';
-import { findSolvent } from './solvents';
+import { findSolvent } from '@gapwise/contracts';
 
 /** One chunk of good rows, canonical units, NaN where a cell was empty. */
 export interface InputChunk {

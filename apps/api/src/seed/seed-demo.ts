@@ -11,6 +11,7 @@ import { seedDemoScreensAndSeries } from '../screens/demo-screen-seed';
 import { seedDemoTraces } from '../traces/demo-trace-seed';
 import { seedDemoCascades } from '../cascades/demo-cascade-seed';
 import { seedDemoElectrodeCases } from '../electrodes/demo-electrode-seed';
+import { seedDemoMaterials } from '../materials/demo-material-seed';
 import { TraceObjectStore } from '../traces/trace-object-store';
 import { loadConfig } from '../config';
 
@@ -59,6 +60,11 @@ try {
     editorEmail: 'editor@gapwise.test',
   });
   if (electrodes) console.log(`demo seed: ${electrodes} electrode case(s) added`);
+  // An invented organic-semiconductor layer (apps/api/src/materials/demo-material-seed.ts).
+  if (
+    await seedDemoMaterials(dataSource, { labName: DEMO_LAB, editorEmail: 'editor@gapwise.test' })
+  )
+    console.log('demo seed: 1 material case added');
   // Demo energy-gap traces (lab) in object storage with a finished analysis: needs the S3 store.
   if (config.objectStore.endpointSet) {
     const store = new TraceObjectStore(config.objectStore);

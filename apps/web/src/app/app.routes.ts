@@ -79,6 +79,12 @@ export const routes: Routes = [
               import('./pairs/version-history/version-history').then((m) => m.VersionHistory),
           },
           {
+            path: 'pairs/:pairId/solvents',
+            title: 'Solvent choice · Gapwise',
+            loadComponent: () =>
+              import('./pairs/solvent-choice/solvent-choice').then((m) => m.SolventChoice),
+          },
+          {
             path: 'reports',
             title: 'Reports · Gapwise',
             loadComponent: () =>
@@ -123,6 +129,11 @@ export const routes: Routes = [
             path: 'electrodes',
             loadChildren: () =>
               import('./electrodes/electrodes.routes').then((m) => m.electrodeRoutes),
+          },
+          {
+            path: 'materials',
+            loadChildren: () =>
+              import('./materials/materials.routes').then((m) => m.materialRoutes),
           },
           {
             path: 'members',

@@ -3,10 +3,13 @@ import type { MethodDefinition } from '../core/method';
 import { hoppingMethod } from './hopping/hopping';
 
 export {
+  diffusionTensorCm2PerS,
   einsteinMobilityCm2PerVS,
+  hopValidity,
   hoppingMethod,
   hoppingTransport,
   piWeightedDiffusionCm2PerS,
+  principalAxes,
   randomWalkDiffusionCm2PerS,
 } from './hopping/hopping';
 export type {
@@ -14,6 +17,9 @@ export type {
   HoppingInputs,
   HoppingNeighbour,
   HoppingResult,
+  HopValidity,
+  PrincipalAxes,
+  Tensor3,
 } from './hopping/hopping';
 
 /** Every `transport.*` method, for the registry. */

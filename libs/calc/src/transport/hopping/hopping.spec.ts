@@ -237,3 +237,181 @@ describe('transport.hopping through the dispatcher', () => {
     });
   });
 });
+
+describe('hopping tensor, principal values, contributions and validity (SCIENCE.md §12)', () => {
+  const k = Math.exp(logMarcusRate(0.005, 0, 0.2, 300));
+  const cubic = (a: number) =>
+    [
+      [a, 0, 0],
+      [-a, 0, 0],
+      [0, a, 0],
+      [0, -a, 0],
+      [0, 0, a],
+      [0, 0, -a],
+    ].map((v) => ({
+      distanceAngstrom: a,
+      couplingEv: 0.005,
+      deltaG0Ev: 0,
+      vectorAngstrom: v as [number, number, number],
+    }));
+
+  it('gives the isotropic simple-cubic result D_xx = D_yy = D_zz = a²k (6 neighbours, n = 3)', () => {
+    // Closed form: D = (1/2n) Σ r²k = (1/6)·6a²k = a²k (random walk; Coropceanu et al. 2007).
+    const out = hoppingTransport({
+      neighbours: cubic(4),
+      lambdaEv: 0.2,
+      temperatureK: 300,
+      dimensions: 3,
+      form: 'random-walk',
+    });
+    const a2k = 4e-8 ** 2 * k;
+    expect(out.diffusion / a2k).toBeCloseTo(1, 12);
+    const t = out.diffusionTensor!;
+    for (let i = 0; i < 3; i++) expect(t[i][i] / a2k).toBeCloseTo(1, 12);
+    expect(t[0][1]).toBe(0);
+    const kT = 8.617333262e-5 * 300;
+    expect(out.principalMobility!.largest / (a2k / kT)).toBeCloseTo(1, 10);
+    expect(out.principalMobility!.smallest / (a2k / kT)).toBeCloseTo(1, 10);
+    // Einstein relation μ = eD/k_BT (Einstein 1905) holds for the scalar and the trace.
+    expect(out.mobility).toBeCloseTo(out.diffusion / kT, 15);
+    expect(out.contributions.reduce((a, b) => a + b, 0)).toBeCloseTo(1, 14);
+    expect(out.contributions[0]).toBeCloseTo(1 / 6, 14);
+  });
+
+  it('gives the 1D chain tensor D_xx = a²k and zero elsewhere (D = ka² along the chain)', () => {
+    const out = hoppingTransport({
+      neighbours: [
+        { distanceAngstrom: 3.5, couplingEv: 0.005, deltaG0Ev: 0, vectorAngstrom: [3.5, 0, 0] },
+        { distanceAngstrom: 3.5, couplingEv: 0.005, deltaG0Ev: 0, vectorAngstrom: [-3.5, 0, 0] },
+      ],
+      lambdaEv: 0.2,
+      temperatureK: 300,
+      dimensions: 1,
+      form: 'random-walk',
+    });
+    expect(out.diffusionTensor![0][0] / (3.5e-8 ** 2 * k)).toBeCloseTo(1, 12);
+    expect(out.diffusion / out.diffusionTensor![0][0]).toBeCloseTo(1, 12);
+    expect(out.principalMobility!.middle).toBe(0);
+    expect(Math.abs(out.principalAxes![0][0])).toBeCloseTo(1, 12);
+  });
+
+  it('finds the principal axes of a lattice rotated by 30° in the plane (eigenvalues invariant)', () => {
+    const c = Math.cos(Math.PI / 6);
+    const s = Math.sin(Math.PI / 6);
+    const rot = (x: number, y: number): [number, number, number] => [
+      c * x - s * y,
+      s * x + c * y,
+      0,
+    ];
+    const base = [
+      { v: [4, 0], J: 0.008 },
+      { v: [-4, 0], J: 0.008 },
+      { v: [0, 6], J: 0.003 },
+      { v: [0, -6], J: 0.003 },
+    ];
+    const make = (turn: boolean) =>
+      hoppingTransport({
+        neighbours: base.map((b) => ({
+          distanceAngstrom: Math.hypot(b.v[0], b.v[1]),
+          couplingEv: b.J,
+          deltaG0Ev: 0,
+          vectorAngstrom: turn ? rot(b.v[0], b.v[1]) : [b.v[0], b.v[1], 0],
+        })),
+        lambdaEv: 0.2,
+        temperatureK: 300,
+        dimensions: 2,
+        form: 'random-walk',
+      });
+    const plain = make(false);
+    const turned = make(true);
+    expect(turned.principalMobility!.largest / plain.mobilityTensor![0][0]).toBeCloseTo(1, 10);
+    expect(turned.principalMobility!.middle / plain.mobilityTensor![1][1]).toBeCloseTo(1, 10);
+    const axis = turned.principalAxes![0];
+    expect(Math.abs(axis[0] * c + axis[1] * s)).toBeCloseTo(1, 10);
+  });
+
+  it('flags hops with |J| > λ/4 or |J| > k_BT as band or transient-localization', () => {
+    const out = hoppingTransport({
+      neighbours: [
+        { distanceAngstrom: 5, couplingEv: 0.005, deltaG0Ev: 0 },
+        { distanceAngstrom: 5, couplingEv: 0.08, deltaG0Ev: 0 },
+      ],
+      lambdaEv: 0.2,
+      temperatureK: 300,
+      dimensions: 1,
+      form: 'random-walk',
+    });
+    expect(out.validity.map((v) => v.regime)).toEqual([
+      'hopping',
+      'band-or-transient-localization',
+    ]);
+    expect(out.validity[1].couplingOverLambda).toBeCloseTo(0.4, 12);
+    expect(out.diffusionTensor).toBeNull();
+  });
+
+  it('reads vectors through the dispatcher and refuses a mix of vectors and distances', () => {
+    const answer = computeOk('transport.hopping', {
+      neighbors: [
+        { vector: [3, 4, 0], coupling: 0.005 },
+        { vector: [{ value: -0.3, unit: 'nm' }, -4], coupling: 0.005 },
+      ],
+      lambda: 0.2,
+      temperature: 300,
+      dimensions: 2,
+    });
+    expect(numberOutput(answer, 'diffusion') / (5e-8 ** 2 * k * 0.5)).toBeCloseTo(1, 10);
+    const errors = computeRefused('transport.hopping', {
+      neighbors: [
+        { vector: [3, 4, 0], coupling: 0.005 },
+        { distance: 5, coupling: 0.005 },
+      ],
+      lambda: 0.2,
+      temperature: 300,
+      dimensions: 2,
+    });
+    expect(errors.map((e) => e.field)).toContain('neighbors');
+    const clash = computeRefused('transport.hopping', {
+      neighbors: [{ vector: [3, 4, 0], distance: 6, coupling: 0.005 }],
+      lambda: 0.2,
+      temperature: 300,
+      dimensions: 2,
+    });
+    expect(clash.map((e) => e.field)).toEqual(['neighbors[0].distance']);
+  });
+
+  it('propagates σ on λ and couplings by uncertainty.monteCarlo (interval brackets nominal)', () => {
+    const answer = computeOk('uncertainty.monteCarlo', {
+      method: 'transport.hopping',
+      inputs: {
+        neighbors: [
+          { distance: 5, coupling: { value: 0.005, sigma: 0.001 } },
+          { distance: 5, coupling: { value: 0.005, sigma: 0.001 } },
+        ],
+        lambda: { value: 0.2, sigma: 0.02 },
+        temperature: 300,
+        dimensions: 1,
+      },
+      samples: 2000,
+      seed: 7,
+    });
+    const mobility = answer.outputs['mobility'] as { p025: number; median: number; p975: number };
+    const nominal = hoppingTransport(base1D()).mobility;
+    expect(mobility.p025).toBeLessThan(nominal);
+    expect(mobility.p975).toBeGreaterThan(nominal);
+    expect(mobility.median / nominal).toBeGreaterThan(0.8);
+    expect(mobility.median / nominal).toBeLessThan(1.25);
+  });
+});
+
+function base1D() {
+  return {
+    neighbours: [
+      { distanceAngstrom: 5, couplingEv: 0.005, deltaG0Ev: 0 },
+      { distanceAngstrom: 5, couplingEv: 0.005, deltaG0Ev: 0 },
+    ],
+    lambdaEv: 0.2,
+    temperatureK: 300,
+    dimensions: 1 as const,
+    form: 'random-walk' as const,
+  };
+}

@@ -27,6 +27,9 @@ import type { Pair } from '@gapwise/contracts';
         <a mat-button [routerLink]="['/w', wid(), 'pairs', p.id, 'history']">
           <mat-icon aria-hidden="true" svgIcon="history"></mat-icon> Version history
         </a>
+        <a mat-button [routerLink]="['/w', wid(), 'pairs', p.id, 'solvents']">
+          <mat-icon aria-hidden="true" svgIcon="functions"></mat-icon> Solvent choice
+        </a>
         <a mat-button [routerLink]="['/w', wid(), 'reports']" [queryParams]="{ pairId: p.id }">
           <mat-icon aria-hidden="true" svgIcon="description"></mat-icon> Reports
         </a>
