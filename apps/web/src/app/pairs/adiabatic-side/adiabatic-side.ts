@@ -29,7 +29,8 @@ interface Rates {
       <section class="adiabatic" aria-labelledby="adiabatic-h">
         <h2 id="adiabatic-h">Adiabatic side ({{ regime() }} coupling)</h2>
         <p class="why">
-          The golden-rule rate overestimates here. With a nuclear frequency ν<sub>n</sub> = 10¹³ s⁻¹:
+          The golden-rule rate overestimates here. With a nuclear frequency ν<sub>n</sub> = 10¹³
+          s⁻¹:
         </p>
         <dl>
           @if (r.kappa) {
