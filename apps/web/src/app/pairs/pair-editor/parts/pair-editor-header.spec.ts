@@ -31,6 +31,7 @@ describe('PairEditorHeader', () => {
     expect(links).toEqual([
       '/w/w1/pairs',
       '/w/w1/pairs/p1/history',
+      '/w/w1/pairs/p1/solvents',
       '/w/w1/reports?pairId=p1',
       '/w/w1/reports/new?pairId=p1',
     ]);
