@@ -6,7 +6,7 @@
  */
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { launchChromium, shoot, signIn, type Gapwise } from './support/browser';
+import { apiWrite, launchChromium, shoot, signIn, type Gapwise } from './support/browser';
 
 const baseUrl = inject('baseUrl');
 let gw: Gapwise;
@@ -45,7 +45,31 @@ describe('solvent choice in chromium', () => {
     const pairs = (await (
       await page.request.get(`${baseUrl}/api/workspaces/${lab.id}/pairs?q=DA-3`)
     ).json()) as { items: { id: string; name: string }[] };
-    const item = pairs.items.find((p) => p.name === 'DA-3')!;
+    const da3 = pairs.items.find((p) => p.name === 'DA-3')!;
+    // Other browser tests change DA-3 (a series fit replaces its λₒ derivation), so this test works
+    // on its own copy of DA-3's first version, whose ΔG° and λₒ are derived from potentials and
+    // geometry as seeded.
+    const seeded = (await (
+      await page.request.get(`${baseUrl}/api/pairs/${da3.id}/versions/1`)
+    ).json()) as Record<string, unknown> & { parameters: Array<Record<string, unknown>> };
+    const copy = await apiWrite(page, baseUrl, 'post', `/api/workspaces/${lab.id}/pairs`, {
+      name: 'DA-3 (solvent choice copy)',
+      donor: seeded['donor'],
+      acceptor: seeded['acceptor'],
+      medium: seeded['medium'],
+      temperature: seeded['temperature'],
+      temperatureUnit: seeded['temperatureUnit'],
+      model: seeded['model'],
+      parameters: seeded.parameters.map((p) => ({
+        kind: p['kind'],
+        value: p['value'],
+        unit: p['unit'],
+        uncertainty: p['uncertainty'],
+        provenance: p['provenance'],
+      })),
+    });
+    expect(copy.status()).toBe(201);
+    const item = (await copy.json()) as { id: string };
     const before = (await (await page.request.get(`${baseUrl}/api/pairs/${item.id}`)).json()) as {
       version: number;
       results: { log10k: number };
